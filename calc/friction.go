@@ -66,10 +66,22 @@ func friction(re, rr, x0 float64) float64 {
 		x := colebrookX(re, rr, x0)
 		return 1 / (x * x)
 	}
+	lo, hi := transitionShift(rr)
+	return transitionFriction(re, rr, lo, hi)
+}
+
+// transitionShift returns the corrections that make Churchill's curve meet
+// 64/Re at Re = 2000 (lo) and Colebrook–White at Re = 4000 (hi).
+func transitionShift(rr float64) (lo, hi float64) {
+	xt := colebrookX(ReTurbulentMin, rr, 0)
+	lo = 64/ReLaminarMax - churchill(ReLaminarMax, rr)
+	hi = 1/(xt*xt) - churchill(ReTurbulentMin, rr)
+	return lo, hi
+}
+
+// transitionFriction is the shifted Churchill factor for 2000 < re < 4000.
+func transitionFriction(re, rr, lo, hi float64) float64 {
 	w := (re - ReLaminarMax) / (ReTurbulentMin - ReLaminarMax)
-	xt := colebrookX(ReTurbulentMin, rr, x0)
-	lo := 64/ReLaminarMax - churchill(ReLaminarMax, rr)
-	hi := 1/(xt*xt) - churchill(ReTurbulentMin, rr)
 	return churchill(re, rr) + (1-w)*lo + w*hi
 }
 
@@ -105,7 +117,7 @@ func colebrookX(re, rr, x0 float64) float64 {
 // churchill is the Darcy form of Churchill's 1977 all-regime correlation
 // (see FrictionFactor).
 func churchill(re, rr float64) float64 {
-	a := -2.457 * math.Log(math.Pow(7/re, 0.9)+0.27*rr)
+	a := -2.457 * math.Log(math.Exp(0.9*math.Log(7/re))+0.27*rr)
 	a2 := a * a
 	a4 := a2 * a2
 	a8 := a4 * a4
@@ -119,5 +131,6 @@ func churchill(re, rr float64) float64 {
 	l2 := l * l
 	l4 := l2 * l2
 	l12 := l4 * l4 * l4
-	return 8 * math.Pow(l12+math.Pow(A+B, -1.5), 1.0/12)
+	ab := A + B
+	return 8 * math.Exp(math.Log(l12+1/(ab*math.Sqrt(ab)))/12)
 }

@@ -43,9 +43,9 @@ const (
 // K = 1 into a receiving surface), ΣK = K_entrance + K_up-leg + K_down-leg,
 // and f = FrictionFactor(ρVD/μ, ε/D). N identical hoses in parallel share H;
 // the total flow is N·V·πD²/4. The equation is solved for V by fixed-point
-// iteration V ← √(2gH/(1 + ΣK + f(V)L/D)), which contracts (rate < ½ in
-// laminar flow, ≈ 1/8 in rough turbulent flow) because f·V² grows with V;
-// iterations stop at a relative change below 1e-12.
+// branch: closed form when laminar, Newton's method on 1/√f when turbulent,
+// bracketing in the transition (see solveVelocity); the result satisfies the
+// energy equation to about 1e-12 relative.
 //
 // Crest pressure while flowing (absolute), energy equation surface → crest:
 //
@@ -148,14 +148,14 @@ func Solve(s Siphon) (Result, error) {
 
 	kSum := s.Hose.KMinor()
 	rr := float64(s.Hose.Roughness) / D
-	V, f, re, _ := solveVelocity(H, kSum, L/D, rho*D/mu, rr)
+	V, f, re := solveVelocity(H, kSum, L/D, rho*D/mu, rr)
 
 	kCrest := 1 + s.Hose.KEntrance + s.Hose.KUpLeg + f*lUp/D
 	velHead := V * V / (2 * g)
 	r.FlowingCrestLimit = r.MaxCrestHeight - Length(kCrest*velHead)
 	r.WorkingCrestHeight = r.FlowingCrestLimit - Length(allowance)
 	r.CrestMargin = r.WorkingCrestHeight - Length(lift)
-	r.CrestPressure = Pressure(patm - rho*g*lift - rho*g*kCrest*velHead)
+	r.CrestPressure = Pressure(crestPressure(patm, rho, lift, V, kCrest))
 	if float64(r.CrestPressure) <= pv {
 		return notRunning(WarnCannotRun)
 	}
@@ -189,29 +189,97 @@ func Solve(s Siphon) (Result, error) {
 	return r, nil
 }
 
-// solveVelocity solves H = (V²/2g)(1 + k + f(Re)·lOverD) for V by fixed-point
-// iteration. reOverV is ρD/μ. It returns V, f, Re and the last 1/√f iterate.
-func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re, x float64) {
+// solveVelocity solves the energy equation
+//
+//	φ(V) = V²·(A + f(cV)·B) − 2gH = 0,  A = 1 + ΣK, B = L/D, c = ρD/μ
+//
+// for the hose velocity V. φ increases with V in every regime (f·V² grows
+// with V), so the root is unique and is found branch by branch:
+//
+//   - laminar: with f = 64/Re, φ is the quadratic A·V² + (64B/c)·V − 2gH,
+//     solved in closed form; accepted when its Re ≤ 2000;
+//   - turbulent: substituting V(x) = √(2gH/(A + B/x²)) with x = 1/√f into
+//     Colebrook–White leaves one equation in x,
+//     R(x) = x + 2 log10( ε/(3.7D) + 2.51·√(A x² + B)/(c √(2gH)) ) = 0,
+//     with R′ > 1, solved by Newton's method; accepted when its Re ≥ 4000;
+//   - otherwise the root lies in 2000 < Re < 4000 and is bracketed there;
+//     the Illinois variant of regula falsi finds it.
+//
+// It returns V, the Darcy f and Re.
+func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 	twoGH := 2 * StandardGravity * H
-	f = 0.02
-	V = math.Sqrt(twoGH / (1 + k + f*lOverD))
-	for i := 0; i < 500; i++ {
-		re = reOverV * V
-		if re >= ReTurbulentMin {
-			x = colebrookX(re, rr, x)
-			f = 1 / (x * x)
-		} else {
-			f = friction(re, rr, 0)
+	A := 1 + k
+	B := lOverD
+	c := reOverV
+
+	// Laminar branch, closed form (the cancellation-free root of the quadratic).
+	bl := 64 * B / c
+	V = 2 * twoGH / (bl + math.Sqrt(bl*bl+4*A*twoGH))
+	if re = c * V; re <= ReLaminarMax {
+		return V, 64 / re, re
+	}
+
+	// Turbulent branch, Newton on x = 1/√f.
+	a := rr / 3.7
+	beta := 2.51 / (c * math.Sqrt(twoGH))
+	const k10 = 2 / math.Ln10
+	x := 7.0 // f ≈ 0.02
+	for i := 0; i < 60; i++ {
+		q := math.Sqrt(A*x*x + B)
+		s := a + beta*q
+		r := x + k10*math.Log(s)
+		d := r / (1 + k10*beta*A*x/(q*s))
+		x -= d
+		if x <= 0 {
+			x = 1e-3
 		}
-		vNew := math.Sqrt(twoGH / (1 + k + f*lOverD))
-		d := vNew - V
-		V = vNew
-		if math.Abs(d) <= 1e-12*V {
+		if math.Abs(d) <= 1e-14*x {
 			break
 		}
 	}
-	re = reOverV * V
-	return V, f, re, x
+	V = math.Sqrt(twoGH / (A + B/(x*x)))
+	if re = c * V; re >= ReTurbulentMin {
+		return V, 1 / (x * x), re
+	}
+
+	// Transitional band: Illinois regula falsi on V in [2000/c, 4000/c].
+	lo, hi := transitionShift(rr)
+	phi := func(v float64) float64 {
+		return v*v*(A+transitionFriction(c*v, rr, lo, hi)*B) - twoGH
+	}
+	v0, v1 := ReLaminarMax/c, ReTurbulentMin/c
+	p0, p1 := phi(v0), phi(v1)
+	side := 0
+	V = v0
+	for i := 0; i < 200 && p0 != p1; i++ {
+		V = (v0*p1 - v1*p0) / (p1 - p0)
+		p := phi(V)
+		if p == 0 || math.Abs(v1-v0) <= 1e-13*V {
+			break
+		}
+		if (p > 0) == (p1 > 0) {
+			v1, p1 = V, p
+			if side == -1 {
+				p0 /= 2
+			}
+			side = -1
+		} else {
+			v0, p0 = V, p
+			if side == 1 {
+				p1 /= 2
+			}
+			side = 1
+		}
+	}
+	re = c * V
+	return V, transitionFriction(re, rr, lo, hi), re
+}
+
+// crestPressure is the absolute crest pressure while flowing (Bernoulli with
+// losses, source surface → crest): p_atm − ρg·lift − kCrest·ρV²/2, where
+// kCrest = 1 + K_entrance + K_up-leg + f·L_up/D.
+func crestPressure(patm, rho, lift, v, kCrest float64) float64 {
+	return patm - rho*StandardGravity*lift - kCrest*rho*v*v/2
 }
 
 // airClearing is the Wisner et al. (1975) air-clearing velocity for inside
