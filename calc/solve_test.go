@@ -398,3 +398,24 @@ func BenchmarkSolve(b *testing.B) {
 		})
 	}
 }
+
+// BenchmarkSteadyCase is one full steady solve as the screen does it on a
+// keystroke: barometric pressure from altitude, water properties at the
+// temperature and that pressure, then Solve.
+func BenchmarkSteadyCase(b *testing.B) {
+	s := demoCase()
+	b.ReportAllocs()
+	for b.Loop() {
+		p, err := StandardAtmosphere(350)
+		if err != nil {
+			b.Fatal(err)
+		}
+		fl, err := Water(Celsius(12), p)
+		if err != nil {
+			b.Fatal(err)
+		}
+		s.Fluid = fl
+		s.AtmPressure = p
+		sinkResult, _ = Solve(s)
+	}
+}
