@@ -1,0 +1,177 @@
+package tui
+
+import (
+	"flag"
+	"math"
+	"math/rand/v2"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"github.com/charmbracelet/x/ansi"
+
+	"drawdown/model"
+)
+
+// update rewrites golden files: go test ./tui/ -update. Shared by every test
+// in package tui.
+var update = flag.Bool("update", false, "rewrite golden files")
+
+// paneGolden compares an ANSI-stripped frame with
+// testdata/<TestName>/<case>.golden (the subtest name gives the path), and
+// rewrites the file under -update. It also checks the frame's size.
+func paneGolden(t *testing.T, frame string, w, h int) {
+	t.Helper()
+	plain := ansi.Strip(frame)
+	paneCheckFrame(t, plain, w, h)
+	path := filepath.Join("testdata", filepath.FromSlash(t.Name())+".golden")
+	if *update {
+		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(path, []byte(plain), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run with -update to create it)", err)
+	}
+	if string(want) != plain {
+		t.Errorf("frame differs from %s (run with -update after checking):\n--- got\n%s\n--- want\n%s", path, plain, want)
+	}
+}
+
+// paneCheckFrame asserts a plain frame is h lines of w cells with no NaN or
+// Inf anywhere.
+func paneCheckFrame(t *testing.T, plain string, w, h int) {
+	t.Helper()
+	if w <= 0 || h <= 0 {
+		if plain != "" {
+			t.Errorf("size %d×%d: want an empty frame, got %q", w, h, plain)
+		}
+		return
+	}
+	lines := strings.Split(plain, "\n")
+	if len(lines) != h {
+		t.Errorf("size %d×%d: %d lines", w, h, len(lines))
+	}
+	for i, l := range lines {
+		if got := ansi.StringWidth(l); got != w {
+			t.Errorf("size %d×%d: line %d is %d cells wide: %q", w, h, i, got, l)
+			break
+		}
+	}
+	for _, bad := range []string{"NaN", "Inf", "inf", "nan"} {
+		if strings.Contains(plain, bad) {
+			t.Errorf("size %d×%d: frame contains %q:\n%s", w, h, bad, plain)
+		}
+	}
+}
+
+// paneSizes are the pane sizes the root gives at 80×24 (compact main pane)
+// and 120×40 (wide side column and lower view), the sizes asked for in the
+// brief, and tiny sizes.
+var paneSizes = []struct {
+	name string
+	w, h int
+}{
+	{"78x10", 78, 10},
+	{"118x22", 118, 22},
+	{"44x21", 44, 21},   // compact layout: 80 − result column 36
+	{"28x20", 28, 20},   // wide layout: side column beside the result
+	{"120x17", 120, 17}, // wide layout: lower view
+	{"20x5", 20, 5},
+	{"1x1", 1, 1},
+}
+
+// svDemo is an invented case: a 2.4 m tall rain-water tank 1.8 m across,
+// drained over its rim to a drain 0.6 m below the floor. The limits are
+// round figures of the right size for cold water near sea level (about
+// 10.3 m theoretical, from memory), not computed here.
+func svDemo() SideGeometry {
+	return SideGeometry{
+		Tank: true, Shape: "vertical cylinder", TankHeight: 2.4, TankWidth: 1.8,
+		Level: 2.0, Intake: 0.1, Crest: 2.7, Outlet: -0.6,
+		HasTarget: true, Target: 0.35,
+		WorkingLimit: 7.0, TheoreticalLimit: 10.2,
+	}
+}
+
+func TestSideView(t *testing.T) {
+	cases := []struct {
+		name string
+		geo  SideGeometry
+		sys  model.System
+	}{
+		{"tank", svDemo(), model.SI},
+		{"tank_us", svDemo(), model.US},
+		{"over_working", func() SideGeometry {
+			g := svDemo()
+			g.Crest, g.WorkingLimit, g.TheoreticalLimit = 8.0, 5.5, 7.9
+			return g
+		}(), model.SI},
+		{"receiver", func() SideGeometry {
+			g := svDemo()
+			g.OutletSubmerged, g.Outlet, g.WorkingLimit, g.TheoreticalLimit = true, 0.8, 3.0, 4.0
+			return g
+		}(), model.SI},
+		{"pit_no_drop", SideGeometry{Level: 0, Intake: -0.5, Crest: 1.2, Outlet: 0.3, WorkingLimit: 6, TheoreticalLimit: 9.5}, model.SI},
+	}
+	for _, c := range cases {
+		for _, s := range paneSizes {
+			t.Run(c.name+"/"+s.name, func(t *testing.T) {
+				v := NewSideView(PlainDrawStyles(), c.sys)
+				v.SetSize(s.w, s.h)
+				v.SetGeometry(c.geo)
+				paneGolden(t, v.View(), s.w, s.h)
+				if testing.Verbose() && s.w > 20 {
+					t.Logf("\n%s", ansi.Strip(v.View()))
+				}
+			})
+		}
+	}
+}
+
+// Over-limit crest must be said in words, not colour alone.
+func TestSideViewOverLimitInWords(t *testing.T) {
+	g := svDemo()
+	g.Crest = g.Level + 11 // above the 10.2 m theoretical limit
+	v := NewSideView(PlainDrawStyles(), model.SI)
+	v.SetSize(78, 10)
+	v.SetGeometry(g)
+	if got := ansi.Strip(v.View()); !strings.Contains(got, "will not run") || !strings.Contains(got, "✗") {
+		t.Errorf("over-limit crest not stated in words:\n%s", got)
+	}
+}
+
+// Property: odd or random geometry at any size never panics and never shows
+// NaN or Inf, and the frame is always exactly w×h.
+func TestSideViewNeverBreaks(t *testing.T) {
+	rng := rand.New(rand.NewPCG(1, 2))
+	odd := []float64{0, -1, 1e-9, 1e9, -1e9, math.NaN(), math.Inf(1), math.Inf(-1), 3, 0.5}
+	pick := func() float64 {
+		if rng.IntN(3) == 0 {
+			return odd[rng.IntN(len(odd))]
+		}
+		return rng.Float64()*20 - 8
+	}
+	for i := 0; i < 3000; i++ {
+		g := SideGeometry{
+			Tank: rng.IntN(2) == 0, TankHeight: pick(), TankWidth: pick(),
+			Level: pick(), Intake: pick(), Crest: pick(), Outlet: pick(),
+			OutletSubmerged: rng.IntN(2) == 0, HasTarget: rng.IntN(2) == 0, Target: pick(),
+			WorkingLimit: pick(), TheoreticalLimit: pick(),
+		}
+		w, h := rng.IntN(130)-2, rng.IntN(45)-2
+		v := NewSideView(PlainDrawStyles(), model.System(rng.IntN(2)))
+		v.SetSize(w, h)
+		v.SetGeometry(g)
+		paneCheckFrame(t, ansi.Strip(v.View()), max(w, 0), max(h, 0))
+		if t.Failed() {
+			t.Fatalf("geometry %+v at %d×%d", g, w, h)
+		}
+	}
+}
