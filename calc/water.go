@@ -233,34 +233,55 @@ func WaterDensity(T Temperature, p Pressure) (Density, error) {
 }
 
 // waterRegion1Density evaluates ρ = 1/v from Eq. (7) without validation.
-// The integer powers come from tables filled by repeated multiplication
-// (about 90 multiplications, no math.Pow and no data-dependent branches).
+// The integer powers that Table 2 needs are built by short multiplication
+// ladders (no math.Pow, no data-dependent branches, at most eight
+// multiplications deep) and stored where the term loop looks them up.
 func waterRegion1Density(T, p float64) float64 {
 	pi := p / region1PStar
 	a := 7.1 - pi
 	b := region1TStar/T - 1.222
-	// ap[k] = a^k, k = 0…31; bt[k] = b^(k−41), k = 0…58 (J = −41…17).
+	c := 1 / b
+
+	// ap[k] = a^k for the k = I − 1 in Table 2: 0…4, 7, 20, 22, 28…31.
 	var ap [32]float64
+	a2 := a * a
+	a4 := a2 * a2
+	a8 := a4 * a4
+	a20 := a8 * a8 * a4
+	a28 := a20 * a8
+	ap[0], ap[1], ap[2], ap[3], ap[4] = 1, a, a2, a2*a, a4
+	ap[7] = a4 * a2 * a
+	ap[20], ap[22] = a20, a20*a2
+	ap[28], ap[29], ap[30], ap[31] = a28, a28*a, a28*a2, a28*a2*a
+
+	// bt[J+41] = b^J for the J in Table 2: −41…−38, −31, −29, −11, −9…0, 1,
+	// 3, 6, 10, 17.
 	var bt [59]float64
-	ap[0] = 1
-	for k := 1; k < len(ap); k++ {
-		ap[k] = ap[k-1] * a
-	}
-	bt[41] = 1
-	for k := 42; k < len(bt); k++ {
-		bt[k] = bt[k-1] * b
-	}
-	ib := 1 / b
-	for k := 40; k >= 0; k-- {
-		bt[k] = bt[k+1] * ib
-	}
-	var gpi float64
+	c2 := c * c
+	c4 := c2 * c2
+	c8 := c4 * c4
+	c16 := c8 * c8
+	c32 := c16 * c16
+	c29 := c16 * c8 * c4 * c
+	bt[41-41], bt[41-40], bt[41-39], bt[41-38] = c32*c8*c, c32*c8, c32*c4*c2*c, c32*c4*c2
+	bt[41-31], bt[41-29] = c29*c2, c29
+	bt[41-11], bt[41-9], bt[41-8], bt[41-7] = c8*c2*c, c8*c, c8, c4*c2*c
+	bt[41-6], bt[41-5], bt[41-4], bt[41-3] = c4*c2, c4*c, c4, c2*c
+	bt[41-2], bt[41-1], bt[41] = c2, c, 1
+	b2 := b * b
+	b4 := b2 * b2
+	b16 := b4 * b4 * b4 * b4
+	bt[41+1], bt[41+3], bt[41+6], bt[41+10], bt[41+17] = b, b2*b, b4*b2, b4*b4*b2, b16*b
+
 	// Terms with I = 0 (the first eight) do not depend on π and drop out
-	// of γ_π.
-	for k := 8; k < len(region1Terms); k++ {
-		t := &region1Terms[k]
-		gpi -= t.N * float64(t.I) * ap[t.I-1] * bt[t.J+41]
+	// of γ_π. Two partial sums shorten the dependency chain.
+	var g0, g1 float64
+	for k := 8; k+1 < len(region1Terms); k += 2 {
+		t0, t1 := &region1Terms[k], &region1Terms[k+1]
+		g0 -= t0.N * float64(t0.I) * ap[t0.I-1] * bt[t0.J+41]
+		g1 -= t1.N * float64(t1.I) * ap[t1.I-1] * bt[t1.J+41]
 	}
+	gpi := g0 + g1
 	v := waterGasConstant * T / p * pi * gpi
 	return 1 / v
 }

@@ -181,6 +181,29 @@ func TestWaterDensityIF97Table5(t *testing.T) {
 	}
 }
 
+// TestWaterRegion1PowerLadder checks the fast evaluation of γ_π against a
+// plain one with math.Pow, term by term from IF97 Table 2, over the whole of
+// Region 1 (analytic: the same sum evaluated two ways).
+func TestWaterRegion1PowerLadder(t *testing.T) {
+	for T := 273.15; T <= 623.15; T += 7.3 {
+		for _, p := range []float64{611.3, 1e4, 101325, 1e6, 2e7, 1e8} {
+			if p < waterSatPressure(T) {
+				continue
+			}
+			pi := p / region1PStar
+			tau := region1TStar / T
+			var gpi float64
+			for _, tm := range region1Terms {
+				gpi -= tm.N * float64(tm.I) * math.Pow(7.1-pi, float64(tm.I-1)) * math.Pow(tau-1.222, float64(tm.J))
+			}
+			want := 1 / (waterGasConstant * T / p * pi * gpi)
+			if got := waterRegion1Density(T, p); !waterClose(got, want, 1e-13, true) {
+				t.Errorf("ρ(%g K, %g Pa) = %.15g, plain sum gives %.15g (analytic)", T, p, got, want)
+			}
+		}
+	}
+}
+
 func TestWaterDensityOneAtmosphere(t *testing.T) {
 	const atm = 101325.0
 	tests := []struct {
