@@ -14,7 +14,7 @@ import "math"
 // 7488/3) and to ISO 2533:1975. The constants and equation numbers below were
 // taken from the collected reference note
 // (shared/reference/water-and-atmosphere.md, section 4), which read them from
-// secondary transcriptions of [USSA76] that agree with each other.
+// secondary copies of [USSA76] that agree with each other.
 
 // StandardSeaLevelPressure is the standard atmosphere's sea-level pressure
 // P0 = 101325 Pa ([USSA76] Table 2; one standard atmosphere).

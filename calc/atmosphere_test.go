@@ -8,10 +8,10 @@ import (
 
 // Sources; tags as in shared/reference/water-and-atmosphere.md (see
 // water_test.go). USSA76 table entries were read from the printed tables by
-// third parties [S]; the note found two independent transcriptions that agree
+// third parties [S]; the note found two independent copies that agree
 // with each other and with the defining formula.
 const (
-	srcUSSA76TableI = "U.S. Standard Atmosphere 1976, Table I (geometric altitude), via third-party transcriptions [S]"
+	srcUSSA76TableI = "U.S. Standard Atmosphere 1976, Table I (geometric altitude), via third-party copies [S]"
 	srcUSSA76TableH = "U.S. Standard Atmosphere 1976, geopotential-altitude table, via a third-party reading [S]"
 	srcUSSA76Exact  = "reference note §4, Eq. (33a) evaluated independently with the USSA76 constants [C]"
 	srcISAPa        = "ISA table values in Pa quoted by independent implementations (reference note §4) [S]"

@@ -23,7 +23,7 @@ import (
 //
 // Coefficients were checked against the collected reference note
 // (shared/reference/water-and-atmosphere.md, sections 1–3), which compared
-// them digit by digit with independent transcriptions.
+// them digit by digit with independent copies.
 
 // Limits of the formulations used here, SI units.
 const (
