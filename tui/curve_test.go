@@ -1,0 +1,120 @@
+package tui
+
+import (
+	"math"
+	"math/rand/v2"
+	"strings"
+	"testing"
+
+	"github.com/charmbracelet/x/ansi"
+
+	"drawdown/model"
+)
+
+// cvTorricelli samples an invented drain of a constant-area tank through a
+// siphon whose flow goes as the square root of the head (fixed friction
+// factor): dh/dt = −k√(h−ho)/A, so h(t) = ho + (√(h0−ho) − k·t/(2A))²
+// (analytic solution, the Torricelli form). It stops at hStop.
+func cvTorricelli(h0, ho, hStop, area, k float64, n int) DrainCurve {
+	tStop := 2 * area / k * (math.Sqrt(h0-ho) - math.Sqrt(hStop-ho))
+	pts := make([]CurvePoint, n)
+	for i := range pts {
+		t := tStop * float64(i) / float64(n-1)
+		r := math.Sqrt(h0-ho) - k*t/(2*area)
+		pts[i] = CurvePoint{T: t, Level: ho + r*r, Flow: k * r}
+	}
+	return DrainCurve{Points: pts, StopTime: tStop, StopLevel: pts[n-1].Level}
+}
+
+func TestCurveView(t *testing.T) {
+	// 1.8 m across (2.54 m²), 2.0 m → intake stop at 0.35 m, outlet −0.6 m,
+	// about 2.3 L/s at the start: about 25 minutes.
+	intake := cvTorricelli(2.0, -0.6, 0.35, 2.54, 0.00143, 60)
+	intake.StopReason = "intake"
+	target := intake
+	target.HasTarget, target.Target = true, 0.35
+	target.StopReason = "target"
+	// Into a receiver: the levels close in and the flow tapers off over
+	// several hours (head 1.2 m → 2 cm).
+	equal := cvTorricelli(2.0, 0.8, 0.82, 20, 0.0008, 80)
+	equal.StopReason = "equal"
+	// A bucket-sized sump: seconds.
+	short := cvTorricelli(0.5, 0, 0.05, 0.1, 0.004, 20)
+	short.StopReason = "crest"
+	cases := []struct {
+		name string
+		c    DrainCurve
+		set  bool
+		sys  model.System
+	}{
+		{"intake", intake, true, model.SI},
+		{"target_us", target, true, model.US},
+		{"equal_hours", equal, true, model.SI},
+		{"short_seconds", short, true, model.SI},
+		{"empty", DrainCurve{}, false, model.SI},
+		{"one_point", DrainCurve{Points: []CurvePoint{{0, 1.2, 0}}, StopLevel: 1.2, StopReason: "intake"}, true, model.SI},
+	}
+	for _, c := range cases {
+		for _, s := range paneSizes {
+			t.Run(c.name+"/"+s.name, func(t *testing.T) {
+				v := NewCurveView(PlainDrawStyles(), c.sys)
+				v.SetSize(s.w, s.h)
+				if c.set {
+					v.SetCurve(c.c)
+				}
+				paneGolden(t, v.View(), s.w, s.h)
+				if testing.Verbose() && s.w > 20 {
+					t.Logf("\n%s", ansi.Strip(v.View()))
+				}
+			})
+		}
+	}
+}
+
+func TestCurveViewMessages(t *testing.T) {
+	v := NewCurveView(PlainDrawStyles(), model.SI)
+	v.SetSize(78, 10)
+	if got := ansi.Strip(v.View()); !strings.Contains(got, "No drain plan: set a tank in the Tank pane") {
+		t.Errorf("empty curve: %q", got)
+	}
+	c := cvTorricelli(2.0, -0.6, 0.35, 2.54, 0.00143, 60)
+	c.StopReason = "intake"
+	v.SetCurve(c)
+	got := ansi.Strip(v.View())
+	for _, want := range []string{"intake uncovered", "■", "min", "m ┤"} {
+		if !strings.Contains(got, want) {
+			t.Errorf("frame lacks %q:\n%s", want, got)
+		}
+	}
+}
+
+// Property: random and degenerate curves at any size never panic, never
+// show NaN or Inf and always fill the pane exactly.
+func TestCurveViewNeverBreaks(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 4))
+	odd := []float64{0, -1, 1e-12, 1e12, -1e12, math.NaN(), math.Inf(1), math.Inf(-1)}
+	pick := func(scale float64) float64 {
+		if rng.IntN(4) == 0 {
+			return odd[rng.IntN(len(odd))]
+		}
+		return rng.Float64() * scale
+	}
+	for i := 0; i < 2000; i++ {
+		n := rng.IntN(12)
+		c := DrainCurve{StopTime: pick(1e5), StopLevel: pick(5), StopReason: []string{"", "target", "intake", "crest", "equal", "odd"}[rng.IntN(6)],
+			HasTarget: rng.IntN(2) == 0, Target: pick(5)}
+		tt := 0.0
+		for j := 0; j < n; j++ {
+			tt += pick(1e4)
+			c.Points = append(c.Points, CurvePoint{T: tt, Level: pick(5), Flow: pick(0.05) - 0.01})
+		}
+		w, h := rng.IntN(130)-2, rng.IntN(45)-2
+		v := NewCurveView(PlainDrawStyles(), model.System(rng.IntN(2)))
+		v.SetSize(w, h)
+		v.SetCurve(c)
+		paneCheckFrame(t, ansi.Strip(v.View()), max(w, 0), max(h, 0))
+		if t.Failed() {
+			t.Fatalf("curve %+v at %d×%d", c, w, h)
+		}
+	}
+}
