@@ -13,11 +13,11 @@ import (
 //	        Formulation 1997 for the Thermodynamic Properties of Water and
 //	        Steam", International Association for the Properties of Water and
 //	        Steam, 2007 revision, 2012 edition. http://www.iapws.org/relguide/IF97-Rev.html
-//	        Also W. Wagner et al., J. Eng. Gas Turbines Power 122 (2000)
-//	        150–182, doi:10.1115/1.483186 (citation details from memory).
+//	        (URL from memory). Also W. Wagner et al., J. Eng. Gas Turbines
+//	        Power 122 (2000) 150–182, doi:10.1115/1.483186 (details from memory).
 //	[R12]   IAPWS R12-08, "Release on the IAPWS Formulation 2008 for the
 //	        Viscosity of Ordinary Water Substance", Berlin, September 2008.
-//	        http://www.iapws.org/relguide/viscosity.html
+//	        http://www.iapws.org/relguide/viscosity.htm
 //	        M. L. Huber et al., J. Phys. Chem. Ref. Data 38(2) (2009) 101–125,
 //	        doi:10.1063/1.3088050.
 //

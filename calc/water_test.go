@@ -330,6 +330,20 @@ func TestWaterViscosityR1208Table4(t *testing.T) {
 	}
 }
 
+// TestWaterViscosityFiniteOverRange: everywhere in the accepted rectangle
+// the result is finite and positive, even for (T, ρ) pairs that are not a
+// real fluid state.
+func TestWaterViscosityFiniteOverRange(t *testing.T) {
+	for T := waterMinTemperature; T <= waterViscosityMaxTemperature; T += 9 {
+		for _, rho := range []float64{1e-300, 1e-3, 1, 50, 322, 600, 900, 1000, 1100, 1250} {
+			mu, err := WaterViscosity(Temperature(T), Density(rho))
+			if err != nil || math.IsNaN(float64(mu)) || math.IsInf(float64(mu), 0) || mu <= 0 {
+				t.Errorf("WaterViscosity(%g K, %g kg/m³) = %v, %v; want finite and positive", T, rho, mu, err)
+			}
+		}
+	}
+}
+
 func TestWaterViscosityOneAtmosphere(t *testing.T) {
 	const atm = 101325.0
 	tests := []struct {
