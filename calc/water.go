@@ -318,12 +318,13 @@ const (
 //	μ̄1 = exp[ ρ̄ Σ_{i=0..5} (1/T̄ − 1)ⁱ Σ_{j=0..6} Hᵢⱼ (ρ̄ − 1)ʲ ]
 //	T̄ = T/647.096 K,  ρ̄ = ρ/(322 kg/m³),  μ* = 1×10⁻⁶ Pa·s
 //
-// The critical enhancement μ̄2 is taken as 1. IAPWS states that it is
+// The critical enhancement μ̄2 (Eq. 14 ff., which needs IAPWS-95
+// derivatives) is taken as 1. IAPWS's page for the release says the term is
 // negligible except very close to the critical point (647.096 K,
-// 322 kg/m³) and may be omitted outside the critical region; at the liquid
-// temperatures a drain meets (0–100 °C) it is exactly irrelevant. R12-08
-// Table 4 gives its check values with μ̄2 = 1, and this function reproduces
-// them.
+// 322 kg/m³), should be omitted for industrial use and may be omitted
+// outside the critical region (as quoted in the reference note, §3). Liquid
+// water at 0–100 °C lies far outside that region. R12-08 Table 4 gives its
+// check values with μ̄2 = 1, and this function reproduces them.
 //
 // T in K, ρ in kg/m³ (use WaterDensity; [R12] is defined with IAPWS-95
 // density, and IF97 density changes μ by less than 0.003 % at 0–100 °C and
