@@ -148,9 +148,10 @@ type DrainPlan struct {
 // Method. Q depends on the levels only through the head H (the lift enters
 // only the crest check), so Q(H), the required intake submergence S(H) and the
 // flowing crest limit C(H) are sampled from Solve at 6–24 heads spaced evenly
-// in ln H between the lowest reachable head and the start head, and
-// interpolated by local cubics in ln H (ln Q is nearly linear in ln H: Q ∝ H^½
-// for fixed losses, ∝ H for laminar flow). The stop is the first of:
+// in ln H between the lowest reachable head and the start head (in a stand-in
+// geometry with the plan's smallest lift and the real up-leg), and
+// interpolated by local cubics in u = √H, Q as u·φ(u) (φ is constant for fixed
+// losses, linear in u for laminar flow). The stop is the first of:
 //
 //   - target:  h = Target;
 //   - intake:  h − z_intake = S(H);
