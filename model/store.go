@@ -1,0 +1,525 @@
+package model
+
+import (
+	"bytes"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"io/fs"
+	"os"
+	"path/filepath"
+	"runtime"
+	"sort"
+	"strconv"
+	"strings"
+	"time"
+	"unicode"
+)
+
+// The job file is drawdown's own JSON format:
+//
+//	{
+//	  "schema": "drawdown-job",
+//	  "version": 1,
+//	  "name": "...",
+//	  "units": "SI",
+//	  "inputs": {"hose.id": "38 mm", ...},
+//	  "checklist": {...}, "readings": [...], "log": [...],
+//	  "resume": {"pane": "...", "step": 0},
+//	  ...
+//	}
+//
+// Encode writes it with sorted keys and two-space indents, so that the same
+// Job always gives the same bytes. Decode reads the current version, migrates
+// older ones and refuses newer ones.
+
+// MaxJobFileSize bounds the bytes Decode reads (a job with thousands of
+// readings is well under 1 MiB).
+const MaxJobFileSize = 16 << 20
+
+// Errors wrapped by *JobFileError; test with errors.Is.
+var (
+	// ErrDamaged: the file is not valid JSON or holds values of the wrong
+	// kind (cut short, edited by hand, disk trouble).
+	ErrDamaged = errors.New("damaged job file")
+	// ErrNotJob: valid JSON but not a drawdown job (no "schema":
+	// "drawdown-job").
+	ErrNotJob = errors.New("not a drawdown job file")
+	// ErrFutureVersion: written by a newer drawdown in a format version this
+	// build does not know.
+	ErrFutureVersion = errors.New("job file from a newer version")
+	// ErrWouldOverwrite: SaveAtomic refused to replace a file it cannot read.
+	ErrWouldOverwrite = errors.New("refused to overwrite an unreadable job file")
+)
+
+// JobFileError reports a job file that cannot be read or written. Path is
+// empty when the data did not come from a file (Decode on a reader).
+type JobFileError struct {
+	Path    string
+	Version int    // the file's format version, when known
+	Detail  string // what is wrong, in plain words
+	Err     error  // ErrDamaged, ErrNotJob, ErrFutureVersion, ErrWouldOverwrite or an I/O error
+}
+
+func (e *JobFileError) Error() string {
+	s := "job file"
+	if e.Path != "" {
+		s += " " + e.Path
+	}
+	return s + ": " + e.Detail
+}
+
+// Unwrap returns the cause.
+func (e *JobFileError) Unwrap() error { return e.Err }
+
+// Encode writes j to w as a job file in the current format version. Schema
+// and Version are written as JobSchema and JobVersion whatever j holds. It
+// fails (writing nothing) if a value cannot be represented, e.g. a NaN
+// reading level.
+func Encode(w io.Writer, j Job) error {
+	b, err := encodeBytes(j)
+	if err != nil {
+		return err
+	}
+	_, err = w.Write(b)
+	return err
+}
+
+func encodeBytes(j Job) ([]byte, error) {
+	j.Schema = JobSchema
+	j.Version = JobVersion
+	if j.Inputs == nil {
+		j.Inputs = map[FieldID]string{}
+	}
+	b, err := json.MarshalIndent(j, "", "  ")
+	if err != nil {
+		return nil, &JobFileError{Detail: "cannot write the job: " + err.Error(), Err: err}
+	}
+	return append(b, '\n'), nil
+}
+
+// Decode reads a job file from r. It reads the current format, migrates
+// older versions to it, and refuses a newer version or damaged data with a
+// *JobFileError that says what is wrong. Decode never panics on any input.
+func Decode(r io.Reader) (Job, error) {
+	data, err := io.ReadAll(io.LimitReader(r, MaxJobFileSize+1))
+	if err != nil {
+		return Job{}, &JobFileError{Detail: "cannot read: " + err.Error(), Err: err}
+	}
+	if len(data) > MaxJobFileSize {
+		return Job{}, damaged(fmt.Sprintf("larger than %d MiB; not a job file this tool wrote", MaxJobFileSize>>20))
+	}
+	return decodeBytes(data)
+}
+
+func damaged(detail string) *JobFileError {
+	return &JobFileError{Detail: detail + "; the file was left unchanged", Err: ErrDamaged}
+}
+
+func decodeBytes(data []byte) (Job, error) {
+	if len(bytes.TrimSpace(data)) == 0 {
+		return Job{}, damaged("empty (0 bytes of job data)")
+	}
+	var raw map[string]json.RawMessage
+	if err := json.Unmarshal(data, &raw); err != nil {
+		return Job{}, damaged(jsonProblem(err))
+	}
+	var schema string
+	if err := json.Unmarshal(raw["schema"], &schema); err != nil || schema != JobSchema {
+		return Job{}, &JobFileError{Detail: `not a drawdown job (no "schema": "drawdown-job"); the file was left unchanged`, Err: ErrNotJob}
+	}
+	var version int
+	if err := json.Unmarshal(raw["version"], &version); err != nil {
+		return Job{}, damaged(`the "version" entry is missing or not a whole number`)
+	}
+	if version > JobVersion {
+		return Job{}, &JobFileError{Version: version, Err: ErrFutureVersion, Detail: fmt.Sprintf(
+			"written by a newer drawdown (format version %d; this build reads versions 1 to %d); "+
+				"the file was left unchanged: open it with the newer drawdown", version, JobVersion)}
+	}
+	if version < 1 {
+		return Job{}, damaged(fmt.Sprintf("format version %d does not exist", version))
+	}
+	if version < JobVersion {
+		var err error
+		if data, err = migrate(raw, version); err != nil {
+			return Job{}, &JobFileError{Version: version, Detail: "cannot bring format version " +
+				strconv.Itoa(version) + " up to date: " + err.Error() + "; the file was left unchanged", Err: ErrDamaged}
+		}
+	}
+	var j Job
+	if err := json.Unmarshal(data, &j); err != nil {
+		return Job{}, damaged(jsonProblem(err))
+	}
+	j.Schema, j.Version = JobSchema, JobVersion
+	if j.Inputs == nil {
+		j.Inputs = map[FieldID]string{}
+	}
+	return j, nil
+}
+
+// jsonProblem turns an encoding/json error into plain words with a position.
+func jsonProblem(err error) string {
+	var se *json.SyntaxError
+	var te *json.UnmarshalTypeError
+	switch {
+	case errors.As(err, &se):
+		return fmt.Sprintf("not valid JSON at byte %d (%v); it may have been cut short", se.Offset, se)
+	case errors.As(err, &te):
+		if te.Field == "" {
+			return "the file holds a JSON " + te.Value + ", not a job object"
+		}
+		return fmt.Sprintf("the entry %q holds a JSON %s where a %s belongs (byte %d)", te.Field, te.Value, te.Type, te.Offset)
+	}
+	return err.Error()
+}
+
+// migrations[v] turns a version-v file into a version-(v+1) one, working on
+// the top-level JSON entries. Version 1 is the first format, so there are
+// none yet; when the format changes, bump JobVersion, add the step here and
+// add a version-1 fixture to testdata so that the step stays tested.
+var migrations = map[int]func(map[string]json.RawMessage) error{}
+
+// migrate applies the steps from version v up to JobVersion and returns the
+// updated JSON.
+func migrate(raw map[string]json.RawMessage, v int) ([]byte, error) {
+	for ; v < JobVersion; v++ {
+		step, ok := migrations[v]
+		if !ok {
+			return nil, fmt.Errorf("no conversion from version %d", v)
+		}
+		if err := step(raw); err != nil {
+			return nil, err
+		}
+	}
+	raw["version"] = json.RawMessage(strconv.Itoa(JobVersion))
+	return json.Marshal(raw)
+}
+
+// Load reads the job file at path. Errors are *JobFileError values carrying
+// the path.
+func Load(path string) (Job, error) {
+	f, err := os.Open(path)
+	if err != nil {
+		return Job{}, &JobFileError{Path: path, Detail: "cannot open: " + plainIOError(err), Err: err}
+	}
+	defer f.Close()
+	j, err := Decode(f)
+	if err != nil {
+		var fe *JobFileError
+		if errors.As(err, &fe) {
+			fe.Path = path
+		}
+		return Job{}, err
+	}
+	return j, nil
+}
+
+func plainIOError(err error) string {
+	var pe *fs.PathError
+	if errors.As(err, &pe) {
+		return pe.Err.Error()
+	}
+	return err.Error()
+}
+
+// SaveAtomic writes j to path so that the file always holds either the
+// previous save or this one, whole, even if the process is killed or the
+// power fails part way: it writes a temporary file in the same directory,
+// flushes it to disk (fsync), renames it over path and flushes the
+// directory. The file gets mode 0600 (a job may name people and places);
+// missing directories are made with mode 0700.
+//
+// SaveAtomic refuses (ErrWouldOverwrite) to replace an existing file that
+// does not decode as a job of this or an older version, so a damaged or
+// newer-version file is never lost; see ReplaceDamaged.
+func SaveAtomic(path string, j Job) error {
+	if old, err := os.ReadFile(path); err == nil {
+		if _, derr := decodeBytes(old); derr != nil {
+			detail := "cannot be read, so it was not overwritten"
+			var fe *JobFileError
+			if errors.As(derr, &fe) {
+				detail = fe.Detail + "; not overwritten"
+				detail = strings.Replace(detail, "; the file was left unchanged", "", 1)
+			}
+			return &JobFileError{Path: path, Detail: detail + " (save under a new name, or keep a copy and replace it)",
+				Err: errors.Join(ErrWouldOverwrite, derr)}
+		}
+	} else if !errors.Is(err, fs.ErrNotExist) {
+		return &JobFileError{Path: path, Detail: "cannot check the existing file: " + plainIOError(err), Err: err}
+	}
+	return writeAtomic(path, j)
+}
+
+// ReplaceDamaged keeps a copy of the unreadable file at path (as
+// path.damaged, or path.damaged-2, … so that no earlier copy is replaced)
+// and then saves j there. It returns the copy's path.
+func ReplaceDamaged(path string, j Job) (string, error) {
+	old, err := os.ReadFile(path)
+	if err != nil && !errors.Is(err, fs.ErrNotExist) {
+		return "", &JobFileError{Path: path, Detail: "cannot read the existing file: " + plainIOError(err), Err: err}
+	}
+	keep := ""
+	if err == nil {
+		for i := 1; ; i++ {
+			keep = path + ".damaged"
+			if i > 1 {
+				keep += "-" + strconv.Itoa(i)
+			}
+			f, err := os.OpenFile(keep, os.O_WRONLY|os.O_CREATE|os.O_EXCL, 0o600)
+			if errors.Is(err, fs.ErrExist) {
+				continue
+			}
+			if err != nil {
+				return "", &JobFileError{Path: keep, Detail: "cannot keep a copy: " + plainIOError(err), Err: err}
+			}
+			_, werr := f.Write(old)
+			if serr := f.Sync(); werr == nil {
+				werr = serr
+			}
+			if cerr := f.Close(); werr == nil {
+				werr = cerr
+			}
+			if werr != nil {
+				return "", &JobFileError{Path: keep, Detail: "cannot keep a copy: " + plainIOError(werr), Err: werr}
+			}
+			break
+		}
+	}
+	return keep, writeAtomic(path, j)
+}
+
+func writeAtomic(path string, j Job) error {
+	b, err := encodeBytes(j)
+	if err != nil {
+		if fe, ok := err.(*JobFileError); ok {
+			fe.Path = path
+		}
+		return err
+	}
+	return writeFileAtomic(path, b)
+}
+
+// tempPrefix marks temporary files; a killed writer may leave one behind,
+// and a later save removes those older than staleTemp.
+const staleTemp = time.Minute
+
+func writeFileAtomic(path string, b []byte) error {
+	dir, base := filepath.Split(path)
+	if dir == "" {
+		dir = "."
+	}
+	fail := func(what string, err error) error {
+		return &JobFileError{Path: path, Detail: what + ": " + plainIOError(err), Err: err}
+	}
+	if err := os.MkdirAll(dir, 0o700); err != nil {
+		return fail("cannot make the folder", err)
+	}
+	tmp, err := os.CreateTemp(dir, "."+base+".tmp-*")
+	if err != nil {
+		return fail("cannot write", err)
+	}
+	tmpName := tmp.Name()
+	ok := false
+	defer func() {
+		if !ok {
+			tmp.Close()
+			os.Remove(tmpName)
+		}
+	}()
+	if err := tmp.Chmod(0o600); err != nil && runtime.GOOS != "windows" {
+		return fail("cannot set the file mode", err)
+	}
+	if _, err := tmp.Write(b); err != nil {
+		return fail("cannot write", err)
+	}
+	if err := tmp.Sync(); err != nil {
+		return fail("cannot flush to disk", err)
+	}
+	if err := tmp.Close(); err != nil {
+		return fail("cannot write", err)
+	}
+	if err := os.Rename(tmpName, path); err != nil {
+		return fail("cannot replace the file", err)
+	}
+	ok = true
+	syncDir(dir)
+	removeStaleTemps(dir, base)
+	return nil
+}
+
+// syncDir flushes a directory entry change (the rename) to disk. Some
+// systems (Windows) cannot open a directory for this; the rename is then as
+// durable as the system makes it.
+func syncDir(dir string) {
+	d, err := os.Open(dir)
+	if err != nil {
+		return
+	}
+	d.Sync()
+	d.Close()
+}
+
+func removeStaleTemps(dir, base string) {
+	matches, _ := filepath.Glob(filepath.Join(dir, "."+globEscape(base)+".tmp-*"))
+	for _, m := range matches {
+		if fi, err := os.Stat(m); err == nil && time.Since(fi.ModTime()) > staleTemp {
+			os.Remove(m)
+		}
+	}
+}
+
+func globEscape(s string) string {
+	r := strings.NewReplacer(`\`, `\\`, "*", `\*`, "?", `\?`, "[", `\[`)
+	return r.Replace(s)
+}
+
+// Home returns drawdown's data folder: $DRAWDOWN_HOME when set (tests and
+// portable installs), else $XDG_DATA_HOME/drawdown, else the platform's
+// usual place (~/.local/share/drawdown on Linux and the BSDs, the user
+// configuration folder elsewhere).
+func Home() (string, error) {
+	if h := os.Getenv("DRAWDOWN_HOME"); h != "" {
+		return h, nil
+	}
+	if x := os.Getenv("XDG_DATA_HOME"); x != "" && filepath.IsAbs(x) {
+		return filepath.Join(x, "drawdown"), nil
+	}
+	switch runtime.GOOS {
+	case "darwin", "windows", "ios", "plan9":
+		d, err := os.UserConfigDir()
+		if err != nil {
+			return "", err
+		}
+		return filepath.Join(d, "drawdown"), nil
+	}
+	h, err := os.UserHomeDir()
+	if err != nil {
+		return "", err
+	}
+	return filepath.Join(h, ".local", "share", "drawdown"), nil
+}
+
+// JobsDir returns the folder of job files, <Home>/jobs. It does not create
+// it; SaveAtomic does on first save.
+func JobsDir() (string, error) {
+	h, err := Home()
+	if err != nil {
+		return "", err
+	}
+	return filepath.Join(h, "jobs"), nil
+}
+
+// JobFileName turns a job name into a file name: lower case, letters and
+// digits kept, other runs of characters made a single "-", ".json" added.
+func JobFileName(name string) string {
+	var b strings.Builder
+	dash := false
+	for _, r := range strings.ToLower(name) {
+		if unicode.IsLetter(r) || unicode.IsDigit(r) {
+			if dash && b.Len() > 0 {
+				b.WriteByte('-')
+			}
+			dash = false
+			b.WriteRune(r)
+		} else {
+			dash = true
+		}
+		if b.Len() >= 60 {
+			break
+		}
+	}
+	if b.Len() == 0 {
+		return "job.json"
+	}
+	return b.String() + ".json"
+}
+
+// NewJobPath returns a path in dir for a new job named name that does not
+// name an existing file (adding -2, -3, … as needed).
+func NewJobPath(dir, name string) string {
+	base := strings.TrimSuffix(JobFileName(name), ".json")
+	for i := 1; ; i++ {
+		p := filepath.Join(dir, base+".json")
+		if i > 1 {
+			p = filepath.Join(dir, base+"-"+strconv.Itoa(i)+".json")
+		}
+		if _, err := os.Lstat(p); errors.Is(err, fs.ErrNotExist) {
+			return p
+		}
+	}
+}
+
+// lastJobFile holds the path of the job open when drawdown last ran.
+const lastJobFile = "last-job"
+
+// LastJobPath returns the path of the job open when drawdown last ran, or ""
+// (and no error) when there is none.
+func LastJobPath() (string, error) {
+	h, err := Home()
+	if err != nil {
+		return "", err
+	}
+	b, err := os.ReadFile(filepath.Join(h, lastJobFile))
+	if errors.Is(err, fs.ErrNotExist) {
+		return "", nil
+	}
+	if err != nil {
+		return "", err
+	}
+	return strings.TrimSpace(string(b)), nil
+}
+
+// SetLastJob records path as the job to resume at the next start. The
+// record is written atomically with mode 0600.
+func SetLastJob(path string) error {
+	h, err := Home()
+	if err != nil {
+		return err
+	}
+	if abs, err := filepath.Abs(path); err == nil {
+		path = abs
+	}
+	return writeFileAtomic(filepath.Join(h, lastJobFile), []byte(path+"\n"))
+}
+
+// JobSummary is one entry of ListJobs.
+type JobSummary struct {
+	Path    string
+	Name    string
+	Site    string
+	Updated time.Time
+	Err     error // set when the file cannot be read; the entry is still listed
+}
+
+// ListJobs lists the job files (*.json) in dir, newest first. Unreadable
+// files are listed with Err set, so the UI can say so instead of hiding them.
+func ListJobs(dir string) ([]JobSummary, error) {
+	entries, err := os.ReadDir(dir)
+	if errors.Is(err, fs.ErrNotExist) {
+		return nil, nil
+	}
+	if err != nil {
+		return nil, err
+	}
+	var out []JobSummary
+	for _, e := range entries {
+		if e.IsDir() || !strings.HasSuffix(e.Name(), ".json") || strings.HasPrefix(e.Name(), ".") {
+			continue
+		}
+		p := filepath.Join(dir, e.Name())
+		s := JobSummary{Path: p}
+		if j, err := Load(p); err != nil {
+			s.Err = err
+			if fi, err := e.Info(); err == nil {
+				s.Updated = fi.ModTime()
+			}
+		} else {
+			s.Name, s.Site, s.Updated = j.Name, j.Site, j.Updated
+		}
+		out = append(out, s)
+	}
+	sort.SliceStable(out, func(a, b int) bool { return out[a].Updated.After(out[b].Updated) })
+	return out, nil
+}

@@ -1,0 +1,426 @@
+package model
+
+import (
+	"bufio"
+	"bytes"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"math"
+	"math/rand/v2"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"runtime"
+	"strconv"
+	"strings"
+	"testing"
+	"time"
+)
+
+func TestEncodeDecodeRoundTrip(t *testing.T) {
+	j := DemoJob()
+	j.Readings = []Reading{{At: t0, Level: 0.35, Note: "start"}, {At: t0.Add(10 * time.Minute), Level: 0.31}}
+	j.AddLog(t0, "siphon started")
+	j.Started = t0
+	j.Resume = Resume{Pane: "Checklist", Field: FieldLift, Step: 3, StepID: "x"}
+	var buf bytes.Buffer
+	if err := Encode(&buf, j); err != nil {
+		t.Fatal(err)
+	}
+	first := buf.String()
+	got, err := Decode(&buf)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var again bytes.Buffer
+	if err := Encode(&again, got); err != nil {
+		t.Fatal(err)
+	}
+	if again.String() != first {
+		t.Errorf("encode→decode→encode changed the bytes:\n%s\n---\n%s", first, again.String())
+	}
+	if got.Resume != j.Resume || got.Units != j.Units || len(got.Inputs) != len(j.Inputs) ||
+		!got.Started.Equal(j.Started) || len(got.Readings) != 2 || len(got.Checklist.Steps) != len(j.Checklist.Steps) {
+		t.Errorf("round trip lost data: %+v", got)
+	}
+	if !strings.Contains(first, `"schema": "drawdown-job"`) || !strings.Contains(first, `"version": 1`) ||
+		!strings.Contains(first, `"units": "SI"`) {
+		t.Errorf("header missing:\n%s", first[:200])
+	}
+}
+
+func TestEncodeRefusesNaN(t *testing.T) {
+	j := NewJob("nan", SI, t0)
+	j.Readings = []Reading{{At: t0, Level: math.NaN()}}
+	var buf bytes.Buffer
+	if err := Encode(&buf, j); err == nil {
+		t.Error("NaN reading encoded")
+	}
+	if buf.Len() != 0 {
+		t.Error("partial output written")
+	}
+}
+
+func TestDecodeFixtures(t *testing.T) {
+	cases := []struct {
+		file string
+		err  error
+		says string
+	}{
+		{"job-v1.json", nil, ""},
+		{"job-future.json", ErrFutureVersion, "newer drawdown (format version 2; this build reads versions 1 to 1)"},
+		{"job-damaged.json", ErrDamaged, "not valid JSON at byte"},
+		{"not-a-job.json", ErrNotJob, "not a drawdown job"},
+		{"job-v0.json", ErrDamaged, "format version 0 does not exist"},
+		{"job-wrong-type.json", ErrDamaged, `the entry "inputs" holds a JSON array`},
+		{"empty.json", ErrDamaged, "empty"},
+	}
+	for _, c := range cases {
+		path := filepath.Join("testdata", c.file)
+		j, err := Load(path)
+		if c.err == nil {
+			if err != nil {
+				t.Errorf("%s: %v", c.file, err)
+			}
+			continue
+		}
+		if !errors.Is(err, c.err) {
+			t.Errorf("%s: error %v does not wrap %v", c.file, err, c.err)
+			continue
+		}
+		msg := err.Error()
+		if !strings.Contains(msg, c.says) || !strings.Contains(msg, path) || !strings.Contains(msg, "left unchanged") {
+			t.Errorf("%s: message %q should name the path, say %q and that the file was left unchanged", c.file, msg, c.says)
+		}
+		if j.Name != "" {
+			t.Errorf("%s: partial job returned", c.file)
+		}
+	}
+}
+
+func TestFixtureFormatStable(t *testing.T) {
+	// The v1 fixture must re-encode to the same bytes: the file format of
+	// version 1 has not drifted.
+	b, err := os.ReadFile(filepath.Join("testdata", "job-v1.json"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	j, err := Decode(bytes.NewReader(b))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var out bytes.Buffer
+	Encode(&out, j)
+	if !bytes.Equal(out.Bytes(), b) {
+		t.Errorf("version-1 fixture re-encodes differently; if the format changed on purpose, bump JobVersion and add a migration")
+	}
+}
+
+func TestMigrateUnknownVersion(t *testing.T) {
+	// Version 1 is the first format: there is no step from 0.
+	if _, err := migrate(map[string]json.RawMessage{}, 0); err == nil || !strings.Contains(err.Error(), "no conversion from version 0") {
+		t.Errorf("migrate(0): %v", err)
+	}
+}
+
+func TestSaveAtomicAndLoad(t *testing.T) {
+	dir := t.TempDir()
+	path := filepath.Join(dir, "sub", "job.json")
+	j := DemoJob()
+	if err := SaveAtomic(path, j); err != nil {
+		t.Fatal(err)
+	}
+	fi, err := os.Stat(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if runtime.GOOS != "windows" && fi.Mode().Perm() != 0o600 {
+		t.Errorf("mode %v, want 0600 (issue 6 §4)", fi.Mode().Perm())
+	}
+	j.Inputs[FieldLift] = "0.7 m"
+	if err := SaveAtomic(path, j); err != nil {
+		t.Fatal(err)
+	}
+	got, err := Load(path)
+	if err != nil || got.Inputs[FieldLift] != "0.7 m" {
+		t.Fatalf("Load = %v, %v", got.Inputs[FieldLift], err)
+	}
+	left, _ := filepath.Glob(filepath.Join(dir, "sub", ".*tmp*"))
+	if len(left) != 0 {
+		t.Errorf("temporary files left: %v", left)
+	}
+}
+
+func TestSaveAtomicNeverOverwritesUnreadable(t *testing.T) {
+	for _, fixture := range []string{"job-damaged.json", "job-future.json", "not-a-job.json"} {
+		dir := t.TempDir()
+		path := filepath.Join(dir, "job.json")
+		orig, _ := os.ReadFile(filepath.Join("testdata", fixture))
+		os.WriteFile(path, orig, 0o600)
+		err := SaveAtomic(path, DemoJob())
+		if !errors.Is(err, ErrWouldOverwrite) || !strings.Contains(err.Error(), path) || !strings.Contains(err.Error(), "not overwritten") {
+			t.Errorf("%s: SaveAtomic = %v", fixture, err)
+		}
+		now, _ := os.ReadFile(path)
+		if !bytes.Equal(now, orig) {
+			t.Errorf("%s: file changed", fixture)
+		}
+		keep, err := ReplaceDamaged(path, DemoJob())
+		if err != nil || keep != path+".damaged" {
+			t.Fatalf("%s: ReplaceDamaged = %q, %v", fixture, keep, err)
+		}
+		kept, _ := os.ReadFile(keep)
+		if !bytes.Equal(kept, orig) {
+			t.Errorf("%s: damaged copy differs", fixture)
+		}
+		if _, err := Load(path); err != nil {
+			t.Errorf("%s: after replace: %v", fixture, err)
+		}
+		// A second replace keeps the first copy and makes another.
+		os.WriteFile(path, []byte("{"), 0o600)
+		keep2, err := ReplaceDamaged(path, DemoJob())
+		if err != nil || keep2 != path+".damaged-2" {
+			t.Errorf("%s: second ReplaceDamaged = %q, %v", fixture, keep2, err)
+		}
+	}
+}
+
+func TestHomeAndLastJob(t *testing.T) {
+	home := t.TempDir()
+	t.Setenv("DRAWDOWN_HOME", home)
+	d, err := JobsDir()
+	if err != nil || d != filepath.Join(home, "jobs") {
+		t.Errorf("JobsDir = %q, %v", d, err)
+	}
+	if p, err := LastJobPath(); err != nil || p != "" {
+		t.Errorf("LastJobPath before any = %q, %v", p, err)
+	}
+	path := filepath.Join(d, "a.json")
+	if err := SetLastJob(path); err != nil {
+		t.Fatal(err)
+	}
+	if p, err := LastJobPath(); err != nil || p != path {
+		t.Errorf("LastJobPath = %q, %v", p, err)
+	}
+	t.Setenv("DRAWDOWN_HOME", "")
+	xdg := t.TempDir()
+	t.Setenv("XDG_DATA_HOME", xdg)
+	if d, _ := JobsDir(); d != filepath.Join(xdg, "drawdown", "jobs") {
+		t.Errorf("JobsDir with XDG_DATA_HOME = %q", d)
+	}
+}
+
+func TestJobPathsAndList(t *testing.T) {
+	if got := JobFileName("Bund B2 — rainwater release!"); got != "bund-b2-rainwater-release.json" {
+		t.Errorf("JobFileName = %q", got)
+	}
+	if got := JobFileName("../../etc"); got != "etc.json" {
+		t.Errorf("JobFileName(../../etc) = %q", got)
+	}
+	dir := t.TempDir()
+	p1 := NewJobPath(dir, "Pit 3")
+	if err := SaveAtomic(p1, NewJob("Pit 3", SI, t0)); err != nil {
+		t.Fatal(err)
+	}
+	p2 := NewJobPath(dir, "Pit 3")
+	if p2 == p1 || filepath.Base(p2) != "pit-3-2.json" {
+		t.Errorf("NewJobPath = %q after %q", p2, p1)
+	}
+	later := NewJob("Vault 7", US, t0)
+	later.Updated = t0.Add(time.Hour)
+	SaveAtomic(p2, later)
+	os.WriteFile(filepath.Join(dir, "broken.json"), []byte("{"), 0o600)
+	list, err := ListJobs(dir)
+	if err != nil || len(list) != 3 {
+		t.Fatalf("ListJobs = %v, %v", list, err)
+	}
+	var names []string
+	for _, s := range list {
+		if s.Err != nil {
+			names = append(names, "!")
+		} else {
+			names = append(names, s.Name)
+		}
+	}
+	if !strings.Contains(strings.Join(names, ","), "Vault 7,Pit 3") || !strings.Contains(strings.Join(names, ","), "!") {
+		t.Errorf("ListJobs order/contents: %v", names)
+	}
+}
+
+func FuzzDecode(f *testing.F) {
+	for _, name := range []string{"job-v1.json", "job-future.json", "job-damaged.json", "not-a-job.json", "job-v0.json", "job-wrong-type.json"} {
+		b, err := os.ReadFile(filepath.Join("testdata", name))
+		if err == nil {
+			f.Add(b)
+		}
+	}
+	var buf bytes.Buffer
+	Encode(&buf, NewJob("x", US, t0))
+	f.Add(buf.Bytes())
+	f.Add([]byte(`{"schema":"drawdown-job","version":1,"inputs":{"lift":"\u0000"},"units":"us"}`))
+	f.Add([]byte(`{"schema":"drawdown-job","version":1,"readings":[{"at":"2026-01-01T00:00:00+05:30","level_m":1e308}]}`))
+	f.Fuzz(func(t *testing.T, data []byte) {
+		j, err := Decode(bytes.NewReader(data))
+		if err != nil {
+			var fe *JobFileError
+			if !errors.As(err, &fe) || fe.Detail == "" {
+				t.Fatalf("error %v is not a *JobFileError with a message", err)
+			}
+			return
+		}
+		var b1, b2 bytes.Buffer
+		if err := Encode(&b1, j); err != nil {
+			t.Fatalf("decoded job does not encode: %v", err)
+		}
+		j2, err := Decode(bytes.NewReader(b1.Bytes()))
+		if err != nil {
+			t.Fatalf("encoded job does not decode: %v\n%s", err, b1.String())
+		}
+		if err := Encode(&b2, j2); err != nil {
+			t.Fatal(err)
+		}
+		if !bytes.Equal(b1.Bytes(), b2.Bytes()) {
+			t.Fatalf("encode→decode→encode differs:\n%s\n---\n%s", b1.String(), b2.String())
+		}
+	})
+}
+
+// The kill test (issue 6 §4): a writer process saves successive versions of
+// a job as fast as it can and is killed (SIGKILL on Unix) at a random moment,
+// many times over. After every kill the file must load and hold either the
+// last save the writer reported complete or the one in flight, whole.
+
+const killEnv = "DRAWDOWN_KILL_TEST_FILE"
+
+// killPayload builds save number n: its log length and notes are tied to n
+// so that a file mixing two saves would be caught.
+func killPayload(n int) Job {
+	j := DemoJob()
+	j.Name = "kill test"
+	j.Notes = "save " + strconv.Itoa(n)
+	for i := 0; i < 200+n%50; i++ {
+		j.AddLog(t0.Add(time.Duration(i)*time.Second), fmt.Sprintf("entry %d of save %d %s", i, n, strings.Repeat("·", 100)))
+	}
+	return j
+}
+
+func checkKillFile(j Job) (int, error) {
+	n, err := strconv.Atoi(strings.TrimPrefix(j.Notes, "save "))
+	if err != nil {
+		return 0, fmt.Errorf("notes %q", j.Notes)
+	}
+	if len(j.Log) != 200+n%50 {
+		return 0, fmt.Errorf("save %d has %d log entries, want %d", n, len(j.Log), 200+n%50)
+	}
+	for i, e := range j.Log {
+		if !strings.HasPrefix(e.Text, fmt.Sprintf("entry %d of save %d ", i, n)) {
+			return 0, fmt.Errorf("save %d log entry %d is %q", n, i, e.Text[:30])
+		}
+	}
+	return n, nil
+}
+
+// TestKillWriterProcess is the writer; it runs only when started by
+// TestKillDuringSave.
+func TestKillWriterProcess(t *testing.T) {
+	path := os.Getenv(killEnv)
+	if path == "" {
+		t.Skip("writer process for TestKillDuringSave")
+	}
+	n := 0
+	if j, err := Load(path); err == nil {
+		if n, err = checkKillFile(j); err != nil {
+			fmt.Println("bad", err)
+			os.Exit(3)
+		}
+	}
+	fmt.Println("ready")
+	for {
+		n++
+		if err := SaveAtomic(path, killPayload(n)); err != nil {
+			fmt.Println("error", err)
+			os.Exit(3)
+		}
+		fmt.Println("saved", n)
+	}
+}
+
+func TestKillDuringSave(t *testing.T) {
+	if runtime.GOOS == "js" || runtime.GOOS == "wasip1" {
+		t.Skip("no processes")
+	}
+	rounds, budget := 80, 40*time.Second
+	if testing.Short() {
+		rounds, budget = 10, 10*time.Second
+	}
+	path := filepath.Join(t.TempDir(), "job.json")
+	rng := rand.New(rand.NewPCG(6, 4))
+	start := time.Now()
+	last, done, saves, inFlight := 0, 0, 0, 0
+	for done < rounds && time.Since(start) < budget {
+		cmd := exec.Command(os.Args[0], "-test.run=^TestKillWriterProcess$", "-test.count=1")
+		cmd.Env = append(os.Environ(), killEnv+"="+path)
+		out, err := cmd.StdoutPipe()
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := cmd.Start(); err != nil {
+			t.Fatal(err)
+		}
+		sc := bufio.NewScanner(out)
+		if !sc.Scan() || sc.Text() != "ready" {
+			cmd.Process.Kill()
+			cmd.Wait()
+			t.Fatalf("round %d: writer did not start: %q", done, sc.Text())
+		}
+		// Kill at a random moment: anywhere from before the first save to
+		// a few dozen saves in.
+		lines := make(chan string, 1024)
+		go func() {
+			for sc.Scan() {
+				lines <- sc.Text()
+			}
+			close(lines)
+		}()
+		time.Sleep(time.Duration(rng.IntN(60000)) * time.Microsecond)
+		cmd.Process.Kill()
+		for line := range lines {
+			if n, ok := strings.CutPrefix(line, "saved "); ok {
+				last, _ = strconv.Atoi(n)
+				saves++
+			} else {
+				t.Fatalf("round %d: writer said %q", done, line)
+			}
+		}
+		cmd.Wait()
+		if last == 0 {
+			done++
+			continue // killed before the first save ever completed
+		}
+		j, err := Load(path)
+		if err != nil {
+			t.Fatalf("round %d: after kill the file does not load: %v", done, err)
+		}
+		n, err := checkKillFile(j)
+		if err != nil {
+			t.Fatalf("round %d: %v", done, err)
+		}
+		// The file holds the last reported save, or the one in flight
+		// (renamed before the writer could report it).
+		if n != last && n != last+1 {
+			t.Fatalf("round %d: file holds save %d; last completed %d", done, n, last)
+		}
+		if n == last+1 {
+			inFlight++
+		}
+		last = n
+		done++
+	}
+	temps, _ := filepath.Glob(filepath.Join(filepath.Dir(path), ".job.json.tmp-*"))
+	t.Logf("%d kills in %v; %d saves reported; %d kills caught a save renamed but not yet reported; %d stray temporary files (removed by later saves after %v)",
+		done, time.Since(start).Round(time.Millisecond), saves, inFlight, len(temps), staleTemp)
+	if done < 10 {
+		t.Errorf("only %d kill rounds ran", done)
+	}
+}
