@@ -23,11 +23,11 @@ import (
 //   - poison-centre warnings against mouth siphoning, field-practice §3.2.
 
 var (
-	gasoline = Hazards{Flammable: true, FlammableClass: "IB", Environmental: true}
-	sewage   = Hazards{Biohazard: true, Environmental: true}
-	plain    = Hazards{}
-	// dikeWater is rain water inside an oil tank's secondary containment.
-	dikeWater = Hazards{Environmental: true}
+	hzGasoline = Hazards{Flammable: true, FlammableClass: "IB", Environmental: true}
+	hzSewage   = Hazards{Biohazard: true, Environmental: true}
+	hzPlain    = Hazards{}
+	// hzDikeWater is rain water inside an oil tank's secondary containment.
+	hzDikeWater = Hazards{Environmental: true}
 )
 
 func stepIDs(c Checklist) map[string]bool {
@@ -49,7 +49,7 @@ func TestChecklistIncludesRuleSteps(t *testing.T) {
 	}{
 		{
 			name:    "flammable liquid: bonding, grounding, ignition sources, approved containers",
-			ctx:     ChecklistContext{Liquid: "gasoline", Hazards: gasoline, Method: PrimeHandPump, Discharge: DischargeContainer},
+			ctx:     ChecklistContext{Liquid: "gasoline", Hazards: hzGasoline, Method: PrimeHandPump, Discharge: DischargeContainer},
 			want:    []string{"setup.bonding", "setup.ignition", "setup.containers", "prime.no-pressure", "stop.unbond", "closeout.store"},
 			source:  "NFPA 77; OSHA 29 CFR 1910.106(e)(6)(ii) (field-practice §3.3)",
 			wantRef: "NFPA 77",
@@ -63,14 +63,14 @@ func TestChecklistIncludesRuleSteps(t *testing.T) {
 		},
 		{
 			name:    "environmental discharge: inspection before release, sheen watch, inspection and record after, reseal",
-			ctx:     ChecklistContext{Liquid: "containment rain water", Hazards: dikeWater, Method: PrimeSubmerge, Discharge: DischargeStorm},
+			ctx:     ChecklistContext{Liquid: "containment rain water", Hazards: hzDikeWater, Method: PrimeSubmerge, Discharge: DischargeStorm},
 			want:    []string{"setup.inspect-before", "run.sheen", "closeout.inspect", "closeout.reseal"},
 			source:  "EPA 40 CFR 112.8(c)(3); 40 CFR 110 (field-practice §3.8)",
 			wantRef: "40 CFR 112.8(c)(3)",
 		},
 		{
 			name:    "biohazard: PPE, dedicated hose, decontamination",
-			ctx:     ChecklistContext{Liquid: "sewage", Hazards: sewage, Method: PrimePumpStart, Discharge: DischargeSewer},
+			ctx:     ChecklistContext{Liquid: "sewage", Hazards: hzSewage, Method: PrimePumpStart, Discharge: DischargeSewer},
 			want:    []string{"hazard.ppe.sewage", "setup.hose.dedicated", "closeout.decon"},
 			source:  "CDC, Handling Human Waste or Sewage (field-practice §3.4)",
 			wantRef: "CDC",
@@ -83,8 +83,8 @@ func TestChecklistIncludesRuleSteps(t *testing.T) {
 			wantRef: "1910.146",
 		},
 		{
-			name:   "plain water, submerge and cap: no fuel, sewage, sheen or confined-space steps",
-			ctx:    ChecklistContext{Liquid: "water", Hazards: plain, Method: PrimeSubmerge, Discharge: DischargeSameSite},
+			name:   "hzPlain water, submerge and cap: no fuel, hzSewage, sheen or confined-space steps",
+			ctx:    ChecklistContext{Liquid: "water", Hazards: hzPlain, Method: PrimeSubmerge, Discharge: DischargeSameSite},
 			want:   []string{"prime.no-mouth", "prime.submerge.fill", "prime.submerge.open", "setup.outlet", "setup.outlet-protection"},
 			absent: []string{"setup.bonding", "setup.ignition", "setup.containers", "prime.no-pressure", "stop.unbond", "hazard.fuel", "hazard.ppe.sewage", "closeout.decon", "setup.inspect-before", "closeout.inspect", "hazard.cs.permit", "hazard.edge", "setup.containment"},
 			source: "field-practice §2.1 (method) and §3 (steps that do not apply are left out)",
@@ -135,7 +135,7 @@ func TestChecklistIncludesRuleSteps(t *testing.T) {
 // only step that mentions the mouth is the standing prohibition. Source:
 // poison-centre warnings (field-practice §3.2); common practice.
 func TestChecklistNeverInstructsMouthPriming(t *testing.T) {
-	hazardSets := []Hazards{plain, gasoline, sewage, dikeWater, {Combustible: true}, {Hot: true, FreezingRisk: true}}
+	hazardSets := []Hazards{hzPlain, hzGasoline, hzSewage, hzDikeWater, {Combustible: true}, {Hot: true, FreezingRisk: true}}
 	methods := append(PrimingMethods(), "")
 	for _, h := range hazardSets {
 		for _, m := range methods {
@@ -199,7 +199,7 @@ func TestChecklistStructure(t *testing.T) {
 		order[s] = i
 	}
 	for _, m := range append(PrimingMethods(), "") {
-		c := BuildChecklist(ChecklistContext{Hazards: gasoline, Method: m, ConfinedSpace: true, OpenEdge: true, Receiver: true, Discharge: DischargeStorm})
+		c := BuildChecklist(ChecklistContext{Hazards: hzGasoline, Method: m, ConfinedSpace: true, OpenEdge: true, Receiver: true, Discharge: DischargeStorm})
 		seen := map[string]bool{}
 		last := -1
 		hasSection := map[Section]bool{}
@@ -247,7 +247,7 @@ func TestChecklistStopByMethod(t *testing.T) {
 
 func TestChecklistMark(t *testing.T) {
 	at := time.Date(2026, 5, 14, 9, 30, 0, 0, time.FixedZone("CEST", 2*3600))
-	c := BuildChecklist(ChecklistContext{Hazards: gasoline, Method: PrimeHandPump, Discharge: DischargeContainer})
+	c := BuildChecklist(ChecklistContext{Hazards: hzGasoline, Method: PrimeHandPump, Discharge: DischargeContainer})
 	first, ok := c.Current()
 	if !ok || first.ID != "hazard.liquid" {
 		t.Fatalf("Current = %v %v", first.ID, ok)
@@ -305,7 +305,7 @@ func TestChecklistMark(t *testing.T) {
 // their zone offset intact.
 func TestChecklistJSONRoundTrip(t *testing.T) {
 	at := time.Date(2026, 5, 14, 9, 30, 0, 0, time.FixedZone("", -5*3600))
-	c := BuildChecklist(ChecklistContext{Liquid: "sewage", Hazards: sewage, Method: PrimeSubmerge, ConfinedSpace: true, Discharge: DischargeSewer})
+	c := BuildChecklist(ChecklistContext{Liquid: "sewage", Hazards: hzSewage, Method: PrimeSubmerge, ConfinedSpace: true, Discharge: DischargeSewer})
 	_ = c.Mark("hazard.liquid", StateDone, "", "grey, septic odour", at)
 	_ = c.Mark("hazard.electrical", StateSkipped, "utility confirmed no supply in vault", "", at)
 	b, err := json.Marshal(c)
@@ -334,14 +334,14 @@ func TestChecklistJSONRoundTrip(t *testing.T) {
 // steps that no longer apply, and restores them when they apply again.
 func TestChecklistRebuildKeepsState(t *testing.T) {
 	at := time.Date(2026, 5, 14, 9, 30, 0, 0, time.UTC)
-	ctx := ChecklistContext{Liquid: "gasoline", Hazards: gasoline, Method: PrimeHandPump, Discharge: DischargeContainer}
+	ctx := ChecklistContext{Liquid: "gasoline", Hazards: hzGasoline, Method: PrimeHandPump, Discharge: DischargeContainer}
 	c := BuildChecklist(ctx)
 	_ = c.Mark("hazard.liquid", StateDone, "", "checked", at)
 	_ = c.Mark("setup.bonding", StateDone, "", "clamp on drum rim", at)
 	_ = c.Mark("setup.route", StateSkipped, "short straight run", "", at)
 
 	water := ctx
-	water.Liquid, water.Hazards = "water", plain
+	water.Liquid, water.Hazards = "water", hzPlain
 	w := c.Rebuild(water)
 	if w.Index("setup.bonding") >= 0 {
 		t.Error("bonding step kept for water")
@@ -363,7 +363,7 @@ func TestChecklistRebuildKeepsState(t *testing.T) {
 		t.Errorf("Dropped after restore = %+v", back.Dropped)
 	}
 	// Method change: prime steps change, hazard marks stay.
-	m := back.Rebuild(ChecklistContext{Liquid: "gasoline", Hazards: gasoline, Method: PrimeShakeValve, Discharge: DischargeContainer})
+	m := back.Rebuild(ChecklistContext{Liquid: "gasoline", Hazards: hzGasoline, Method: PrimeShakeValve, Discharge: DischargeContainer})
 	if m.Index("prime.pump.stroke") >= 0 || m.Index("prime.shake.stroke") < 0 {
 		t.Error("prime steps did not follow the method")
 	}
@@ -409,7 +409,7 @@ func TestHazardsFromTags(t *testing.T) {
 		t.Errorf("HazardsFromPresets = %+v, want %+v", p, wantP)
 	}
 	if c := BuildChecklist(ChecklistContext{Hazards: p}); c.Index("hazard.toxic") < 0 || c.Index("setup.bonding") < 0 {
-		t.Error("toxic or bonding step missing for gasoline from presets")
+		t.Error("toxic or bonding step missing for hzGasoline from presets")
 	}
 }
 
@@ -421,7 +421,7 @@ func TestChecklistHandPumpStrokes(t *testing.T) {
 }
 
 func BenchmarkBuildChecklist(b *testing.B) {
-	ctx := ChecklistContext{Hazards: gasoline, Method: PrimeHandPump, ConfinedSpace: true, Discharge: DischargeContainer}
+	ctx := ChecklistContext{Hazards: hzGasoline, Method: PrimeHandPump, ConfinedSpace: true, Discharge: DischargeContainer}
 	b.ReportAllocs()
 	var sink Checklist
 	for b.Loop() {

@@ -7,6 +7,8 @@ import (
 	"slices"
 	"strings"
 	"time"
+
+	"drawdown/calc"
 )
 
 // Field readings: the technician reads the source level off a rod, tape or
@@ -255,14 +257,28 @@ func FitReadings(readings []Reading, sim Simulator, opt FitOptions) (Fit, error)
 	}
 
 	// Re-predict from the last reading with the fitted ΔK.
+	// When the last reading is already at the stop, the stop came when the
+	// fitted curve from the first reading reached it (not after the last
+	// reading).
 	last := rs[len(rs)-1]
 	if c, err := sim(f.ExtraK, last.Level); err == nil && len(c.Times) > 0 {
 		f.Finish = last.At.Add(secondsDuration(c.End()))
 		f.StopLevel = c.Levels[len(c.Levels)-1]
 		f.Stop = c.Stop
-		f.Stopped = c.End() <= 0 || last.Level-f.StopLevel <= 0
+		f.Stopped = c.End() <= 0 || last.Level-f.StopLevel <= stoppedFall
 	} else {
 		f.Finish, f.StopLevel, f.Stopped = last.At, last.Level, true
+	}
+	if f.Stopped {
+		if c, err := sim(f.ExtraK, rs[0].Level); err == nil && len(c.Times) > 0 {
+			if end := rs[0].At.Add(secondsDuration(c.End())); end.Before(f.Finish) {
+				f.Finish = end
+			}
+			if f.Stop == "" || f.Stop == string(calc.StopIntake) && c.Stop != "" {
+				f.Stop = c.Stop
+			}
+			f.StopLevel = c.Levels[len(c.Levels)-1]
+		}
 	}
 
 	// Slowing: early fit against the recent window.
@@ -410,6 +426,10 @@ func goldenMin(f func(float64) float64, a, b, tol float64) (float64, float64) {
 	return d, fd
 }
 
+// stoppedFall: a last reading within this of the predicted stop level (m) is
+// taken as "stopped" (below what a tape or rod resolves; our choice).
+const stoppedFall = 0.002
+
 // secondsDuration converts seconds to a Duration, saturating instead of
 // overflowing (a drain of centuries is still a finite answer).
 func secondsDuration(s float64) time.Duration {
@@ -446,4 +466,83 @@ func PlannedAt(plan DrainCurve, start time.Time, first Reading, t time.Time) (le
 		}
 	}
 	return plan.LevelAt(t0 + t.Sub(first.At).Seconds()), true
+}
+
+// DrainSimulator wraps calc.PlanDrain as a Simulator for the planned drain
+// in: each call re-plans from startLevel with extraK added to the hose's
+// fitting losses.
+//
+//   - extraK ≥ 0 is added to the down-leg fittings (KDownLeg): it lowers the
+//     flow but leaves the crest-pressure check as planned. A loss at a
+//     clogging intake would also lower the crest pressure; the fit cannot
+//     tell where the loss sits, so the re-predicted crest stop is the plan's.
+//   - extraK < 0 scales the entrance, up-leg and down-leg coefficients by
+//     (ΣK + ΔK)/ΣK (each must stay ≥ 0); below −ΣK it is an error.
+//
+// With a receiver, the receiver's starting level is moved up by the volume
+// the source has already lost between the planned start level and
+// startLevel (a volume balance on the two tanks). A startLevel at or below
+// the target gives a one-point curve (nothing left to drain).
+func DrainSimulator(in calc.DrainInput) Simulator {
+	base := in
+	return func(extraK, startLevel float64) (DrainCurve, error) {
+		if math.IsNaN(extraK) || math.IsInf(extraK, 0) || math.IsNaN(startLevel) || math.IsInf(startLevel, 0) {
+			return DrainCurve{}, errors.New("simulate drain: extra loss coefficient or start level not finite")
+		}
+		d := base
+		h := d.Siphon.Hose
+		sum := h.KMinor()
+		switch {
+		case extraK >= 0:
+			h.KDownLeg += extraK
+		case sum+extraK < 0 || sum == 0:
+			return DrainCurve{}, fmt.Errorf("simulate drain: extra loss coefficient %g would make the fittings' ΣK = %g negative", extraK, sum+extraK)
+		default:
+			s := (sum + extraK) / sum
+			h.KEntrance *= s
+			h.KUpLeg *= s
+			h.KDownLeg *= s
+		}
+		d.Siphon.Hose = h
+		if d.Tank != nil && startLevel > float64(d.Tank.Height()) {
+			startLevel = float64(d.Tank.Height())
+		}
+		switch {
+		case startLevel <= float64(d.Target):
+			return DrainCurve{Times: []float64{0}, Levels: []float64{startLevel}, Stop: string(calc.StopTarget)}, nil
+		case startLevel <= float64(d.Siphon.Geometry.Intake):
+			return DrainCurve{Times: []float64{0}, Levels: []float64{startLevel}, Stop: string(calc.StopIntake)}, nil
+		}
+		if d.Receiver != nil && d.Tank != nil {
+			r := *d.Receiver
+			moved := d.Tank.Volume(d.Siphon.Geometry.Surface) - d.Tank.Volume(calc.Length(startLevel))
+			if moved > 0 && r.Tank != nil {
+				r.Level = calc.LevelForVolume(r.Tank, r.Tank.Volume(r.Level)+moved)
+			}
+			d.Receiver = &r
+		}
+		d.Siphon.Geometry.Surface = calc.Length(startLevel)
+		p, err := calc.PlanDrain(d)
+		if err != nil {
+			return DrainCurve{}, err
+		}
+		c := PlanCurve(p)
+		if len(c.Times) == 0 {
+			c.Times, c.Levels = []float64{0}, []float64{startLevel}
+		}
+		return c, nil
+	}
+}
+
+// PlanCurve converts a calc drain plan's curve to a DrainCurve (for the
+// record and the planned-versus-observed comparison).
+func PlanCurve(p calc.DrainPlan) DrainCurve {
+	c := DrainCurve{Stop: string(p.StopReason)}
+	c.Times = make([]float64, 0, len(p.Curve))
+	c.Levels = make([]float64, 0, len(p.Curve))
+	for _, pt := range p.Curve {
+		c.Times = append(c.Times, float64(pt.Time))
+		c.Levels = append(c.Levels, float64(pt.Level))
+	}
+	return c
 }

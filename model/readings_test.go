@@ -7,6 +7,8 @@ import (
 	"strings"
 	"testing"
 	"time"
+
+	"drawdown/calc"
 )
 
 // torricelli is an analytic quasi-steady drain of a vertical-sided tank
@@ -62,11 +64,11 @@ func (d torricelli) sim(extraK, h0 float64) (DrainCurve, error) {
 	return c, nil
 }
 
-// pond: 12 m × 12 m sump (A = 144 m²) drained through a 50 mm hose to an
+// rdPond: 12 m × 12 m sump (A = 144 m²) drained through a 50 mm hose to an
 // outlet 1.5 m below the floor, stopping at 0.2 m; R0 = 12 (invented case).
-var pond = torricelli{A: 144, a: math.Pi * 0.05 * 0.05 / 4, z: -1.5, hs: 0.2, R0: 12}
+var rdPond = torricelli{A: 144, a: math.Pi * 0.05 * 0.05 / 4, z: -1.5, hs: 0.2, R0: 12}
 
-var t0 = time.Date(2026, 5, 14, 8, 0, 0, 0, time.FixedZone("CEST", 2*3600))
+var rdT0 = time.Date(2026, 5, 14, 8, 0, 0, 0, time.FixedZone("CEST", 2*3600))
 
 func readingsFrom(d torricelli, extraK func(t float64) float64, h0 float64, every time.Duration, n int, noise float64, seed uint64) []Reading {
 	rng := rand.New(rand.NewPCG(seed, 1))
@@ -84,7 +86,7 @@ func readingsFrom(d torricelli, extraK func(t float64) float64, h0 float64, ever
 		if noise > 0 {
 			lv += noise * (2*rng.Float64() - 1)
 		}
-		rs = append(rs, Reading{At: t0.Add(time.Duration(t) * time.Second), Level: lv})
+		rs = append(rs, Reading{At: rdT0.Add(time.Duration(t) * time.Second), Level: lv})
 	}
 	return rs
 }
@@ -108,8 +110,8 @@ func TestFitRecoversExtraK(t *testing.T) {
 	}
 	for _, tc := range cases {
 		t.Run(tc.name, func(t *testing.T) {
-			rs := readingsFrom(pond, constK(tc.trueK), 2.0, 15*time.Minute, 9, 0, 1)
-			f, err := FitReadings(rs, pond.sim, FitOptions{SumK: 8})
+			rs := readingsFrom(rdPond, constK(tc.trueK), 2.0, 15*time.Minute, 9, 0, 1)
+			f, err := FitReadings(rs, rdPond.sim, FitOptions{SumK: 8})
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -119,11 +121,11 @@ func TestFitRecoversExtraK(t *testing.T) {
 			}
 			// Re-predicted finish from the last reading equals the analytic stop.
 			last := rs[len(rs)-1]
-			want := last.At.Add(time.Duration(pond.stopTime(tc.trueK, last.Level) * float64(time.Second)))
+			want := last.At.Add(time.Duration(rdPond.stopTime(tc.trueK, last.Level) * float64(time.Second)))
 			if d := f.Finish.Sub(want); math.Abs(d.Seconds()) > 0.01*want.Sub(last.At).Seconds()+1 {
 				t.Errorf("Finish = %v, want %v (analytic stop time)", f.Finish, want)
 			}
-			if math.Abs(f.StopLevel-pond.hs) > 1e-9 || f.Stop != "intake" {
+			if math.Abs(f.StopLevel-rdPond.hs) > 1e-9 || f.Stop != "intake" {
 				t.Errorf("stop = %g %q", f.StopLevel, f.Stop)
 			}
 			if f.Slowing {
@@ -147,15 +149,15 @@ func TestFitNoiseRobust(t *testing.T) {
 	const trueK, seeds = 8.0, 50
 	var worst, sum, worstR, sumR float64
 	for seed := uint64(1); seed <= seeds; seed++ {
-		rs := readingsFrom(pond, constK(trueK), 2.0, 10*time.Minute, 13, 0.005, seed)
-		f, err := FitReadings(rs, pond.sim, FitOptions{SumK: 8})
+		rs := readingsFrom(rdPond, constK(trueK), 2.0, 10*time.Minute, 13, 0.005, seed)
+		f, err := FitReadings(rs, rdPond.sim, FitOptions{SumK: 8})
 		if err != nil {
 			t.Fatal(err)
 		}
 		e := math.Abs(f.ExtraK-trueK) / trueK
 		sum += e
 		worst = math.Max(worst, e)
-		eR := math.Abs(f.ExtraK-trueK) / (pond.R0 + trueK)
+		eR := math.Abs(f.ExtraK-trueK) / (rdPond.R0 + trueK)
 		sumR += eR
 		worstR = math.Max(worstR, eR)
 		if f.Slowing {
@@ -163,7 +165,7 @@ func TestFitNoiseRobust(t *testing.T) {
 		}
 	}
 	t.Logf("ΔK=%.0f on R0=%.0f, ±5 mm noise, 13 readings over 2 h: |ΔK error| mean %.1f %%, worst %.1f %%; total resistance error mean %.1f %%, worst %.1f %%",
-		trueK, pond.R0, 100*sum/seeds, 100*worst, 100*sumR/seeds, 100*worstR)
+		trueK, rdPond.R0, 100*sum/seeds, 100*worst, 100*sumR/seeds, 100*worstR)
 	if sumR/seeds > 0.03 || worstR > 0.08 {
 		t.Errorf("resistance error mean %.1f %% (max 3 %%), worst %.1f %% (max 8 %%)", 100*sumR/seeds, 100*worstR)
 	}
@@ -180,8 +182,8 @@ func TestFitSlowing(t *testing.T) {
 		}
 		return 2 + 200*(t-3600)/3600 // screen blinding over the second hour
 	}
-	rs := readingsFrom(pond, clog, 2.0, 10*time.Minute, 13, 0, 1)
-	f, err := FitReadings(rs, pond.sim, FitOptions{SumK: 8})
+	rs := readingsFrom(rdPond, clog, 2.0, 10*time.Minute, 13, 0, 1)
+	f, err := FitReadings(rs, rdPond.sim, FitOptions{SumK: 8})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -192,8 +194,8 @@ func TestFitSlowing(t *testing.T) {
 		t.Errorf("message %q", f.Message)
 	}
 
-	steady := readingsFrom(pond, constK(30), 2.0, 10*time.Minute, 13, 0, 1)
-	g, err := FitReadings(steady, pond.sim, FitOptions{SumK: 8})
+	steady := readingsFrom(rdPond, constK(30), 2.0, 10*time.Minute, 13, 0, 1)
+	g, err := FitReadings(steady, rdPond.sim, FitOptions{SumK: 8})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -206,20 +208,20 @@ func TestFitSlowing(t *testing.T) {
 }
 
 func TestFitFewReadings(t *testing.T) {
-	one := []Reading{{At: t0, Level: 1.5}}
-	for _, rs := range [][]Reading{nil, one, {{At: t0, Level: 1.5}, {At: t0, Level: 1.4}}} {
-		if _, err := FitReadings(rs, pond.sim, FitOptions{}); !errors.Is(err, ErrFewReadings) {
+	one := []Reading{{At: rdT0, Level: 1.5}}
+	for _, rs := range [][]Reading{nil, one, {{At: rdT0, Level: 1.5}, {At: rdT0, Level: 1.4}}} {
+		if _, err := FitReadings(rs, rdPond.sim, FitOptions{}); !errors.Is(err, ErrFewReadings) {
 			t.Errorf("%d readings: err = %v, want ErrFewReadings", len(rs), err)
 		}
 	}
 	if !strings.Contains(ErrFewReadings.Error(), "at least two") {
 		t.Error("message does not say how many readings are needed")
 	}
-	bad := []Reading{{At: t0, Level: math.NaN()}, {At: t0.Add(time.Hour), Level: 1}}
-	if _, err := FitReadings(bad, pond.sim, FitOptions{}); err == nil || !strings.Contains(err.Error(), "reading 1") {
+	bad := []Reading{{At: rdT0, Level: math.NaN()}, {At: rdT0.Add(time.Hour), Level: 1}}
+	if _, err := FitReadings(bad, rdPond.sim, FitOptions{}); err == nil || !strings.Contains(err.Error(), "reading 1") {
 		t.Errorf("NaN level: err = %v", err)
 	}
-	if _, err := FitReadings([]Reading{{Level: 1}, {At: t0, Level: 1}}, pond.sim, FitOptions{}); err == nil {
+	if _, err := FitReadings([]Reading{{Level: 1}, {At: rdT0, Level: 1}}, rdPond.sim, FitOptions{}); err == nil {
 		t.Error("reading without a time accepted")
 	}
 	if _, err := FitReadings(one, nil, FitOptions{}); err == nil {
@@ -229,11 +231,11 @@ func TestFitFewReadings(t *testing.T) {
 
 // Unsorted input gives the same answer and is not modified.
 func TestFitUnsorted(t *testing.T) {
-	rs := readingsFrom(pond, constK(5), 2.0, 15*time.Minute, 6, 0, 1)
+	rs := readingsFrom(rdPond, constK(5), 2.0, 15*time.Minute, 6, 0, 1)
 	shuffled := []Reading{rs[3], rs[0], rs[5], rs[1], rs[4], rs[2]}
 	keep := append([]Reading(nil), shuffled...)
-	a, _ := FitReadings(rs, pond.sim, FitOptions{})
-	b, _ := FitReadings(shuffled, pond.sim, FitOptions{})
+	a, _ := FitReadings(rs, rdPond.sim, FitOptions{})
+	b, _ := FitReadings(shuffled, rdPond.sim, FitOptions{})
 	if math.Abs(a.ExtraK-b.ExtraK) > 1e-9 {
 		t.Errorf("order changed the fit: %g vs %g", a.ExtraK, b.ExtraK)
 	}
@@ -246,8 +248,8 @@ func TestFitUnsorted(t *testing.T) {
 
 // A level that does not fall at all hits the upper bound and says so.
 func TestFitNotDraining(t *testing.T) {
-	rs := []Reading{{At: t0, Level: 1.8}, {At: t0.Add(30 * time.Minute), Level: 1.8}, {At: t0.Add(time.Hour), Level: 1.8}}
-	f, err := FitReadings(rs, pond.sim, FitOptions{})
+	rs := []Reading{{At: rdT0, Level: 1.8}, {At: rdT0.Add(30 * time.Minute), Level: 1.8}, {At: rdT0.Add(time.Hour), Level: 1.8}}
+	f, err := FitReadings(rs, rdPond.sim, FitOptions{})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -274,21 +276,101 @@ func TestDrainCurveInterp(t *testing.T) {
 	if _, ok := c.TimeAt(0.1); ok {
 		t.Error("TimeAt below the stop found")
 	}
-	first := Reading{At: t0, Level: 1.5}
-	if lv, ok := PlannedAt(c, time.Time{}, first, t0.Add(5*time.Second)); !ok || lv != 1 {
+	first := Reading{At: rdT0, Level: 1.5}
+	if lv, ok := PlannedAt(c, time.Time{}, first, rdT0.Add(5*time.Second)); !ok || lv != 1 {
 		t.Errorf("PlannedAt aligned = %g %v", lv, ok)
 	}
-	if lv, ok := PlannedAt(c, t0, first, t0.Add(15*time.Second)); !ok || lv != 0.75 {
+	if lv, ok := PlannedAt(c, rdT0, first, rdT0.Add(15*time.Second)); !ok || lv != 0.75 {
 		t.Errorf("PlannedAt from start = %g %v", lv, ok)
 	}
 }
 
 func BenchmarkFitReadings(b *testing.B) {
-	rs := readingsFrom(pond, constK(5), 2.0, 10*time.Minute, 13, 0.005, 1)
+	rs := readingsFrom(rdPond, constK(5), 2.0, 10*time.Minute, 13, 0.005, 1)
 	b.ReportAllocs()
 	var sink Fit
 	for b.Loop() {
-		sink, _ = FitReadings(rs, pond.sim, FitOptions{SumK: 8})
+		sink, _ = FitReadings(rs, rdPond.sim, FitOptions{SumK: 8})
 	}
 	_ = sink
+}
+
+// sumpDrain is an invented case on the real planner: a 3 m vertical tank of
+// water at 15 °C (density, viscosity and vapour pressure from IAPWS-IF97 and
+// IAPWS 2008 as tabulated in shared/reference/water-and-atmosphere.md,
+// rounded), drained by a 25 mm, 12 m hose over a 0.6 m lift to an outlet
+// 1.2 m below the floor.
+func sumpDrain(t testing.TB) calc.DrainInput {
+	t.Helper()
+	tank, err := calc.NewVerticalCylinder(1.6, 2.5)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return calc.DrainInput{
+		Siphon: calc.Siphon{
+			Fluid:       calc.Fluid{Density: 999.1, Viscosity: 1.138e-3, VaporPressure: 1705},
+			AtmPressure: 101325,
+			Hose:        calc.Hose{Diameter: 0.025, Length: 12, Roughness: 1.5e-6, KEntrance: 0.78, KUpLeg: 0.3, KDownLeg: 0.6},
+			Hoses:       1,
+			Geometry:    calc.Geometry{Surface: 2.2, Intake: 0.1, Crest: 2.8, Outlet: -1.2},
+		},
+		Tank:        tank,
+		CurvePoints: 400,
+	}
+}
+
+// Readings taken off the real planner's curve with a known extra loss
+// recover it: the planner itself is the oracle (checked in calc against the
+// closed forms of shared/reference/hydraulics.md §7), so this checks the fit
+// and DrainSimulator's plumbing, including a first reading taken 20 minutes
+// after the start.
+func TestFitOnPlannedDrain(t *testing.T) {
+	in := sumpDrain(t)
+	sim := DrainSimulator(in)
+	for _, trueK := range []float64{0, 3, 15} {
+		truth, err := sim(trueK, float64(in.Siphon.Geometry.Surface))
+		if err != nil {
+			t.Fatal(err)
+		}
+		var rs []Reading
+		for i := 0; i < 10; i++ {
+			s := 1200 + float64(i)*600
+			rs = append(rs, Reading{At: rdT0.Add(time.Duration(s) * time.Second), Level: truth.LevelAt(s)})
+		}
+		f, err := FitReadings(rs, sim, FitOptions{SumK: in.Siphon.Hose.KMinor()})
+		if err != nil {
+			t.Fatal(err)
+		}
+		// interpolation of a 400-point curve limits the recovery
+		tol := math.Max(0.05, 0.02*trueK)
+		if math.Abs(f.ExtraK-trueK) > tol {
+			t.Errorf("ΔK = %.3f, want %.3f ± %.3f (planner with known ΔK)", f.ExtraK, trueK, tol)
+		}
+		wantFinish := rdT0.Add(time.Duration(truth.End() * float64(time.Second)))
+		if d := math.Abs(f.Finish.Sub(wantFinish).Seconds()); d > 0.01*truth.End() {
+			t.Errorf("ΔK %.0f: finish off by %.0f s of %.0f s", trueK, d, truth.End())
+		}
+		if math.Abs(f.StopLevel-truth.Levels[len(truth.Levels)-1]) > 0.005 || f.Stop != truth.Stop {
+			t.Errorf("stop %.3f %s, want %.3f %s", f.StopLevel, f.Stop, truth.Levels[len(truth.Levels)-1], truth.Stop)
+		}
+		t.Logf("ΔK %.0f: fitted %.4f, finish error %.1f s of %.0f s, stop %s", trueK, f.ExtraK, f.Finish.Sub(wantFinish).Seconds(), truth.End(), f.Stop)
+		// Mid-drain: four readings (20 to 50 min), finish predicted ahead.
+		g, err := FitReadings(rs[:4], sim, FitOptions{SumK: in.Siphon.Hose.KMinor()})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if g.Stopped || math.Abs(g.Finish.Sub(wantFinish).Seconds()) > 0.01*truth.End() {
+			t.Errorf("ΔK %.0f mid-drain: finish %v (stopped %v), want %v", trueK, g.Finish, g.Stopped, wantFinish)
+		}
+	}
+	// Negative ΔK scales the fittings; beyond −ΣK it is refused.
+	if _, err := sim(-in.Siphon.Hose.KMinor()-0.1, 2); err == nil {
+		t.Error("ΣK below zero accepted")
+	}
+	if c, err := sim(-0.5, 2); err != nil || len(c.Times) < 2 {
+		t.Errorf("ΔK −0.5: %v", err)
+	}
+	if c, _ := sim(0, 0.05); len(c.Times) != 1 || c.Stop != "intake" {
+		t.Errorf("start below the intake: %+v", c)
+	}
 }
