@@ -29,6 +29,10 @@ const (
 	MaxK           = 1000.0
 	MaxHoses       = 100
 	MaxElevation   = 1000.0 // m, |z| on the job datum
+	// MaxRelativeRoughness bounds ε/D. Colebrook–White is fitted to data up
+	// to ε/D ≈ 0.05 (Moody 1944); twice that is still answered, beyond it the
+	// input is a mistake (a roughness typed in the wrong unit).
+	MaxRelativeRoughness = 0.1
 )
 
 // Solve computes the steady flow of a siphon and checks its crest, down-leg
@@ -311,10 +315,10 @@ func validateSiphon(s *Siphon) error {
 	if err := checkPositive("hose length", float64(h.Length), MaxHoseLength, "m"); err != nil {
 		return err
 	}
-	if err := checkRange("hose roughness", float64(h.Roughness), 0, float64(h.Diameter)/2, "m"); err != nil {
+	if err := checkRange("hose roughness", float64(h.Roughness), 0, MaxRelativeRoughness*float64(h.Diameter), "m"); err != nil {
 		if re, ok := err.(*RangeError); ok && re.Err == ErrOutOfRange {
 			re.Err = ErrGeometry
-			re.Note = "roughness must be less than half the inside diameter"
+			re.Note = "roughness must be under a tenth of the inside diameter; the Moody chart ends at ε/D = 0.05"
 		}
 		return err
 	}

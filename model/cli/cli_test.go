@@ -1,0 +1,125 @@
+package cli
+
+import (
+	"bytes"
+	"encoding/json"
+	"math"
+	"strings"
+	"testing"
+)
+
+func run(t *testing.T, args ...string) (string, string, int) {
+	t.Helper()
+	t.Setenv("DRAWDOWN_HOME", t.TempDir())
+	t.Setenv("XDG_CONFIG_HOME", t.TempDir())
+	var out, errb bytes.Buffer
+	code := Run(args, &out, &errb)
+	return out.String(), errb.String(), code
+}
+
+// The issue's "done when" case: every design §4 key is present with a real,
+// finite value.
+func TestCalcJSONKeys(t *testing.T) {
+	out, stderr, code := run(t, "calc", "--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	var m map[string]any
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatal(err)
+	}
+	for _, k := range []string{"atm_pressure_pa", "vapor_pressure_pa", "density_kg_m3", "viscosity_pa_s", "max_crest_height_m",
+		"flowing_crest_limit_m", "working_crest_height_m", "crest_pressure_pa", "flow_m3_s", "flow_low_m3_s", "flow_high_m3_s",
+		"velocity_m_s", "reynolds", "friction_factor", "priming_volume_m3"} {
+		v, ok := m[k].(float64)
+		if !ok || math.IsNaN(v) || v <= 0 {
+			t.Errorf("%s = %v; want a positive number", k, m[k])
+		}
+	}
+	if m["regime"] != "turbulent" {
+		t.Errorf("regime %v", m["regime"])
+	}
+	if _, ok := m["warnings"].([]any); !ok {
+		t.Errorf("warnings = %v; want a list", m["warnings"])
+	}
+	if lo, q, hi := m["flow_low_m3_s"].(float64), m["flow_m3_s"].(float64), m["flow_high_m3_s"].(float64); !(lo < q && q < hi) {
+		t.Errorf("band %g < %g < %g does not hold", lo, q, hi)
+	}
+	// Sea level, water at 15 °C: 101325 Pa (USSA76) and p_v 1705.8 Pa (IF97).
+	if p := m["atm_pressure_pa"].(float64); math.Abs(p-101325) > 0.01 {
+		t.Errorf("atm %g", p)
+	}
+	if pv := m["vapor_pressure_pa"].(float64); math.Abs(pv-1705.8) > 0.5 {
+		t.Errorf("p_v %g", pv)
+	}
+}
+
+func TestCalcDrainJSON(t *testing.T) {
+	out, stderr, code := run(t, "calc", "--hose-id", "1in", "--hose-length", "8m", "--lift", "0.4m", "--drop", "1.8m",
+		"--tank", "vertical-cylinder", "--tank-diameter", "1.2m", "--level", "1.1m", "--json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	var m struct {
+		Drain map[string]any `json:"drain"`
+	}
+	if err := json.Unmarshal([]byte(out), &m); err != nil {
+		t.Fatal(err)
+	}
+	for _, k := range []string{"time_s", "time_low_s", "time_high_s", "volume_m3", "stop_level_m", "residual_m3"} {
+		if v, ok := m.Drain[k].(float64); !ok || v < 0 || math.IsNaN(v) {
+			t.Errorf("drain.%s = %v", k, m.Drain[k])
+		}
+	}
+	if _, ok := m.Drain["crest_limit_level_m"]; !ok {
+		t.Error("drain.crest_limit_level_m missing (null when never)")
+	}
+	switch m.Drain["stop_reason"] {
+	case "target", "intake", "crest", "equal":
+	default:
+		t.Errorf("stop_reason %v", m.Drain["stop_reason"])
+	}
+}
+
+func TestCalcBadInput(t *testing.T) {
+	cases := []struct {
+		args []string
+		flag string
+	}{
+		{[]string{"--hose-id", "0mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m"}, "--hose-id"},
+		{[]string{"--hose-id", "NaN", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m"}, "--hose-id"},
+		{[]string{"--hose-id", "25mm", "--hose-length", "inf", "--lift", "1.5m", "--drop", "2.5m"}, "--hose-length"},
+		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "0x10", "--drop", "2.5m"}, "--lift"},
+		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m"}, "--drop"},
+		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--temp", "1e400"}, "--temp"},
+		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--liquid", "lava"}, "--liquid"},
+		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--temp", "99C", "--altitude", "3000m"}, "--temp"},
+		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--roughness", "9mm"}, "--roughness"},
+		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--frobnicate", "3"}, "--frobnicate"},
+		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--tank", "sphere"}, "--level"},
+	}
+	for _, c := range cases {
+		_, stderr, code := run(t, append([]string{"calc"}, c.args...)...)
+		if code != 2 {
+			t.Errorf("%v: exit %d, want 2", c.args, code)
+		}
+		if strings.Count(strings.TrimSpace(stderr), "\n") != 0 || !strings.Contains(stderr, c.flag) {
+			t.Errorf("%v: stderr %q; want one line naming %s", c.args, stderr, c.flag)
+		}
+	}
+}
+
+func TestCalcTextUS(t *testing.T) {
+	out, stderr, code := run(t, "calc", "--hose-id", "1in", "--hose-length", "40ft", "--lift", "5ft", "--drop", "8ft", "--units", "us")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	for _, want := range []string{"Siphon: RUNS", "gal/min", "ft", "°F", "Never start a siphon by mouth"} {
+		if !strings.Contains(out, want) {
+			t.Errorf("text output lacks %q:\n%s", want, out)
+		}
+	}
+	if strings.Contains(out, "NaN") || strings.Contains(out, "Inf") {
+		t.Errorf("non-finite value in output:\n%s", out)
+	}
+}

@@ -1,0 +1,571 @@
+package model
+
+import (
+	"errors"
+	"math"
+	"strings"
+
+	"drawdown/calc"
+	"drawdown/presets"
+)
+
+// DefaultEntranceK is the entrance loss assumed when no entrance fitting is
+// chosen: a plain hose end dropped into the liquid is a re-entrant
+// (inward-projecting) inlet, K = 0.78 (Crane TP-410, 2009).
+const DefaultEntranceK = 0.78
+
+// DefaultMaterial is the hose wall assumed when none is chosen.
+const DefaultMaterial = "rubber-smooth"
+
+// TablePoint is one row of a tank calibration table: level above the floor
+// (m) and the volume held up to it (m³).
+type TablePoint struct {
+	Level  float64 `json:"level_m"`
+	Volume float64 `json:"volume_m3"`
+}
+
+// Inputs is what Compute reads: the raw field texts, the unit system they
+// are typed in, and a calibration table for the "table" tank shape.
+type Inputs struct {
+	Values    map[FieldID]string
+	Units     System
+	TankTable []TablePoint
+}
+
+// Plan is everything computed from a job's inputs. Compute fills as much as
+// the inputs allow: Err is nil only when Result is a valid solution.
+type Plan struct {
+	// FieldErrors holds the problem with each field that cannot be used,
+	// by field; Err is the first problem that blocks the result.
+	FieldErrors map[FieldID]error
+	Err         error
+
+	Liquid      presets.Liquid
+	Hazards     presets.Hazards // at the job's temperature
+	Material    presets.Material
+	Temperature calc.Temperature
+	// AtmPressure is the barometer reading when one is given, else the
+	// U.S. Standard Atmosphere 1976 pressure at the site altitude.
+	AtmPressure calc.Pressure
+	FromBaro    bool
+
+	Siphon calc.Siphon
+	Result calc.Result
+	// KLow and KHigh bound ΣK (all fittings) over the fittings' published
+	// spread; RoughLow and RoughHigh bound ε over the material's range.
+	KLow, KHigh        float64
+	RoughLow, RoughHig calc.Length
+	// FlowLow and FlowHigh bound the flow over the input uncertainties.
+	FlowLow, FlowHigh calc.FlowRate
+
+	// Tank is nil when the job has no tank; then Drain is nil too.
+	Tank     calc.Tank
+	Drain    *calc.DrainPlan
+	DrainIn  calc.DrainInput
+	TimeLow  calc.Seconds
+	TimeHigh calc.Seconds
+
+	// PumpStrokes is the number of hand-pump strokes to fill the hoses, 0
+	// when no stroke volume is given.
+	PumpStrokes int
+
+	// Notes are the assumptions Compute made (defaults it filled in), in
+	// plain words for the screen and the record.
+	Notes []string
+}
+
+// OK reports whether the plan has a valid steady result.
+func (p Plan) OK() bool { return p.Err == nil }
+
+// Compute computes the plan of a job (see ComputeInputs).
+func Compute(j Job, cat *presets.Catalogue) Plan {
+	return ComputeInputs(Inputs{Values: j.Inputs, Units: j.Units}, cat)
+}
+
+// ComputeInputs turns a job's inputs into calc inputs and results. It is
+// pure and fast (a steady solve, a drain plan and their band: well under a
+// millisecond), so the screen calls it on every keystroke.
+func ComputeInputs(in Inputs, cat *presets.Catalogue) Plan {
+	c := computer{in: in, cat: cat, p: Plan{FieldErrors: map[FieldID]error{}}}
+	c.run()
+	return c.p
+}
+
+type computer struct {
+	in  Inputs
+	cat *presets.Catalogue
+	p   Plan
+}
+
+func (c *computer) text(id FieldID) string {
+	t := strings.TrimSpace(c.in.Values[id])
+	if t == "" {
+		if f, ok := FieldByID(id); ok {
+			t = f.Default
+		}
+	}
+	return t
+}
+
+func (c *computer) set(id FieldID) bool { return c.text(id) != "" }
+
+func (c *computer) fail(id FieldID, err error) {
+	if _, dup := c.p.FieldErrors[id]; !dup {
+		c.p.FieldErrors[id] = err
+	}
+	if c.p.Err == nil {
+		c.p.Err = err
+	}
+}
+
+// num reads a numeric field; ok is false (and the error recorded) when it is
+// missing or invalid. Optional fields that are empty return ok false with no
+// error.
+func (c *computer) num(id FieldID) (float64, bool) {
+	f, _ := FieldByID(id)
+	t := c.text(id)
+	if t == "" && f.Optional {
+		return 0, false
+	}
+	v, err := f.Validate(t, c.in.Units)
+	if err != nil {
+		c.fail(id, err)
+		return 0, false
+	}
+	return v, true
+}
+
+func (c *computer) choice(id FieldID) string {
+	f, _ := FieldByID(id)
+	t := c.text(id)
+	if err := f.ValidateChoice(t, c.cat); err != nil {
+		c.fail(id, err)
+		return ""
+	}
+	return t
+}
+
+func (c *computer) note(s string) { c.p.Notes = append(c.p.Notes, s) }
+
+func (c *computer) run() {
+	p := &c.p
+	sys := c.in.Units
+
+	// Site and liquid.
+	if v, ok := c.num(FieldBaro); ok {
+		p.AtmPressure, p.FromBaro = calc.Pressure(v), true
+	} else if z, ok := c.num(FieldAltitude); ok {
+		pa, err := calc.StandardAtmosphere(calc.Length(z))
+		if err != nil {
+			c.fail(FieldAltitude, err)
+		}
+		p.AtmPressure = pa
+	}
+	liqID := c.choice(FieldLiquid)
+	if liqID != "" {
+		l, ok := c.cat.Liquid(liqID)
+		if !ok {
+			c.fail(FieldLiquid, &FieldError{ID: FieldLiquid, Label: "Liquid", Text: liqID, Detail: `"` + liqID + `" is not in the catalogue`, Err: ErrNotAChoice})
+		}
+		p.Liquid = l
+	}
+	T, okT := c.num(FieldTemp)
+	p.Temperature = calc.Temperature(T)
+	var fluid calc.Fluid
+	if p.Liquid.Valid() && okT && p.AtmPressure > 0 {
+		fl, err := p.Liquid.Fluid(p.Temperature, p.AtmPressure)
+		if err != nil {
+			c.fail(FieldTemp, c.calcFieldError(FieldTemp, err))
+		}
+		fluid = fl
+		p.Hazards = p.Liquid.HazardsAt(p.Temperature)
+	}
+	if v, ok := c.num(FieldDensity); ok {
+		fluid.Density = calc.Density(v)
+		c.note("density from the override, not the liquid's table")
+	}
+	if v, ok := c.num(FieldViscosity); ok {
+		fluid.Viscosity = calc.Viscosity(v)
+		c.note("viscosity from the override, not the liquid's table")
+	}
+	if v, ok := c.num(FieldVapor); ok {
+		fluid.VaporPressure = calc.Pressure(v)
+		c.note("vapour pressure from the override, not the liquid's table")
+	}
+
+	// Hose.
+	var hose calc.Hose
+	if v, ok := c.num(FieldHoseID); ok {
+		hose.Diameter = calc.Length(v)
+	}
+	if v, ok := c.num(FieldHoseLength); ok {
+		hose.Length = calc.Length(v)
+	}
+	if v, ok := c.num(FieldHoseUpLeg); ok {
+		hose.UpLegLength = calc.Length(v)
+	}
+	matID := DefaultMaterial
+	if c.set(FieldHoseMaterial) {
+		matID = c.choice(FieldHoseMaterial)
+	} else {
+		c.note("hose wall taken as smooth rubber (no material chosen)")
+	}
+	if m, ok := c.cat.Material(matID); ok {
+		p.Material = m
+		hose.Roughness = m.Roughness
+		p.RoughLow, p.RoughHig = m.RoughnessLow, m.RoughnessHigh
+	}
+	if v, ok := c.num(FieldHoseRoughness); ok {
+		hose.Roughness = calc.Length(v)
+		p.RoughLow, p.RoughHig = hose.Roughness, hose.Roughness
+	}
+	c.fittings(&hose)
+	hoses := 1
+	if v, ok := c.num(FieldHoseCount); ok {
+		hoses = int(v)
+	}
+
+	// Geometry.
+	lift, okL := c.num(FieldLift)
+	drop, okD := c.num(FieldDrop)
+	submerged := c.choice(FieldOutletSubmerged) == "yes"
+	var geo calc.Geometry
+	shape := c.choice(FieldTankShape)
+	if shape == "" {
+		shape = "none"
+	}
+	if shape == "none" {
+		depth, _ := c.num(FieldIntakeDepth)
+		geo = calc.Geometry{Surface: 0, Intake: calc.Length(-depth), Crest: calc.Length(lift), Outlet: calc.Length(-drop), OutletSubmerged: submerged}
+	} else {
+		level, okLv := c.num(FieldTankLevel)
+		ih, _ := c.num(FieldIntakeHeight)
+		geo = calc.Geometry{Surface: calc.Length(level), Intake: calc.Length(ih), Crest: calc.Length(level + lift),
+			Outlet: calc.Length(level - drop), OutletSubmerged: submerged}
+		if okLv {
+			c.tank(shape, level)
+		}
+		if okLv && ih >= level {
+			c.fail(FieldIntakeHeight, &FieldError{ID: FieldIntakeHeight, Label: "Intake height above floor",
+				Text: c.text(FieldIntakeHeight), Detail: Format(DimLength, ih, sys) + " is not below the liquid level",
+				Accept: "below the level of " + Format(DimLength, level, sys), Err: calc.ErrGeometry})
+		}
+	}
+	_ = okL
+	_ = okD
+
+	p.Siphon = calc.Siphon{Fluid: fluid, AtmPressure: p.AtmPressure, Hose: hose, Hoses: hoses, Geometry: geo}
+	if p.Err != nil {
+		return
+	}
+	r, err := calc.Solve(p.Siphon)
+	if err != nil {
+		c.fail(c.fieldFor(err), c.calcFieldError(c.fieldFor(err), err))
+		return
+	}
+	p.Result = r
+	if v, ok := c.num(FieldPumpStroke); ok && v > 0 {
+		p.PumpStrokes = int(math.Ceil(float64(r.PrimingVolume) / v))
+	}
+	c.band()
+	if p.Tank != nil {
+		c.drain()
+	}
+}
+
+// fittings sums the chosen fittings' K by where they sit, or takes the ΣK
+// override. Bends and couplings that may sit on either leg are counted on the
+// up-leg: that lowers the computed crest pressure, the safe side.
+func (c *computer) fittings(h *calc.Hose) {
+	p := &c.p
+	if k, ok := c.num(FieldHoseKMinor); ok {
+		// The override's split is unknown: put it all before the crest (the
+		// conservative side for the crest pressure).
+		h.KEntrance = k
+		p.KLow, p.KHigh = k, 1.5*k
+		c.note("ΣK from the override, all counted before the crest (the cautious side)")
+		return
+	}
+	ids := c.choice(FieldHoseFittings)
+	entrance := false
+	for _, id := range strings.Split(ids, ",") {
+		id = strings.TrimSpace(id)
+		if id == "" {
+			continue
+		}
+		f, ok := c.cat.Fitting(id)
+		if !ok {
+			continue
+		}
+		k := f.KAt(h.Diameter)
+		switch f.Where {
+		case presets.AtEntrance:
+			h.KEntrance += k.Central
+			entrance = true
+		case presets.DownLeg:
+			h.KDownLeg += k.Central
+		default:
+			h.KUpLeg += k.Central
+		}
+		p.KLow += k.Low
+		p.KHigh += k.High
+	}
+	if !entrance {
+		h.KEntrance += DefaultEntranceK
+		p.KLow += DefaultEntranceK
+		p.KHigh += DefaultEntranceK
+		c.note("entrance loss K 0.78 assumed: a plain hose end in the liquid (Crane TP-410)")
+	}
+}
+
+// tank builds the source tank from the shape's sizes.
+func (c *computer) tank(shape string, level float64) {
+	p := &c.p
+	size := func(id FieldID) float64 {
+		v, _ := c.num(id)
+		return v
+	}
+	height := level
+	if v, ok := c.num(FieldTankHeight); ok {
+		height = v
+		if level > height {
+			c.fail(FieldTankLevel, &FieldError{ID: FieldTankLevel, Label: "Liquid level", Text: c.text(FieldTankLevel),
+				Detail: Format(DimLength, level, c.in.Units) + " is above the tank depth",
+				Accept: "0 to " + Format(DimLength, height, c.in.Units), Err: calc.ErrGeometry})
+			return
+		}
+	}
+	var t calc.Tank
+	var err error
+	switch shape {
+	case "vertical-cylinder":
+		t, err = calc.NewVerticalCylinder(calc.Length(size(FieldTankDiameter)), calc.Length(height))
+	case "rectangular":
+		t, err = calc.NewRectangular(calc.Length(size(FieldTankLength)), calc.Length(size(FieldTankWidth)), calc.Length(height))
+	case "horizontal-cylinder":
+		t, err = calc.NewHorizontalCylinder(calc.Length(size(FieldTankDiameter)), calc.Length(size(FieldTankLength)))
+	case "cone-bottom":
+		cone := size(FieldTankCone)
+		t, err = calc.NewConeBottom(calc.Length(size(FieldTankDiameter)), calc.Length(cone), calc.Length(math.Max(height, cone)))
+	case "sloped-pit":
+		t, err = calc.NewSlopedPit(calc.Length(size(FieldTankLength)), calc.Length(size(FieldTankWidth)), size(FieldTankSlope), calc.Length(height))
+	case "sphere":
+		t, err = calc.NewSphere(calc.Length(size(FieldTankDiameter)))
+	case "table":
+		lv := make([]float64, len(c.in.TankTable))
+		vo := make([]float64, len(c.in.TankTable))
+		for i, r := range c.in.TankTable {
+			lv[i], vo[i] = r.Level, r.Volume
+		}
+		t, err = calc.NewTable(lv, vo)
+	default:
+		c.fail(FieldTankShape, &FieldError{ID: FieldTankShape, Label: "Tank shape", Text: shape, Detail: `"` + shape + `" is not a tank shape`, Err: ErrNotAChoice})
+		return
+	}
+	if p.Err != nil {
+		return
+	}
+	if err != nil {
+		c.fail(c.fieldFor(err), c.calcFieldError(c.fieldFor(err), err))
+		return
+	}
+	if float64(t.Height()) < level {
+		c.fail(FieldTankLevel, &FieldError{ID: FieldTankLevel, Label: "Liquid level", Text: c.text(FieldTankLevel),
+			Detail: Format(DimLength, level, c.in.Units) + " is above the top of the tank",
+			Accept: "0 to " + Format(DimLength, float64(t.Height()), c.in.Units), Err: calc.ErrGeometry})
+		return
+	}
+	p.Tank = t
+}
+
+// drain plans the drain and its time band.
+func (c *computer) drain() {
+	p := &c.p
+	in := calc.DrainInput{Siphon: p.Siphon, Tank: p.Tank}
+	if v, ok := c.num(FieldTankTarget); ok {
+		if v >= float64(p.Siphon.Geometry.Surface) {
+			c.fail(FieldTankTarget, &FieldError{ID: FieldTankTarget, Label: "Target level", Text: c.text(FieldTankTarget),
+				Detail: Format(DimLength, v, c.in.Units) + " is not below the liquid level",
+				Accept: "0 to " + Format(DimLength, float64(p.Siphon.Geometry.Surface), c.in.Units), Err: calc.ErrGeometry})
+			return
+		}
+		in.Target = calc.Length(v)
+		if in.Target == 0 {
+			in.Target = 1e-9 // "empty" means the floor, not "no target"
+		}
+	}
+	p.DrainIn = in
+	d, err := calc.PlanDrain(in)
+	if err != nil {
+		c.fail(c.fieldFor(err), c.calcFieldError(c.fieldFor(err), err))
+		return
+	}
+	p.Drain = &d
+	c.drainBand()
+}
+
+// fieldFor maps a calc error to the field a technician must change.
+func (c *computer) fieldFor(err error) FieldID {
+	var re *calc.RangeError
+	if !errors.As(err, &re) {
+		return FieldHoseID
+	}
+	q := strings.ToLower(re.Quantity)
+	switch {
+	case strings.Contains(q, "vapour"):
+		if c.set(FieldVapor) {
+			return FieldVapor
+		}
+		return FieldTemp
+	case strings.Contains(q, "density"):
+		if c.set(FieldDensity) {
+			return FieldDensity
+		}
+		return FieldTemp
+	case strings.Contains(q, "viscosity"):
+		if c.set(FieldViscosity) {
+			return FieldViscosity
+		}
+		return FieldTemp
+	case strings.Contains(q, "temperature"):
+		return FieldTemp
+	case strings.Contains(q, "barometric") || strings.Contains(q, "altitude"):
+		if c.set(FieldBaro) {
+			return FieldBaro
+		}
+		return FieldAltitude
+	case strings.Contains(q, "diameter") && strings.Contains(q, "tank"):
+		return FieldTankDiameter
+	case strings.Contains(q, "inside diameter"):
+		return FieldHoseID
+	case strings.Contains(q, "roughness"):
+		if c.set(FieldHoseRoughness) {
+			return FieldHoseRoughness
+		}
+		return FieldHoseMaterial
+	case strings.Contains(q, "up-leg"):
+		return FieldHoseUpLeg
+	case strings.Contains(q, "hose length"):
+		return FieldHoseLength
+	case strings.Contains(q, "loss coefficient"):
+		if c.set(FieldHoseKMinor) {
+			return FieldHoseKMinor
+		}
+		return FieldHoseFittings
+	case strings.Contains(q, "number of hoses"):
+		return FieldHoseCount
+	case strings.Contains(q, "crest"):
+		return FieldLift
+	case strings.Contains(q, "outlet"):
+		return FieldDrop
+	case strings.Contains(q, "intake"):
+		if c.p.Tank != nil || c.text(FieldTankShape) != "none" {
+			return FieldIntakeHeight
+		}
+		return FieldIntakeDepth
+	case strings.Contains(q, "target"):
+		return FieldTankTarget
+	case strings.Contains(q, "start level") || strings.Contains(q, "level"):
+		return FieldTankLevel
+	case strings.Contains(q, "cone"):
+		return FieldTankCone
+	case strings.Contains(q, "slope"):
+		return FieldTankSlope
+	case strings.Contains(q, "width"):
+		return FieldTankWidth
+	case strings.Contains(q, "tank length"):
+		return FieldTankLength
+	case strings.Contains(q, "height") || strings.Contains(q, "depth"):
+		return FieldTankHeight
+	}
+	return FieldHoseID
+}
+
+// calcFieldError wraps a calc error as a *FieldError for field id so that
+// the screen can show it beside the field. The calc message is in SI; it
+// names the quantity and the accepted range.
+func (c *computer) calcFieldError(id FieldID, err error) error {
+	f, _ := FieldByID(id)
+	return &FieldError{ID: id, Label: f.Label, Text: c.text(id), Detail: err.Error(), Err: err}
+}
+
+// bandCases returns the siphon at the slow and the fast ends of the input
+// uncertainties: roughness over the material's published range, ΣK from the
+// fittings' low to high values, and every measured height off by the height
+// tolerance in the direction that slows (or speeds) the flow — less drop,
+// more lift, a shallower intake.
+func (c *computer) bandCases() (slow, fast calc.Siphon) {
+	p := &c.p
+	tol := 0.03
+	if v, ok := c.num(FieldTolHeight); ok {
+		tol = v
+	}
+	slow, fast = p.Siphon, p.Siphon
+	slow.Hose.Roughness, fast.Hose.Roughness = p.RoughHig, p.RoughLow
+	if k := p.Siphon.Hose.KMinor(); k > 0 {
+		// Scale each part so the sums hit the ends of the ΣK range.
+		lo, hi := p.KLow/k, p.KHigh/k
+		scale := func(h *calc.Hose, f float64) {
+			h.KEntrance *= f
+			h.KUpLeg *= f
+			h.KDownLeg *= f
+		}
+		scale(&slow.Hose, hi)
+		scale(&fast.Hose, lo)
+	}
+	t := calc.Length(tol)
+	slow.Geometry.Outlet += t
+	slow.Geometry.Crest += t
+	fast.Geometry.Outlet -= t
+	fast.Geometry.Crest -= t
+	if fast.Geometry.Crest < fast.Geometry.Intake {
+		fast.Geometry.Crest = fast.Geometry.Intake
+	}
+	return slow, fast
+}
+
+// band fills FlowLow and FlowHigh. A bound that cannot be solved (the slow
+// case may not run at all) is a flow of zero.
+func (c *computer) band() {
+	p := &c.p
+	slow, fast := c.bandCases()
+	if r, err := calc.Solve(slow); err == nil {
+		p.FlowLow = r.Flow
+	}
+	if r, err := calc.Solve(fast); err == nil {
+		p.FlowHigh = r.Flow
+	}
+	// The central value always lies inside its own band.
+	p.FlowLow = min(p.FlowLow, p.Result.Flow)
+	p.FlowHigh = max(p.FlowHigh, p.Result.Flow)
+}
+
+// drainBand fills TimeLow and TimeHigh: the fast case drains sooner. Each end
+// keeps the central plan's target so the times compare like with like.
+func (c *computer) drainBand() {
+	p := &c.p
+	slow, fast := c.bandCases()
+	run := func(s calc.Siphon) (calc.Seconds, bool) {
+		in := p.DrainIn
+		in.Siphon = s
+		in.CurvePoints = 2
+		if in.Target == 0 {
+			in.Target = p.Drain.StopLevel
+			if in.Target >= s.Geometry.Surface {
+				return 0, false
+			}
+		}
+		d, err := calc.PlanDrain(in)
+		if err != nil {
+			return 0, false
+		}
+		return d.Time, true
+	}
+	p.TimeLow, p.TimeHigh = p.Drain.Time, p.Drain.Time
+	if t, ok := run(fast); ok {
+		p.TimeLow = min(t, p.Drain.Time)
+	}
+	if t, ok := run(slow); ok {
+		p.TimeHigh = max(t, p.Drain.Time)
+	}
+}
