@@ -118,14 +118,14 @@ func TestStandardAtmosphereFallsWithAltitude(t *testing.T) {
 			t.Fatalf("%d m: %v", z, err)
 		}
 		if float64(p) >= prev || p <= 0 {
-			t.Fatalf("p(%d m) = %g Pa did not fall (%s: pressure falls with altitude)", z, float64(p), srcPhysics)
+			t.Fatalf("p(%d m) = %g Pa did not fall (%s: pressure falls with altitude)", z, float64(p), srcWaterPhysics)
 		}
 		prev = float64(p)
 	}
 	// Below sea level the pressure exceeds P0 (z = −1000 m: about 113.9 kPa,
 	// from Eq. (33a)).
 	if p, _ := StandardAtmosphere(-1000); p <= StandardSeaLevelPressure || p > 114000 {
-		t.Errorf("p(−1000 m) = %v, want a little under 114 kPa (%s)", p, srcPhysics)
+		t.Errorf("p(−1000 m) = %v, want a little under 114 kPa (%s)", p, srcWaterPhysics)
 	}
 }
 

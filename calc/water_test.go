@@ -29,7 +29,7 @@ const (
 	srcTanaka    = "Tanaka et al. 2001, Metrologia 38, 301, doi:10.1088/0026-1394/38/4/3, recommended table [P2]"
 	srcPerry     = "Perry's Chemical Engineers' Handbook, 9th ed., Table 2-135, saturated liquid [P2]"
 	srcISO3666   = "ISO/TR 3666:1998, viscosity of water at 20 °C, 1.0016 mPa·s [M] (value from memory)"
-	srcPhysics   = "physical property (analytic expectation)"
+	srcWaterPhysics   = "physical property (analytic expectation)"
 	srcCommonWtr = "common practice: water boils below 100 °C at altitude"
 )
 
@@ -151,7 +151,7 @@ func TestWaterVaporPressureRises(t *testing.T) {
 			t.Fatalf("%g K: %v", T, err)
 		}
 		if float64(p) <= prev {
-			t.Fatalf("p_s(%g K) = %g Pa is not above the previous %g Pa (%s: vapour pressure rises with temperature)", T, float64(p), prev, srcPhysics)
+			t.Fatalf("p_s(%g K) = %g Pa is not above the previous %g Pa (%s: vapour pressure rises with temperature)", T, float64(p), prev, srcWaterPhysics)
 		}
 		prev = float64(p)
 	}
@@ -285,13 +285,13 @@ func TestWaterDensityMaximum(t *testing.T) {
 	for k := 40; k < 999; k++ {
 		c := float64(k) / 10
 		if rho(c+0.1) >= rho(c) {
-			t.Fatalf("ρ(%.1f °C) ≥ ρ(%.1f °C) (%s: density falls with T above 4 °C)", c+0.1, c, srcPhysics)
+			t.Fatalf("ρ(%.1f °C) ≥ ρ(%.1f °C) (%s: density falls with T above 4 °C)", c+0.1, c, srcWaterPhysics)
 		}
 	}
 	for k := 0; k < 39; k++ {
 		c := float64(k) / 10
 		if rho(c+0.1) <= rho(c) {
-			t.Fatalf("ρ(%.1f °C) ≤ ρ(%.1f °C) (%s: density rises from 0 °C to its maximum)", c+0.1, c, srcPhysics)
+			t.Fatalf("ρ(%.1f °C) ≤ ρ(%.1f °C) (%s: density rises from 0 °C to its maximum)", c+0.1, c, srcWaterPhysics)
 		}
 	}
 }
@@ -445,7 +445,7 @@ func TestWaterViscosityFallsWithTemperature(t *testing.T) {
 			t.Fatalf("%g °C: %v", c, err)
 		}
 		if float64(f.Viscosity) >= prev {
-			t.Fatalf("μ(%g °C) = %g Pa·s did not fall (%s: liquid viscosity falls with temperature)", c, float64(f.Viscosity), srcPhysics)
+			t.Fatalf("μ(%g °C) = %g Pa·s did not fall (%s: liquid viscosity falls with temperature)", c, float64(f.Viscosity), srcWaterPhysics)
 		}
 		prev = float64(f.Viscosity)
 	}
