@@ -61,6 +61,10 @@ const (
 //
 //	z = 0: exactly StandardSeaLevelPressure.
 //	z outside [−1000 m, 11000 m], NaN or ±Inf: *RangeError ("altitude").
+//
+// Reference: U.S. Standard Atmosphere, 1976, NOAA-S/T 76-1562 /
+// NASA-TM-X-74335, https://ntrs.nasa.gov/citations/19770009539; equation
+// numbers as given by a secondary reading of the document.
 func StandardAtmosphere(z Length) (Pressure, error) {
 	if err := checkRange("altitude", float64(z), float64(MinSiteAltitude), float64(MaxSiteAltitude), "m"); err != nil {
 		return 0, err

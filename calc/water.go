@@ -83,6 +83,10 @@ var region4N = [10]float64{
 // Special cases:
 //
 //	T outside [273.15 K, 647.096 K], NaN or ±Inf: *RangeError ("water temperature").
+//
+// Reference: IAPWS R7-97(2012), Revised Release on the IAPWS Industrial
+// Formulation 1997 for the Thermodynamic Properties of Water and Steam,
+// http://www.iapws.org/relguide/IF97-Rev.html (URL from memory).
 func WaterSaturationPressure(T Temperature) (Pressure, error) {
 	if err := checkRange("water temperature", float64(T), waterMinTemperature, waterCriticalTemperature, "K"); err != nil {
 		return 0, err
@@ -122,6 +126,10 @@ func waterSatPressure(T float64) float64 {
 // Special cases:
 //
 //	p outside [611.213 Pa, 22.064 MPa], NaN or ±Inf: *RangeError ("pressure").
+//
+// Reference: IAPWS R7-97(2012), Revised Release on the IAPWS Industrial
+// Formulation 1997 for the Thermodynamic Properties of Water and Steam,
+// http://www.iapws.org/relguide/IF97-Rev.html (URL from memory).
 func WaterSaturationTemperature(p Pressure) (Temperature, error) {
 	if err := checkRange("pressure", float64(p), waterMinSaturationPressure, waterCriticalPressure, "Pa"); err != nil {
 		return 0, err
@@ -215,6 +223,10 @@ const (
 //	p ≤ 0, p > 100 MPa, NaN or ±Inf: *RangeError ("pressure").
 //	p < p_s(T): *RangeError ("pressure") wrapping ErrBoiling; the water
 //	    would boil, it is not liquid. Min holds p_s(T).
+//
+// Reference: IAPWS R7-97(2012), Revised Release on the IAPWS Industrial
+// Formulation 1997 for the Thermodynamic Properties of Water and Steam,
+// http://www.iapws.org/relguide/IF97-Rev.html (URL from memory).
 func WaterDensity(T Temperature, p Pressure) (Density, error) {
 	if err := checkRange("water temperature", float64(T), waterMinTemperature, waterRegion1MaxTemperature, "K"); err != nil {
 		return 0, err
@@ -339,6 +351,10 @@ const (
 //	T outside [273.15 K, 1173.15 K], NaN or ±Inf: *RangeError ("water temperature").
 //	ρ ≤ 0, ρ > 1250 kg/m³, NaN or ±Inf: *RangeError ("water density").
 //	Near the critical point the result omits μ̄2 (see above).
+//
+// Reference: IAPWS R12-08 (2008), Release on the IAPWS Formulation 2008 for
+// the Viscosity of Ordinary Water Substance, http://www.iapws.org/relguide/viscosity.htm;
+// Huber et al., J. Phys. Chem. Ref. Data 38 (2009) 101, doi:10.1063/1.3088050.
 func WaterViscosity(T Temperature, rho Density) (Viscosity, error) {
 	if err := checkRange("water temperature", float64(T), waterMinTemperature, waterViscosityMaxTemperature, "K"); err != nil {
 		return 0, err
