@@ -1,0 +1,120 @@
+package model
+
+import (
+	"errors"
+	"math"
+	"testing"
+
+	"drawdown/calc"
+	"drawdown/presets"
+)
+
+func TestComputeDemo(t *testing.T) {
+	cat := presets.Builtin()
+	p := Compute(DemoJob(), cat)
+	if p.Err != nil {
+		t.Fatalf("demo job: %v (%v)", p.Err, p.FieldErrors)
+	}
+	if p.Result.Verdict == calc.WillNotRun {
+		t.Fatalf("demo job does not run: %v", p.Result.WarningList())
+	}
+	if p.Drain == nil || p.Drain.Time <= 0 || p.Drain.Volume <= 0 {
+		t.Fatalf("demo job has no drain plan: %+v", p.Drain)
+	}
+	if !(p.FlowLow <= p.Result.Flow && p.Result.Flow <= p.FlowHigh && p.FlowLow < p.FlowHigh) {
+		t.Errorf("flow band %v ≤ %v ≤ %v", p.FlowLow, p.Result.Flow, p.FlowHigh)
+	}
+	if !(p.TimeLow <= p.Drain.Time && p.Drain.Time <= p.TimeHigh) {
+		t.Errorf("time band %v ≤ %v ≤ %v", p.TimeLow, p.Drain.Time, p.TimeHigh)
+	}
+	// The demo's geometry, read back: floor datum, level 0.35 m, lift 0.6 m,
+	// drop 1.5 m, intake 5 cm above the floor.
+	g := p.Siphon.Geometry
+	for _, c := range []struct {
+		name      string
+		got, want float64
+	}{{"surface", float64(g.Surface), 0.35}, {"crest", float64(g.Crest), 0.95}, {"outlet", float64(g.Outlet), -1.15}, {"intake", float64(g.Intake), 0.05}} {
+		if math.Abs(c.got-c.want) > 1e-12 {
+			t.Errorf("%s elevation %g, want %g", c.name, c.got, c.want)
+		}
+	}
+	// 8 m × 5 m bund from 0.35 m: the volume moved is the plan area times the
+	// level fallen (rectangle, analytic).
+	fallen := 0.35 - float64(p.Drain.StopLevel)
+	if math.Abs(float64(p.Drain.Volume)-40*fallen) > 1e-6 {
+		t.Errorf("volume %v, want 40 m² × %g m", p.Drain.Volume, fallen)
+	}
+	if p.PumpStrokes <= 0 {
+		t.Errorf("pump strokes %d", p.PumpStrokes)
+	}
+}
+
+func TestComputeFieldErrors(t *testing.T) {
+	cat := presets.Builtin()
+	cases := []struct {
+		name  string
+		edit  map[FieldID]string
+		field FieldID
+	}{
+		{"bad diameter", map[FieldID]string{FieldHoseID: "0 mm"}, FieldHoseID},
+		{"unparsable length", map[FieldID]string{FieldHoseLength: "twelve"}, FieldHoseLength},
+		{"boiling water up a mountain", map[FieldID]string{FieldTemp: "99 C", FieldAltitude: "3000 m"}, FieldTemp},
+		{"diesel out of its range", map[FieldID]string{FieldLiquid: "diesel", FieldTemp: "140 C"}, FieldTemp},
+		{"intake above level", map[FieldID]string{FieldIntakeHeight: "0.5 m"}, FieldIntakeHeight},
+		{"level above the tank", map[FieldID]string{FieldTankLevel: "2 m"}, FieldTankLevel},
+		{"target above level", map[FieldID]string{FieldTankTarget: "0.5 m"}, FieldTankTarget},
+		{"unknown liquid", map[FieldID]string{FieldLiquid: "lava"}, FieldLiquid},
+	}
+	for _, c := range cases {
+		j := DemoJob()
+		for id, v := range c.edit {
+			j.Inputs[id] = v
+		}
+		p := Compute(j, cat)
+		if p.Err == nil {
+			t.Errorf("%s: no error", c.name)
+			continue
+		}
+		err, ok := p.FieldErrors[c.field]
+		if !ok {
+			t.Errorf("%s: errors %v; want one on %s", c.name, p.FieldErrors, c.field)
+			continue
+		}
+		var fe *FieldError
+		if !errors.As(err, &fe) || fe.Label == "" {
+			t.Errorf("%s: %v is not a *FieldError with a label", c.name, err)
+		}
+	}
+}
+
+// Property: the plan's flow falls as the hose grows longer (the what-if
+// question a technician asks most).
+func TestComputeLengthWhatIf(t *testing.T) {
+	cat := presets.Builtin()
+	prev := math.Inf(1)
+	for _, l := range []string{"6 m", "12 m", "24 m", "48 m"} {
+		j := DemoJob()
+		j.Inputs[FieldHoseLength] = l
+		p := Compute(j, cat)
+		if p.Err != nil {
+			t.Fatal(p.Err)
+		}
+		if float64(p.Result.Flow) >= prev {
+			t.Errorf("%s: flow %v not below %g", l, p.Result.Flow, prev)
+		}
+		prev = float64(p.Result.Flow)
+	}
+}
+
+var sinkPlan Plan
+
+// BenchmarkCompute is the per-keystroke recompute of the demo job: site,
+// liquid, steady solve, flow band, drain plan and time band.
+func BenchmarkCompute(b *testing.B) {
+	cat := presets.Builtin()
+	j := DemoJob()
+	b.ReportAllocs()
+	for b.Loop() {
+		sinkPlan = Compute(j, cat)
+	}
+}
