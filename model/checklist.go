@@ -103,8 +103,8 @@ type PrimingMethod string
 
 // Priming methods (field-practice §2.1–§2.7).
 const (
-	PrimeSubmerge   PrimingMethod = "submerge"    // fill in the source, cap one end
-	PrimeSupplyFill PrimingMethod = "supply-fill" // fill from a clean supply, far end closed
+	PrimeSubmerge   PrimingMethod = "submerge-and-cap" // fill in the source, cap one end
+	PrimeSupplyFill PrimingMethod = "fill-from-supply" // fill from a clean supply, far end closed
 	PrimeCrestPort  PrimingMethod = "crest-port"  // fill through a port at the crest
 	PrimeHandPump   PrimingMethod = "hand-pump"   // hand pump or squeeze bulb
 	PrimeShakeValve PrimingMethod = "shake-valve" // shake-type check valve at the intake
@@ -143,8 +143,9 @@ func (m PrimingMethod) Label() string {
 // know.
 var ErrUnknownMethod = errors.New("unknown priming method")
 
-// ParsePrimingMethod accepts a method ID ("submerge", "hand-pump", …) or its
-// label, ignoring case and surrounding space. An empty text gives "" and no
+// ParsePrimingMethod accepts a method ID ("submerge-and-cap", "hand-pump",
+// …; the IDs match the presets catalogue) or its label, ignoring case and
+// surrounding space; "submerge" and "supply-fill" are accepted as aliases. An empty text gives "" and no
 // error (no method chosen yet). Anything that names mouth suction is refused
 // with a message saying it is never a method.
 func ParsePrimingMethod(text string) (PrimingMethod, error) {
@@ -156,6 +157,12 @@ func ParsePrimingMethod(text string) (PrimingMethod, error) {
 		if t == string(m) || t == m.Label() {
 			return m, nil
 		}
+	}
+	switch t {
+	case "submerge":
+		return PrimeSubmerge, nil
+	case "supply-fill":
+		return PrimeSupplyFill, nil
 	}
 	if strings.Contains(t, "mouth") || strings.Contains(t, "suck") {
 		return "", fmt.Errorf("priming method %q: starting a siphon by mouth is never a method; choose one of %s: %w",
@@ -530,6 +537,11 @@ func BuildChecklist(ctx ChecklistContext) Checklist {
 			"Workplace codes for flammable liquids forbid transfer by air pressure on the container.",
 			ruleFlammable)
 	}
+	if why := methodUnsuited(ctx.Method, h); why != "" {
+		b.add(SectionPrime, "prime.method-unsuited",
+			"The chosen method ("+ctx.Method.Label()+") is not suited to "+why+": choose another method before priming.",
+			"", "presets catalogue (priming methods); common practice")
+	}
 	b.primeSteps(ctx)
 
 	// ---- Run and watch (field-practice §2.9, §3.1, §3.8, §4.3).
@@ -746,6 +758,27 @@ func (b *builder) primeSteps(ctx ChecklistContext) {
 		b.add(SectionPrime, "prime.choose",
 			"Choose a priming method for this job.", "", rulePractice)
 	}
+}
+
+// methodUnsuited names the hazard that rules the method out, or "": the
+// same rules as the presets catalogue's priming entries (submerge-and-cap is
+// not for flammable or volatile liquids — hands in the liquid, vapour at the
+// face; filling from a supply adds water to a fuel job).
+func methodUnsuited(m PrimingMethod, h Hazards) string {
+	switch m {
+	case PrimeSubmerge:
+		if h.Flammable {
+			return "a flammable liquid"
+		}
+		if h.Volatile {
+			return "a volatile liquid"
+		}
+	case PrimeSupplyFill:
+		if h.Flammable || h.Combustible {
+			return "a fuel (it adds water to the job)"
+		}
+	}
+	return ""
 }
 
 type builder struct{ steps []Step }

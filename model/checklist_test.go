@@ -378,7 +378,9 @@ func TestParsePrimingMethod(t *testing.T) {
 		want PrimingMethod
 		ok   bool
 	}{
+		{"submerge-and-cap", PrimeSubmerge, true},
 		{"submerge", PrimeSubmerge, true},
+		{"fill-from-supply", PrimeSupplyFill, true},
 		{" Hand-Pump ", PrimeHandPump, true},
 		{"vacuum at the crest", PrimeVacuum, true},
 		{"", "", true},
@@ -410,6 +412,26 @@ func TestHazardsFromTags(t *testing.T) {
 	}
 	if c := BuildChecklist(ChecklistContext{Hazards: p}); c.Index("hazard.toxic") < 0 || c.Index("setup.bonding") < 0 {
 		t.Error("toxic or bonding step missing for hzGasoline from presets")
+	}
+}
+
+// Methods the catalogue rules out for a hazard get a step saying so (presets
+// catalogue priming entries, not_for; common practice).
+func TestChecklistMethodUnsuited(t *testing.T) {
+	for _, tc := range []struct {
+		m    PrimingMethod
+		h    Hazards
+		want bool
+	}{
+		{PrimeSubmerge, hzGasoline, true},
+		{PrimeSupplyFill, Hazards{Combustible: true}, true},
+		{PrimeSubmerge, hzPlain, false},
+		{PrimeHandPump, hzGasoline, false},
+	} {
+		c := BuildChecklist(ChecklistContext{Method: tc.m, Hazards: tc.h})
+		if got := c.Index("prime.method-unsuited") >= 0; got != tc.want {
+			t.Errorf("%s with %+v: unsuited step %v, want %v", tc.m, tc.h, got, tc.want)
+		}
 	}
 }
 
