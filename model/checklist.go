@@ -105,11 +105,11 @@ type PrimingMethod string
 const (
 	PrimeSubmerge   PrimingMethod = "submerge-and-cap" // fill in the source, cap one end
 	PrimeSupplyFill PrimingMethod = "fill-from-supply" // fill from a clean supply, far end closed
-	PrimeCrestPort  PrimingMethod = "crest-port"  // fill through a port at the crest
-	PrimeHandPump   PrimingMethod = "hand-pump"   // hand pump or squeeze bulb
-	PrimeShakeValve PrimingMethod = "shake-valve" // shake-type check valve at the intake
-	PrimeVacuum     PrimingMethod = "vacuum"      // vacuum pump at the crest
-	PrimePumpStart  PrimingMethod = "pump-start"  // pump-assisted start
+	PrimeCrestPort  PrimingMethod = "crest-port"       // fill through a port at the crest
+	PrimeHandPump   PrimingMethod = "hand-pump"        // hand pump or squeeze bulb
+	PrimeShakeValve PrimingMethod = "shake-valve"      // shake-type check valve at the intake
+	PrimeVacuum     PrimingMethod = "vacuum"           // vacuum pump at the crest
+	PrimePumpStart  PrimingMethod = "pump-start"       // pump-assisted start
 )
 
 // PrimingMethods lists the methods in the order a picker shows them.
