@@ -1,0 +1,230 @@
+package presets
+
+import (
+	_ "embed"
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+)
+
+// Catalogue holds liquids, hose materials, hose sizes, fittings, tank
+// templates and priming methods and aids. A Catalogue is not changed after
+// it is built: Merge returns a new one. Lookups are safe for concurrent use.
+type Catalogue struct {
+	liquids   []Liquid
+	materials []Material
+	hoses     []Hose
+	fittings  []Fitting
+	tanks     []TankTemplate
+	priming   []PrimingMethod
+	aids      []PrimingAid
+}
+
+//go:embed catalogue.toml
+var builtinTOML string
+
+// Builtin returns a new catalogue of the built-in entries: the liquids
+// defined in Go (their correlations) and the hoses, materials, fittings,
+// tanks and priming methods of the embedded catalogue.toml. Each call builds
+// a fresh catalogue; no package state is changed.
+//
+// Builtin panics only if the embedded file is broken, which the package
+// tests rule out.
+func Builtin() *Catalogue {
+	c, err := parse(builtinTOML, "catalogue.toml (built-in)", "built-in", nil)
+	if err != nil {
+		panic("presets: embedded catalogue: " + err.Error())
+	}
+	c.liquids = append(builtinLiquids(), c.liquids...)
+	return c
+}
+
+// UserFile returns the usual path of the user preset file,
+// <os.UserConfigDir()>/drawdown/presets.toml, or "" when the platform has no
+// user configuration directory. Reading it is the caller's job.
+func UserFile() string {
+	dir, err := os.UserConfigDir()
+	if err != nil || dir == "" {
+		return ""
+	}
+	return filepath.Join(dir, "drawdown", "presets.toml")
+}
+
+func norm(id string) string { return strings.ToLower(strings.TrimSpace(id)) }
+
+// Liquid returns the liquid with the given ID (case-insensitive). Besides
+// the catalogue's IDs it accepts "seawater:S" and "brine:S" for salinity S
+// in g/kg (see Seawater) and "gasoline:R" for Reid vapour pressure R in kPa
+// (see Gasoline); such forms return false when the number is unusable.
+func (c *Catalogue) Liquid(id string) (Liquid, bool) {
+	id = norm(id)
+	for _, l := range c.liquids {
+		if l.ID == id {
+			return l, true
+		}
+	}
+	return parametricLiquid(id)
+}
+
+// parametricLiquid handles "seawater:S", "brine:S" and "gasoline:R".
+func parametricLiquid(id string) (Liquid, bool) {
+	kind, arg, ok := strings.Cut(id, ":")
+	if !ok || len(arg) == 0 || len(arg) > 12 {
+		return Liquid{}, false
+	}
+	v, err := strconv.ParseFloat(arg, 64)
+	if err != nil || strings.ContainsAny(arg, "xXpPnN_") { // no hex, inf or nan
+		return Liquid{}, false
+	}
+	var l Liquid
+	switch kind {
+	case "seawater", "brine":
+		l, err = Seawater(v)
+	case "gasoline":
+		l, err = Gasoline(v)
+	default:
+		return Liquid{}, false
+	}
+	if err != nil {
+		return Liquid{}, false
+	}
+	l.ID = id
+	l.Origin = "built-in"
+	return l, true
+}
+
+// Material returns the hose material with the given ID.
+func (c *Catalogue) Material(id string) (Material, bool) {
+	id = norm(id)
+	for _, m := range c.materials {
+		if m.ID == id {
+			return m, true
+		}
+	}
+	return Material{}, false
+}
+
+// Hose returns the hose size with the given ID, e.g. "25mm" or "1-1/2in".
+func (c *Catalogue) Hose(id string) (Hose, bool) {
+	id = norm(id)
+	for _, h := range c.hoses {
+		if h.ID == id {
+			return h, true
+		}
+	}
+	return Hose{}, false
+}
+
+// Fitting returns the fitting with the given ID.
+func (c *Catalogue) Fitting(id string) (Fitting, bool) {
+	id = norm(id)
+	for _, f := range c.fittings {
+		if f.ID == id {
+			return f, true
+		}
+	}
+	return Fitting{}, false
+}
+
+// Tank returns the tank template with the given ID.
+func (c *Catalogue) Tank(id string) (TankTemplate, bool) {
+	id = norm(id)
+	for _, t := range c.tanks {
+		if t.ID == id {
+			return t, true
+		}
+	}
+	return TankTemplate{}, false
+}
+
+// PrimingMethod returns the priming method with the given ID.
+func (c *Catalogue) PrimingMethod(id string) (PrimingMethod, bool) {
+	id = norm(id)
+	for _, m := range c.priming {
+		if m.ID == id {
+			return m, true
+		}
+	}
+	return PrimingMethod{}, false
+}
+
+// PrimingAid returns the priming aid with the given ID.
+func (c *Catalogue) PrimingAid(id string) (PrimingAid, bool) {
+	id = norm(id)
+	for _, a := range c.aids {
+		if a.ID == id {
+			return a, true
+		}
+	}
+	return PrimingAid{}, false
+}
+
+// Liquids returns the liquids in catalogue order (a copy).
+func (c *Catalogue) Liquids() []Liquid { return append([]Liquid(nil), c.liquids...) }
+
+// Materials returns the hose materials in catalogue order (a copy).
+func (c *Catalogue) Materials() []Material { return append([]Material(nil), c.materials...) }
+
+// Hoses returns the hose sizes in catalogue order (a copy).
+func (c *Catalogue) Hoses() []Hose { return append([]Hose(nil), c.hoses...) }
+
+// Fittings returns the fittings in catalogue order (a copy).
+func (c *Catalogue) Fittings() []Fitting { return append([]Fitting(nil), c.fittings...) }
+
+// Tanks returns the tank templates in catalogue order (a copy).
+func (c *Catalogue) Tanks() []TankTemplate { return append([]TankTemplate(nil), c.tanks...) }
+
+// PrimingMethods returns the priming methods in catalogue order (a copy).
+func (c *Catalogue) PrimingMethods() []PrimingMethod {
+	return append([]PrimingMethod(nil), c.priming...)
+}
+
+// PrimingMethodsFor returns the priming methods that suit the hazards h.
+func (c *Catalogue) PrimingMethodsFor(h Hazards) []PrimingMethod {
+	var out []PrimingMethod
+	for _, m := range c.priming {
+		if m.Suits(h) {
+			out = append(out, m)
+		}
+	}
+	return out
+}
+
+// PrimingAids returns the priming aids in catalogue order (a copy).
+func (c *Catalogue) PrimingAids() []PrimingAid { return append([]PrimingAid(nil), c.aids...) }
+
+// Merge returns a new catalogue holding c's entries with u's laid over them:
+// an entry of u replaces the entry of c with the same ID in place, and new
+// IDs are appended in u's order. Neither c nor u is changed.
+func (c *Catalogue) Merge(u *Catalogue) *Catalogue {
+	if u == nil {
+		u = &Catalogue{}
+	}
+	return &Catalogue{
+		liquids:   mergeByID(c.liquids, u.liquids, func(l Liquid) string { return l.ID }),
+		materials: mergeByID(c.materials, u.materials, func(m Material) string { return m.ID }),
+		hoses:     mergeByID(c.hoses, u.hoses, func(h Hose) string { return h.ID }),
+		fittings:  mergeByID(c.fittings, u.fittings, func(f Fitting) string { return f.ID }),
+		tanks:     mergeByID(c.tanks, u.tanks, func(t TankTemplate) string { return t.ID }),
+		priming:   mergeByID(c.priming, u.priming, func(m PrimingMethod) string { return m.ID }),
+		aids:      mergeByID(c.aids, u.aids, func(a PrimingAid) string { return a.ID }),
+	}
+}
+
+func mergeByID[T any](base, over []T, id func(T) string) []T {
+	out := append([]T(nil), base...)
+	pos := make(map[string]int, len(out))
+	for i, v := range out {
+		pos[id(v)] = i
+	}
+	for _, v := range over {
+		if i, ok := pos[id(v)]; ok {
+			out[i] = v
+			continue
+		}
+		pos[id(v)] = len(out)
+		out = append(out, v)
+	}
+	return out
+}

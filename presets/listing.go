@@ -1,0 +1,294 @@
+package presets
+
+import (
+	"bufio"
+	"fmt"
+	"io"
+	"math"
+	"strings"
+	"unicode/utf8"
+
+	"drawdown/calc"
+)
+
+// listingWidth is the width WriteListing wraps to, for an 80-column terminal.
+const listingWidth = 79
+
+// WriteListing writes the human listing of the catalogue for
+// `drawdown presets`: every entry with its values, valid range and sources,
+// wrapped to 80 columns, in SI units with the inch sizes alongside.
+func (c *Catalogue) WriteListing(w io.Writer) error {
+	bw := bufio.NewWriter(w)
+	lw := &listWriter{w: bw}
+
+	lw.heading("LIQUIDS", "Properties shown at 20 °C and 1 atm, or at the nearest valid temperature. "+
+		"Also accepted: seawater:S or brine:S (salinity S g/kg, up to 150) and gasoline:R "+
+		"(Reid vapour pressure R kPa, 20 to 110).")
+	for _, l := range c.liquids {
+		lw.entry(l.ID, l.Name)
+		if l.Basis != "" {
+			lw.field("basis", l.Basis)
+		}
+		lw.field("valid", fmt.Sprintf("%s to %s °C", cnum(l.Min), cnum(l.Max)))
+		T := calc.Celsius(20)
+		if T < l.Min {
+			T = l.Min
+		} else if T > l.Max {
+			T = l.Max
+		}
+		if f, err := l.Fluid(T, 101325); err == nil {
+			lw.field("at "+cnum(T)+" °C", fmt.Sprintf("density %.1f kg/m³, viscosity %.3g mPa·s, vapour pressure %s",
+				float64(f.Density), float64(f.Viscosity)*1e3, pressureText(float64(f.VaporPressure))))
+		} else {
+			lw.field("at "+cnum(T)+" °C", err.Error())
+		}
+		if l.Cold > 0 {
+			lw.field("cold limit", fmt.Sprintf("%s %s °C", l.ColdKind, cnum(l.Cold)))
+		}
+		if l.Flash > 0 {
+			lw.field("flash point", fmt.Sprintf("%s °C, NFPA 30 class %s", cnum(l.Flash), l.Class))
+		}
+		lw.field("hazards", l.Hazards.String())
+		lw.field("density", l.Sources.Density)
+		lw.field("viscosity", l.Sources.Viscosity)
+		lw.field("vapour", l.Sources.VaporPressure)
+		lw.field("range", l.Sources.Range)
+		if l.Sources.Cold != "" {
+			lw.field("cold src", l.Sources.Cold)
+		}
+		if l.Sources.Flash != "" {
+			lw.field("flash src", l.Sources.Flash)
+		}
+		if l.Note != "" {
+			lw.field("note", l.Note)
+		}
+		lw.origin(l.Origin)
+	}
+
+	lw.heading("HOSE MATERIALS", "Absolute roughness ε, central value and published range.")
+	for _, m := range c.materials {
+		lw.entry(m.ID, m.Name)
+		lw.field("roughness", fmt.Sprintf("%s mm (%s to %s mm)", mmText(m.Roughness), mmText(m.RoughnessLow), mmText(m.RoughnessHigh)))
+		if m.Collapses {
+			lw.field("WARNING", "collapses under suction: not for siphons")
+		}
+		lw.field("source", m.Source)
+		if m.Note != "" {
+			lw.field("note", m.Note)
+		}
+		lw.origin(m.Origin)
+	}
+
+	lw.heading("HOSE SIZES", "Inside diameters; check the actual bore of your hose.")
+	for _, h := range c.hoses {
+		lw.line(fmt.Sprintf("  %-9s %s, %.2f in", h.ID, h.Name+mmSuffix(h), float64(h.Diameter)/0.0254))
+	}
+	srcs := map[string]bool{}
+	for _, h := range c.hoses {
+		if !srcs[h.Source] {
+			srcs[h.Source] = true
+			lw.field("source", h.Source)
+		}
+	}
+
+	lw.heading("FITTINGS", "Loss coefficient K, central (low to high). n·f_T values follow Crane "+
+		"TP-410 and are shown for a 25 mm and a 50 mm hose. [memory] marks a value from memory.")
+	for _, f := range c.fittings {
+		lw.entry(f.ID, f.Name)
+		var k string
+		if f.PerFT {
+			a, b := f.KAt(0.025), f.KAt(0.050)
+			k = fmt.Sprintf("%s f_T (%s to %s): %s at 25 mm, %s at 50 mm", gnum(f.K.Central), gnum(f.K.Low), gnum(f.K.High),
+				kText(a), kText(b))
+		} else {
+			k = kText(f.K)
+		}
+		if f.FromMemory {
+			k += " [memory]"
+		}
+		lw.field("K", k)
+		lw.field("where", f.Where.String())
+		lw.field("source", f.Source)
+		if f.Note != "" {
+			lw.field("note", f.Note)
+		}
+		lw.origin(f.Origin)
+	}
+	lw.line("  The exit loss (K = 1) is added by the calculation; do not list it.")
+
+	lw.heading("TANK TEMPLATES", "Sizes in metres (side-slope: run per unit rise).")
+	for _, t := range c.tanks {
+		lw.entry(t.ID, t.Name)
+		parts := make([]string, 0, len(t.Sizes))
+		for _, s := range t.Sizes {
+			parts = append(parts, s.Name+" "+gnum(s.Value))
+		}
+		lw.field("shape", t.Shape+": "+strings.Join(parts, ", "))
+		if t.ConfinedSpace {
+			lw.field("CAUTION", "confined space if entered: permit, atmospheric testing, attendant")
+		}
+		lw.field("source", t.Source)
+		if t.Note != "" {
+			lw.field("note", t.Note)
+		}
+		lw.origin(t.Origin)
+	}
+
+	lw.heading("PRIMING METHODS", NeverByMouth)
+	for _, m := range c.priming {
+		lw.entry(m.ID, m.Name)
+		lw.field("how", m.Summary)
+		if m.NotFor != 0 {
+			lw.field("not for", m.NotFor.String())
+		}
+		if m.Caution != "" {
+			lw.field("caution", m.Caution)
+		}
+		lw.field("source", m.Source)
+		lw.origin(m.Origin)
+	}
+
+	lw.heading("PRIMING AIDS", "Enter your own stroke volume; the ranges only guide it.")
+	for _, a := range c.aids {
+		lw.entry(a.ID, a.Name)
+		lw.field("stroke", fmt.Sprintf("%s to %s mL", gnum(float64(a.StrokeLow)*1e6), gnum(float64(a.StrokeHigh)*1e6)))
+		lw.field("source", a.Source)
+		if a.Note != "" {
+			lw.field("note", a.Note)
+		}
+		lw.origin(a.Origin)
+	}
+
+	lw.heading("CAUTION", "These values plan a job; they do not make it safe. Follow the site's "+
+		"written procedures, local codes and permits, and the product's safety data sheet.")
+	if lw.err != nil {
+		return lw.err
+	}
+	return bw.Flush()
+}
+
+type listWriter struct {
+	w   *bufio.Writer
+	err error
+}
+
+func (lw *listWriter) line(s string) {
+	if lw.err != nil {
+		return
+	}
+	_, lw.err = lw.w.WriteString(strings.TrimRight(s, " ") + "\n")
+}
+
+func (lw *listWriter) heading(title, intro string) {
+	lw.line("")
+	lw.line(title)
+	for _, l := range wrap(intro, listingWidth-2) {
+		lw.line("  " + l)
+	}
+}
+
+func (lw *listWriter) entry(id, name string) {
+	lw.line("")
+	lw.line(fmt.Sprintf("  %s  %s", id, name))
+}
+
+// field writes "label: text" with the text wrapped and indented under
+// itself: label column 4–15, text from column 17.
+func (lw *listWriter) field(label, text string) {
+	const indent = 17
+	lines := wrap(text, listingWidth-indent)
+	for i, l := range lines {
+		if i == 0 {
+			lw.line(fmt.Sprintf("    %-12s %s", label, l))
+		} else {
+			lw.line(strings.Repeat(" ", indent) + l)
+		}
+	}
+	if len(lines) == 0 {
+		lw.line(fmt.Sprintf("    %-12s", label))
+	}
+}
+
+func (lw *listWriter) origin(o string) {
+	if o != "" && o != "built-in" {
+		lw.field("from", o)
+	}
+}
+
+// units that wrap keeps on the same line as the number before them.
+var glueUnits = map[string]bool{
+	"Pa": true, "kPa": true, "°C": true, "K": true, "mm": true, "m": true, "mL": true,
+	"mm²/s": true, "mPa·s": true, "kg/m³": true, "%": true, "in": true, "psi": true,
+}
+
+// wrap splits s into lines of at most width runes at spaces, keeping a unit
+// with its number; a word longer than width is cut.
+func wrap(s string, width int) []string {
+	var words []string
+	for _, w := range strings.Fields(s) {
+		if n := len(words); n > 0 && glueUnits[strings.TrimRight(w, ",.;:)")] {
+			prev := words[n-1]
+			if prev != "" && prev[len(prev)-1] >= '0' && prev[len(prev)-1] <= '9' {
+				words[n-1] = prev + "\x00" + w
+				continue
+			}
+		}
+		words = append(words, w)
+	}
+	var out []string
+	var cur strings.Builder
+	n := 0
+	flush := func() {
+		out = append(out, strings.ReplaceAll(cur.String(), "\x00", " "))
+		cur.Reset()
+		n = 0
+	}
+	for _, word := range words {
+		for utf8.RuneCountInString(word) > width {
+			if n > 0 {
+				flush()
+			}
+			r := []rune(word)
+			out = append(out, strings.ReplaceAll(string(r[:width]), "\x00", " "))
+			word = string(r[width:])
+		}
+		wl := utf8.RuneCountInString(word)
+		if n > 0 && n+1+wl > width {
+			flush()
+		}
+		if n > 0 {
+			cur.WriteByte(' ')
+			n++
+		}
+		cur.WriteString(word)
+		n += wl
+	}
+	if n > 0 {
+		flush()
+	}
+	return out
+}
+
+func cnum(t calc.Temperature) string { return gnum(math.Round(t.Celsius()*100) / 100) }
+
+func gnum(v float64) string { return fmt.Sprintf("%.4g", v) }
+
+func mmText(l calc.Length) string { return gnum(float64(l) * 1000) }
+
+func kText(k KRange) string {
+	return fmt.Sprintf("%s (%s to %s)", gnum(k.Central), gnum(k.Low), gnum(k.High))
+}
+
+func mmSuffix(h Hose) string {
+	if strings.Contains(h.Name, "mm") {
+		return ""
+	}
+	return fmt.Sprintf(" (%s mm)", mmText(h.Diameter))
+}
+
+func pressureText(pa float64) string {
+	if pa >= 1000 {
+		return fmt.Sprintf("%.3g kPa", pa/1000)
+	}
+	return fmt.Sprintf("%.3g Pa", pa)
+}
