@@ -1,0 +1,111 @@
+// Command drawdown plans, checks and records siphon drains of tanks, sumps,
+// pits and ponds.
+//
+//	drawdown                 the terminal screen, on the last job or the demo job
+//	drawdown calc [flags]    one case without the screen (--json for JSON)
+//	drawdown presets         the built-in catalogue
+//	drawdown report JOB      the job record
+//
+// main only dispatches: the screen is package tui, the commands are package
+// model/cli.
+package main
+
+import (
+	"fmt"
+	"io"
+	"os"
+	"os/signal"
+	"strings"
+	"syscall"
+
+	tea "charm.land/bubbletea/v2"
+
+	"drawdown/model"
+	"drawdown/model/cli"
+	"drawdown/tui"
+)
+
+func main() {
+	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
+}
+
+func run(args []string, stdout, stderr io.Writer) int {
+	if len(args) > 0 {
+		switch args[0] {
+		case "calc", "presets", "report":
+			return cli.Run(args, stdout, stderr)
+		case "-h", "--help", "help":
+			fmt.Fprint(stdout, usage)
+			return 0
+		}
+		fmt.Fprintf(stderr, "drawdown: unknown command %q\n%s", args[0], usage)
+		return 2
+	}
+	if t := os.Getenv("TERM"); t == "dumb" || t == "" && !isTerminal(os.Stdout) {
+		fmt.Fprint(stderr, dumbMessage)
+		return 1
+	}
+	return runScreen(stderr)
+}
+
+const usage = `usage:
+  drawdown                 open the planning screen (last job, or the demo job)
+  drawdown calc [flags]    compute one case without the screen; --json for JSON
+  drawdown presets         list the built-in liquids, hoses, fittings and tanks
+  drawdown report JOB      write the job record
+`
+
+const dumbMessage = `drawdown: this terminal cannot move the cursor (TERM=dumb), and the
+planning screen needs one that can (xterm, tmux, screen, a Linux console, an
+SSH client). Set TERM to your terminal's type, or work without the screen:
+  drawdown calc --hose-id 25mm --hose-length 10m --lift 1m --drop 2m
+  drawdown calc --help
+`
+
+func isTerminal(f *os.File) bool {
+	fi, err := f.Stat()
+	return err == nil && fi.Mode()&os.ModeCharDevice != 0
+}
+
+// runScreen runs the planning screen. Every change is saved while it runs;
+// on SIGHUP (the SSH link dropped) or SIGTERM the screen is told to stop and
+// the job is saved once more before exit.
+func runScreen(stderr io.Writer) int {
+	start := tui.OpenStart()
+	m := tui.New(tui.Options{Start: start})
+	p := tea.NewProgram(m)
+
+	sigs := make(chan os.Signal, 1)
+	signal.Notify(sigs, syscall.SIGHUP, syscall.SIGTERM)
+	defer signal.Stop(sigs)
+	go func() {
+		if s, ok := <-sigs; ok {
+			p.Send(tui.StopMsg{Reason: strings.ToUpper(signalName(s))})
+		}
+	}()
+
+	final, err := p.Run()
+	code := 0
+	if err != nil {
+		fmt.Fprintln(stderr, "drawdown:", err)
+		code = 1
+	}
+	if fm, ok := final.(tui.Model); ok && fm.Path() != "" {
+		if serr := model.SaveAtomic(fm.Path(), fm.Job()); serr != nil {
+			fmt.Fprintln(stderr, "drawdown: the job was NOT saved at exit:", serr)
+			return 1
+		}
+		_ = model.SetLastJob(fm.Path())
+	}
+	return code
+}
+
+func signalName(s os.Signal) string {
+	switch s {
+	case syscall.SIGHUP:
+		return "sighup"
+	case syscall.SIGTERM:
+		return "sigterm"
+	}
+	return s.String()
+}

@@ -1,0 +1,1015 @@
+package tui
+
+import (
+	"strconv"
+	"strings"
+	"time"
+
+	"charm.land/bubbles/v2/help"
+	"charm.land/bubbles/v2/key"
+	tea "charm.land/bubbletea/v2"
+	"github.com/charmbracelet/x/ansi"
+
+	"drawdown/calc"
+	"drawdown/model"
+	"drawdown/presets"
+)
+
+// PaneID names a pane of the screen. The zero value is a real pane (Hose).
+type PaneID int
+
+// The panes, in tab order; the digit keys 1–9 select them.
+const (
+	PaneHose PaneID = iota
+	PaneLift
+	PaneLiquid
+	PaneTank
+	PaneSide
+	PaneCurve
+	PaneWhatIf
+	PaneChecklist
+	PaneLog
+	paneCount
+)
+
+// paneNames are the tab titles and the names stored in Job.Resume.Pane.
+var paneNames = [paneCount]string{"Hose", "Lift & outlet", "Liquid & site", "Tank", "Side view",
+	"Drain curve", "What-if", "Checklist", "Log"}
+
+// paneShort are the tab titles on a narrow screen.
+var paneShort = [paneCount]string{"Hose", "Lift", "Liquid", "Tank", "Side", "Curve", "What-if", "Checklist", "Log"}
+
+func (p PaneID) String() string {
+	if p < 0 || p >= paneCount {
+		return "Pane(" + strconv.Itoa(int(p)) + ")"
+	}
+	return paneNames[p]
+}
+
+// isForm reports whether the pane is one of the four input forms.
+func (p PaneID) isForm() bool { return p >= PaneHose && p <= PaneTank }
+
+func paneByName(name string) (PaneID, bool) {
+	for i, n := range paneNames {
+		if strings.EqualFold(n, name) {
+			return PaneID(i), true
+		}
+	}
+	return PaneHose, false
+}
+
+// Options configure the root model.
+type Options struct {
+	Start Start              // the job to open (see OpenStart)
+	Cat   *presets.Catalogue // nil: presets.Builtin()
+	// NoSave turns saving off (tests, and when there is no job folder).
+	NoSave bool
+	// Now is the clock for log lines (nil: time.Now).
+	Now func() time.Time
+	// Loc is the zone times are shown in (nil: time.Local).
+	Loc *time.Location
+}
+
+// Model is the root of the screen and the only tea.Model: it routes
+// messages, owns the job and the last plan, and lays out the panes.
+type Model struct {
+	keys   KeyMap
+	styles Styles
+	cat    *presets.Catalogue
+	now    func() time.Time
+
+	job  model.Job
+	path string
+	dir  string
+
+	// plan is the last valid plan; stale is set while the inputs have an
+	// error (the plan stays on screen, marked).
+	plan    model.Plan
+	hasPlan bool
+	stale   bool
+	errs    map[model.FieldID]error
+	// lastGood is the input text of the last valid plan (ctrl+r puts a
+	// field back to it).
+	lastGood map[model.FieldID]string
+
+	focus     PaneID
+	lower     PaneID // wide screens: the view shown in the lower strip
+	forms     [4]FormPane
+	result    ResultPane
+	side      SideView
+	curve     CurveView
+	log       LogPane
+	help      help.Model
+	showHelp  bool
+	jobs      jobList
+	flash     string // one-shot hint on the help line, cleared by the next key
+	width     int
+	height    int
+	lay       layout
+	startNote string
+
+	// Saving: one save in flight at a time; a change during a save marks
+	// the job dirty and another save follows.
+	noSave    bool
+	saveSeq   uint64
+	saving    bool
+	dirty     bool
+	lastSaved time.Time
+	saveErr   error
+	markedAs  string // path last recorded with SetLastJob
+	quitting  bool
+}
+
+// New builds the root model for a job. It computes the first plan at once,
+// so the first frame shows the answer.
+func New(o Options) Model {
+	cat := o.Cat
+	if cat == nil {
+		cat = presets.Builtin()
+	}
+	now := o.Now
+	if now == nil {
+		now = time.Now
+	}
+	km := DefaultKeyMap()
+	st := NewStyles(true)
+	m := Model{
+		keys: km, styles: st, cat: cat, now: now,
+		job: o.Start.Job, path: o.Start.Path, dir: o.Start.Dir,
+		noSave: o.NoSave || o.Start.Path == "", startNote: o.Start.Note,
+		lower: PaneCurve,
+	}
+	if m.job.Inputs == nil {
+		m.job.Inputs = map[model.FieldID]string{}
+	}
+	for i, p := range model.Panes() {
+		m.forms[i] = NewFormPane(p, cat, st, km)
+	}
+	ds := NewDrawStyles(st)
+	m.result = NewResultPane(st)
+	m.side = NewSideView(ds, m.job.Units)
+	m.curve = NewCurveView(ds, m.job.Units)
+	m.log = NewLogPane(st, km, o.Loc)
+	m.help = help.New()
+	m.help.Styles = st.HelpStyles()
+	m.jobs = newJobList(st, km)
+	if m.startNote != "" {
+		m.job.AddLog(now(), m.startNote)
+	}
+	m.resume()
+	m.recompute()
+	m.resize(MinWidth, MinHeight)
+	return m
+}
+
+// resume puts the focus where the job was left.
+func (m *Model) resume() {
+	r := m.job.Resume
+	if p, ok := paneByName(r.Pane); ok {
+		m.focus = p
+	}
+	if r.Field != "" {
+		for i := range m.forms {
+			if m.forms[i].SelectField(r.Field) {
+				if !m.focus.isForm() {
+					break
+				}
+				if PaneID(i) != m.focus {
+					m.focus = PaneID(i)
+				}
+				break
+			}
+		}
+	}
+	if !m.focus.isForm() && m.focus != PaneSide {
+		m.lower = m.focus
+	}
+}
+
+// Job returns a copy of the job as it stands (main saves it at exit).
+func (m Model) Job() model.Job { return m.job.Clone() }
+
+// Path is where the job is saved ("" when saving is off).
+func (m Model) Path() string { return m.path }
+
+// Init asks the terminal for its background colour; the first frame does
+// not wait for the answer (dark is assumed until it comes).
+func (m Model) Init() tea.Cmd { return tea.RequestBackgroundColor }
+
+// Update routes a message: global keys first, then sizes, then typed
+// replies to their owner, then everything else to the focused pane.
+func (m Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
+	switch msg := msg.(type) {
+	case tea.KeyPressMsg:
+		return m.key(msg)
+	case tea.WindowSizeMsg:
+		m.resize(msg.Width, msg.Height)
+		return m, nil
+	case tea.BackgroundColorMsg:
+		m.setStyles(NewStyles(msg.IsDark()))
+		return m, nil
+	case jobSavedMsg:
+		return m.saved(msg)
+	case jobsListedMsg:
+		m.jobs.setList(msg)
+		return m, nil
+	case jobLoadedMsg:
+		return m.loaded(msg)
+	case StopMsg:
+		m.job.AddLog(m.now(), "stopped ("+msg.Reason+"); job saved")
+		m.quitting = true
+		return m, tea.Quit
+	}
+	return m, nil
+}
+
+func (m *Model) setStyles(st Styles) {
+	m.styles = st
+	for i := range m.forms {
+		m.forms[i].SetStyles(st)
+	}
+	ds := NewDrawStyles(st)
+	m.result.SetStyles(st)
+	m.side.SetStyles(ds)
+	m.curve.SetStyles(ds)
+	m.log.SetStyles(st)
+	m.help.Styles = st.HelpStyles()
+	m.jobs.styles = st
+}
+
+// typing reports whether keys go into a text field (letters are text).
+func (m Model) typing() bool {
+	if m.jobs.open || m.showHelp {
+		return false
+	}
+	if m.focus.isForm() {
+		f := m.forms[m.focus]
+		return f.Editing() && !f.SelectedIsPicker()
+	}
+	return false
+}
+
+func (m Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
+	m.flash = ""
+	k := m.keys
+	// Keys that work everywhere, also while typing.
+	switch {
+	case key.Matches(msg, k.Quit):
+		return m.quit()
+	case key.Matches(msg, k.SaveNow):
+		return m, m.save(true)
+	case key.Matches(msg, k.UnitsAny):
+		return m.toggleUnits()
+	}
+	// Overlays.
+	if m.showHelp {
+		if key.Matches(msg, k.Help, k.Leave, k.QuitNav) || msg.String() == "enter" {
+			m.showHelp = false
+		}
+		return m, nil
+	}
+	if m.jobs.open {
+		return m.jobKey(msg)
+	}
+	typing := m.typing()
+	if !typing {
+		switch {
+		case key.Matches(msg, k.QuitNav):
+			return m.quit()
+		case key.Matches(msg, k.Help):
+			m.showHelp = true
+			return m, nil
+		case key.Matches(msg, k.Units):
+			return m.toggleUnits()
+		case key.Matches(msg, k.Save):
+			m.flash = "saving now (every change is saved anyway)"
+			return m, m.save(true)
+		case key.Matches(msg, k.Open):
+			m.jobs.open = true
+			m.jobs.loading = true
+			return m, listJobsCmd(m.dir)
+		case key.Matches(msg, k.NextPane):
+			return m, m.setFocus((m.focus + 1) % paneCount)
+		case key.Matches(msg, k.PrevPane):
+			return m, m.setFocus((m.focus + paneCount - 1) % paneCount)
+		}
+		for i, b := range k.PaneKeys {
+			if key.Matches(msg, b) {
+				return m, m.setFocus(PaneID(i))
+			}
+		}
+	}
+	if m.focus.isForm() {
+		return m.formKey(msg)
+	}
+	switch m.focus {
+	case PaneLog:
+		m.log, _ = m.log.Update(msg)
+	case PaneHose, PaneLift, PaneLiquid, PaneTank, PaneSide, PaneCurve, PaneWhatIf, PaneChecklist, paneCount:
+	}
+	if !typing && msg.Text != "" && !key.Matches(msg, k.Up, k.Down) {
+		m.flash = "“" + msg.Text + "” does nothing here. Keys: 1–4 forms, 5–9 views, ? all keys"
+	}
+	return m, nil
+}
+
+// formKey handles a key in a form pane.
+func (m Model) formKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
+	k := m.keys
+	f := &m.forms[m.focus]
+	switch {
+	case key.Matches(msg, k.NextField):
+		m.moveField(+1)
+		return m, m.saveResume()
+	case key.Matches(msg, k.PrevField):
+		m.moveField(-1)
+		return m, m.saveResume()
+	case key.Matches(msg, k.Leave):
+		if f.Editing() {
+			f.StopEditing()
+		} else {
+			m.flash = "navigate mode: press enter to type in the marked field"
+		}
+		return m, nil
+	}
+	picker := f.SelectedIsPicker()
+	if !picker && f.Editing() {
+		switch {
+		case msg.String() == "up" || msg.String() == "down":
+			if msg.String() == "up" {
+				m.moveField(-1)
+			} else {
+				m.moveField(+1)
+			}
+			return m, m.saveResume()
+		case key.Matches(msg, k.Edit):
+			f.StopEditing()
+			return m, nil
+		case key.Matches(msg, k.Restore):
+			return m.restoreField()
+		}
+		var edit *FieldEdit
+		var cmd tea.Cmd
+		*f, cmd, edit = f.Update(msg)
+		if edit != nil {
+			return m.applyEdit(*edit, cmd)
+		}
+		return m, cmd
+	}
+	// Navigate mode (or a picker, where letters are still commands).
+	switch {
+	case key.Matches(msg, k.Up):
+		m.moveField(-1)
+		return m, m.saveResume()
+	case key.Matches(msg, k.Down):
+		m.moveField(+1)
+		return m, m.saveResume()
+	case !picker && key.Matches(msg, k.Edit):
+		f.StartEditing()
+		return m, nil
+	}
+	if picker {
+		var edit *FieldEdit
+		*f, _, edit = f.Update(msg)
+		if edit != nil {
+			return m.applyEdit(*edit, nil)
+		}
+		return m, nil
+	}
+	if msg.Text != "" {
+		m.flash = "not typing: press enter first to type in “" + f.Selected().Label + "”"
+	}
+	return m, nil
+}
+
+// moveField moves the selection within the form, and on into the next or
+// previous form at either end.
+func (m *Model) moveField(d int) {
+	f := &m.forms[m.focus]
+	editing := f.Editing()
+	if f.Move(d) {
+		return
+	}
+	f.StopEditing()
+	next := (int(m.focus) + d + 4) % 4
+	m.focus = PaneID(next)
+	nf := &m.forms[next]
+	if d > 0 {
+		nf.First()
+	} else {
+		nf.Last()
+	}
+	if editing {
+		nf.StartEditing()
+	}
+}
+
+// setFocus selects a pane.
+func (m *Model) setFocus(p PaneID) tea.Cmd {
+	if m.focus.isForm() {
+		m.forms[m.focus].StopEditing()
+	}
+	m.focus = p
+	if !p.isForm() && p != PaneSide {
+		m.lower = p
+	}
+	return m.saveResume()
+}
+
+// applyEdit stores the new text, recomputes and saves.
+func (m Model) applyEdit(e FieldEdit, cmd tea.Cmd) (tea.Model, tea.Cmd) {
+	_ = m.job.Set(e.ID, e.Text) // the error comes back with the plan's field errors
+	m.job.Updated = m.now()
+	if e.ID == model.FieldLiquid || e.ID == model.FieldPriming {
+		m.recompute()
+		m.rebuildChecklist(e.ID)
+	}
+	m.recompute()
+	return m, tea.Batch(cmd, m.save(false))
+}
+
+// restoreField puts back the field's text from the last valid plan's job
+// when the field is invalid (ctrl+r).
+func (m Model) restoreField() (tea.Model, tea.Cmd) {
+	f := &m.forms[m.focus]
+	id := f.Selected().ID
+	if m.errs[id] == nil {
+		m.flash = "nothing to undo: the field is valid"
+		return m, nil
+	}
+	old, ok := m.lastGood[id]
+	if !ok {
+		m.flash = "no earlier valid text for this field"
+		return m, nil
+	}
+	return m.applyEdit(FieldEdit{ID: id, Text: old}, nil)
+}
+
+// rebuildChecklist adapts the checklist to a new liquid or priming method,
+// keeping every recorded mark (model.Checklist.Rebuild).
+func (m *Model) rebuildChecklist(changed model.FieldID) {
+	ctx := m.job.Checklist.Context
+	switch changed {
+	case model.FieldPriming:
+		pm, err := model.ParsePrimingMethod(m.job.Choice(model.FieldPriming))
+		if err != nil {
+			return
+		}
+		ctx.Method = pm
+	case model.FieldLiquid:
+		if !m.plan.Liquid.Valid() || m.stale {
+			return
+		}
+		h := model.HazardsFromPresets(m.plan.Hazards, m.plan.Liquid.Class)
+		// Site-confirmed flags stay: the crew set them for this water.
+		h.Environmental = h.Environmental || ctx.Hazards.Environmental
+		h.Biohazard = h.Biohazard || ctx.Hazards.Biohazard
+		ctx.Hazards = h
+		ctx.Liquid = m.plan.Liquid.Name
+	}
+	ctx.Strokes = m.plan.PumpStrokes
+	m.job.Checklist = m.job.Checklist.Rebuild(ctx)
+}
+
+// recompute runs model.Compute and hands the outcome to the panes. It is
+// the only place the plan changes.
+func (m *Model) recompute() {
+	p := model.Compute(m.job, m.cat)
+	m.errs = p.FieldErrors
+	if p.OK() {
+		m.plan, m.hasPlan, m.stale = p, true, false
+		if m.lastGood == nil {
+			m.lastGood = map[model.FieldID]string{}
+		}
+		for k := range m.lastGood {
+			delete(m.lastGood, k)
+		}
+		for k, v := range m.job.Inputs {
+			m.lastGood[k] = v
+		}
+	} else {
+		m.stale = true
+		if len(m.errs) == 0 && p.Err != nil {
+			m.errs = map[model.FieldID]error{model.FieldHoseID: p.Err}
+		}
+	}
+	m.refresh()
+}
+
+// refresh gives every pane what it shows from the job and the plan.
+func (m *Model) refresh() {
+	for i := range m.forms {
+		m.forms[i].SetJob(&m.job, m.errs)
+	}
+	sys := m.job.Units
+	rd := ResultData{}
+	if m.hasPlan {
+		rd = planToResult(m.plan)
+	}
+	rd.Stale = m.stale
+	if m.stale {
+		rd.StaleField = m.firstError()
+	}
+	m.result.SetData(rd, sys)
+	if m.hasPlan {
+		m.side.SetGeometry(planToSide(m.plan, &m.job))
+		if c, ok := planToCurve(m.plan); ok {
+			m.curve.SetCurve(c)
+		} else {
+			m.curve.ClearCurve()
+		}
+	} else {
+		m.side.ClearGeometry()
+		m.curve.ClearCurve()
+	}
+	m.log.SetEntries(m.job.Log)
+}
+
+// firstError is the message of the first invalid field in screen order.
+func (m Model) firstError() string {
+	for _, f := range model.Fields() {
+		if err := m.errs[f.ID]; err != nil {
+			return f.Pane.String() + " › " + fieldMessage(f, err)
+		}
+	}
+	return ""
+}
+
+func (m Model) toggleUnits() (tea.Model, tea.Cmd) {
+	sys := model.US
+	if m.job.Units == model.US {
+		sys = model.SI
+	}
+	m.job.SetUnits(sys)
+	m.job.Updated = m.now()
+	m.side.SetUnits(sys)
+	m.curve.SetUnits(sys)
+	m.recompute()
+	m.flash = "units now " + sysName(sys) + " (bare numbers you typed keep their old unit)"
+	return m, m.save(false)
+}
+
+func sysName(s model.System) string {
+	if s == model.US {
+		return "US customary (ft, in, psi, °F, gal)"
+	}
+	return "SI (m, mm, kPa, °C, L)"
+}
+
+// quit saves (the last save happens in main after the program ends too)
+// and quits.
+func (m Model) quit() (tea.Model, tea.Cmd) {
+	m.quitting = true
+	return m, tea.Quit
+}
+
+// save starts a save of a copy of the job, or marks the job dirty when a
+// save is in flight.
+func (m *Model) save(force bool) tea.Cmd {
+	if m.noSave {
+		return nil
+	}
+	if m.saving {
+		m.dirty = true
+		return nil
+	}
+	_ = force
+	m.saving, m.dirty = true, false
+	m.saveSeq++
+	mark := m.markedAs != m.path
+	return saveCmd(m.path, m.job.Clone(), m.saveSeq, mark)
+}
+
+// saveResume records where the technician is, then saves.
+func (m *Model) saveResume() tea.Cmd {
+	r := &m.job.Resume
+	r.Pane = m.focus.String()
+	if m.focus.isForm() {
+		r.Field = m.forms[m.focus].Selected().ID
+	}
+	r.Step = m.job.Checklist.CurrentIndex()
+	if s, ok := m.job.Checklist.Current(); ok {
+		r.StepID = s.ID
+	}
+	return m.save(false)
+}
+
+func (m Model) saved(msg jobSavedMsg) (tea.Model, tea.Cmd) {
+	if msg.seq != m.saveSeq {
+		return m, nil // stale reply
+	}
+	m.saving = false
+	m.saveErr = msg.err
+	if msg.err == nil {
+		m.lastSaved = msg.at
+		m.markedAs = msg.path
+	}
+	if m.dirty {
+		return m, m.save(false)
+	}
+	return m, nil
+}
+
+func (m Model) loaded(msg jobLoadedMsg) (tea.Model, tea.Cmd) {
+	if msg.err != nil {
+		m.jobs.err = msg.err
+		return m, nil
+	}
+	m.jobs.open = false
+	m.job = msg.job
+	if m.job.Inputs == nil {
+		m.job.Inputs = map[model.FieldID]string{}
+	}
+	m.path = msg.path
+	m.markedAs = ""
+	m.hasPlan = false
+	m.side.SetUnits(m.job.Units)
+	m.curve.SetUnits(m.job.Units)
+	m.resume()
+	m.recompute()
+	return m, m.save(true)
+}
+
+// resize lays the panes out for a w×h terminal.
+func (m *Model) resize(w, h int) {
+	m.width, m.height = w, h
+	m.lay = newLayout(w, h)
+	l := m.lay
+	if l.TooSmall {
+		return
+	}
+	for i := range m.forms {
+		m.forms[i].SetSize(l.Main.W, l.Main.H)
+	}
+	m.result.SetSize(l.Result.W, l.Result.H)
+	m.help.SetWidth(w)
+	if l.Wide {
+		m.side.SetSize(l.Side.W, l.Side.H)
+		m.curve.SetSize(l.Lower.W, l.Lower.H)
+		m.log.SetSize(l.Lower.W, l.Lower.H)
+	} else {
+		m.side.SetSize(l.Main.W, l.Main.H)
+		m.curve.SetSize(l.Main.W, l.Main.H)
+		m.log.SetSize(l.Main.W, l.Main.H)
+	}
+	m.jobs.w, m.jobs.h = l.Main.W, l.Main.H
+}
+
+// View draws the screen. It only formats what Update computed.
+func (m Model) View() tea.View {
+	v := tea.NewView("")
+	v.AltScreen = true
+	v.WindowTitle = "drawdown"
+	if m.quitting {
+		return v
+	}
+	l := m.lay
+	if l.TooSmall {
+		v.SetContent(tooSmall(m.width, m.height))
+		return v
+	}
+	rows := make([]string, 0, l.H)
+	rows = append(rows, m.headerView(), m.tabsView())
+	if m.showHelp {
+		rows = append(rows, strings.Split(m.fullHelpView(l.W, l.H-3), "\n")...)
+	} else {
+		main := m.mainView(l.Main.W, l.Main.H)
+		res := m.result.View()
+		if l.Wide {
+			rows = append(rows, joinColumns(main, res, m.side.View())...)
+			rows = append(rows, strings.Split(m.lowerView(), "\n")...)
+		} else {
+			rows = append(rows, joinColumns(main, res)...)
+		}
+	}
+	rows = append(rows, m.helpLine())
+	v.SetContent(strings.Join(rows, "\n"))
+	if c := m.cursor(); c != nil {
+		v.Cursor = c
+	}
+	return v
+}
+
+// cursor is the real terminal cursor in the field being typed in.
+func (m Model) cursor() *tea.Cursor {
+	if m.showHelp || m.jobs.open || !m.focus.isForm() {
+		return nil
+	}
+	c := m.forms[m.focus].CursorPos()
+	if c == nil {
+		return nil
+	}
+	c.X += m.lay.Main.X
+	c.Y += m.lay.Main.Y
+	c.Blink = false
+	return c
+}
+
+func (m Model) mainView(w, h int) string {
+	if m.jobs.open {
+		return m.jobs.View()
+	}
+	if m.lay.Wide {
+		f := m.focus
+		if !f.isForm() {
+			f = PaneID(m.lastForm())
+		}
+		return m.forms[f].View()
+	}
+	switch m.focus {
+	case PaneHose, PaneLift, PaneLiquid, PaneTank:
+		return m.forms[m.focus].View()
+	case PaneSide:
+		return m.side.View()
+	case PaneCurve:
+		return m.curve.View()
+	case PaneLog:
+		return m.log.View()
+	case PaneWhatIf, PaneChecklist, paneCount:
+	}
+	return fitBlock([]string{m.styles.PaneTitle.Render(m.focus.String()), m.styles.Muted.Render("not ready in this build")}, w, h)
+}
+
+// lastForm is the form shown on a wide screen while a view has the focus.
+func (m Model) lastForm() int {
+	if p, ok := paneByName(m.job.Resume.Pane); ok && p.isForm() {
+		return int(p)
+	}
+	for i := range m.forms {
+		if m.forms[i].Selected().ID == m.job.Resume.Field {
+			return i
+		}
+	}
+	return 0
+}
+
+func (m Model) lowerView() string {
+	l := m.lay.Lower
+	switch m.lower {
+	case PaneLog:
+		return m.log.View()
+	case PaneCurve, PaneSide:
+		return m.curve.View()
+	case PaneHose, PaneLift, PaneLiquid, PaneTank, PaneWhatIf, PaneChecklist, paneCount:
+	}
+	return fitBlock([]string{m.styles.PaneTitle.Render(m.lower.String()), m.styles.Muted.Render("not ready in this build")}, l.W, l.H)
+}
+
+// headerView is the top line: program, job, units, save state and mode.
+func (m Model) headerView() string {
+	st := m.styles
+	mode := st.Mode.Render(" NAVIGATE ")
+	if m.typing() {
+		mode = st.Mode.Render(" TYPING ")
+	}
+	var save string
+	switch {
+	case m.noSave:
+		save = st.Warning.Render("! not saving")
+	case m.saveErr != nil:
+		save = st.Danger.Render("✗ NOT SAVED")
+	case m.saving || m.dirty:
+		save = st.Muted.Render("… saving")
+	case !m.lastSaved.IsZero():
+		save = st.OK.Render("✓ saved")
+	default:
+		save = st.Muted.Render("· unchanged")
+	}
+	right := st.Title.Render(m.job.Units.String()) + "  " + save + " " + mode
+	left := st.Title.Render("drawdown") + st.Muted.Render(" · ")
+	room := m.lay.W - ansi.StringWidth(left) - ansi.StringWidth(right) - 1
+	name := m.job.Name
+	if name == "" {
+		name = "(unnamed job)"
+	}
+	left += st.Value.Render(ansi.Truncate(name, max(room, 0), "…"))
+	gap := max(m.lay.W-ansi.StringWidth(left)-ansi.StringWidth(right), 0)
+	return fitBlock([]string{left + strings.Repeat(" ", gap) + right}, m.lay.W, 1)
+}
+
+// tabsView is the pane selector: digit and name, the selected one in
+// reverse video and brackets (legible without colour).
+func (m Model) tabsView() string {
+	st := m.styles
+	names := paneNames
+	if m.lay.W < 110 {
+		names = paneShort
+	}
+	var b strings.Builder
+	for i := PaneID(0); i < paneCount; i++ {
+		if i == PaneSide {
+			b.WriteString(st.Muted.Render("│"))
+		}
+		label := strconv.Itoa(int(i)+1) + " " + names[i]
+		switch {
+		case i == m.focus:
+			b.WriteString(st.TabActive.Render("[" + label + "]"))
+		case m.lay.Wide && i == m.lower && !m.focus.isForm():
+			b.WriteString(st.Tab.Render("(" + label + ")"))
+		default:
+			b.WriteString(st.Tab.Render(" " + label + " "))
+		}
+	}
+	return fitBlock([]string{b.String()}, m.lay.W, 1)
+}
+
+// helpLine is the one-line help for the present state, or a one-shot hint.
+func (m Model) helpLine() string {
+	if m.flash != "" {
+		return fitBlock([]string{m.styles.Warning.Render("! " + m.flash)}, m.lay.W, 1)
+	}
+	if m.saveErr != nil {
+		return fitBlock([]string{m.styles.Danger.Render("✗ not saved: " + m.saveErr.Error())}, m.lay.W, 1)
+	}
+	var b []key.Binding
+	switch {
+	case m.showHelp:
+		b = []key.Binding{m.keys.Leave}
+	case m.jobs.open:
+		b = m.jobs.ShortHelp()
+	case m.focus.isForm():
+		b = m.forms[m.focus].ShortHelp()
+	case m.focus == PaneLog:
+		b = append(m.log.ShortHelp(), m.keys.shortHelp(false, false, false)...)
+	default:
+		b = m.keys.shortHelp(false, false, false)
+	}
+	return fitBlock([]string{m.help.ShortHelpView(b)}, m.lay.W, 1)
+}
+
+// joinColumns puts blocks of equal height side by side, line by line.
+func joinColumns(blocks ...string) []string {
+	split := make([][]string, len(blocks))
+	n := 0
+	for i, b := range blocks {
+		split[i] = strings.Split(b, "\n")
+		n = max(n, len(split[i]))
+	}
+	out := make([]string, n)
+	for r := 0; r < n; r++ {
+		var sb strings.Builder
+		for _, s := range split {
+			if r < len(s) {
+				sb.WriteString(s[r])
+			}
+		}
+		out[r] = sb.String()
+	}
+	return out
+}
+
+// tooSmall is the whole screen when the terminal is below 80×24.
+func tooSmall(w, h int) string {
+	if w <= 0 || h <= 0 {
+		return ""
+	}
+	msg := "Terminal too small: need at least " + strconv.Itoa(MinWidth) + "×" + strconv.Itoa(MinHeight) +
+		", now " + strconv.Itoa(w) + "×" + strconv.Itoa(h) + ". Enlarge the window, or use drawdown calc. ctrl+c quits."
+	return fitBlock(wrapText(msg, w, h), w, h)
+}
+
+// Conversions from the plan to what the panes show. These run in Update
+// (through refresh), never in View.
+
+// planToResult picks the Result pane's figures from a valid plan.
+func planToResult(p model.Plan) ResultData {
+	r := p.Result
+	d := ResultData{
+		Valid:         true,
+		Verdict:       r.Verdict,
+		Flow:          float64(r.Flow),
+		FlowLow:       float64(p.FlowLow),
+		FlowHigh:      float64(p.FlowHigh),
+		Hoses:         p.Siphon.Hoses,
+		Velocity:      float64(r.Velocity),
+		Regime:        r.Regime.String(),
+		Reynolds:      r.Reynolds,
+		Lift:          float64(p.Siphon.Geometry.Lift()),
+		MaxCrest:      float64(r.MaxCrestHeight),
+		FlowingLimit:  float64(r.FlowingCrestLimit),
+		WorkingLimit:  float64(r.WorkingCrestHeight),
+		Margin:        float64(r.CrestMargin),
+		PrimingVolume: float64(r.PrimingVolume),
+		Strokes:       p.PumpStrokes,
+	}
+	d.HasBand = d.FlowHigh > d.FlowLow && d.FlowLow > 0
+	d.Why = whyText(r)
+	if dp := p.Drain; dp != nil {
+		d.HasDrain = true
+		d.Time = float64(dp.Time)
+		d.TimeLow, d.TimeHigh = float64(p.TimeLow), float64(p.TimeHigh)
+		d.StopReason = string(dp.StopReason)
+		d.StopLevel = float64(dp.StopLevel)
+		d.Residual = float64(dp.Residual)
+		d.Volume = float64(dp.Volume)
+		d.CrestLimitLevel, d.HasCrestLimitLevel = float64(dp.CrestLimitLevel), dp.CrestLimitFound
+	}
+	d.Warnings = warnLines(r)
+	return d
+}
+
+// whyText is the short reason beside WILL NOT RUN or NEAR LIMIT.
+func whyText(r calc.Result) string {
+	switch {
+	case r.Verdict == calc.RunsNearLimit:
+		return "crest above the working limit: gas gathers, expect to re-prime"
+	case r.Verdict != calc.WillNotRun:
+		return ""
+	}
+	switch r.Why {
+	case calc.WarnNoDrop:
+		return "outlet is not below the liquid surface"
+	case calc.WarnCannotRun:
+		return "crest too high: the liquid boils at the crest"
+	case calc.WarnIntakeShallow:
+		return "the intake is above the liquid surface"
+	}
+	return "see the warnings"
+}
+
+// warnLines words the warnings for the pane (the deciding one is already in
+// the verdict line).
+func warnLines(r calc.Result) []WarnLine {
+	var out []WarnLine
+	for _, c := range r.Warnings.Codes() {
+		if r.Verdict == calc.WillNotRun && c == r.Why {
+			continue
+		}
+		var w WarnLine
+		switch c {
+		case calc.WarnLaminar:
+			w = WarnLine{StatusInfo, "laminar flow: thick liquid or small hose"}
+		case calc.WarnTransitional:
+			w = WarnLine{StatusWarn, "flow between laminar and turbulent: figures uncertain"}
+		case calc.WarnCrestNearLimit:
+			if r.Verdict == calc.RunsNearLimit {
+				continue
+			}
+			w = WarnLine{StatusWarn, "crest above the working limit"}
+		case calc.WarnCannotRun:
+			w = WarnLine{StatusBad, "crest too high: the liquid boils there"}
+		case calc.WarnNoDrop:
+			w = WarnLine{StatusBad, "outlet not below the surface"}
+		case calc.WarnAirCollects:
+			w = WarnLine{StatusWarn, "air gathers at the crest (flow too slow to carry it down): it will slowly break"}
+		case calc.WarnNearBoiling:
+			w = WarnLine{StatusWarn, "liquid near boiling: little lift possible"}
+		case calc.WarnHoseShort:
+			w = WarnLine{StatusWarn, "hose shorter than the route: check length and heights"}
+		case calc.WarnIntakeShallow:
+			w = WarnLine{StatusWarn, "intake too shallow: a vortex will draw air"}
+		default:
+			w = WarnLine{StatusWarn, c.String()}
+		}
+		out = append(out, w)
+	}
+	return out
+}
+
+// planToSide gives the Side view its heights.
+func planToSide(p model.Plan, j *model.Job) SideGeometry {
+	g := p.Siphon.Geometry
+	r := p.Result
+	sg := SideGeometry{
+		Level: float64(g.Surface), Intake: float64(g.Intake), Crest: float64(g.Crest), Outlet: float64(g.Outlet),
+		OutletSubmerged:  g.OutletSubmerged,
+		WorkingLimit:     float64(r.WorkingCrestHeight),
+		TheoreticalLimit: float64(r.MaxCrestHeight),
+	}
+	if p.Tank != nil {
+		sg.Tank = true
+		sg.Shape = strings.ReplaceAll(p.Tank.Shape(), "-", " ")
+		sg.TankHeight = float64(p.Tank.Height())
+		for _, id := range []model.FieldID{model.FieldTankLength, model.FieldTankDiameter} {
+			if v, err := j.Value(id); err == nil && fieldUsed(j, id) {
+				sg.TankWidth = v
+				break
+			}
+		}
+		if t := float64(p.DrainIn.Target); t > 1e-6 {
+			sg.HasTarget, sg.Target = true, t
+		}
+	}
+	return sg
+}
+
+// planToCurve gives the Drain curve its points; false without a drain plan.
+func planToCurve(p model.Plan) (DrainCurve, bool) {
+	dp := p.Drain
+	if dp == nil || len(dp.Curve) == 0 {
+		return DrainCurve{}, false
+	}
+	c := DrainCurve{
+		Points:     make([]CurvePoint, len(dp.Curve)),
+		StopTime:   float64(dp.Time),
+		StopLevel:  float64(dp.StopLevel),
+		StopReason: string(dp.StopReason),
+	}
+	for i, pt := range dp.Curve {
+		c.Points[i] = CurvePoint{T: float64(pt.Time), Level: float64(pt.Level), Flow: float64(pt.Flow)}
+	}
+	if t := float64(p.DrainIn.Target); t > 1e-6 {
+		c.HasTarget, c.Target = true, t
+	}
+	return c, true
+}

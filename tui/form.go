@@ -1,0 +1,704 @@
+package tui
+
+import (
+	"errors"
+	"strconv"
+	"strings"
+
+	"charm.land/bubbles/v2/key"
+	"charm.land/bubbles/v2/textinput"
+	tea "charm.land/bubbletea/v2"
+	"charm.land/lipgloss/v2"
+	"github.com/charmbracelet/x/ansi"
+
+	"drawdown/model"
+	"drawdown/presets"
+)
+
+// FormPane is one input pane (Hose, Lift & outlet, Liquid & site, Tank): a
+// column of typed fields (bubbles textinput) and pickers built from the
+// model's field table. It shows the raw text as typed and, beside it, the
+// value as it was read, in the job's unit system; an invalid field gets its
+// message under it with a ✗.
+//
+// The pane never owns the job: after each edit it reports the field and the
+// new text to the root (the edit result of Update), which calls Job.Set and
+// model.Compute and then hands the outcome back with SetJob.
+type FormPane struct {
+	pane    model.Pane
+	fields  []formField
+	cursor  int
+	editing bool
+	w, h    int
+	styles  Styles
+	keys    KeyMap
+	sys     model.System
+}
+
+// formField is one row of a form.
+type formField struct {
+	spec    model.FieldSpec
+	input   textinput.Model // typed fields
+	choices []model.Choice  // pickers
+	sub     int             // highlighted choice of a multi picker
+
+	// Derived in SetJob (never in View).
+	raw     string // text as stored in the job
+	shown   string // the value as read, in the job's unit system, or the choice label
+	errText string // the field's error, "" when fine
+	used    bool   // false when the field does not apply (e.g. tank width of a cylinder)
+}
+
+// FieldEdit is what an edit in a form reports to the root: a field and its
+// new raw text.
+type FieldEdit struct {
+	ID   model.FieldID
+	Text string
+}
+
+// NewFormPane builds the form of one pane from the field table. cat gives
+// the picker entries.
+func NewFormPane(p model.Pane, cat *presets.Catalogue, st Styles, km KeyMap) FormPane {
+	f := FormPane{pane: p, styles: st, keys: km}
+	for _, spec := range model.FieldsIn(p) {
+		ff := formField{spec: spec, used: true}
+		if spec.IsPicker() {
+			ff.choices = spec.Choices(cat)
+		} else {
+			ti := textinput.New()
+			ti.Prompt = ""
+			ti.SetVirtualCursor(false)
+			ti.CharLimit = 40
+			switch {
+			case spec.Default != "":
+				ti.Placeholder = spec.Default
+			case spec.Optional:
+				ti.Placeholder = "auto"
+			}
+			ff.input = ti
+		}
+		f.fields = append(f.fields, ff)
+	}
+	f.SetStyles(st)
+	return f
+}
+
+// Title is the pane's name.
+func (f FormPane) Title() string { return f.pane.String() }
+
+// SetStyles replaces the styles (after a background-colour change).
+func (f *FormPane) SetStyles(st Styles) {
+	f.styles = st
+	ts := textinput.Styles{
+		Focused: textinput.StyleState{Text: st.InputFocused, Placeholder: st.Muted, Prompt: st.Input},
+		Blurred: textinput.StyleState{Text: st.Input, Placeholder: st.Muted, Prompt: st.Input},
+		Cursor:  textinput.CursorStyle{Color: st.cursorColor(), Shape: tea.CursorBlock, Blink: false},
+	}
+	for i := range f.fields {
+		if !f.fields[i].spec.IsPicker() {
+			f.fields[i].input.SetStyles(ts)
+		}
+	}
+}
+
+// SetSize sets the pane's size in cells.
+func (f *FormPane) SetSize(w, h int) {
+	f.w, f.h = max(w, 0), max(h, 0)
+	iw := f.inputWidth()
+	for i := range f.fields {
+		if !f.fields[i].spec.IsPicker() {
+			f.fields[i].input.SetWidth(iw)
+		}
+	}
+}
+
+// Column widths: marker, label, input, converted value.
+const (
+	markerW    = 2
+	minLabelW  = 12
+	maxLabelW  = 22
+	minInputW  = 9
+	maxInputW  = 14
+	minShownW  = 10
+	formColGap = 1
+)
+
+func (f FormPane) labelWidth() int {
+	lw := f.w - markerW - f.inputWidth() - minShownW - 2*formColGap
+	return clamp(lw, minLabelW, maxLabelW)
+}
+
+func (f FormPane) inputWidth() int {
+	return clamp((f.w-markerW)/4, minInputW, maxInputW)
+}
+
+// SetJob refreshes every row from the job: the raw text, the value as read
+// and the field's error. errs holds the errors of the last Set and Compute.
+func (f *FormPane) SetJob(j *model.Job, errs map[model.FieldID]error) {
+	f.sys = j.Units
+	for i := range f.fields {
+		ff := &f.fields[i]
+		ff.raw = j.Inputs[ff.spec.ID]
+		ff.used = fieldUsed(j, ff.spec.ID)
+		if !ff.spec.IsPicker() && ff.input.Value() != ff.raw {
+			ff.input.SetValue(ff.raw)
+		}
+		ff.errText = ""
+		if err := errs[ff.spec.ID]; err != nil && ff.used {
+			ff.errText = fieldMessage(ff.spec, err)
+		}
+		ff.shown = ff.describe(f.sys)
+		if ff.spec.Multi && len(ff.choices) > 0 {
+			ff.sub = clamp(ff.sub, 0, len(ff.choices)-1)
+		}
+	}
+	if f.cursor >= len(f.fields) {
+		f.cursor = 0
+	}
+}
+
+// fieldMessage is the text under an invalid field: the model's field error
+// already names the field and the accepted range.
+func fieldMessage(spec model.FieldSpec, err error) string {
+	var fe *model.FieldError
+	if errors.As(err, &fe) {
+		return fe.Error()
+	}
+	msg := err.Error()
+	if !strings.HasPrefix(strings.ToLower(msg), strings.ToLower(spec.Label)) {
+		msg = spec.Label + ": " + msg
+	}
+	return msg
+}
+
+// describe is the value as read, shown beside the raw text.
+func (ff *formField) describe(sys model.System) string {
+	raw := strings.TrimSpace(ff.raw)
+	if ff.spec.IsPicker() {
+		if ff.spec.Multi {
+			return multiLabel(ff.choices, raw)
+		}
+		id := raw
+		if id == "" {
+			id = ff.spec.Default
+		}
+		if id == "" {
+			return "— choose —"
+		}
+		for _, c := range ff.choices {
+			if strings.EqualFold(c.ID, id) {
+				return c.Label
+			}
+		}
+		return id
+	}
+	text := raw
+	if text == "" {
+		if ff.spec.Default == "" {
+			return ""
+		}
+		text = ff.spec.Default
+	}
+	v, err := model.Parse(ff.spec.Dim, text, sys)
+	if err != nil {
+		return ""
+	}
+	if ff.spec.Dim == model.DimNumber {
+		if raw == "" {
+			return "= " + strconv.FormatFloat(v, 'g', 4, 64)
+		}
+		return "" // a plain number reads as typed
+	}
+	return "= " + model.Format(ff.spec.Dim, v, sys)
+}
+
+// multiLabel shows a comma-separated list of choice IDs as "2× elbow, screen".
+func multiLabel(choices []model.Choice, raw string) string {
+	counts := multiCounts(raw)
+	if len(counts) == 0 {
+		return "none"
+	}
+	var parts []string
+	for _, c := range choices {
+		if n := counts[strings.ToLower(c.ID)]; n > 0 {
+			s := c.Label
+			if n > 1 {
+				s = strconv.Itoa(n) + "× " + s
+			}
+			parts = append(parts, s)
+			delete(counts, strings.ToLower(c.ID))
+		}
+	}
+	for id := range counts {
+		parts = append(parts, id)
+	}
+	return strings.Join(parts, ", ")
+}
+
+func multiCounts(raw string) map[string]int {
+	counts := map[string]int{}
+	for _, p := range strings.Split(raw, ",") {
+		if p = strings.ToLower(strings.TrimSpace(p)); p != "" {
+			counts[p]++
+		}
+	}
+	return counts
+}
+
+// multiAdd adds (n = 1) or removes (n = −1) one of id in a comma list.
+func multiAdd(raw, id string, n int) string {
+	var ids []string
+	removed := false
+	for _, p := range strings.Split(raw, ",") {
+		p = strings.TrimSpace(p)
+		if p == "" {
+			continue
+		}
+		if n < 0 && !removed && strings.EqualFold(p, id) {
+			removed = true
+			continue
+		}
+		ids = append(ids, p)
+	}
+	if n > 0 {
+		ids = append(ids, id)
+	}
+	return strings.Join(ids, ",")
+}
+
+// fieldUsed reports whether a field applies to the job as it stands: the
+// intake is a depth without a tank and a height with one; a tank's sizes
+// depend on its shape; the stroke volume matters for hand-pump priming.
+func fieldUsed(j *model.Job, id model.FieldID) bool {
+	shape := strings.ToLower(strings.TrimSpace(j.Inputs[model.FieldTankShape]))
+	tank := shape != "" && shape != "none"
+	has := func(size string) bool {
+		for _, s := range presets.ShapeSizes(shape) {
+			if s == size {
+				return true
+			}
+		}
+		return false
+	}
+	switch id {
+	case model.FieldIntakeDepth:
+		return !tank
+	case model.FieldIntakeHeight:
+		return tank
+	case model.FieldTankHeight, model.FieldTankLevel, model.FieldTankTarget:
+		return tank
+	case model.FieldTankDiameter:
+		return tank && has("diameter")
+	case model.FieldTankLength:
+		return tank && has("length")
+	case model.FieldTankWidth:
+		return tank && has("width")
+	case model.FieldTankCone:
+		return tank && has("cone-height")
+	case model.FieldTankSlope:
+		return tank && has("side-slope")
+	case model.FieldPumpStroke:
+		return strings.TrimSpace(j.Inputs[model.FieldPriming]) == string(model.PrimeHandPump)
+	}
+	return true
+}
+
+// Focused field and mode.
+
+// Editing reports whether typing goes into the selected field.
+func (f FormPane) Editing() bool { return f.editing }
+
+// Selected is the spec of the selected field.
+func (f FormPane) Selected() model.FieldSpec {
+	if len(f.fields) == 0 {
+		return model.FieldSpec{}
+	}
+	return f.fields[f.cursor].spec
+}
+
+// SelectedIsPicker reports whether the selected field is a picker.
+func (f FormPane) SelectedIsPicker() bool { return f.Selected().IsPicker() }
+
+// Cursor is the field index (for resume).
+func (f FormPane) Cursor() int { return f.cursor }
+
+// SetCursor selects a field by index (for resume).
+func (f *FormPane) SetCursor(i int) {
+	if len(f.fields) == 0 {
+		return
+	}
+	f.blurInput()
+	f.cursor = clamp(i, 0, len(f.fields)-1)
+	if f.editing {
+		f.focusInput()
+	}
+}
+
+// SelectField selects a field by ID; false if the pane has no such field.
+func (f *FormPane) SelectField(id model.FieldID) bool {
+	for i := range f.fields {
+		if f.fields[i].spec.ID == id {
+			f.SetCursor(i)
+			return true
+		}
+	}
+	return false
+}
+
+// StartEditing puts the selected field into typing mode.
+func (f *FormPane) StartEditing() {
+	f.editing = true
+	f.focusInput()
+}
+
+// StopEditing leaves typing mode (navigate mode).
+func (f *FormPane) StopEditing() {
+	f.editing = false
+	f.blurInput()
+}
+
+func (f *FormPane) focusInput() {
+	if len(f.fields) == 0 {
+		return
+	}
+	ff := &f.fields[f.cursor]
+	if !ff.spec.IsPicker() {
+		ff.input.Focus()
+		ff.input.CursorEnd()
+	}
+}
+
+func (f *FormPane) blurInput() {
+	if len(f.fields) == 0 {
+		return
+	}
+	ff := &f.fields[f.cursor]
+	if !ff.spec.IsPicker() {
+		ff.input.Blur()
+	}
+}
+
+// Move selects the next (+1) or previous (−1) field. It returns false when
+// the move would leave the pane (the root then goes to the next pane).
+func (f *FormPane) Move(d int) bool {
+	n := f.cursor + d
+	if n < 0 || n >= len(f.fields) {
+		return false
+	}
+	f.SetCursor(n)
+	return true
+}
+
+// First and Last select the first or last field.
+func (f *FormPane) First() { f.SetCursor(0) }
+
+// Last selects the last field.
+func (f *FormPane) Last() { f.SetCursor(len(f.fields) - 1) }
+
+// Update handles a key for the selected field. The root has already taken
+// the global keys (tab, esc, quit, units…). edit is non-nil when the field's
+// text changed.
+func (f FormPane) Update(msg tea.Msg) (FormPane, tea.Cmd, *FieldEdit) {
+	if len(f.fields) == 0 {
+		return f, nil, nil
+	}
+	km, ok := msg.(tea.KeyPressMsg)
+	ff := &f.fields[f.cursor]
+	if ff.spec.IsPicker() {
+		if !ok {
+			return f, nil, nil
+		}
+		return f, nil, f.pickerKey(km)
+	}
+	if !f.editing {
+		return f, nil, nil
+	}
+	if ok && key.Matches(km, f.keys.Restore) {
+		return f, nil, nil
+	}
+	before := ff.input.Value()
+	var cmd tea.Cmd
+	ff.input, cmd = ff.input.Update(msg)
+	if v := ff.input.Value(); v != before {
+		return f, cmd, &FieldEdit{ID: ff.spec.ID, Text: v}
+	}
+	return f, cmd, nil
+}
+
+// pickerKey cycles a picker (left/right/enter) or, in a multi picker, moves
+// the highlight (left/right) and adds or removes one (space, +, −).
+func (f *FormPane) pickerKey(km tea.KeyPressMsg) *FieldEdit {
+	ff := &f.fields[f.cursor]
+	n := len(ff.choices)
+	if n == 0 {
+		return nil
+	}
+	if ff.spec.Multi {
+		switch {
+		case key.Matches(km, f.keys.Next):
+			ff.sub = (ff.sub + 1) % n
+		case key.Matches(km, f.keys.Prev):
+			ff.sub = (ff.sub + n - 1) % n
+		case key.Matches(km, f.keys.Toggle), km.String() == "+", key.Matches(km, f.keys.Edit):
+			return &FieldEdit{ID: ff.spec.ID, Text: multiAdd(ff.raw, ff.choices[ff.sub].ID, 1)}
+		case km.String() == "-", km.String() == "backspace", km.String() == "delete":
+			return &FieldEdit{ID: ff.spec.ID, Text: multiAdd(ff.raw, ff.choices[ff.sub].ID, -1)}
+		}
+		return nil
+	}
+	cur := -1
+	id := strings.TrimSpace(ff.raw)
+	if id == "" {
+		id = ff.spec.Default
+	}
+	for i, c := range ff.choices {
+		if strings.EqualFold(c.ID, id) {
+			cur = i
+		}
+	}
+	next := cur
+	switch {
+	case key.Matches(km, f.keys.Next), key.Matches(km, f.keys.Edit), key.Matches(km, f.keys.Toggle):
+		next = (cur + 1) % n
+	case key.Matches(km, f.keys.Prev):
+		next = (cur + n - 1) % n
+		if cur < 0 {
+			next = n - 1
+		}
+	default:
+		return nil
+	}
+	return &FieldEdit{ID: ff.spec.ID, Text: ff.choices[next].ID}
+}
+
+// CursorPos is the real terminal cursor for the field being typed in,
+// relative to the pane's top-left corner, or nil.
+func (f FormPane) CursorPos() *tea.Cursor {
+	if !f.editing || len(f.fields) == 0 {
+		return nil
+	}
+	ff := f.fields[f.cursor]
+	if ff.spec.IsPicker() {
+		return nil
+	}
+	c := ff.input.Cursor()
+	if c == nil {
+		return nil
+	}
+	_, row := f.rows()
+	top := f.scrollTop(row)
+	if row-top < 0 || row-top >= f.bodyHeight() {
+		return nil
+	}
+	c.X += markerW + f.labelWidth() + formColGap
+	c.Y = 1 + row - top // below the title line
+	return c
+}
+
+// Rendering. The pane is: a title line, the field rows (with error lines),
+// and at the bottom the selected field's help.
+
+// rows lays out the field rows as lines and returns the line index of the
+// selected field.
+func (f FormPane) rows() ([]string, int) {
+	st := f.styles
+	lw, iw := f.labelWidth(), f.inputWidth()
+	sw := max(f.w-markerW-lw-iw-2*formColGap, 0)
+	lines := make([]string, 0, len(f.fields)+4)
+	sel := 0
+	for i := range f.fields {
+		ff := &f.fields[i]
+		focused := i == f.cursor
+		if focused {
+			sel = len(lines)
+		}
+		marker := "  "
+		labelSt := st.Label
+		if focused {
+			marker = "▶ "
+			labelSt = st.LabelFocused
+		}
+		if !ff.used {
+			labelSt = st.Muted
+		}
+		label := labelSt.Render(padRight(ansi.Truncate(ff.spec.Label, lw, "…"), lw))
+		var body string
+		switch {
+		case ff.spec.IsPicker():
+			body = f.pickerCell(ff, focused, iw+formColGap+sw)
+		case !ff.used:
+			body = st.Muted.Render(padRight("not used here", iw+formColGap+sw))
+		default:
+			in := ff.input.View()
+			if w := lipgloss.Width(in); w < iw {
+				in += strings.Repeat(" ", iw-w)
+			}
+			shown := ff.shown
+			sst := st.Unit
+			if ff.errText != "" {
+				shown, sst = "✗ invalid", st.Danger
+			}
+			body = ansi.Truncate(in, iw, "") + " " + sst.Render(ansi.Truncate(shown, sw, "…"))
+		}
+		lines = append(lines, marker+label+" "+body)
+		if ff.errText != "" {
+			for _, l := range wrapText("✗ "+ff.errText, max(f.w-4, 10), 3) {
+				lines = append(lines, "    "+st.Danger.Render(l))
+			}
+		}
+	}
+	return lines, sel
+}
+
+func (f FormPane) pickerCell(ff *formField, focused bool, w int) string {
+	st := f.styles
+	if ff.spec.Multi {
+		text := ff.shown
+		if focused && len(ff.choices) > 0 {
+			c := ff.choices[ff.sub]
+			n := multiCounts(ff.raw)[strings.ToLower(c.ID)]
+			text = "◀ " + c.Label + " ▶ ×" + strconv.Itoa(n)
+		}
+		return st.Input.Render(ansi.Truncate(text, w, "…"))
+	}
+	text := ff.shown
+	if focused {
+		text = "◀ " + text + " ▶"
+	}
+	s := st.Input
+	if focused {
+		s = st.InputFocused
+	}
+	if ff.errText != "" {
+		return st.Danger.Render(ansi.Truncate("✗ "+text, w, "…"))
+	}
+	return s.Render(ansi.Truncate(text, w, "…"))
+}
+
+// helpLines is the selected field's help (and the chosen entry's note, and
+// the list of fittings when the fittings picker is selected).
+func (f FormPane) helpLines() []string {
+	if len(f.fields) == 0 {
+		return nil
+	}
+	ff := f.fields[f.cursor]
+	text := ff.spec.Help
+	if ff.spec.IsPicker() {
+		if ff.spec.Multi {
+			text = "Chosen: " + ff.shown + ". " + text
+		} else {
+			for _, c := range ff.choices {
+				if strings.EqualFold(c.ID, strings.TrimSpace(ff.raw)) && c.Note != "" {
+					text = c.Note + " " + text
+				}
+			}
+		}
+	} else if r := ff.spec.RangeText(f.sys); r != "" {
+		text += " Accepted " + r + "."
+	}
+	return wrapText(text, max(f.w-2, 10), 3)
+}
+
+func (f FormPane) bodyHeight() int {
+	return max(f.h-1-len(f.helpLines())-1, 1)
+}
+
+func (f FormPane) scrollTop(sel int) int {
+	bh := f.bodyHeight()
+	if sel < bh-1 {
+		return 0
+	}
+	return sel - bh + 2
+}
+
+// View renders the pane in exactly w×h cells.
+func (f FormPane) View() string {
+	if f.w <= 0 || f.h <= 0 {
+		return ""
+	}
+	st := f.styles
+	title := st.PaneTitle.Render(f.Title())
+	mode := "  navigate: enter to type"
+	if f.editing {
+		mode = "  typing: esc when done"
+		if f.SelectedIsPicker() {
+			mode = "  choosing: ←/→"
+		}
+	}
+	title += st.Muted.Render(mode)
+	rows, sel := f.rows()
+	bh := f.bodyHeight()
+	top := f.scrollTop(sel)
+	out := []string{title}
+	for i := top; i < len(rows) && i < top+bh; i++ {
+		out = append(out, rows[i])
+	}
+	for len(out) < 1+bh {
+		out = append(out, "")
+	}
+	out = append(out, st.Muted.Render(strings.Repeat("─", max(f.w-1, 0))))
+	for _, l := range f.helpLines() {
+		out = append(out, st.Muted.Render(l))
+	}
+	return fitBlock(out, f.w, f.h)
+}
+
+// ShortHelp and FullHelp list the form's keys for the help widget.
+func (f FormPane) ShortHelp() []key.Binding {
+	return f.keys.shortHelp(f.editing, f.SelectedIsPicker(), true)
+}
+
+// FullHelp lists all keys.
+func (f FormPane) FullHelp() [][]key.Binding { return f.keys.fullHelp() }
+
+// Text helpers shared by the panes in this file set.
+
+// padRight pads s with spaces to w cells (s must be plain text).
+func padRight(s string, w int) string {
+	if n := w - ansi.StringWidth(s); n > 0 {
+		return s + strings.Repeat(" ", n)
+	}
+	return s
+}
+
+// wrapText wraps plain text to w cells, at most n lines (the last one cut
+// with "…" when more would follow).
+func wrapText(s string, w, n int) []string {
+	if w <= 0 || n <= 0 {
+		return nil
+	}
+	lines := strings.Split(ansi.Wordwrap(s, w, " "), "\n")
+	var out []string
+	for _, l := range lines {
+		out = append(out, strings.Split(ansi.Hardwrap(l, w, true), "\n")...)
+	}
+	if len(out) > n {
+		out = out[:n]
+		out[n-1] = ansi.Truncate(out[n-1], w-1, "") + "…"
+	}
+	return out
+}
+
+// fitBlock pads or cuts styled lines to exactly w cells and h lines.
+func fitBlock(lines []string, w, h int) string {
+	if w <= 0 || h <= 0 {
+		return ""
+	}
+	out := make([]string, h)
+	for i := range out {
+		s := ""
+		if i < len(lines) {
+			s = lines[i]
+		}
+		sw := ansi.StringWidth(s)
+		if sw > w {
+			s = ansi.Truncate(s, w, "…")
+			sw = ansi.StringWidth(s)
+		}
+		if sw < w {
+			s += strings.Repeat(" ", w-sw)
+		}
+		out[i] = s
+	}
+	return strings.Join(out, "\n")
+}

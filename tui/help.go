@@ -1,0 +1,95 @@
+package tui
+
+import (
+	"strings"
+
+	"charm.land/bubbles/v2/key"
+	"github.com/charmbracelet/x/ansi"
+)
+
+// The full help screen: every key from the key map (so it cannot drift from
+// behaviour), how the two modes work, and the standing cautions.
+
+var helpIntro = []string{
+	"Two modes. NAVIGATE (top right): letters and digits are commands.",
+	"TYPING: keys go into the marked field; enter or esc when done.",
+	"Every change recomputes at once and is saved at once.",
+	"Numbers take a unit: 25mm, 1in, 3/4 in, 40ft, 15C, 59F, 98.2kPa.",
+	"A bare number takes the unit shown beside the field (SI or US).",
+}
+
+var helpCautions = []string{
+	"Never start a siphon by mouth. Confined spaces need a permit, air",
+	"testing and an attendant. Flammable liquids: bond and ground, no",
+	"ignition sources. Secure the discharge end. drawdown plans and",
+	"records; it does not make a job safe or allowed: local codes,",
+	"permits and licensed practice govern.",
+}
+
+// fullHelpView renders the help screen in exactly w×h cells.
+func (m Model) fullHelpView(w, h int) string {
+	st := m.styles
+	lines := []string{st.PaneTitle.Render("All keys") + st.Muted.Render("  (esc or ? to close)"), ""}
+	cols := m.keys.fullHelp()
+	titles := []string{"In a form", "Panes", "Anywhere"}
+	// Lay the columns out side by side when they fit, else one under another.
+	var blocks [][]string
+	for i, col := range cols {
+		blocks = append(blocks, helpColumn(st, titles[i], col))
+	}
+	colW := 0
+	for _, b := range blocks {
+		for _, l := range b {
+			colW = max(colW, ansiWidth(l))
+		}
+	}
+	colW += 3
+	if colW*len(blocks) <= w {
+		n := 0
+		for _, b := range blocks {
+			n = max(n, len(b))
+		}
+		for r := 0; r < n; r++ {
+			var sb strings.Builder
+			for _, b := range blocks {
+				cell := ""
+				if r < len(b) {
+					cell = b[r]
+				}
+				sb.WriteString(cell + strings.Repeat(" ", max(colW-ansiWidth(cell), 0)))
+			}
+			lines = append(lines, sb.String())
+		}
+	} else {
+		for _, b := range blocks {
+			lines = append(lines, b...)
+		}
+	}
+	lines = append(lines, "")
+	for _, l := range helpIntro {
+		lines = append(lines, st.Value.Render(l))
+	}
+	lines = append(lines, "")
+	for _, l := range helpCautions {
+		lines = append(lines, st.Warning.Render(l))
+	}
+	return fitBlock(lines, w, h)
+}
+
+func ansiWidth(s string) int { return ansi.StringWidth(s) }
+
+func helpColumn(st Styles, title string, bs []key.Binding) []string {
+	out := []string{st.Title.Render(title)}
+	kw := 0
+	for _, b := range bs {
+		kw = max(kw, ansiWidth(b.Help().Key))
+	}
+	for _, b := range bs {
+		if !b.Enabled() {
+			continue
+		}
+		h := b.Help()
+		out = append(out, st.HelpKey.Render(padRight(h.Key, kw))+"  "+st.HelpDesc.Render(h.Desc))
+	}
+	return out
+}

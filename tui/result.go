@@ -1,0 +1,305 @@
+package tui
+
+import (
+	"math"
+
+	"charm.land/lipgloss/v2"
+	"strconv"
+	"strings"
+
+	"drawdown/calc"
+	"drawdown/model"
+)
+
+// ResultData is what the Result pane shows, taken from the last good plan
+// of model.Compute (see planToResult in app.go). All values are SI and
+// finite; the pane only formats them.
+type ResultData struct {
+	Valid bool // a plan exists at all
+
+	// Stale: the inputs have an error; the figures are from the last valid
+	// inputs. StaleField names the first invalid field.
+	Stale      bool
+	StaleField string
+
+	Verdict calc.Verdict
+	Why     string // short reason for WILL NOT RUN / NEAR LIMIT
+
+	Flow, FlowLow, FlowHigh float64 // m³/s, all hoses
+	HasBand                 bool
+	Hoses                   int
+	Velocity                float64 // m/s
+	Regime                  string
+	Reynolds                float64
+
+	HasDrain           bool
+	Time               float64 // s to the stop
+	TimeLow, TimeHigh  float64 // s
+	StopReason         string  // target, intake, crest, equal
+	StopLevel          float64 // m above the floor
+	Residual           float64 // m³ left in the tank
+	Volume             float64 // m³ moved
+	CrestLimitLevel    float64 // m; level at which the crest limit is reached
+	HasCrestLimitLevel bool
+
+	Lift                                 float64 // m, crest above the surface
+	MaxCrest, FlowingLimit, WorkingLimit float64 // m above the surface
+	Margin                               float64 // working limit − lift, m
+
+	PrimingVolume float64 // m³
+	Strokes       int     // hand-pump strokes, 0 when no stroke volume
+	Warnings      []WarnLine
+}
+
+// WarnLine is one warning as the Result pane shows it.
+type WarnLine struct {
+	Status Status
+	Text   string
+}
+
+// ResultPane shows the answer first: the verdict as a word and a symbol,
+// then flow, velocity and regime, time to the stop and why, the crest
+// against its three limits with the margin, warnings and priming.
+type ResultPane struct {
+	data   ResultData
+	sys    model.System
+	w, h   int
+	styles Styles
+	lines  []string // rendered on every change; View only frames them
+}
+
+// NewResultPane returns an empty Result pane.
+func NewResultPane(st Styles) ResultPane { return ResultPane{styles: st} }
+
+// SetSize sets the outer size (border included).
+func (r *ResultPane) SetSize(w, h int) { r.w, r.h = max(w, 0), max(h, 0); r.render() }
+
+// SetStyles replaces the styles.
+func (r *ResultPane) SetStyles(st Styles) { r.styles = st; r.render() }
+
+// SetData gives the pane a new result in the unit system sys.
+func (r *ResultPane) SetData(d ResultData, sys model.System) {
+	r.data, r.sys = d, sys
+	r.render()
+}
+
+// Data returns what the pane shows (for tests).
+func (r ResultPane) Data() ResultData { return r.data }
+
+// verdictText is the verdict as a word with its symbol and status.
+func verdictText(v calc.Verdict) (string, Status) {
+	switch v {
+	case calc.Runs:
+		return "RUNS", StatusOK
+	case calc.RunsNearLimit:
+		return "RUNS — NEAR LIMIT", StatusWarn
+	case calc.WillNotRun:
+		return "WILL NOT RUN", StatusBad
+	}
+	return "UNKNOWN", StatusWarn
+}
+
+func (r *ResultPane) render() {
+	st := r.styles
+	d := r.data
+	iw := max(r.w-4, 8) // inside the border and one space each side
+	f := func(dim model.Dim, v float64) string { return model.Format(dim, finite(v), r.sys) }
+	var ls []string
+	add := func(s string) { ls = append(ls, s) }
+	row := func(label, value string) {
+		add(st.Muted.Render(padRight(label, 9)) + st.Value.Render(value))
+	}
+	if !d.Valid {
+		add(st.Warning.Render("? NO RESULT YET"))
+		for _, l := range wrapText("Fix the field marked ✗ on the left: "+d.StaleField, iw, 3) {
+			add(st.Warning.Render(l))
+		}
+		r.lines = ls
+		return
+	}
+	word, status := verdictText(d.Verdict)
+	add(st.Style(status).Render(status.Symbol() + " " + word))
+	if d.Why != "" && d.Verdict != calc.Runs {
+		for _, l := range wrapText(d.Why, iw, 2) {
+			add(st.Style(status).Render("  " + l))
+		}
+	}
+	if d.Stale {
+		add(st.Warning.Reverse(true).Render("! STALE — fix the marked field"))
+		if d.StaleField != "" {
+			add(st.Warning.Render(ansiCut("  ✗ "+d.StaleField, iw)))
+		}
+	}
+	if d.Verdict != calc.WillNotRun {
+		flow := f(model.DimFlow, d.Flow)
+		if d.Hoses > 1 {
+			flow += " (" + strconv.Itoa(d.Hoses) + " hoses)"
+		}
+		add(st.Muted.Render(padRight("Flow", 9)) + st.Big.Render(flow))
+		if d.HasBand {
+			row("", "range "+rangeText(f(model.DimFlow, d.FlowLow), f(model.DimFlow, d.FlowHigh)))
+		}
+		row("Speed", speedText(r.sys, d.Velocity)+", "+d.Regime)
+	}
+	if d.HasDrain && d.Verdict != calc.WillNotRun {
+		if d.Time < 0.5 {
+			row("Stops", "at once: nothing to drain")
+		} else {
+			row("Stops in", duration(d.Time))
+		}
+		if d.TimeHigh > 0 && d.TimeLow > 0 && math.Abs(d.TimeHigh-d.TimeLow) > 1 {
+			row("", "range "+rangeText(duration(d.TimeLow), duration(d.TimeHigh)))
+		}
+		row("", stopReasonText(d.StopReason))
+		row("", "at "+f(model.DimLength, d.StopLevel)+", "+f(model.DimVolume, d.Residual)+" left")
+	}
+	row("Crest", "lift "+f(model.DimLength, d.Lift))
+	lim := func(label string, v float64) {
+		add(st.Muted.Render("  "+padRight(label, 17)) + st.Value.Render(f(model.DimLength, v)))
+	}
+	lim("limit, no flow", d.MaxCrest)
+	if d.Verdict != calc.WillNotRun || d.FlowingLimit > 0 {
+		lim("limit, this flow", d.FlowingLimit)
+	}
+	lim("working limit", d.WorkingLimit)
+	mst := StatusOK
+	if d.Margin < 0 {
+		mst = StatusBad
+		if d.Lift <= d.FlowingLimit {
+			mst = StatusWarn
+		}
+	}
+	sign := "+"
+	if d.Margin < 0 {
+		sign = "−"
+	}
+	add(st.Muted.Render("  "+padRight("margin", 17)) +
+		st.Style(mst).Render(sign+f(model.DimLength, math.Abs(d.Margin))+" "+mst.Symbol()))
+	prime := f(model.DimVolume, d.PrimingVolume)
+	if d.Strokes > 0 {
+		prime += ", " + strconv.Itoa(d.Strokes) + " strokes"
+	}
+	row("Prime", prime)
+	for _, w := range d.Warnings {
+		for i, l := range wrapText(w.Status.Symbol()+" "+w.Text, iw, 2) {
+			if i > 0 {
+				l = "  " + l
+			}
+			add(st.Style(w.Status).Render(l))
+		}
+	}
+	r.lines = ls
+}
+
+// View renders the framed pane in exactly w×h cells.
+func (r ResultPane) View() string {
+	if r.w < 3 || r.h < 3 {
+		return fitBlock(nil, r.w, r.h)
+	}
+	inner := fitBlock(prefixAll(r.lines, " "), r.w-2, r.h-2)
+	title := r.styles.PaneTitle.Render(" Result ")
+	box := r.styles.Border.Width(r.w).Height(r.h).Render(inner)
+	// Put the title into the top border.
+	lines := strings.SplitN(box, "\n", 2)
+	if len(lines) == 2 {
+		top := r.styles.Muted.Render(r.styles.Border.GetBorderStyle().TopLeft+"─") + title
+		rest := r.w - 3 - lipgloss.Width(title)
+		if rest > 0 {
+			top += r.styles.Muted.Render(strings.Repeat("─", rest) + r.styles.Border.GetBorderStyle().TopRight)
+		}
+		box = top + "\n" + lines[1]
+	}
+	return box
+}
+
+func prefixAll(ls []string, p string) []string {
+	out := make([]string, len(ls))
+	for i, l := range ls {
+		out[i] = p + l
+	}
+	return out
+}
+
+func finite(v float64) float64 {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return 0
+	}
+	return v
+}
+
+func rangeText(lo, hi string) string {
+	if lo == hi {
+		return lo
+	}
+	// Share the unit when both ends have the same one.
+	li, hi2 := strings.LastIndexByte(lo, ' '), strings.LastIndexByte(hi, ' ')
+	if li > 0 && hi2 > 0 && lo[li:] == hi[hi2:] {
+		return lo[:li] + "–" + hi
+	}
+	return lo + " – " + hi
+}
+
+func trimNum(v float64, dec int) string {
+	return strconv.FormatFloat(finite(v), 'f', dec, 64)
+}
+
+// speedText shows a velocity in m/s or ft/s (velocity is not a model Dim;
+// 1 ft = 0.3048 m exactly, NIST SP 811 B.8).
+func speedText(sys model.System, v float64) string {
+	if sys == model.US {
+		return trimNum(v/0.3048, 1) + " ft/s"
+	}
+	return trimNum(v, 2) + " m/s"
+}
+
+// duration writes a time span the way a crew says it: "45 s", "12 min",
+// "3 h 12 min", "2 d 5 h".
+func duration(s float64) string {
+	s = finite(s)
+	if s < 0 {
+		s = 0
+	}
+	switch {
+	case s < 90:
+		return strconv.Itoa(int(math.Round(s))) + " s"
+	case s < 3600:
+		return strconv.Itoa(int(math.Round(s/60))) + " min"
+	case s < 48*3600:
+		m := int(math.Round(s / 60))
+		h, mm := m/60, m%60
+		if mm == 0 {
+			return strconv.Itoa(h) + " h"
+		}
+		return strconv.Itoa(h) + " h " + strconv.Itoa(mm) + " min"
+	case s < 1e9:
+		h := int(math.Round(s / 3600))
+		return strconv.Itoa(h/24) + " d " + strconv.Itoa(h%24) + " h"
+	}
+	return "more than 30 years"
+}
+
+// stopReasonText says why the drain stops.
+func stopReasonText(r string) string {
+	switch r {
+	case "target":
+		return "target level reached"
+	case "intake":
+		return "intake uncovered"
+	case "crest":
+		return "crest limit reached"
+	case "equal":
+		return "levels equal, flow dies"
+	case "full":
+		return "receiver full"
+	case "":
+		return "end of plan"
+	}
+	return r
+}
+
+func ansiCut(s string, w int) string {
+	if len([]rune(s)) <= w {
+		return s
+	}
+	return string([]rune(s)[:max(w-1, 0)]) + "…"
+}
