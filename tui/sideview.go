@@ -70,6 +70,7 @@ const (
 	clsWarn
 	clsDanger
 	clsTitle
+	clsSelected
 )
 
 func (s *DrawStyles) style(c drawClass) lipgloss.Style {
@@ -90,6 +91,8 @@ func (s *DrawStyles) style(c drawClass) lipgloss.Style {
 		return s.Danger
 	case clsTitle:
 		return s.Title
+	case clsSelected:
+		return s.Selected
 	}
 	return s.Text
 }

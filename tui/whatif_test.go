@@ -1,0 +1,219 @@
+package tui
+
+import (
+	"math"
+	"math/rand/v2"
+	"strings"
+	"testing"
+
+	tea "charm.land/bubbletea/v2"
+	"github.com/charmbracelet/x/ansi"
+
+	"drawdown/model"
+)
+
+// wiDemo builds an invented 7×5 table around 12 m of 25 mm hose. Flows use
+// Darcy–Weisbach with a fixed friction factor f = 0.02, ΣK = 1.5 and a
+// 2.6 m head, Q = (πD²/4)·√(2gH/(1 + ΣK + fL/D)); times divide an invented
+// 4 m³ by the flow. They only need to look like a real table here: the
+// numbers themselves are checked in calc, not in this pane.
+func wiDemo() WhatIfTable {
+	lengths := []float64{6, 8, 10, 12, 15, 20, 25}
+	diams := []float64{0.016, 0.019, 0.025, 0.032, 0.038}
+	q := func(l, d float64, n int) WhatIfCell {
+		a := math.Pi * d * d / 4
+		v := math.Sqrt(2 * 9.80665 * 2.6 / (1 + 1.5 + 0.02*l/d))
+		flow := float64(n) * a * v
+		return WhatIfCell{Runs: true, Flow: flow, Time: 4 / flow}
+	}
+	t := WhatIfTable{Lengths: lengths, Diameters: diams, Row: 3, Col: 2, Hoses: 1, HasTime: true}
+	for _, l := range lengths {
+		row := make([]WhatIfCell, len(diams))
+		for j, d := range diams {
+			row[j] = q(l, d, 1)
+		}
+		t.Cells = append(t.Cells, row)
+	}
+	// The longest, thinnest hoses are marked as not running (as if a hump
+	// or the crest limit stopped them) so the "✗ no run" cell shows.
+	t.Cells[6][0] = WhatIfCell{}
+	t.Cells[5][0].NearLimit = true
+	for n := 1; n <= 4; n++ {
+		t.Parallel = append(t.Parallel, WhatIfParallel{Hoses: n, Cell: q(12, 0.025, n)})
+	}
+	return t
+}
+
+func wiKey(s string) tea.KeyPressMsg {
+	switch s {
+	case "enter":
+		return tea.KeyPressMsg{Code: tea.KeyEnter}
+	case "up":
+		return tea.KeyPressMsg{Code: tea.KeyUp}
+	case "down":
+		return tea.KeyPressMsg{Code: tea.KeyDown}
+	case "left":
+		return tea.KeyPressMsg{Code: tea.KeyLeft}
+	case "right":
+		return tea.KeyPressMsg{Code: tea.KeyRight}
+	case "esc":
+		return tea.KeyPressMsg{Code: tea.KeyEscape}
+	case "backspace":
+		return tea.KeyPressMsg{Code: tea.KeyBackspace}
+	}
+	r := []rune(s)[0]
+	return tea.KeyPressMsg{Code: r, Text: s}
+}
+
+func TestWhatIfView(t *testing.T) {
+	noTank := wiDemo()
+	noTank.HasTime = false
+	cases := []struct {
+		name  string
+		tab   WhatIfTable
+		set   bool
+		sys   model.System
+		keys  []string
+		focus bool
+	}{
+		{"present", wiDemo(), true, model.SI, nil, true},
+		{"moved_us", wiDemo(), true, model.US, []string{"down", "down", "right"}, true},
+		{"parallel_row", wiDemo(), true, model.SI, []string{"down", "down", "down", "down", "right"}, true},
+		{"no_tank_blurred", noTank, true, model.SI, nil, false},
+		{"empty", WhatIfTable{}, false, model.SI, nil, true},
+	}
+	for _, c := range cases {
+		for _, s := range paneSizes {
+			t.Run(c.name+"/"+s.name, func(t *testing.T) {
+				v := NewWhatIfView(PlainDrawStyles(), c.sys)
+				v.SetSize(s.w, s.h)
+				if c.set {
+					v.SetTable(c.tab)
+				}
+				if c.focus {
+					v.Focus()
+				}
+				for _, k := range c.keys {
+					v, _ = v.Update(wiKey(k))
+				}
+				paneGolden(t, v.View(), s.w, s.h)
+				if testing.Verbose() && s.w > 20 {
+					t.Logf("\n%s", ansi.Strip(v.View()))
+				}
+			})
+		}
+	}
+}
+
+// Keys move the selection; Enter asks the root to adopt the selected cell
+// and carries its length, diameter and hose count.
+func TestWhatIfAdopt(t *testing.T) {
+	tab := wiDemo()
+	v := NewWhatIfView(PlainDrawStyles(), model.SI)
+	v.SetSize(78, 10)
+	v.SetTable(tab)
+
+	// Not focused: keys do nothing.
+	if _, cmd := v.Update(wiKey("enter")); cmd != nil {
+		t.Fatal("blurred pane answered Enter")
+	}
+	v.Focus()
+	steps := []struct {
+		keys      []string
+		len, diam float64
+		hoses     int
+	}{
+		{nil, 12, 0.025, 1},
+		{[]string{"down", "right"}, 15, 0.032, 1},
+		{[]string{"up", "up", "left", "left", "left", "left"}, 10, 0.016, 1},
+		{[]string{"k", "h", "k", "k", "k", "k"}, 6, 0.016, 1},                      // clamps at the edges
+		{[]string{"j", "j", "j", "j", "j", "j", "j", "j", "l", "l"}, 12, 0.025, 3}, // parallel row: ×3
+	}
+	for i, s := range steps {
+		for _, k := range s.keys {
+			v, _ = v.Update(wiKey(k))
+		}
+		_, cmd := v.Update(wiKey("enter"))
+		if cmd == nil {
+			t.Fatalf("step %d: Enter gave no command", i)
+		}
+		msg, ok := cmd().(WhatIfAdoptMsg)
+		if !ok {
+			t.Fatalf("step %d: Enter gave %T", i, cmd())
+		}
+		want := WhatIfAdoptMsg{Length: s.len, Diameter: s.diam, Hoses: s.hoses}
+		if msg != want {
+			t.Errorf("step %d: adopt %+v, want %+v", i, msg, want)
+		}
+	}
+
+	// A new table with another present choice brings the selection back
+	// to it.
+	tab.Row, tab.Col = 1, 1
+	v.SetTable(tab)
+	if m, _ := v.Selected(); m.Length != 8 || m.Diameter != 0.019 {
+		t.Errorf("selection after a new present choice: %+v", m)
+	}
+}
+
+func TestWhatIfMarks(t *testing.T) {
+	v := NewWhatIfView(PlainDrawStyles(), model.SI)
+	v.SetSize(78, 12)
+	v.SetTable(wiDemo())
+	v.Focus()
+	got := ansi.Strip(v.View())
+	for _, want := range []string{"●", "✗ no", "!", "×2", "L/min", "h:mm"} {
+		if !strings.Contains(got, want) {
+			t.Errorf("frame lacks %q:\n%s", want, got)
+		}
+	}
+}
+
+// Property: ragged, empty and non-finite tables at any size never panic or
+// show NaN/Inf, and keys never move the selection off the table.
+func TestWhatIfNeverBreaks(t *testing.T) {
+	rng := rand.New(rand.NewPCG(5, 6))
+	odd := []float64{0, -1, 1e-12, 1e12, math.NaN(), math.Inf(1), math.Inf(-1)}
+	pick := func(scale float64) float64 {
+		if rng.IntN(4) == 0 {
+			return odd[rng.IntN(len(odd))]
+		}
+		return rng.Float64() * scale
+	}
+	keys := []string{"up", "down", "left", "right", "enter", "j", "k", "h", "l"}
+	for i := 0; i < 1500; i++ {
+		var tab WhatIfTable
+		nr, nc := rng.IntN(9), rng.IntN(7)
+		for r := 0; r < nr; r++ {
+			tab.Lengths = append(tab.Lengths, pick(100))
+			row := make([]WhatIfCell, nc-rng.IntN(2)*min(nc, 1))
+			for c := range row {
+				row[c] = WhatIfCell{Runs: rng.IntN(4) > 0, NearLimit: rng.IntN(5) == 0, Flow: pick(0.05), Time: pick(1e6)}
+			}
+			tab.Cells = append(tab.Cells, row)
+		}
+		for c := 0; c < nc; c++ {
+			tab.Diameters = append(tab.Diameters, pick(0.1))
+		}
+		for n := 0; n < rng.IntN(5); n++ {
+			tab.Parallel = append(tab.Parallel, WhatIfParallel{Hoses: n + 1, Cell: WhatIfCell{Runs: true, Flow: pick(0.1), Time: pick(1e5)}})
+		}
+		tab.Row, tab.Col, tab.Hoses, tab.HasTime = rng.IntN(10)-1, rng.IntN(8)-1, rng.IntN(4), rng.IntN(2) == 0
+		w, h := rng.IntN(130)-2, rng.IntN(45)-2
+		v := NewWhatIfView(PlainDrawStyles(), model.System(rng.IntN(2)))
+		v.SetSize(w, h)
+		v.SetTable(tab)
+		v.Focus()
+		for k := 0; k < 12; k++ {
+			var cmd tea.Cmd
+			v, cmd = v.Update(wiKey(keys[rng.IntN(len(keys))]))
+			if cmd != nil {
+				cmd()
+			}
+		}
+		paneCheckFrame(t, ansi.Strip(v.View()), max(w, 0), max(h, 0))
+		if t.Failed() {
+			t.Fatalf("table %+v at %d×%d", tab, w, h)
+		}
+	}
+}
