@@ -734,6 +734,9 @@ func FormatParts(d Dim, si float64, sys System) (number, unit string) {
 }
 
 func formatNumber(v float64, decimals, sig int) string {
+	// Nudge by a part in 1e12 so that a unit conversion landing a hair
+	// under a half (3/4 in = 19.049999… mm) rounds as the exact value would.
+	v += v * 1e-12
 	if sig > 0 {
 		if v == 0 {
 			decimals = sig - 1
