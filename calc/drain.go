@@ -161,7 +161,7 @@ type DrainPlan struct {
 //   - equal:   H = EqualHead;
 //   - receiver_full: the receiver holds its brim volume.
 //
-// The time integral is taken by composite 3-point Gauss–Legendre quadrature
+// The time integral is taken by composite 4-point Gauss–Lobatto quadrature
 // in a variable w with h − z_outlet = w² (transfers: v = v₀ − w², v₀ the
 // volume at which the levels would meet). Near equal levels Q ∝ √H, so
 // A/Q·dh has a 1/√H singularity in h but is smooth in w; the integral is
@@ -211,6 +211,24 @@ type flowTable struct {
 	phi   [tableMax]float64
 	sub   [tableMax]float64
 	crest [tableMax]float64
+	// inv[j][i] is 1/∏(u_{j+i} − u_{j+k}), k ≠ i: Lagrange denominators of
+	// the stencil starting at j.
+	inv [tableMax][4]float64
+}
+
+// prepare computes the Lagrange denominators once the samples are in.
+func (t *flowTable) prepare() {
+	for j := 0; j+3 < t.n; j++ {
+		for i := 0; i < 4; i++ {
+			d := 1.0
+			for k := 0; k < 4; k++ {
+				if k != i {
+					d *= t.u[j+i] - t.u[j+k]
+				}
+			}
+			t.inv[j][i] = 1 / d
+		}
+	}
 }
 
 // at returns Q, S and the flowing crest limit at head H. With u = √H it
@@ -252,12 +270,13 @@ func (t *flowTable) at(H float64) (q, s, c float64) {
 	if j > n-4 {
 		j = n - 4
 	}
-	x0, x1, x2, x3 := t.u[j], t.u[j+1], t.u[j+2], t.u[j+3]
-	d0, d1, d2, d3 := u-x0, u-x1, u-x2, u-x3
-	l0 := d1 * d2 * d3 / ((x0 - x1) * (x0 - x2) * (x0 - x3))
-	l1 := d0 * d2 * d3 / ((x1 - x0) * (x1 - x2) * (x1 - x3))
-	l2 := d0 * d1 * d3 / ((x2 - x0) * (x2 - x1) * (x2 - x3))
-	l3 := d0 * d1 * d2 / ((x3 - x0) * (x3 - x1) * (x3 - x2))
+	d0, d1, d2, d3 := u-t.u[j], u-t.u[j+1], u-t.u[j+2], u-t.u[j+3]
+	inv := &t.inv[j]
+	d01, d23 := d0*d1, d2*d3
+	l0 := d1 * d23 * inv[0]
+	l1 := d0 * d23 * inv[1]
+	l2 := d01 * d3 * inv[2]
+	l3 := d01 * d2 * inv[3]
 	q = u * (l0*t.phi[j] + l1*t.phi[j+1] + l2*t.phi[j+2] + l3*t.phi[j+3])
 	s = l0*t.sub[j] + l1*t.sub[j+1] + l2*t.sub[j+2] + l3*t.sub[j+3]
 	c = l0*t.crest[j] + l1*t.crest[j+1] + l2*t.crest[j+2] + l3*t.crest[j+3]
@@ -514,6 +533,7 @@ func (p *planner) build(hLo, hHi float64) error {
 		t.sub[j] = s
 		t.crest[j] = c
 	}
+	t.prepare()
 	return nil
 }
 
@@ -627,24 +647,46 @@ func brent(f func(float64) float64, a, b, fa, fb, tol float64, keepPos bool) flo
 	return b
 }
 
-// firstRoot scans ev over the map m at n+1 points and returns the first x at
-// which it turns non-positive (located by Brent's method) and whether it did.
-func (p *planner) firstRoot(ev event, m xmap, n int, tol float64) (float64, bool) {
-	xPrev, _ := m.at(0)
-	gPrev := p.g(ev, xPrev)
-	if gPrev <= 0 {
-		return 0, true
-	}
-	f := func(x float64) float64 { return p.g(ev, x) }
-	for k := 1; k <= n; k++ {
+// scanRoots scans the intake, crest and working-limit events over the map m
+// at n+1 points and returns, for each, the first x at which it turns
+// non-positive (located by Brent's method) and whether it did.
+func (p *planner) scanRoots(m xmap, n int, tol float64) (roots [3]float64, found [3]bool) {
+	evs := [3]event{evIntake, evCrest, evWorking}
+	var prevX [3]float64
+	var prevG [3]float64
+	open := 0
+	for k := 0; k <= n; k++ {
 		x, _ := m.at(float64(k) / float64(n))
-		gx := p.g(ev, x)
-		if gx <= 0 {
-			return brent(f, xPrev, x, gPrev, gx, tol, true), true
+		hs, _, _, H := p.state(x)
+		var g [3]float64
+		if H <= 0 {
+			g = [3]float64{-1, -1, -1}
+		} else {
+			_, sub, c := p.tab.at(H)
+			g = [3]float64{hs - p.intake - sub, c - (p.crest - hs), c - p.allowance - (p.crest - hs)}
 		}
-		xPrev, gPrev = x, gx
+		open = 0
+		for e := range evs {
+			if found[e] {
+				continue
+			}
+			switch {
+			case g[e] > 0:
+				open++
+			case k == 0:
+				roots[e], found[e] = 0, true
+			default:
+				ev := evs[e]
+				f := func(x float64) float64 { return p.g(ev, x) }
+				roots[e], found[e] = brent(f, prevX[e], x, prevG[e], g[e], tol, true), true
+			}
+			prevX[e], prevG[e] = x, g[e]
+		}
+		if open == 0 {
+			break
+		}
 	}
-	return 0, false
+	return roots, found
 }
 
 // x limits (path variable) for the geometric stops.
@@ -742,14 +784,15 @@ func (p *planner) run() (DrainPlan, error) {
 	scan := newXmap(x0, haveX0, xMax)
 	const scanN = 64
 	tolX := p.xTol(0)
-	xIntake, okI := p.firstRoot(evIntake, scan, scanN, tolX)
-	xCrest, okC := p.firstRoot(evCrest, scan, scanN, tolX)
+	roots, found := p.scanRoots(scan, scanN, tolX)
+	xIntake, okI := roots[0], found[0]
+	xCrest, okC := roots[1], found[1]
 	if okC {
 		hs, _, _, _ := p.state(xCrest)
 		plan.CrestLimitLevel, plan.CrestLimitFound = Length(hs), true
 	}
 	if !plan.WorkingLimitFound {
-		if xw, ok := p.firstRoot(evWorking, scan, scanN, tolX); ok {
+		if xw, ok := roots[2], found[2]; ok {
 			hs, _, _, _ := p.state(xw)
 			plan.WorkingLimitLevel, plan.WorkingLimitFound = Length(hs), true
 		}
@@ -842,57 +885,74 @@ func (p *planner) polishCrest(x, xMax float64) (float64, error) {
 	return a, nil
 }
 
-// Gauss–Legendre 3-point nodes and weights on [−1, 1] (Abramowitz & Stegun
-// 25.4.29, table 25.4).
-var glNodes = [3]float64{-0.7745966692414834, 0, 0.7745966692414834}
-var glWeights = [3]float64{5.0 / 9, 8.0 / 9, 5.0 / 9}
+// Gauss–Lobatto 4-point rule on [−1, 1]: nodes ±1, ±1/√5, weights 1/6, 5/6;
+// exact for polynomials of degree ≤ 5 (Abramowitz & Stegun 25.4.32).
+const lobattoInner = 0.4472135954999579
 
-// minIntervals is the least number of quadrature intervals over the drain.
-const minIntervals = 48
+// quadIntervals is the number of quadrature intervals over the drain.
+const quadIntervals = 64
 
 // integrate fills the time, volume, stop values and the curve over [0, xe].
+//
+// The path parameter s ∈ [0, 1] is itself written as s = σ²(3 − 2σ), which
+// crowds the quadrature nodes at both ends: a full horizontal cylinder starts
+// with A ∝ √(D − h), an integrable kink that this smooths out. t(σ) is
+// integrated by the composite Gauss–Lobatto rule on quadIntervals equal steps
+// in σ; curve points, evenly spaced in s (σ = ½ − sin(arcsin(1 − 2s)/3)),
+// take t from the cubic Hermite interpolant of t and dt/dσ at the step ends
+// (error O(Δσ⁴)).
 func (p *planner) integrate(plan *DrainPlan, m xmap) {
-	nc := p.points
-	per := 1
-	if nc >= 2 {
-		per = (minIntervals + nc - 2) / (nc - 1)
-	}
-	intervals := per * (nc - 1)
-	if nc < 2 {
-		intervals = minIntervals
-	}
-	if nc > 0 {
-		plan.Curve = make([]DrainPoint, 0, nc)
-	}
-	point := func(x, t float64) {
-		hs, hr, _, H := p.state(x)
-		q, _, _ := p.tab.at(H)
-		plan.Curve = append(plan.Curve, DrainPoint{Time: Seconds(t), Level: Length(hs), Flow: FlowRate(q), ReceiverLevel: Length(hr)})
-	}
-	if nc > 0 {
-		point(0, 0)
-	}
-	ds := 1 / float64(intervals)
-	t := 0.0
-	for k := 0; k < intervals; k++ {
-		mid := (float64(k) + 0.5) * ds
-		for i, node := range glNodes {
-			x, dxds := m.at(mid + node*ds/2)
-			hs, _, _, H := p.state(x)
-			if H <= 0 {
-				continue
-			}
-			q, _, _ := p.tab.at(H)
-			t += glWeights[i] * ds / 2 * dxds * p.dvdx(hs) / q
+	// dt/dσ at σ
+	rate := func(sg float64) float64 {
+		x, dxds := m.at(sg * sg * (3 - 2*sg))
+		hs, _, _, H := p.state(x)
+		if H <= 0 {
+			return 0
 		}
-		if nc > 1 && (k+1)%per == 0 {
-			x, _ := m.at(float64(k+1) * ds)
-			point(x, t)
+		q, _, _ := p.tab.at(H)
+		if !(q > 0) {
+			return 0
+		}
+		return 6 * sg * (1 - sg) * dxds * p.dvdx(hs) / q
+	}
+	var ts, fs [quadIntervals + 1]float64
+	ds := 1.0 / quadIntervals
+	fs[0] = rate(0)
+	for k := 0; k < quadIntervals; k++ {
+		mid := (float64(k) + 0.5) * ds
+		fb := rate(float64(k+1) * ds)
+		fi := rate(mid-lobattoInner*ds/2) + rate(mid+lobattoInner*ds/2)
+		ts[k+1] = ts[k] + ds/2*((fs[k]+fb)/6+fi*5/6)
+		fs[k+1] = fb
+	}
+	if nc := p.points; nc > 0 {
+		plan.Curve = make([]DrainPoint, nc)
+		for i := range plan.Curve {
+			s := float64(i) / float64(nc-1)
+			if nc == 1 {
+				s = 0
+			}
+			sg := 0.5 - math.Sin(math.Asin(1-2*s)/3)
+			if i == nc-1 {
+				sg = 1
+			}
+			k := int(sg * quadIntervals)
+			if k >= quadIntervals {
+				k = quadIntervals - 1
+			}
+			r := sg*quadIntervals - float64(k) // 0…1 within the step
+			r2, r3 := r*r, r*r*r
+			t := (2*r3-3*r2+1)*ts[k] + (r3-2*r2+r)*ds*fs[k] + (-2*r3+3*r2)*ts[k+1] + (r3-r2)*ds*fs[k+1]
+			t = math.Max(ts[k], math.Min(ts[k+1], t))
+			x, _ := m.at(s)
+			hs, hr, _, H := p.state(x)
+			q, _, _ := p.tab.at(math.Max(H, 0))
+			plan.Curve[i] = DrainPoint{Time: Seconds(t), Level: Length(hs), Flow: FlowRate(q), ReceiverLevel: Length(hr)}
 		}
 	}
 	hs, hr, _, H := p.state(m.xe)
-	q, _, _ := p.tab.at(math.Max(H, 1e-300))
-	plan.Time = Seconds(t)
+	q, _, _ := p.tab.at(math.Max(H, 0))
+	plan.Time = Seconds(ts[quadIntervals])
 	plan.StopLevel = Length(hs)
 	plan.ReceiverLevel = Length(hr)
 	plan.Residual = p.src.Volume(Length(hs))
@@ -903,7 +963,6 @@ func (p *planner) integrate(plan *DrainPlan, m xmap) {
 	}
 	plan.EndFlow = FlowRate(q)
 	if n := len(plan.Curve); n > 0 {
-		plan.Curve[n-1].Level = Length(hs)
-		plan.Curve[n-1].Time = Seconds(t)
+		plan.Curve[n-1].Time = plan.Time
 	}
 }
