@@ -4,8 +4,10 @@ import (
 	_ "embed"
 	"os"
 	"path/filepath"
+	"slices"
 	"strconv"
 	"strings"
+	"sync"
 )
 
 // Catalogue holds liquids, hose materials, hose sizes, fittings, tank
@@ -24,19 +26,37 @@ type Catalogue struct {
 //go:embed catalogue.toml
 var builtinTOML string
 
-// Builtin returns a new catalogue of the built-in entries: the liquids
-// defined in Go (their correlations) and the hoses, materials, fittings,
-// tanks and priming methods of the embedded catalogue.toml. Each call builds
-// a fresh catalogue; no package state is changed.
-//
-// Builtin panics only if the embedded file is broken, which the package
-// tests rule out.
-func Builtin() *Catalogue {
+// embedded is the parsed catalogue.toml, built once and never changed;
+// Builtin hands out copies.
+var embedded = sync.OnceValue(func() *Catalogue {
 	c, err := parse(builtinTOML, "catalogue.toml (built-in)", "built-in", nil)
 	if err != nil {
 		panic("presets: embedded catalogue: " + err.Error())
 	}
-	c.liquids = append(builtinLiquids(), c.liquids...)
+	return c
+})
+
+// Builtin returns a new catalogue of the built-in entries: the liquids
+// defined in Go (their correlations) and the hoses, materials, fittings,
+// tanks and priming methods of the embedded catalogue.toml. Each call
+// returns a fresh catalogue that shares nothing mutable with other calls.
+//
+// Builtin panics only if the embedded file is broken, which the package
+// tests rule out.
+func Builtin() *Catalogue {
+	e := embedded()
+	c := &Catalogue{
+		liquids:   builtinLiquids(),
+		materials: slices.Clone(e.materials),
+		hoses:     slices.Clone(e.hoses),
+		fittings:  slices.Clone(e.fittings),
+		tanks:     slices.Clone(e.tanks),
+		priming:   slices.Clone(e.priming),
+		aids:      slices.Clone(e.aids),
+	}
+	for i := range c.tanks {
+		c.tanks[i].Sizes = slices.Clone(c.tanks[i].Sizes)
+	}
 	return c
 }
 
@@ -132,6 +152,7 @@ func (c *Catalogue) Tank(id string) (TankTemplate, bool) {
 	id = norm(id)
 	for _, t := range c.tanks {
 		if t.ID == id {
+			t.Sizes = slices.Clone(t.Sizes)
 			return t, true
 		}
 	}
@@ -173,7 +194,13 @@ func (c *Catalogue) Hoses() []Hose { return append([]Hose(nil), c.hoses...) }
 func (c *Catalogue) Fittings() []Fitting { return append([]Fitting(nil), c.fittings...) }
 
 // Tanks returns the tank templates in catalogue order (a copy).
-func (c *Catalogue) Tanks() []TankTemplate { return append([]TankTemplate(nil), c.tanks...) }
+func (c *Catalogue) Tanks() []TankTemplate {
+	out := slices.Clone(c.tanks)
+	for i := range out {
+		out[i].Sizes = slices.Clone(out[i].Sizes)
+	}
+	return out
+}
 
 // PrimingMethods returns the priming methods in catalogue order (a copy).
 func (c *Catalogue) PrimingMethods() []PrimingMethod {

@@ -492,3 +492,14 @@ func TestUserFile(t *testing.T) {
 		t.Errorf("UserFile() = %q", got)
 	}
 }
+
+var sinkCat *Catalogue
+
+// BenchmarkBuiltin: the catalogue is built at start-up and for each user
+// file load.
+func BenchmarkBuiltin(b *testing.B) {
+	b.ReportAllocs()
+	for b.Loop() {
+		sinkCat = Builtin()
+	}
+}
