@@ -161,9 +161,9 @@ var fieldTable = []FieldSpec{
 		Help: "Whole run from intake to outlet, couplings included."},
 	{ID: FieldHoseUpLeg, Pane: PaneHose, Label: "Up-leg length", Dim: DimLength, Min: 0.05, Max: 1000, Optional: true,
 		Help: "Hose from the intake up to the crest. Leave empty to take intake depth plus lift."},
-	{ID: FieldHoseMaterial, Pane: PaneHose, Label: "Hose material", Dim: DimNumber, Default: "",
+	{ID: FieldHoseMaterial, Pane: PaneHose, Label: "Hose material", Dim: DimNumber, Optional: true,
 		Choices: materialChoices,
-		Help:    "Sets the wall roughness. Lay-flat hose collapses under suction and cannot siphon."},
+		Help:    "Sets the wall roughness (empty: smooth rubber). Lay-flat hose collapses under suction and cannot siphon."},
 	{ID: FieldHoseFittings, Pane: PaneHose, Label: "Fittings", Dim: DimNumber, Optional: true, Multi: true,
 		Choices: fittingChoices,
 		Help:    "Intake screen, couplings, valves and bends on the run; comma-separated."},
@@ -259,7 +259,7 @@ func fittingChoices(c *presets.Catalogue) []Choice {
 
 func liquidChoices(c *presets.Catalogue) []Choice {
 	if c == nil {
-		return []Choice{{ID: "water", Label: "Water"}}
+		return []Choice{}
 	}
 	var out []Choice
 	for _, l := range c.Liquids() {
@@ -438,6 +438,42 @@ func (f FieldSpec) ValidateChoice(text string, cat *presets.Catalogue) error {
 		}
 	}
 	return nil
+}
+
+// ChoiceID returns the catalogue's own spelling of a picker entry typed in
+// any case ("Rectangular" → "rectangular"), and whether it is in the list.
+// For a Multi picker it normalises each comma-separated entry and joins them
+// with ", ". Entries not in the list are returned as typed (trimmed).
+func (f FieldSpec) ChoiceID(text string, cat *presets.Catalogue) (string, bool) {
+	if !f.IsPicker() {
+		return strings.TrimSpace(text), false
+	}
+	parts := []string{text}
+	if f.Multi {
+		parts = strings.Split(text, ",")
+	}
+	choices := f.Choices(cat)
+	all := true
+	var out []string
+	for _, p := range parts {
+		p = strings.TrimSpace(p)
+		if p == "" {
+			continue
+		}
+		found := false
+		for _, c := range choices {
+			if strings.EqualFold(c.ID, p) {
+				p, found = c.ID, true
+				break
+			}
+		}
+		if !found && f.ID == FieldLiquid && cat != nil && liquidKnown(cat, p) {
+			p, found = strings.ToLower(p), true
+		}
+		all = all && found
+		out = append(out, p)
+	}
+	return strings.Join(out, ", "), all && len(out) > 0
 }
 
 // liquidKnown admits the catalogue's parametric liquids ("seawater:35").

@@ -199,6 +199,24 @@ func TestFieldChoices(t *testing.T) {
 			t.Errorf("bogus fitting: %v", err)
 		}
 	}
+	if id, ok := shape.ChoiceID(" Rectangular ", cat); !ok || id != "rectangular" {
+		t.Errorf("ChoiceID(Rectangular) = %q, %v", id, ok)
+	}
+	if id, ok := liquid.ChoiceID("WATER", cat); !ok || id != "water" {
+		t.Errorf("ChoiceID(WATER) = %q, %v", id, ok)
+	}
+	if id, ok := liquid.ChoiceID("Seawater:35", cat); !ok || id != "seawater:35" {
+		t.Errorf("ChoiceID(Seawater:35) = %q, %v", id, ok)
+	}
+	if len(fc) >= 2 {
+		want := fc[0].ID + ", " + fc[1].ID
+		if id, ok := fit.ChoiceID(strings.ToUpper(fc[0].ID)+",,"+fc[1].ID, cat); !ok || id != want {
+			t.Errorf("ChoiceID(fittings) = %q, %v; want %q", id, ok, want)
+		}
+	}
+	if _, ok := liquid.ChoiceID("unobtainium", cat); ok {
+		t.Error("ChoiceID(unobtainium) found")
+	}
 	hid, _ := FieldByID(FieldHoseID)
 	if err := hid.ValidateChoice("x", cat); err == nil {
 		t.Error("ValidateChoice on a typed field accepted")

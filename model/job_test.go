@@ -65,6 +65,13 @@ func TestJobSetKeepsText(t *testing.T) {
 	if err := j.Set(FieldOutletSubmerged, "maybe"); !errors.Is(err, ErrNotAChoice) {
 		t.Errorf("outlet maybe: %v", err)
 	}
+	// Catalogue pickers are checked with the catalogue, in the plan.
+	if err := j.Set(FieldLiquid, "diesel"); err != nil {
+		t.Errorf("liquid diesel: %v", err)
+	}
+	if err := j.Set(FieldHoseMaterial, ""); err != nil {
+		t.Errorf("material cleared: %v", err)
+	}
 	if err := j.Set(FieldTankShape, "Rectangular"); err != nil {
 		t.Errorf("tank shape: %v", err)
 	}
