@@ -255,6 +255,29 @@ func (h Hazards) Any() bool {
 	return h.Flammable || h.Combustible || h.Biohazard || h.Environmental || h.Toxic
 }
 
+// List returns the hazard codes set, in a fixed order, with the NFPA 30
+// class after "flammable" when known (e.g. "flammable (class IB)").
+func (h Hazards) List() []string {
+	var out []string
+	if h.Flammable {
+		if h.FlammableClass != "" {
+			out = append(out, "flammable (class "+h.FlammableClass+")")
+		} else {
+			out = append(out, "flammable")
+		}
+	}
+	for _, t := range []struct {
+		on   bool
+		name string
+	}{{h.Combustible, "combustible"}, {h.Volatile, "volatile"}, {h.Toxic, "toxic"}, {h.Biohazard, "biohazard"},
+		{h.Environmental, "environmental"}, {h.Hot, "hot"}, {h.FreezingRisk, "freezing-risk"}} {
+		if t.on {
+			out = append(out, t.name)
+		}
+	}
+	return out
+}
+
 // Fuel reports whether the fire and static steps apply: flammable, or
 // combustible (handled near its flash point it behaves as flammable).
 func (h Hazards) Fuel() bool { return h.Flammable || h.Combustible }

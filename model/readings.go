@@ -160,8 +160,9 @@ type Fit struct {
 	RMS float64
 	// PlanRMS is the residual with ΔK = 0 (the plan as typed), m.
 	PlanRMS float64
-	// FallRatio is the observed fall over all readings divided by the plan's
-	// fall over the same time from the same first level (1 = on plan).
+	// FallRatio is the observed fall divided by the plan's fall over the
+	// same time from the same first level (1 = on plan), up to the last
+	// reading taken before the plan's stop; 0 when not judged.
 	FallRatio float64
 
 	// Finish is the re-predicted stop time and StopLevel the stop level (m),
@@ -246,13 +247,22 @@ func FitReadings(readings []Reading, sim Simulator, opt FitOptions) (Fit, error)
 		f.PlanRMS = math.Sqrt(planSSE / float64(len(rs)))
 	}
 
-	// Observed against planned fall over the whole window.
+	// Observed against planned fall, up to the last reading taken while the
+	// plan is still running (after the plan's stop its level stands still
+	// and the ratio would mean nothing).
 	if plan, err := sim(0, rs[0].Level); err == nil && len(plan.Times) > 0 {
-		span := rs[len(rs)-1].At.Sub(rs[0].At).Seconds()
-		planFall := rs[0].Level - plan.LevelAt(span)
-		obsFall := rs[0].Level - rs[len(rs)-1].Level
-		if planFall > 0 {
-			f.FallRatio = obsFall / planFall
+		last := 0
+		for i := range rs {
+			if rs[i].At.Sub(rs[0].At).Seconds() <= plan.End() {
+				last = i
+			}
+		}
+		if last > 0 {
+			planFall := rs[0].Level - plan.LevelAt(rs[last].At.Sub(rs[0].At).Seconds())
+			obsFall := rs[0].Level - rs[last].Level
+			if planFall > 0 {
+				f.FallRatio = obsFall / planFall
+			}
 		}
 	}
 
