@@ -933,7 +933,10 @@ func (p *planner) integrate(plan *DrainPlan, m xmap) {
 				s = 0
 			}
 			sg := 0.5 - math.Sin(math.Asin(1-2*s)/3)
-			if i == nc-1 {
+			switch i {
+			case 0:
+				sg = 0
+			case nc - 1:
 				sg = 1
 			}
 			k := int(sg * quadIntervals)

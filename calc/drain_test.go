@@ -417,3 +417,217 @@ func BenchmarkBruteForceDrain(b *testing.B) {
 		sinkTime, _, _, _ = bruteDrain(in, dt)
 	}
 }
+
+// crestCase drains a tank with a high crest so that the lift reaches the
+// flowing crest limit on the way down (invented case).
+func crestCase() DrainInput {
+	s := baseSiphon(1.9, 0.05, 9.6, -3)
+	s.Hose.Length = 25
+	return DrainInput{Tank: mustTank(NewVerticalCylinder(1.5, 2)), Siphon: s}
+}
+
+// TestDrainCrestStopIsWhereSolveFlips: the crest stop lies where Solve's
+// verdict turns to WillNotRun (cannot run) as the level falls, to 1e-5 m; the
+// working-limit level lies above it (property of the crest equations in
+// Solve's doc: the working height is the flowing limit less an allowance).
+func TestDrainCrestStopIsWhereSolveFlips(t *testing.T) {
+	in := crestCase()
+	plan, err := PlanDrain(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if plan.StopReason != StopCrest || !plan.CrestLimitFound || plan.CrestLimitLevel != plan.StopLevel {
+		t.Fatalf("plan %+v", plan.StopReason)
+	}
+	at := func(h Length) Result {
+		s := in.Siphon
+		s.Geometry.Surface = h
+		r, err := Solve(s)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return r
+	}
+	if r := at(plan.StopLevel); r.Verdict == WillNotRun {
+		t.Errorf("Solve will not run at the stop level %g", plan.StopLevel)
+	}
+	if r := at(plan.StopLevel - 1e-5); r.Verdict != WillNotRun || r.Why != WarnCannotRun {
+		t.Errorf("Solve still runs 10 µm below the crest stop: %v", r.Verdict)
+	}
+	if !plan.WorkingLimitFound || !(plan.WorkingLimitLevel > plan.CrestLimitLevel) {
+		t.Errorf("working limit %g (found %v) should be above the crest limit %g", plan.WorkingLimitLevel, plan.WorkingLimitFound, plan.CrestLimitLevel)
+	}
+	// Stopping at a target above it still reports where the crest would break.
+	in.Target = plan.StopLevel + 0.2
+	pt, err := PlanDrain(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if pt.StopReason != StopTarget || !pt.CrestLimitFound || math.Abs(float64(pt.CrestLimitLevel-plan.CrestLimitLevel)) > 1e-6 {
+		t.Errorf("target plan: %s, crest limit %g (found %v), want %g", pt.StopReason, pt.CrestLimitLevel, pt.CrestLimitFound, plan.CrestLimitLevel)
+	}
+}
+
+// TestDrainIntakeStopMatchesSolve: at an intake stop, the level above the
+// intake equals the required submergence Solve gives there (ANSI/HI 9.8 form
+// in Solve), to 1e-6 m.
+func TestDrainIntakeStopMatchesSolve(t *testing.T) {
+	in := benchDrainInput()
+	plan, err := PlanDrain(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := in.Siphon
+	s.Geometry.Surface = plan.StopLevel
+	r, _ := Solve(s)
+	if d := float64(plan.StopLevel-s.Geometry.Intake) - float64(r.RequiredSubmergence); plan.StopReason != StopIntake || math.Abs(d) > 1e-6 {
+		t.Errorf("stop %s at %g m: depth − S = %g m", plan.StopReason, plan.StopLevel, d)
+	}
+	if plan.CrestLimitFound {
+		t.Errorf("no crest limit expected with a 0.5 m lift, got %g", plan.CrestLimitLevel)
+	}
+	if !tkNear(float64(plan.EndFlow), float64(r.Flow), 1e-5) || plan.StartFlow != plan.Start.Flow {
+		t.Errorf("end flow %g, Solve %g", plan.EndFlow, r.Flow)
+	}
+	if !tkNear(float64(plan.Volume+plan.Residual), float64(in.Tank.Volume(in.Siphon.Geometry.Surface)), 1e-12) {
+		t.Errorf("volume moved %g + residual %g ≠ start volume", plan.Volume, plan.Residual)
+	}
+}
+
+// TestDrainCurve: the curve has the requested points, starts at the start,
+// ends at the stop, and time rises while level and flow fall (quasi-steady
+// model: Q rises with head).
+func TestDrainCurve(t *testing.T) {
+	for _, n := range []int{0, 2, 3, 57, 200, MaxCurvePoints} {
+		in := benchDrainInput()
+		in.Siphon.Geometry.Outlet = 0.5 // stop at equal levels: the slow tail
+		in.CurvePoints = n
+		plan, err := PlanDrain(in)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := n
+		if n == 0 {
+			want = DefaultCurvePoints
+		}
+		c := plan.Curve
+		if len(c) != want {
+			t.Fatalf("%d points asked, %d given", n, len(c))
+		}
+		if c[0].Time != 0 || c[0].Level != in.Siphon.Geometry.Surface || c[len(c)-1].Level != plan.StopLevel || c[len(c)-1].Time != plan.Time {
+			t.Errorf("ends %+v … %+v", c[0], c[len(c)-1])
+		}
+		for i := 1; i < len(c); i++ {
+			if !(c[i].Time > c[i-1].Time) || !(c[i].Level < c[i-1].Level) || !(c[i].Flow < c[i-1].Flow) || !(c[i].Flow > 0) {
+				t.Fatalf("n=%d point %d not monotone: %+v after %+v", n, i, c[i], c[i-1])
+			}
+		}
+	}
+}
+
+// TestDrainStopsAtOnce: cases that cannot drain give a zero-time plan with
+// the reason.
+func TestDrainStopsAtOnce(t *testing.T) {
+	tank := mustTank(NewVerticalCylinder(1.2, 1.5))
+	cases := []struct {
+		name   string
+		in     DrainInput
+		reason StopReason
+	}{
+		{"crest above the barometric limit", DrainInput{Tank: tank, Siphon: baseSiphon(1.4, 0.05, 12, -2)}, StopCrest},
+		{"outlet above the surface", DrainInput{Tank: tank, Siphon: baseSiphon(1.4, 0.05, 1.9, 1.45)}, StopEqual},
+		{"head under 1 cm", DrainInput{Tank: tank, Siphon: baseSiphon(1.4, 0.05, 1.9, 1.395)}, StopEqual},
+		{"intake too shallow", DrainInput{Tank: tank, Siphon: baseSiphon(0.1, 0.05, 1.9, -2)}, StopIntake},
+		{"receiver already full", DrainInput{Tank: tank, Siphon: baseSiphon(1.4, 0.05, 1.9, -2),
+			Receiver: &Receiver{Tank: mustTank(NewRectangular(1, 1, 0.5)), Floor: -2.5, Level: 0.5}}, StopReceiverFull},
+	}
+	for _, c := range cases {
+		plan, err := PlanDrain(c.in)
+		if err != nil {
+			t.Errorf("%s: %v", c.name, err)
+			continue
+		}
+		if plan.StopReason != c.reason || plan.Time != 0 || plan.Volume != 0 || len(plan.Curve) != 1 ||
+			plan.StopLevel != c.in.Siphon.Geometry.Surface {
+			t.Errorf("%s: %s after %g s, %g m³, %d points", c.name, plan.StopReason, plan.Time, plan.Volume, len(plan.Curve))
+		}
+	}
+}
+
+func TestDrainBadInput(t *testing.T) {
+	tank := mustTank(NewVerticalCylinder(1.2, 1.5))
+	ok := DrainInput{Tank: tank, Siphon: baseSiphon(1.4, 0.05, 1.9, -2)}
+	mod := func(f func(*DrainInput)) DrainInput { in := ok; f(&in); return in }
+	cases := []struct {
+		name string
+		in   DrainInput
+		is   error
+	}{
+		{"no tank", mod(func(in *DrainInput) { in.Tank = nil }), ErrNoTank},
+		{"level above the brim", mod(func(in *DrainInput) { in.Siphon.Geometry.Surface = 1.6 }), ErrOutOfRange},
+		{"level zero", mod(func(in *DrainInput) { in.Siphon.Geometry.Surface = 0 }), ErrOutOfRange},
+		{"level NaN", mod(func(in *DrainInput) { in.Siphon.Geometry.Surface = Length(math.NaN()) }), ErrNotFinite},
+		{"intake below the floor", mod(func(in *DrainInput) { in.Siphon.Geometry.Intake = -0.1 }), ErrOutOfRange},
+		{"intake above the level", mod(func(in *DrainInput) { in.Siphon.Geometry.Intake = 1.45 }), ErrGeometry},
+		{"target above the level", mod(func(in *DrainInput) { in.Target = 1.4 }), ErrOutOfRange},
+		{"target negative", mod(func(in *DrainInput) { in.Target = -0.2 }), ErrOutOfRange},
+		{"one curve point", mod(func(in *DrainInput) { in.CurvePoints = 1 }), ErrOutOfRange},
+		{"too many curve points", mod(func(in *DrainInput) { in.CurvePoints = MaxCurvePoints + 1 }), ErrOutOfRange},
+		{"receiver without tank", mod(func(in *DrainInput) { in.Receiver = &Receiver{} }), ErrNoTank},
+		{"receiver overfull", mod(func(in *DrainInput) { in.Receiver = &Receiver{Tank: tank, Level: 2} }), ErrOutOfRange},
+		{"bad hose", mod(func(in *DrainInput) { in.Siphon.Hose.Diameter = 0 }), ErrOutOfRange},
+	}
+	for _, c := range cases {
+		_, err := PlanDrain(c.in)
+		if !errors.Is(err, c.is) {
+			t.Errorf("%s: got %v, want %v", c.name, err, c.is)
+		}
+		var re *RangeError
+		if !errors.As(err, &re) {
+			t.Errorf("%s: not a *RangeError: %v", c.name, err)
+		}
+	}
+}
+
+// FuzzPlanDrain: any input gives an error or a finite plan with a known stop
+// reason; it never panics or hangs.
+func FuzzPlanDrain(f *testing.F) {
+	f.Add(1.4, 0.05, 1.9, -2.0, 0.025, 10.0, 1.2, 0.0, 0.0, false)
+	f.Add(1.9, 0.05, 9.6, -3.0, 0.025, 25.0, 1.5, 0.0, 0.0, false)
+	f.Add(1.8, 0.05, 2.3, -1.1, 0.025, 10.0, 1.2, 0.3, -0.4, true)
+	f.Add(0.2, 0.19, 0.3, 0.1, 0.3, 0.5, 50.0, 0.195, 0.0, false)
+	f.Fuzz(func(t *testing.T, level, intake, crest, outlet, diam, length, tankD, target, rcvFloor float64, rcv bool) {
+		tk, err := NewVerticalCylinder(Length(tankD), 2)
+		if err != nil {
+			return
+		}
+		s := baseSiphon(level, intake, crest, outlet)
+		s.Hose.Diameter, s.Hose.Length = Length(diam), Length(length)
+		in := DrainInput{Tank: tk, Siphon: s, Target: Length(target), CurvePoints: 20}
+		if rcv {
+			in.Receiver = &Receiver{Tank: mustTank(NewHorizontalCylinder(1.4, 2.5)), Floor: Length(rcvFloor), Level: 0.1}
+		}
+		plan, err := PlanDrain(in)
+		if err != nil {
+			return
+		}
+		vals := []float64{float64(plan.Time), float64(plan.Volume), float64(plan.StopLevel), float64(plan.Residual),
+			float64(plan.StartFlow), float64(plan.EndFlow), float64(plan.CrestLimitLevel), float64(plan.WorkingLimitLevel), float64(plan.ReceiverLevel)}
+		for _, p := range plan.Curve {
+			vals = append(vals, float64(p.Time), float64(p.Level), float64(p.Flow), float64(p.ReceiverLevel))
+		}
+		for i, v := range vals {
+			if math.IsNaN(v) || math.IsInf(v, 0) || v < -MaxElevation {
+				t.Fatalf("value %d not finite: %g (%+v)", i, v, plan)
+			}
+		}
+		switch plan.StopReason {
+		case StopTarget, StopIntake, StopCrest, StopEqual, StopReceiverFull:
+		default:
+			t.Fatalf("stop reason %q", plan.StopReason)
+		}
+		if len(plan.Curve) > 20 || plan.Time < 0 || plan.Volume < 0 || plan.StopLevel > s.Geometry.Surface {
+			t.Fatalf("plan %+v", plan)
+		}
+	})
+}
