@@ -254,25 +254,43 @@ func unitByName(d Dim, name string) (unit, bool) {
 	return unit{}, false
 }
 
+// unitIndex maps every spelling, normalised by normUnit, to its unit, per
+// Dim. It is built once and never changed.
+var unitIndex = func() [dimCount]map[string]unit {
+	var idx [dimCount]map[string]unit
+	for d := range idx {
+		idx[d] = map[string]unit{}
+		for _, u := range unitTable[d] {
+			idx[d][normUnit(u.name)] = u
+			for _, a := range u.alias {
+				idx[d][normUnit(a)] = u
+			}
+		}
+	}
+	return idx
+}()
+
 // lookupUnit finds a unit by any spelling. Matching ignores case and spaces:
 // within one Dim no two accepted units differ only by case (MPa is accepted
 // as a pressure and mPa·s as a viscosity, never both in one Dim).
 func lookupUnit(d Dim, text string) (unit, bool) {
-	key := normUnit(text)
-	for _, u := range unitTable[d] {
-		if normUnit(u.name) == key {
-			return u, true
-		}
-		for _, a := range u.alias {
-			if normUnit(a) == key {
-				return u, true
-			}
-		}
-	}
-	return unit{}, false
+	u, ok := unitIndex[d][normUnit(text)]
+	return u, ok
 }
 
+// normUnit lower-cases s and drops white space. Text that is already
+// lower-case ASCII without spaces is returned as is, without allocating.
 func normUnit(s string) string {
+	plain := true
+	for i := 0; i < len(s); i++ {
+		if c := s[i]; c >= 0x80 || c == ' ' || c == '\t' || ('A' <= c && c <= 'Z') {
+			plain = false
+			break
+		}
+	}
+	if plain {
+		return s
+	}
 	var b strings.Builder
 	for _, r := range s {
 		if unicode.IsSpace(r) {

@@ -375,3 +375,35 @@ func FuzzParse(f *testing.F) {
 		}
 	})
 }
+
+var sinkFloat float64
+var sinkString string
+
+// BenchmarkParse covers the per-keystroke path: the screen re-reads every
+// field of the job on each key.
+func BenchmarkParse(b *testing.B) {
+	for _, c := range []struct {
+		name, text string
+		dim        Dim
+	}{
+		{"bare", "12.5", DimLength},
+		{"suffix", "25mm", DimDiameter},
+		{"fraction", "1-1/2 in", DimDiameter},
+		{"pressure", "29.6 inHg", DimPressure},
+		{"feet-inches", "6 ft 3 in", DimLength},
+	} {
+		b.Run(c.name, func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				sinkFloat, _ = Parse(c.dim, c.text, SI)
+			}
+		})
+	}
+}
+
+func BenchmarkFormat(b *testing.B) {
+	b.ReportAllocs()
+	for b.Loop() {
+		sinkString = Format(DimFlow, 2.5e-3/60, US)
+	}
+}
