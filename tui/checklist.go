@@ -1,0 +1,536 @@
+package tui
+
+import (
+	"strconv"
+	"strings"
+
+	"charm.land/bubbles/v2/key"
+	"charm.land/bubbles/v2/textinput"
+	tea "charm.land/bubbletea/v2"
+	"charm.land/lipgloss/v2"
+
+	"drawdown/model"
+)
+
+// ChecklistMarkMsg asks the root to mark a checklist step (model.Checklist.
+// Mark): done, skipped with a reason, not applicable, or back to pending.
+// The root adds the time from its clock and saves the job; the pane never
+// changes the job itself.
+type ChecklistMarkMsg struct {
+	ID     string
+	State  model.StepState
+	Reason string // required (non-blank) for model.StateSkipped
+	// Current is the step selected after this mark (the pane moves on
+	// after "done"), for the root to save so a reopened job resumes there.
+	Current string
+}
+
+// ChecklistNoteMsg asks the root to replace a step's note
+// (model.Checklist.SetNote).
+type ChecklistNoteMsg struct {
+	ID, Note string
+}
+
+// ChecklistStepMsg tells the root which step the technician is on, so that
+// reopening the job resumes at the same step.
+type ChecklistStepMsg struct {
+	ID string
+}
+
+// ChecklistKeys are the Checklist pane's keys. The root may remap them
+// (SetKeys) where they clash with its own navigate-mode letters.
+type ChecklistKeys struct {
+	Up, Down   key.Binding
+	Done       key.Binding // d or enter
+	Skip       key.Binding // s: asks for a reason
+	NotApplies key.Binding // x: not applicable
+	Reopen     key.Binding // backspace: back to "to do"
+	Note       key.Binding // n: add or change the note
+	Submit     key.Binding // enter while typing
+	Cancel     key.Binding // esc while typing
+}
+
+// DefaultChecklistKeys returns the pane's default keys.
+func DefaultChecklistKeys() ChecklistKeys {
+	return ChecklistKeys{
+		Up:         key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "prev step")),
+		Down:       key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "next step")),
+		Done:       key.NewBinding(key.WithKeys("d", "enter"), key.WithHelp("d/enter", "done")),
+		Skip:       key.NewBinding(key.WithKeys("s"), key.WithHelp("s", "skip (reason)")),
+		NotApplies: key.NewBinding(key.WithKeys("x"), key.WithHelp("x", "not applicable")),
+		Reopen:     key.NewBinding(key.WithKeys("backspace"), key.WithHelp("⌫", "back to to-do")),
+		Note:       key.NewBinding(key.WithKeys("n"), key.WithHelp("n", "note")),
+		Submit:     key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "save")),
+		Cancel:     key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "cancel")),
+	}
+}
+
+// ckMode is what the pane's input line is doing.
+type ckMode int
+
+const (
+	ckBrowse ckMode = iota // moving and marking
+	ckReason               // typing a reason to skip
+	ckNote                 // typing a note
+)
+
+// ChecklistView steps through the job's checklist: a scrolling list of the
+// steps with their state ([✓] done, [ ] to do, [↷] skipped, [–] not
+// applicable), the progress ("7/19 done"), and the selected step in full
+// with its caution in a box. Marks and notes go to the root as messages.
+type ChecklistView struct {
+	w, h    int
+	cl      model.Checklist
+	cur     int // selected step
+	mode    ckMode
+	input   textinput.Model
+	errText string // shown under the input, e.g. a missing reason
+	keys    ChecklistKeys
+	styles  DrawStyles
+	focused bool
+}
+
+// NewChecklistView returns an empty Checklist pane.
+func NewChecklistView(st DrawStyles) ChecklistView {
+	ti := textinput.New()
+	ti.Prompt = "› "
+	ti.CharLimit = 300
+	ts := ti.Styles()
+	ts.Cursor.Blink = false // a blinking cursor streams bytes over SSH
+	ti.SetStyles(ts)
+	return ChecklistView{input: ti, keys: DefaultChecklistKeys(), styles: st}
+}
+
+// SetSize sets the pane's size in cells; View fills exactly w×h.
+func (v *ChecklistView) SetSize(w, h int) {
+	v.w, v.h = max(w, 0), max(h, 0)
+	v.input.SetWidth(max(v.w-4, 1))
+}
+
+// SetStyles replaces the styles.
+func (v *ChecklistView) SetStyles(st DrawStyles) { v.styles = st }
+
+// SetKeys replaces the pane's keys.
+func (v *ChecklistView) SetKeys(k ChecklistKeys) { v.keys = k }
+
+// SetChecklist gives the checklist to show (a copy of the job's). The
+// selection stays on the same step ID when it still exists, else goes to
+// the first step still to do.
+func (v *ChecklistView) SetChecklist(c model.Checklist) {
+	id := v.CurrentID()
+	v.cl = c
+	if i := v.cl.Index(id); id != "" && i >= 0 {
+		v.cur = i
+		return
+	}
+	v.cur = max(v.cl.CurrentIndex(), 0)
+	if n := len(v.cl.Steps); v.cur >= n {
+		v.cur = max(n-1, 0)
+	}
+}
+
+// SetCurrent selects the step with this ID (from the saved job), if any.
+func (v *ChecklistView) SetCurrent(id string) {
+	if i := v.cl.Index(id); i >= 0 {
+		v.cur = i
+	}
+}
+
+// CurrentID is the selected step's ID ("" when the list is empty).
+func (v ChecklistView) CurrentID() string {
+	if v.cur < 0 || v.cur >= len(v.cl.Steps) {
+		return ""
+	}
+	return v.cl.Steps[v.cur].ID
+}
+
+// Typing reports whether the pane is reading text (a reason or a note): the
+// root must then pass every key to it, letters included.
+func (v ChecklistView) Typing() bool { return v.mode != ckBrowse }
+
+// Focus gives the pane the focus.
+func (v *ChecklistView) Focus() { v.focused = true }
+
+// Blur removes the focus and abandons any half-typed reason or note.
+func (v *ChecklistView) Blur() {
+	v.focused = false
+	v.closeInput()
+}
+
+// Focused reports whether the pane has the focus.
+func (v ChecklistView) Focused() bool { return v.focused }
+
+func (v *ChecklistView) closeInput() {
+	v.mode = ckBrowse
+	v.errText = ""
+	v.input.Blur()
+	v.input.Reset()
+}
+
+func (v *ChecklistView) openInput(m ckMode, value, placeholder string) tea.Cmd {
+	v.mode = m
+	v.errText = ""
+	v.input.Reset()
+	v.input.SetValue(value)
+	v.input.CursorEnd()
+	v.input.Placeholder = placeholder
+	return v.input.Focus()
+}
+
+func stepCmd(id string) tea.Cmd {
+	return func() tea.Msg { return ChecklistStepMsg{ID: id} }
+}
+
+func emit(m tea.Msg) tea.Cmd { return func() tea.Msg { return m } }
+
+// Update handles the pane's keys while it has the focus.
+func (v ChecklistView) Update(msg tea.Msg) (ChecklistView, tea.Cmd) {
+	if !v.focused {
+		return v, nil
+	}
+	k, isKey := msg.(tea.KeyPressMsg)
+	if v.mode != ckBrowse {
+		if isKey {
+			switch {
+			case key.Matches(k, v.keys.Cancel):
+				v.closeInput()
+				return v, nil
+			case key.Matches(k, v.keys.Submit):
+				return v.submit()
+			}
+		}
+		var cmd tea.Cmd
+		v.input, cmd = v.input.Update(msg)
+		if isKey {
+			v.errText = ""
+		}
+		return v, cmd
+	}
+	if !isKey || len(v.cl.Steps) == 0 {
+		return v, nil
+	}
+	id := v.CurrentID()
+	n := len(v.cl.Steps)
+	switch {
+	case key.Matches(k, v.keys.Up):
+		if v.cur > 0 {
+			v.cur--
+			return v, stepCmd(v.CurrentID())
+		}
+	case key.Matches(k, v.keys.Down):
+		if v.cur < n-1 {
+			v.cur++
+			return v, stepCmd(v.CurrentID())
+		}
+	case key.Matches(k, v.keys.Done):
+		if v.cur < n-1 {
+			v.cur++
+		}
+		return v, emit(ChecklistMarkMsg{ID: id, State: model.StateDone, Current: v.CurrentID()})
+	case key.Matches(k, v.keys.NotApplies):
+		return v, emit(ChecklistMarkMsg{ID: id, State: model.StateNotApplicable, Current: id})
+	case key.Matches(k, v.keys.Reopen):
+		if v.cl.Steps[v.cur].State != model.StatePending {
+			return v, emit(ChecklistMarkMsg{ID: id, State: model.StatePending, Current: id})
+		}
+	case key.Matches(k, v.keys.Skip):
+		return v, v.openInput(ckReason, "", "why is this step skipped?")
+	case key.Matches(k, v.keys.Note):
+		return v, v.openInput(ckNote, v.cl.Steps[v.cur].Note, "e.g. gas reading, permit number, initials")
+	}
+	return v, nil
+}
+
+// submit ends typing: a skip needs a non-blank reason.
+func (v ChecklistView) submit() (ChecklistView, tea.Cmd) {
+	id := v.CurrentID()
+	text := strings.TrimSpace(v.input.Value())
+	switch v.mode {
+	case ckReason:
+		if text == "" {
+			v.errText = "✗ a reason is required to skip a step"
+			return v, nil
+		}
+		v.closeInput()
+		return v, emit(ChecklistMarkMsg{ID: id, State: model.StateSkipped, Reason: text, Current: id})
+	case ckNote:
+		v.closeInput()
+		return v, emit(ChecklistNoteMsg{ID: id, Note: text})
+	case ckBrowse:
+	}
+	return v, nil
+}
+
+// ShortHelp lists the keys that do something now.
+func (v ChecklistView) ShortHelp() []key.Binding {
+	if v.mode != ckBrowse {
+		return []key.Binding{v.keys.Submit, v.keys.Cancel}
+	}
+	return []key.Binding{v.keys.Done, v.keys.Skip, v.keys.Note, v.keys.NotApplies, v.keys.Reopen, v.keys.Up, v.keys.Down}
+}
+
+// FullHelp lists all the pane's keys.
+func (v ChecklistView) FullHelp() [][]key.Binding {
+	return [][]key.Binding{
+		{v.keys.Up, v.keys.Down, v.keys.Done, v.keys.Skip},
+		{v.keys.NotApplies, v.keys.Reopen, v.keys.Note, v.keys.Submit, v.keys.Cancel},
+	}
+}
+
+// ckSymbol is the state's mark in the list: never colour alone.
+func ckSymbol(s model.StepState) (string, drawClass) {
+	switch s {
+	case model.StateDone:
+		return "[✓]", clsOK
+	case model.StateSkipped:
+		return "[↷]", clsWarn
+	case model.StateNotApplicable:
+		return "[–]", clsMuted
+	case model.StatePending:
+	}
+	return "[ ]", clsText
+}
+
+// ckWrap breaks plain text into lines of at most w cells at spaces.
+func ckWrap(s string, w int) []string {
+	if w <= 0 {
+		return nil
+	}
+	var out []string
+	for _, para := range strings.Split(s, "\n") {
+		line := ""
+		for _, word := range strings.Fields(para) {
+			for lipgloss.Width(word) > w { // a word longer than the line
+				if line != "" {
+					out = append(out, line)
+					line = ""
+				}
+				r := []rune(word)
+				cut := min(w, len(r))
+				out = append(out, string(r[:cut]))
+				word = string(r[cut:])
+			}
+			switch {
+			case word == "":
+			case line == "":
+				line = word
+			case lipgloss.Width(line)+1+lipgloss.Width(word) <= w:
+				line += " " + word
+			default:
+				out = append(out, line)
+				line = word
+			}
+		}
+		out = append(out, line)
+	}
+	return out
+}
+
+// progressText is "7/19 done · 2 skipped · 1 n/a".
+func (v *ChecklistView) progressText() string {
+	p := v.cl.Progress()
+	s := strconv.Itoa(p.Done) + "/" + strconv.Itoa(p.Total) + " done"
+	if p.Skipped > 0 {
+		s += " · " + strconv.Itoa(p.Skipped) + " skipped"
+	}
+	if p.NotApplicable > 0 {
+		s += " · " + strconv.Itoa(p.NotApplicable) + " n/a"
+	}
+	return s
+}
+
+// stateLine says the selected step's state in words, with its time.
+func ckStateLine(s model.Step) (string, drawClass) {
+	at := ""
+	if !s.At.IsZero() {
+		at = " " + s.At.Format("15:04")
+	}
+	sym, cls := ckSymbol(s.State)
+	switch s.State {
+	case model.StateDone:
+		return sym + " done" + at, cls
+	case model.StateSkipped:
+		return sym + " skipped" + at + ": " + s.Reason, cls
+	case model.StateNotApplicable:
+		t := sym + " not applicable" + at
+		if s.Reason != "" {
+			t += ": " + s.Reason
+		}
+		return t, cls
+	case model.StatePending:
+	}
+	return sym + " to do", cls
+}
+
+// View draws the pane: progress line, step list, the selected step with
+// its caution box, and the input line while typing. Exactly w×h cells.
+func (v ChecklistView) View() string {
+	w, h := v.w, v.h
+	if w <= 0 || h <= 0 {
+		return ""
+	}
+	st := &v.styles
+	steps := v.cl.Steps
+	if len(steps) == 0 {
+		return drawFit([]string{drawClip("Checklist: no steps yet — choose the liquid and the priming method.", w)}, w, h)
+	}
+	step := steps[min(max(v.cur, 0), len(steps)-1)]
+
+	// The bottom block: input line (when typing) and the detail.
+	var input []string
+	if v.mode != ckBrowse {
+		label := "Reason to skip (required):"
+		if v.mode == ckNote {
+			label = "Note for this step:"
+		}
+		input = append(input, st.Title.Render(drawClip(label, w)), v.input.View())
+		if v.errText != "" {
+			input = append(input, st.Danger.Render(drawClip(v.errText, w)))
+		}
+	}
+
+	wide := w >= 100 && h >= 8
+	listW := w
+	detailW := w
+	if wide {
+		listW = w * 55 / 100
+		detailW = w - listW - 1
+	}
+	// Height budget: title 1, then list and detail share the rest; the
+	// list keeps at least three rows (or what is left in a tiny pane).
+	var listH int
+	var detail []string
+	room := h - 1 - len(input)
+	if wide {
+		listH = room
+		detail = v.detailLines(step, detailW, h-1)
+	} else {
+		dh := max(room-3, 0)
+		if room < 6 {
+			dh = 0
+		}
+		detail = v.detailLines(step, detailW, min(dh, max(room*65/100, 0)))
+		listH = room - len(detail)
+	}
+
+	title := "Checklist · " + v.progressText() + " · " + step.Section.Title()
+	lines := []string{st.Title.Render(drawClip(title, w))}
+
+	// Step list, scrolled so the selection stays in view with some steps
+	// after it.
+	n := len(steps)
+	top := 0
+	if listH > 0 && n > listH {
+		top = min(max(v.cur-listH/3, 0), n-listH)
+	}
+	var list []string
+	for i := top; i < n && len(list) < listH; i++ {
+		s := steps[i]
+		sym, cls := ckSymbol(s.State)
+		mark := "  "
+		if i == v.cur {
+			mark = "▶ "
+		}
+		text := s.Text
+		if s.Caution != "" {
+			text = "! " + text // a caution goes with this step
+		}
+		body := drawClip(mark+sym+" "+text, listW)
+		if i == v.cur && v.focused {
+			body += strings.Repeat(" ", max(listW-lipgloss.Width(body), 0))
+			list = append(list, st.Selected.Render(body))
+			continue
+		}
+		row := st.style(cls).Render(mark+sym) + " " + drawClip(text, max(listW-lipgloss.Width(mark+sym)-1, 0))
+		if s.State == model.StateNotApplicable {
+			row = st.Muted.Render(body)
+		}
+		list = append(list, row)
+	}
+	if wide {
+		right := append([]string{}, detail...)
+		for i := 0; i < max(len(list), len(right)); i++ {
+			l, r := "", ""
+			if i < len(list) {
+				l = list[i]
+			}
+			if i < len(right) {
+				r = right[i]
+			}
+			l = drawFit([]string{l}, listW, 1)
+			lines = append(lines, l+" "+r)
+		}
+	} else {
+		for len(list) < listH {
+			list = append(list, "")
+		}
+		lines = append(lines, list...)
+		lines = append(lines, detail...)
+	}
+	// The input goes last, at the bottom of the pane (all of the pane when
+	// it is tiny).
+	if len(input) > h {
+		input = input[len(input)-h:]
+	}
+	for len(lines) < h-len(input) {
+		lines = append(lines, "")
+	}
+	lines = append(lines[:min(len(lines), h-len(input))], input...)
+	return drawFit(lines, w, h)
+}
+
+// detailLines is the selected step in full, in at most maxH lines: section,
+// text, state, note and the caution in a box with the rule it comes from.
+// When room is short the caution and the state are kept first, then the
+// text, the note and the heading.
+func (v *ChecklistView) detailLines(s model.Step, w, maxH int) []string {
+	st := &v.styles
+	if w < 8 || maxH <= 0 {
+		return nil
+	}
+	head := []string{st.Muted.Render(drawClip(s.Section.Title()+" · step "+strconv.Itoa(v.cur+1)+" of "+strconv.Itoa(len(v.cl.Steps)), w))}
+	text := ckWrap(s.Text, w)
+	sl, cls := ckStateLine(s)
+	var state []string
+	for _, l := range ckWrap(sl, w) {
+		state = append(state, st.style(cls).Render(l))
+	}
+	var note []string
+	if s.Note != "" {
+		note = ckWrap("note: "+s.Note, w)
+	}
+	var box []string
+	if s.Caution != "" {
+		inner := w - 4
+		body := ckWrap(s.Caution, inner)
+		if s.Rule != "" {
+			body = append(body, ckWrap("("+s.Rule+")", inner)...)
+		}
+		// Keep the box whole: cut its body, never its frame.
+		body = body[:min(len(body), max(maxH-2, 1))]
+		t := "┌─ ! Caution "
+		t += strings.Repeat("─", max(w-1-lipgloss.Width(t), 0)) + "┐"
+		box = append(box, st.Box.Render(drawClip(t, w)))
+		for _, l := range body {
+			pad := strings.Repeat(" ", max(inner-lipgloss.Width(l), 0))
+			box = append(box, st.Box.Render("│ ")+l+pad+st.Box.Render(" │"))
+		}
+		box = append(box, st.Box.Render("└"+strings.Repeat("─", max(w-2, 0))+"┘"))
+	}
+	room := maxH - len(box)
+	state = state[:min(len(state), max(room, 0))]
+	room -= len(state)
+	text = text[:min(len(text), max(room, 0))]
+	room -= len(text)
+	note = note[:min(len(note), max(room, 0))]
+	room -= len(note)
+	head = head[:min(len(head), max(room, 0))]
+	out := append(head, text...)
+	out = append(out, state...)
+	out = append(out, note...)
+	out = append(out, box...)
+	if len(out) > maxH {
+		out = out[:maxH]
+	}
+	return out
+}
