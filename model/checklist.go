@@ -335,6 +335,63 @@ type ChecklistContext struct {
 	// Strokes, when above zero, is the estimated hand-pump stroke count to
 	// fill the hose; it is quoted in the hand-pump step.
 	Strokes int `json:"strokes,omitempty"`
+	// ExtraHazards are hazards the crew adds to the liquid's own (rain water
+	// in an oil bund is environmental; an unidentified liquid may be
+	// treated as a biohazard). ContextFor keeps them when the liquid
+	// changes; Hazards is the liquid's tags plus these.
+	ExtraHazards Hazards `json:"extra_hazards,omitzero"`
+}
+
+// Union returns the hazards set in h or in o (the first known NFPA class).
+func (h Hazards) Union(o Hazards) Hazards {
+	u := Hazards{
+		Flammable:     h.Flammable || o.Flammable,
+		Combustible:   h.Combustible || o.Combustible,
+		Biohazard:     h.Biohazard || o.Biohazard,
+		Environmental: h.Environmental || o.Environmental,
+		Hot:           h.Hot || o.Hot,
+		FreezingRisk:  h.FreezingRisk || o.FreezingRisk,
+		Toxic:         h.Toxic || o.Toxic,
+		Volatile:      h.Volatile || o.Volatile,
+	}
+	u.FlammableClass = h.FlammableClass
+	if u.FlammableClass == "" {
+		u.FlammableClass = o.FlammableClass
+	}
+	return u
+}
+
+// ContextFor is the checklist context for job j with its computed plan p:
+// the site facts the crew set (confined space, open edge, discharge,
+// receiver, extra hazards) are kept from j.Checklist.Context; the liquid's
+// name and hazard tags at the job's temperature come from the plan; the
+// method from the priming field; the stroke count from the plan. Call it
+// after each Compute and pass the result to j.Checklist.Rebuild when it
+// differs from j.Checklist.Context.
+func ContextFor(j Job, p Plan) ChecklistContext {
+	ctx := j.Checklist.Context
+	ctx.Liquid = p.Liquid.Name
+	if ctx.Liquid == "" {
+		ctx.Liquid = strings.TrimSpace(j.Text(FieldLiquid))
+	}
+	class := presets.NoFlashClass
+	if p.Liquid.Valid() {
+		class = p.Liquid.Class
+	}
+	ctx.Hazards = HazardsFromPresets(p.Hazards, class).Union(ctx.ExtraHazards)
+	if !ctx.Hazards.Flammable && !ctx.Hazards.Combustible {
+		ctx.Hazards.FlammableClass = ""
+	}
+	if m, err := ParsePrimingMethod(j.Choice(FieldPriming)); err == nil {
+		ctx.Method = m
+	} else {
+		ctx.Method = ""
+	}
+	ctx.Strokes = p.PumpStrokes
+	if p.DrainIn.Receiver != nil {
+		ctx.Receiver = true
+	}
+	return ctx
 }
 
 // Step is one checklist item with its state.

@@ -451,3 +451,70 @@ func BenchmarkBuildChecklist(b *testing.B) {
 	}
 	_ = sink
 }
+
+// ContextFor takes the liquid's hazards from the catalogue and keeps the
+// crew's site facts and extra hazards across a change of liquid. Gasoline is
+// NFPA 30 class IB (field-practice §3.3); water has no flammability class.
+func TestContextFor(t *testing.T) {
+	cat := presets.Builtin()
+	j := DemoJob()
+	j.Checklist.Context.ExtraHazards = Hazards{Environmental: true}
+	j.Checklist.Context.ConfinedSpace = true
+	ctx := ContextFor(j, Compute(j, cat))
+	if !ctx.Hazards.Environmental || ctx.Hazards.Flammable || !ctx.ConfinedSpace || ctx.Method != PrimeHandPump || ctx.Strokes <= 0 {
+		t.Errorf("water in a bund: %+v", ctx)
+	}
+	_ = j.Set(FieldLiquid, "gasoline")
+	_ = j.Set(FieldTemp, "15 C")
+	p := Compute(j, cat)
+	if !p.Liquid.Valid() {
+		t.Skipf("gasoline not in the catalogue: %v", p.Err)
+	}
+	g := ContextFor(j, p)
+	if !g.Hazards.Flammable || g.Hazards.FlammableClass != "IB" || !g.Hazards.Environmental || !g.ConfinedSpace {
+		t.Errorf("gasoline: %+v", g.Hazards)
+	}
+	c := j.Checklist.Rebuild(g)
+	if c.Index("setup.bonding") < 0 || c.Index("hazard.cs.oxygen") < 0 {
+		t.Error("rebuilt checklist lacks bonding or atmospheric testing")
+	}
+	_ = j.Set(FieldLiquid, "water")
+	if w := ContextFor(j, Compute(j, cat)); w.Hazards.Flammable || w.Hazards.FlammableClass != "" || !w.Hazards.Environmental {
+		t.Errorf("back to water: %+v", w.Hazards)
+	}
+}
+
+func FuzzParsePrimingMethod(f *testing.F) {
+	for _, s := range []string{"", "hand-pump", "Submerge and cap", "mouth", "suck", "vacuum at the crest", "\x00", "  VACUUM "} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		m, err := ParsePrimingMethod(s)
+		if err != nil {
+			if m != "" {
+				t.Errorf("%q: method %q with error", s, m)
+			}
+			return
+		}
+		if m == "" {
+			if strings.TrimSpace(s) != "" {
+				t.Errorf("%q: empty method without error", s)
+			}
+			return
+		}
+		valid := false
+		for _, v := range PrimingMethods() {
+			valid = valid || v == m
+		}
+		if !valid {
+			t.Errorf("%q gave unknown method %q", s, m)
+		}
+		if strings.Contains(strings.ToLower(s), "mouth") {
+			t.Errorf("%q accepted", s)
+		}
+		// round trip: the ID parses to itself
+		if back, err := ParsePrimingMethod(string(m)); err != nil || back != m {
+			t.Errorf("round trip %q: %q %v", m, back, err)
+		}
+	})
+}
