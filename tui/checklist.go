@@ -177,11 +177,11 @@ func (v *ChecklistView) openInput(m ckMode, value, placeholder string) tea.Cmd {
 	return v.input.Focus()
 }
 
-func stepCmd(id string) tea.Cmd {
+func ckStepCmd(id string) tea.Cmd {
 	return func() tea.Msg { return ChecklistStepMsg{ID: id} }
 }
 
-func emit(m tea.Msg) tea.Cmd { return func() tea.Msg { return m } }
+func ckEmit(m tea.Msg) tea.Cmd { return func() tea.Msg { return m } }
 
 // Update handles the pane's keys while it has the focus.
 func (v ChecklistView) Update(msg tea.Msg) (ChecklistView, tea.Cmd) {
@@ -215,23 +215,23 @@ func (v ChecklistView) Update(msg tea.Msg) (ChecklistView, tea.Cmd) {
 	case key.Matches(k, v.keys.Up):
 		if v.cur > 0 {
 			v.cur--
-			return v, stepCmd(v.CurrentID())
+			return v, ckStepCmd(v.CurrentID())
 		}
 	case key.Matches(k, v.keys.Down):
 		if v.cur < n-1 {
 			v.cur++
-			return v, stepCmd(v.CurrentID())
+			return v, ckStepCmd(v.CurrentID())
 		}
 	case key.Matches(k, v.keys.Done):
 		if v.cur < n-1 {
 			v.cur++
 		}
-		return v, emit(ChecklistMarkMsg{ID: id, State: model.StateDone, Current: v.CurrentID()})
+		return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StateDone, Current: v.CurrentID()})
 	case key.Matches(k, v.keys.NotApplies):
-		return v, emit(ChecklistMarkMsg{ID: id, State: model.StateNotApplicable, Current: id})
+		return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StateNotApplicable, Current: id})
 	case key.Matches(k, v.keys.Reopen):
 		if v.cl.Steps[v.cur].State != model.StatePending {
-			return v, emit(ChecklistMarkMsg{ID: id, State: model.StatePending, Current: id})
+			return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StatePending, Current: id})
 		}
 	case key.Matches(k, v.keys.Skip):
 		return v, v.openInput(ckReason, "", "why is this step skipped?")
@@ -252,10 +252,10 @@ func (v ChecklistView) submit() (ChecklistView, tea.Cmd) {
 			return v, nil
 		}
 		v.closeInput()
-		return v, emit(ChecklistMarkMsg{ID: id, State: model.StateSkipped, Reason: text, Current: id})
+		return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StateSkipped, Reason: text, Current: id})
 	case ckNote:
 		v.closeInput()
-		return v, emit(ChecklistNoteMsg{ID: id, Note: text})
+		return v, ckEmit(ChecklistNoteMsg{ID: id, Note: text})
 	case ckBrowse:
 	}
 	return v, nil

@@ -84,7 +84,7 @@ func (v *CurveView) SetCurve(c DrainCurve) {
 	pts := make([]CurvePoint, 0, len(c.Points))
 	last := math.Inf(-1)
 	for _, p := range c.Points {
-		if !finite3(p.T, p.Level, p.Flow) || p.T < last || p.T < 0 {
+		if !cvFinite3(p.T, p.Level, p.Flow) || p.T < last || p.T < 0 {
 			continue
 		}
 		p.Flow = max(p.Flow, 0)
@@ -103,7 +103,7 @@ func (v *CurveView) SetCurve(c DrainCurve) {
 // ClearCurve shows the "no drain plan" message.
 func (v *CurveView) ClearCurve() { v.has = false; v.curve = DrainCurve{}; v.redraw() }
 
-func finite3(a, b, c float64) bool {
+func cvFinite3(a, b, c float64) bool {
 	return !math.IsNaN(a+b+c) && !math.IsInf(a+b+c, 0)
 }
 
@@ -142,7 +142,7 @@ func curveTimeUnit(tmax float64) (name string, per float64) {
 
 // niceStep returns a step of 1, 2, 2.5 or 5 × 10^k so that span/step is
 // about n.
-func niceStep(span float64, n int) float64 {
+func cvNiceStep(span float64, n int) float64 {
 	if !(span > 0) || math.IsInf(span, 0) || n < 1 {
 		return 1
 	}
@@ -157,7 +157,7 @@ func niceStep(span float64, n int) float64 {
 }
 
 // numText prints a tick value with as many decimals as the step needs.
-func numText(v, step float64) string {
+func cvNumText(v, step float64) string {
 	dec := 0
 	for s := step; dec < 4 && math.Abs(s-math.Round(s)) > 1e-9*max(1, math.Abs(s)); s *= 10 {
 		dec++
@@ -245,7 +245,7 @@ func (v *CurveView) plot(w, h int) string {
 	if dhi-dlo < 1e-9 {
 		dlo, dhi = dlo-0.5, dhi+0.5
 	}
-	step := niceStep(dhi-dlo, max(plotH*2/3, 1))
+	step := cvNiceStep(dhi-dlo, max(plotH*2/3, 1))
 	ylo, yhi := math.Floor(dlo/step+1e-9)*step, math.Ceil(dhi/step-1e-9)*step
 	if yhi-ylo < step {
 		yhi = ylo + step
@@ -264,7 +264,7 @@ func (v *CurveView) plot(w, h int) string {
 	}
 	var yt []tick
 	for y := yhi; y >= ylo-step/2; y -= step {
-		yt = append(yt, tick{plotTop + dotRow(y*u.lenPer)/4, numText(y, step) + " " + u.lenName})
+		yt = append(yt, tick{plotTop + dotRow(y*u.lenPer)/4, cvNumText(y, step) + " " + u.lenName})
 	}
 	peak := 0.0
 	for _, p := range pts {
@@ -272,7 +272,7 @@ func (v *CurveView) plot(w, h int) string {
 	}
 	var ft []tick
 	if flowH >= 2 {
-		ft = append(ft, tick{flowTop, strconv.FormatFloat(peak/u.flowPer, 'f', flowDecimals(peak/u.flowPer), 64)},
+		ft = append(ft, tick{flowTop, strconv.FormatFloat(peak/u.flowPer, 'f', cvFlowDecimals(peak/u.flowPer), 64)},
 			tick{flowTop + flowH - 1, u.flowName})
 	} else if flowH == 1 {
 		ft = append(ft, tick{flowTop, "flow"})
@@ -296,7 +296,7 @@ func (v *CurveView) plot(w, h int) string {
 	// The axis runs a little past the stop so the stop mark stands clear;
 	// ticks fall on round values inside it.
 	tend := tmax / tper * 1.04
-	tstep := niceStep(tend, max(pw/10, 1))
+	tstep := cvNiceStep(tend, max(pw/10, 1))
 	tspan := tend * tper // seconds across the plot
 	dotsW := 2 * pw
 	colOf := func(t float64) int { // dot column
@@ -342,7 +342,7 @@ func (v *CurveView) plot(w, h int) string {
 		}
 		col := px + colOf(tv*tper)/2
 		cv.set(col, axisRow, '┴', clsMuted)
-		lbl := numText(tv, tstep)
+		lbl := cvNumText(tv, tstep)
 		x := col - lipgloss.Width(lbl)/2
 		if k == 0 {
 			lbl, x = lbl+" "+tname, col // the unit goes with the first label: "0 min"
@@ -379,7 +379,7 @@ func (v *CurveView) plot(w, h int) string {
 		for j+1 < len(pts) && pts[j+1].T < t {
 			j++
 		}
-		lvl := interpLevel(pts, j, t)
+		lvl := cvInterpLevel(pts, j, t)
 		dy := dotRow(lvl)
 		if prev >= 0 {
 			for y := min(prev, dy); y <= max(prev, dy); y++ {
@@ -406,7 +406,7 @@ func (v *CurveView) plot(w, h int) string {
 			if t > tLast {
 				break
 			}
-			f := interpFlow(pts, t)
+			f := cvInterpFlow(pts, t)
 			eighths := int(math.Round(f / peak * float64(8*flowH)))
 			for r := 0; r < flowH; r++ {
 				n := min(max(eighths-8*r, 0), 8)
@@ -419,7 +419,7 @@ func (v *CurveView) plot(w, h int) string {
 	return cv.render(&v.styles)
 }
 
-func flowDecimals(v float64) int {
+func cvFlowDecimals(v float64) int {
 	switch {
 	case v >= 100:
 		return 0
@@ -431,7 +431,7 @@ func flowDecimals(v float64) int {
 
 // interpLevel is the level at time t by straight lines between samples,
 // starting the search at index j.
-func interpLevel(pts []CurvePoint, j int, t float64) float64 {
+func cvInterpLevel(pts []CurvePoint, j int, t float64) float64 {
 	if t <= pts[0].T {
 		return pts[0].Level
 	}
@@ -447,7 +447,7 @@ func interpLevel(pts []CurvePoint, j int, t float64) float64 {
 }
 
 // interpFlow is the flow at time t by straight lines between samples.
-func interpFlow(pts []CurvePoint, t float64) float64 {
+func cvInterpFlow(pts []CurvePoint, t float64) float64 {
 	i := sort.Search(len(pts), func(i int) bool { return pts[i].T >= t })
 	switch {
 	case i == 0:

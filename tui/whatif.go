@@ -202,7 +202,7 @@ func (v WhatIfView) FullHelp() [][]key.Binding { return [][]key.Binding{v.ShortH
 func (v WhatIfView) View() string { return v.frame }
 
 // hmm formats a duration in seconds as h:mm.
-func hmm(s float64) string {
+func wiHMM(s float64) string {
 	s = drawFinite(s)
 	if s <= 0 {
 		return "0:00"
@@ -228,7 +228,7 @@ func (v *WhatIfView) cellText(c WhatIfCell) (flow, tm string, cls drawClass) {
 	}
 	flow, _ = model.FormatParts(model.DimFlow, drawFinite(c.Flow), v.units.sys)
 	if v.t.HasTime {
-		tm = hmm(c.Time)
+		tm = wiHMM(c.Time)
 	}
 	cls = clsText
 	if c.NearLimit {
