@@ -199,7 +199,7 @@ func FuzzLoadUser(f *testing.F) {
 	if b, err := os.ReadFile("testdata/user.toml"); err == nil {
 		f.Add(string(b))
 	}
-	f.Add(builtinTOML)
+	f.Add("[[fitting]]\nid = \"f\"\nk_ft = 20\nk_ft_high = 30\nwhere = \"up-leg\"\nsource = \"s\"\n[[priming]]\nid = \"p\"\nnot_for = [\"toxic\"]\nsource = \"s\"\n")
 	f.Add("[[liquid]]\nid = \"a\"\nsource = \"s\"\n[liquid.table]\nt_c = [5]\ndensity_kg_m3 = [1000]\nviscosity_mpa_s = [1]\n")
 	f.Add("[[liquid]]\nid = \"o\"\nsource = \"s\"\nmodel = \"oil\"\ndensity_15c_kg_m3 = 880\nnu1_mm2_s = 10000\nnu2_mm2_s = 0.3\nt_min_c = -60\nt_max_c = 200\n")
 	f.Add("[[liquid]]\nid = \"w\"\nbased_on = \"water\"\nvapor_pressure_pa = 200000\n")
