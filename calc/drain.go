@@ -126,7 +126,8 @@ type DrainPlan struct {
 	// Curve holds the level and flow against time from the start to the
 	// stop, at most the requested number of points, first and last
 	// included. Points are spaced evenly in a variable that crowds them
-	// where the level changes slowly (near equal levels).
+	// towards both ends and where the level changes slowly (near equal
+	// levels).
 	Curve []DrainPoint
 }
 
@@ -238,7 +239,7 @@ func (t *flowTable) prepare() {
 // exactly. Outside the sampled heads the end cubic is extended (the plan never
 // asks far outside).
 func (t *flowTable) at(H float64) (q, s, c float64) {
-	u := math.Sqrt(math.Max(H, 0))
+	u := math.Sqrt(max(H, 0))
 	n := t.n
 	if n == 1 {
 		return u * t.phi[0], t.sub[0], t.crest[0]
@@ -280,7 +281,7 @@ func (t *flowTable) at(H float64) (q, s, c float64) {
 	q = u * (l0*t.phi[j] + l1*t.phi[j+1] + l2*t.phi[j+2] + l3*t.phi[j+3])
 	s = l0*t.sub[j] + l1*t.sub[j+1] + l2*t.sub[j+2] + l3*t.sub[j+3]
 	c = l0*t.crest[j] + l1*t.crest[j+1] + l2*t.crest[j+2] + l3*t.crest[j+3]
-	return math.Max(q, 0), s, c
+	return max(q, 0), s, c
 }
 
 // xmap maps s ∈ [0, 1] to the path variable x (source level fallen, or volume
@@ -898,9 +899,8 @@ const quadIntervals = 64
 // crowds the quadrature nodes at both ends: a full horizontal cylinder starts
 // with A ∝ √(D − h), an integrable kink that this smooths out. t(σ) is
 // integrated by the composite Gauss–Lobatto rule on quadIntervals equal steps
-// in σ; curve points, evenly spaced in s (σ = ½ − sin(arcsin(1 − 2s)/3)),
-// take t from the cubic Hermite interpolant of t and dt/dσ at the step ends
-// (error O(Δσ⁴)).
+// in σ; curve points, evenly spaced in σ, take t from the cubic Hermite
+// interpolant of t and dt/dσ at the step ends (error O(Δσ⁴)).
 func (p *planner) integrate(plan *DrainPlan, m xmap) {
 	// dt/dσ at σ
 	rate := func(sg float64) float64 {
@@ -928,17 +928,7 @@ func (p *planner) integrate(plan *DrainPlan, m xmap) {
 	if nc := p.points; nc > 0 {
 		plan.Curve = make([]DrainPoint, nc)
 		for i := range plan.Curve {
-			s := float64(i) / float64(nc-1)
-			if nc == 1 {
-				s = 0
-			}
-			sg := 0.5 - math.Sin(math.Asin(1-2*s)/3)
-			switch i {
-			case 0:
-				sg = 0
-			case nc - 1:
-				sg = 1
-			}
+			sg := float64(i) / float64(nc-1)
 			k := int(sg * quadIntervals)
 			if k >= quadIntervals {
 				k = quadIntervals - 1
@@ -946,10 +936,10 @@ func (p *planner) integrate(plan *DrainPlan, m xmap) {
 			r := sg*quadIntervals - float64(k) // 0…1 within the step
 			r2, r3 := r*r, r*r*r
 			t := (2*r3-3*r2+1)*ts[k] + (r3-2*r2+r)*ds*fs[k] + (-2*r3+3*r2)*ts[k+1] + (r3-r2)*ds*fs[k+1]
-			t = math.Max(ts[k], math.Min(ts[k+1], t))
-			x, _ := m.at(s)
+			t = max(ts[k], min(ts[k+1], t))
+			x, _ := m.at(sg * sg * (3 - 2*sg))
 			hs, hr, _, H := p.state(x)
-			q, _, _ := p.tab.at(math.Max(H, 0))
+			q, _, _ := p.tab.at(max(H, 0))
 			plan.Curve[i] = DrainPoint{Time: Seconds(t), Level: Length(hs), Flow: FlowRate(q), ReceiverLevel: Length(hr)}
 		}
 	}
