@@ -9,11 +9,13 @@ import (
 	tea "charm.land/bubbletea/v2"
 	"charm.land/lipgloss/v2"
 
+	"drawdown/calc"
 	"drawdown/model"
 )
 
 // WhatIfCell is one alternative's outcome, computed elsewhere.
 type WhatIfCell struct {
+	Invalid   bool    // this hose does not fit the route (e.g. shorter than the up-leg)
 	Runs      bool    // false: the siphon will not run with this hose
 	NearLimit bool    // runs, but the crest is over the working limit
 	Flow      float64 // all hoses, m³/s
@@ -223,6 +225,9 @@ func wiHMM(s float64) string {
 
 // wiCellText is a cell's two parts (flow, time) and its class.
 func (v *WhatIfView) cellText(c WhatIfCell) (flow, tm string, cls drawClass) {
+	if c.Invalid {
+		return "– n/a", "", clsMuted
+	}
 	if !c.Runs {
 		return "✗ no", "run", clsDanger
 	}
@@ -275,7 +280,7 @@ func (v *WhatIfView) table(w, h int) string {
 	labelW += 3 // row marker "▸ " before, one space after
 	format := func(c WhatIfCell) wiCell {
 		f, tm, cls := v.cellText(c)
-		return wiCell{f, tm, cls, c.Runs}
+		return wiCell{f, tm, cls, c.Runs && !c.Invalid}
 	}
 	cells := make([][]wiCell, nr)
 	flowW, timeW := 0, 0
@@ -379,7 +384,7 @@ func (v *WhatIfView) table(w, h int) string {
 		}
 		first, second := string(mark)+ct.flow, "  "+ct.tm
 		if lines == 1 && t.HasTime {
-			if ct.runs {
+			if ct.runs || ct.tm == "" {
 				first += strings.Repeat(" ", max(cw-3-lipgloss.Width(first)-lipgloss.Width(ct.tm)+1, 1)) + ct.tm
 			} else {
 				first = string(mark) + "✗ no run"
@@ -454,4 +459,52 @@ func (v *WhatIfView) selectedRuns() bool {
 		return t.Parallel[min(v.c, len(t.Parallel)-1)].Cell.Runs
 	}
 	return t.Cells[v.r][v.c].Runs
+}
+
+// WhatIfFromGrid converts a calc what-if grid for SetTable. length,
+// diameter and hoses are the present choice (SI); the nearest row and
+// column are marked as the present cell. hasTank says whether times to the
+// stop exist.
+func WhatIfFromGrid(g calc.WhatIfGrid, length, diameter float64, hoses int, hasTank bool) WhatIfTable {
+	cell := func(c calc.WhatIfCell) WhatIfCell {
+		return WhatIfCell{
+			Invalid:   c.Err != nil,
+			Runs:      c.Err == nil && c.Verdict != calc.WillNotRun,
+			NearLimit: c.Verdict == calc.RunsNearLimit,
+			Flow:      float64(c.Flow),
+			Time:      float64(c.Time),
+		}
+	}
+	nearest := func(xs []calc.Length, x float64) int {
+		best := 0
+		for i, v := range xs {
+			if math.Abs(float64(v)-x) < math.Abs(float64(xs[best])-x) {
+				best = i
+			}
+		}
+		return best
+	}
+	t := WhatIfTable{Hoses: max(hoses, 1), HasTime: hasTank}
+	for _, l := range g.Lengths {
+		t.Lengths = append(t.Lengths, float64(l))
+	}
+	for _, d := range g.Diameters {
+		t.Diameters = append(t.Diameters, float64(d))
+	}
+	for _, row := range g.Cells {
+		r := make([]WhatIfCell, len(row))
+		for j, c := range row {
+			r[j] = cell(c)
+		}
+		t.Cells = append(t.Cells, r)
+	}
+	for i, c := range g.Parallel {
+		n := c.Hoses
+		if n <= 0 {
+			n = i + 1
+		}
+		t.Parallel = append(t.Parallel, WhatIfParallel{Hoses: n, Cell: cell(c)})
+	}
+	t.Row, t.Col = nearest(g.Lengths, length), nearest(g.Diameters, diameter)
+	return t
 }

@@ -1,6 +1,7 @@
 package tui
 
 import (
+	"errors"
 	"math"
 	"math/rand/v2"
 	"strings"
@@ -9,6 +10,7 @@ import (
 	tea "charm.land/bubbletea/v2"
 	"github.com/charmbracelet/x/ansi"
 
+	"drawdown/calc"
 	"drawdown/model"
 )
 
@@ -214,6 +216,41 @@ func TestWhatIfNeverBreaks(t *testing.T) {
 		paneCheckFrame(t, ansi.Strip(v.View()), max(w, 0), max(h, 0))
 		if t.Failed() {
 			t.Fatalf("table %+v at %d×%d", tab, w, h)
+		}
+	}
+}
+
+// WhatIfFromGrid marks the nearest row and column as the present choice and
+// maps calc's verdicts and per-cell errors to the pane's words.
+func TestWhatIfFromGrid(t *testing.T) {
+	g := calc.WhatIfGrid{
+		Lengths:   []calc.Length{6, 9.6, 12, 15},
+		Diameters: []calc.Length{0.019, 0.025, 0.032},
+		Cells: [][]calc.WhatIfCell{
+			{{Verdict: calc.Runs, Flow: 0.001, Time: 600}, {Verdict: calc.Runs, Flow: 0.002, Time: 300}, {Verdict: calc.Runs, Flow: 0.003, Time: 200}},
+			{{Verdict: calc.RunsNearLimit, Flow: 0.001, Time: 700}, {Verdict: calc.Runs, Flow: 0.002, Time: 350}, {Verdict: calc.Runs, Flow: 0.003, Time: 250}},
+			{{Verdict: calc.WillNotRun}, {Verdict: calc.Runs, Flow: 0.002, Time: 400}, {Verdict: calc.Runs, Flow: 0.003, Time: 300}},
+			{{Err: errors.New("hose shorter than the up-leg")}, {Verdict: calc.Runs, Flow: 0.002, Time: 450}, {Verdict: calc.Runs, Flow: 0.003, Time: 350}},
+		},
+		Parallel: []calc.WhatIfCell{{Hoses: 1, Verdict: calc.Runs, Flow: 0.002}, {Hoses: 2, Verdict: calc.Runs, Flow: 0.004}},
+	}
+	tab := WhatIfFromGrid(g, 9.5, 0.0254, 1, true)
+	if tab.Row != 1 || tab.Col != 1 {
+		t.Errorf("present cell (%d,%d), want (1,1)", tab.Row, tab.Col)
+	}
+	if !tab.Cells[1][0].NearLimit || tab.Cells[2][0].Runs || !tab.Cells[3][0].Invalid || !tab.Cells[0][0].Runs {
+		t.Errorf("verdicts not carried over: %+v", tab.Cells)
+	}
+	if len(tab.Parallel) != 2 || tab.Parallel[1].Hoses != 2 {
+		t.Errorf("parallel row: %+v", tab.Parallel)
+	}
+	v := NewWhatIfView(PlainDrawStyles(), model.SI)
+	v.SetSize(78, 12)
+	v.SetTable(tab)
+	got := ansi.Strip(v.View())
+	for _, want := range []string{"– n/a", "✗ no run", "!", "●"} {
+		if !strings.Contains(got, want) {
+			t.Errorf("frame lacks %q:\n%s", want, got)
 		}
 	}
 }
