@@ -404,11 +404,16 @@ type Step struct {
 	Caution string `json:"caution,omitempty"`
 	// Rule names the family of rule or guidance behind the step, e.g.
 	// "OSHA 29 CFR 1910.146"; "common practice" for a trade habit.
-	Rule   string    `json:"rule,omitempty"`
-	State  StepState `json:"state"`
-	At     time.Time `json:"at,omitzero"`
-	Reason string    `json:"reason,omitempty"` // why it was skipped or not applicable
-	Note   string    `json:"note,omitempty"`
+	Rule string `json:"rule,omitempty"`
+	// NoteRequired: marking the step done needs a note with the fact it
+	// asks for (a permit number, a gas reading with time and initials, the
+	// result of a sheen check, an authorisation). The checklist is gated on
+	// facts the crew records, never on the tool's judgement.
+	NoteRequired bool      `json:"note_required,omitempty"`
+	State        StepState `json:"state"`
+	At           time.Time `json:"at,omitzero"`
+	Reason       string    `json:"reason,omitempty"` // why it was skipped or not applicable
+	Note         string    `json:"note,omitempty"`
 }
 
 // Checklist is the ordered list of steps built for a job, plus the context it
@@ -463,18 +468,22 @@ func BuildChecklist(ctx ChecklistContext) Checklist {
 			"Confirm the space's confined-space classification and that an entry permit is issued; record the permit number in the note.",
 			"Leaning in or reaching in to place the hose counts as entry. Place the intake from outside (pole, rope, weighted hose) where you can. "+deferLocal,
 			ruleConfined)
+		b.needNote()
 		b.add(SectionHazard, "hazard.cs.oxygen",
 			"Test the atmosphere from outside the space, oxygen first, with a calibrated direct-reading meter at the top, middle and bottom; record the reading, time and tester's initials.",
 			"Oxygen comes first because combustible-gas sensors read low in oxygen-poor air. Hazardous: below 19.5 % or above 23.5 % oxygen.",
 			ruleAtmosphere)
+		b.needNote()
 		b.add(SectionHazard, "hazard.cs.flammable-gas",
 			"Then test for flammable gases and vapours, from outside, top, middle and bottom; record the reading, time and initials.",
 			"Hazardous: above 10 % of the lower flammable limit. Fuel vapour is heavier than air and pools in pits.",
 			ruleAtmosphere)
+		b.needNote()
 		b.add(SectionHazard, "hazard.cs.toxic",
 			"Then test for toxic gases and vapours (such as hydrogen sulfide and carbon monoxide), from outside; record the reading, time and initials.",
 			"Hazardous: above the permissible exposure limit. Idling engines nearby add carbon monoxide.",
 			ruleAtmosphere)
+		b.needNote()
 		b.add(SectionHazard, "hazard.cs.attendant",
 			"Post an attendant outside the space for the whole job, with a way to call for help.",
 			deferLocal, ruleConfined)
@@ -530,16 +539,19 @@ func BuildChecklist(ctx ChecklistContext) Checklist {
 		b.add(SectionHazard, "hazard.discharge",
 			"Confirm the receiving container or truck and who takes the liquid away; record the hauler or destination.",
 			deferLocal, rulePractice)
+		b.needNote()
 	case DischargeSewer:
 		b.add(SectionHazard, "hazard.discharge",
 			"Confirm the sewer utility allows this discharge to the sanitary sewer; record the approval.",
 			"Many sewer-use ordinances forbid stormwater, groundwater or oily water in the sanitary sewer without the utility's approval. "+deferLocal,
 			ruleSewer)
+		b.needNote()
 	case DischargeStorm:
 		b.add(SectionHazard, "hazard.discharge",
 			"Confirm the discharge to the storm drain or ground is allowed (permit, allowed category or site plan); record the authorisation.",
 			"Anything that is not stormwater may be an illicit discharge; chlorinated water is dechlorinated first. "+deferLocal,
 			ruleStormwater)
+		b.needNote()
 	case DischargeSameSite:
 		b.add(SectionHazard, "hazard.discharge",
 			"Confirm where on site the liquid will go and that it cannot run onto neighbours, roads or back into the source.",
@@ -604,6 +616,7 @@ func BuildChecklist(ctx ChecklistContext) Checklist {
 			"Before any release, inspect the liquid for sheen, odour of product or discoloration; record the result, time and initials in the note.",
 			"If any sheen, odour or discoloration is seen, do not release: record it and collect the liquid for proper disposal. The facility's plan or permit governs.",
 			ruleSheen)
+		b.needNote()
 	}
 
 	// ---- Prime (field-practice §2).
@@ -704,6 +717,7 @@ func BuildChecklist(ctx ChecklistContext) Checklist {
 			"Inspect the discharge point for sheen, discoloration, turbidity and erosion; record what you saw, with times, for the discharge record.",
 			"Keep the record as the facility's plan or permit requires (SPCC inspection records: three years).",
 			ruleSPCC)
+		b.needNote()
 		b.add(SectionCloseOut, "closeout.reseal",
 			"Close and reseal any containment drain valve that was used; record the time.",
 			"", ruleSPCC)
@@ -867,12 +881,19 @@ func (b *builder) add(sec Section, id, text, caution, rule string) {
 	b.steps = append(b.steps, Step{ID: id, Section: sec, Text: text, Caution: caution, Rule: rule, State: StatePending})
 }
 
+// needNote marks the last added step as needing a note to be done.
+func (b *builder) needNote() { b.steps[len(b.steps)-1].NoteRequired = true }
+
 // ErrUnknownStep is returned by Mark for an ID not in the checklist.
 var ErrUnknownStep = errors.New("no such checklist step")
 
 // ErrReasonRequired is returned by Mark when a step is skipped without a
 // reason.
 var ErrReasonRequired = errors.New("a reason is required to skip a step")
+
+// ErrNoteRequired is returned by Mark when a step that asks for a recorded
+// fact is marked done without a note.
+var ErrNoteRequired = errors.New("this step is done only with its reading or reference in the note")
 
 // Index returns the position of the step with this ID, or -1.
 func (c *Checklist) Index(id string) int {
@@ -887,6 +908,8 @@ func (c *Checklist) Index(id string) int {
 // Mark sets the state of step id at time at (from the caller's clock).
 //
 //   - StateSkipped needs a non-blank reason.
+//   - StateDone on a step with NoteRequired needs a note (given now or
+//     already on the step).
 //   - StateDone, StateSkipped and StateNotApplicable need a non-zero time.
 //   - StatePending undoes a mark: the time and reason are cleared.
 //
@@ -903,6 +926,9 @@ func (c *Checklist) Mark(id string, state StepState, reason, note string, at tim
 	reason = strings.TrimSpace(reason)
 	if state == StateSkipped && reason == "" {
 		return fmt.Errorf("checklist step %q: %w", id, ErrReasonRequired)
+	}
+	if state == StateDone && c.Steps[i].NoteRequired && strings.TrimSpace(note) == "" && strings.TrimSpace(c.Steps[i].Note) == "" {
+		return fmt.Errorf("checklist step %q: %w", id, ErrNoteRequired)
 	}
 	if state != StatePending && at.IsZero() {
 		return fmt.Errorf("checklist step %q: a time is required to mark it %s", id, state.Label())

@@ -294,10 +294,38 @@ func TestChecklistMark(t *testing.T) {
 	}
 	// All marked → no current step.
 	for _, s := range c.Steps {
-		_ = c.Mark(s.ID, StateDone, "", "", at)
+		_ = c.Mark(s.ID, StateDone, "", "ok", at)
 	}
 	if _, ok := c.Current(); ok || c.CurrentIndex() != -1 {
 		t.Error("Current with all steps done")
+	}
+}
+
+// Steps that ask for a recorded fact (permit number, gas reading, sheen
+// check, authorisation) are done only with a note: the record must hold the
+// fact (OSHA 29 CFR 1910.146(f): test results with times and initials on the
+// permit; 40 CFR 112.8(c)(3): records of each drainage event).
+func TestChecklistNoteRequired(t *testing.T) {
+	at := time.Date(2026, 5, 14, 9, 30, 0, 0, time.UTC)
+	c := BuildChecklist(ChecklistContext{Hazards: hzDikeWater, Method: PrimeHandPump, ConfinedSpace: true, Discharge: DischargeStorm})
+	for _, id := range []string{"hazard.cs.permit", "hazard.cs.oxygen", "hazard.cs.flammable-gas", "hazard.cs.toxic", "hazard.discharge", "setup.inspect-before", "closeout.inspect"} {
+		i := c.Index(id)
+		if i < 0 || !c.Steps[i].NoteRequired {
+			t.Errorf("%s: NoteRequired not set", id)
+			continue
+		}
+		if err := c.Mark(id, StateDone, "", " ", at); !errors.Is(err, ErrNoteRequired) {
+			t.Errorf("%s done without a note: err = %v", id, err)
+		}
+		if err := c.Mark(id, StateSkipped, "meter in for calibration", "", at); err != nil {
+			t.Errorf("%s skip with reason: %v", id, err)
+		}
+		if err := c.Mark(id, StateDone, "", "O2 20.9 %, 09:30, AM", at); err != nil {
+			t.Errorf("%s with a note: %v", id, err)
+		}
+	}
+	if c.Steps[c.Index("setup.route")].NoteRequired {
+		t.Error("plain step needs a note")
 	}
 }
 

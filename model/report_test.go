@@ -50,6 +50,8 @@ func demoRecordJob(t *testing.T) (Job, Plan) {
 			err = j.Checklist.Mark(s.ID, StateSkipped, "ditch bank already lined with riprap", "photo 14", at)
 		case "setup.inspect-before":
 			err = j.Checklist.Mark(s.ID, StateDone, "", "no sheen, no odour, clear; 07:58 AM", at)
+		case "hazard.discharge":
+			err = j.Checklist.Mark(s.ID, StateDone, "", "site stormwater plan §4.2 (invented)", at)
 		default:
 			err = j.Checklist.Mark(s.ID, StateDone, "", "", at)
 		}
