@@ -503,3 +503,49 @@ func BenchmarkBuiltin(b *testing.B) {
 		sinkCat = Builtin()
 	}
 }
+
+// Every tank template builds with calc's constructor for its shape, and its
+// full volume is plausible for what it is (analytic mensuration; the drum
+// and tote volumes are their nominal 208 L and 1000 L, common practice).
+func TestTankTemplatesBuild(t *testing.T) {
+	c := Builtin()
+	for _, tk := range c.Tanks() {
+		v := func(n string) calc.Length { x, _ := tk.Size(n); return calc.Length(x) }
+		var tank calc.Tank
+		var err error
+		switch tk.Shape {
+		case "vertical-cylinder":
+			tank, err = calc.NewVerticalCylinder(v("diameter"), v("height"))
+		case "rectangular":
+			tank, err = calc.NewRectangular(v("length"), v("width"), v("height"))
+		case "horizontal-cylinder":
+			tank, err = calc.NewHorizontalCylinder(v("diameter"), v("length"))
+		case "cone-bottom":
+			tank, err = calc.NewConeBottom(v("diameter"), v("cone-height"), v("height"))
+		case "sloped-pit":
+			s, _ := tk.Size("side-slope")
+			tank, err = calc.NewSlopedPit(v("length"), v("width"), s, v("height"))
+		case "sphere":
+			tank, err = calc.NewSphere(v("diameter"))
+		default:
+			t.Fatalf("%s: shape %q", tk.ID, tk.Shape)
+		}
+		if err != nil {
+			t.Fatalf("%s: %v", tk.ID, err)
+		}
+		full := float64(tank.Volume(tank.Height()))
+		if !(full > 0.05 && full < 5000) {
+			t.Errorf("%s: full volume %.3f m³", tk.ID, full)
+		}
+		switch tk.ID {
+		case "drum-208", "drum-208-lying":
+			if !closeTo(full, 0.208, 0.07) {
+				t.Errorf("%s: %.3f m³, nominal 0.208", tk.ID, full)
+			}
+		case "tote-1000":
+			if !closeTo(full, 1.0, 0.02) {
+				t.Errorf("%s: %.3f m³, nominal 1.000", tk.ID, full)
+			}
+		}
+	}
+}

@@ -114,6 +114,10 @@
 //	                                # horizontal-cylinder, cone-bottom,
 //	                                # sloped-pit, sphere
 //	sizes = { diameter = 1.2, height = 1.5 }   # metres; side-slope is run per rise
+//	# needs: vertical-cylinder diameter, height; rectangular length, width,
+//	# height; horizontal-cylinder diameter, length; cone-bottom diameter,
+//	# cone-height, height (cone included); sloped-pit length, width (at the
+//	# bottom), side-slope, height; sphere diameter
 //	confined_space = true
 //	source = "site drawing"
 //

@@ -183,14 +183,20 @@ func (t TankTemplate) Size(name string) (float64, bool) {
 	return 0, false
 }
 
-// TankShapes lists the shape IDs and, for each, the sizes it needs
-// ("height", the depth of the vessel, is optional for all).
+// tankShapeSizes lists the shape IDs and, for each, the sizes it needs, in
+// the order of calc's tank constructors (NewVerticalCylinder(diameter,
+// height), NewRectangular(length, width, height), NewHorizontalCylinder(
+// diameter, length), NewConeBottom(diameter, cone-height, height),
+// NewSlopedPit(length, width, side-slope, height), NewSphere(diameter)).
+// "height" is the depth from the floor to the brim; a sloped pit's length
+// and width are at its flat bottom; a cone-bottom tank's height includes the
+// cone.
 var tankShapeSizes = map[string][]string{
-	"vertical-cylinder":   {"diameter"},
-	"rectangular":         {"length", "width"},
+	"vertical-cylinder":   {"diameter", "height"},
+	"rectangular":         {"length", "width", "height"},
 	"horizontal-cylinder": {"diameter", "length"},
-	"cone-bottom":         {"diameter", "cone-height"},
-	"sloped-pit":          {"length", "width", "side-slope"},
+	"cone-bottom":         {"diameter", "cone-height", "height"},
+	"sloped-pit":          {"length", "width", "side-slope", "height"},
 	"sphere":              {"diameter"},
 }
 
@@ -202,7 +208,8 @@ func TankShapes() []string {
 	return []string{"vertical-cylinder", "rectangular", "horizontal-cylinder", "cone-bottom", "sloped-pit", "sphere"}
 }
 
-// ShapeSizes returns the sizes a shape needs (nil for an unknown shape).
+// ShapeSizes returns the sizes a shape needs, in the order calc's
+// constructor for the shape takes them (nil for an unknown shape).
 func ShapeSizes(shape string) []string {
 	s := tankShapeSizes[shape]
 	return append([]string(nil), s...)

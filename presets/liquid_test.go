@@ -300,6 +300,16 @@ func TestDecaneProxy(t *testing.T) {
 	if got := decaneDIPPR.p(293.15); !closeTo(got, 127, 5e-3) {
 		t.Errorf("p(20 °C) = %.2f, want 127", got)
 	}
+	// Independent data: Poling et al., Properties of Gases and Liquids 5th
+	// ed., Antoine log10(p/Pa) = 9.06853 − 1495.17/(T − 79.292), valid
+	// 338.5–476.2 K (via `chemicals`, hydraulics note §8.5 [confirmed]):
+	// within 1 % in its range.
+	for _, T := range []float64{340, 373.15, 420} {
+		poling := math.Pow(10, 9.06853-1495.17/(T-79.292))
+		if got := decaneDIPPR.p(T); !closeTo(got, poling, 0.01) {
+			t.Errorf("p(%g K) = %.1f, Poling Antoine %.1f", T, got, poling)
+		}
+	}
 }
 
 // Fuel and oil presets against their specifications (hydraulics note §8.2,

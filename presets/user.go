@@ -616,6 +616,11 @@ func (p *parser) tank(i int, id string, d tankDoc) (TankTemplate, error) {
 			return t, p.errAt("tank", i, id, "sizes", fmt.Errorf("shape %s needs %s", d.Shape, strings.Join(need, ", ")))
 		}
 	}
+	if ch, ok := d.Sizes["cone-height"]; ok {
+		if h, ok := d.Sizes["height"]; ok && ch > h {
+			return t, p.errAt("tank", i, id, "sizes.cone-height", fmt.Errorf("%s m is more than the height %s m", num(ch), num(h)))
+		}
+	}
 	for _, n := range sizeOrder {
 		if v, ok := d.Sizes[n]; ok {
 			t.Sizes = append(t.Sizes, Size{Name: n, Value: v})

@@ -142,6 +142,8 @@ func TestLoadUserErrors(t *testing.T) {
 		{"tank missing size", "[[tank]]\nid = \"t\"\nshape = \"rectangular\"\nsizes = { length = 1 }\nsource = \"s\"\n", 4, "sizes", nil},
 		{"tank unknown size", "[[tank]]\nid = \"t\"\nshape = \"sphere\"\nsizes = { diameter = 1, depth = 2 }\nsource = \"s\"\n", 4, "sizes.depth", nil},
 		{"tank size zero", "[[tank]]\nid = \"t\"\nshape = \"sphere\"\nsizes = { diameter = 0 }\nsource = \"s\"\n", 4, "sizes.diameter", nil},
+		{"cone above height", "[[tank]]\nid = \"t\"\nshape = \"cone-bottom\"\nsizes = { diameter = 1, cone-height = 2, height = 1 }\nsource = \"s\"\n", 4, "sizes.cone-height", nil},
+		{"pit needs height", "[[tank]]\nid = \"t\"\nshape = \"sloped-pit\"\nsizes = { length = 5, width = 3, side-slope = 2 }\nsource = \"s\"\n", 4, "sizes", nil},
 		{"priming hazard", "[[priming]]\nid = \"p\"\nnot_for = [\"wet\"]\nsource = \"s\"\n", 3, "not_for", nil},
 		{"aid stroke", "[[priming_aid]]\nid = \"a\"\nstroke_low_ml = 50\nstroke_high_ml = 10\nsource = \"s\"\n", 4, "stroke_high_ml", nil},
 		{"nan", liq + "t_min_c = nan\nt_max_c = 30\ndensity_kg_m3 = 1000\nviscosity_mpa_s = 1\n", 4, "t_min_c", nil},
