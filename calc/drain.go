@@ -325,6 +325,11 @@ type planner struct {
 	allowance                  float64
 	lUp                        float64
 
+	// tank heights and brim volumes, and the last levels found (Newton's
+	// starting points for the next inverse of V(h) along a transfer)
+	srcTop, srcFull, rcvTop float64
+	lastHs, lastHr          float64
+
 	fixed *fixedLoss
 	tab   flowTable
 	start Result
@@ -394,6 +399,10 @@ func (p *planner) init(in *DrainInput, points int) error {
 		p.rcvFloor = float64(r.Floor)
 		p.vr0 = float64(r.Tank.Volume(r.Level))
 		p.vrCap = float64(r.Tank.Volume(r.Tank.Height()))
+		p.rcvTop = float64(r.Tank.Height())
+		p.srcTop = top
+		p.srcFull = float64(in.Tank.Volume(Length(top)))
+		p.lastHs, p.lastHr = -1, -1
 	}
 	// Validate the siphon itself at the start.
 	start, err := p.solveAt(0)
@@ -422,8 +431,9 @@ func (p *planner) state(x float64) (hs, hr, out, H float64) {
 		hs = p.h0 - x
 		return hs, 0, p.hoseEnd, hs - p.hoseEnd
 	}
-	hs = float64(LevelForVolume(p.src, Volume(p.vs0-x)))
-	hr = float64(LevelForVolume(p.rcv, Volume(p.vr0+x)))
+	hs = levelFrom(p.src, p.vs0-x, p.srcTop, p.srcFull, p.lastHs)
+	hr = levelFrom(p.rcv, p.vr0+x, p.rcvTop, p.vrCap, p.lastHr)
+	p.lastHs, p.lastHr = hs, hr
 	out = math.Max(p.hoseEnd, p.rcvFloor+hr)
 	return hs, hr, out, hs - out
 }

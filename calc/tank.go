@@ -484,20 +484,28 @@ func (t tableTank) Shape() string  { return ShapeTable }
 // one level and a level inside that range is returned.
 func LevelForVolume(t Tank, v Volume) Length {
 	top := float64(t.Height())
-	vv := float64(v)
+	return Length(levelFrom(t, float64(v), top, float64(t.Volume(Length(top))), -1))
+}
+
+// levelFrom is LevelForVolume for a tank of height top holding full when
+// brim-full, starting Newton's method from guess (a negative guess means
+// none).
+func levelFrom(t Tank, vv, top, full, guess float64) float64 {
 	if !(vv > 0) {
 		return 0
 	}
-	full := float64(t.Volume(Length(top)))
 	if vv >= full {
-		return Length(top)
+		return top
 	}
 	if lf, ok := t.(levelFinder); ok {
-		return Length(lf.levelFor(vv))
+		return lf.levelFor(vv)
 	}
 	lo, hi := 0.0, top
-	// start from the level a prism of the same mean area would have
-	h := top * vv / full
+	h := guess
+	if !(h > 0 && h < top) {
+		// the level a prism of the same mean area would have
+		h = top * vv / full
+	}
 	tol := 1e-13 * full
 	for i := 0; i < 200; i++ {
 		r := float64(t.Volume(Length(h))) - vv
@@ -519,5 +527,5 @@ func LevelForVolume(t Tank, v Volume) Length {
 		}
 		h = next
 	}
-	return Length(h)
+	return h
 }
