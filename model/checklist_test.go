@@ -3,6 +3,7 @@ package model
 import (
 	"encoding/json"
 	"errors"
+	"fmt"
 	"reflect"
 	"strings"
 	"testing"
@@ -545,4 +546,34 @@ func FuzzParsePrimingMethod(f *testing.F) {
 			t.Errorf("round trip %q: %q %v", m, back, err)
 		}
 	})
+}
+
+// ExampleBuildChecklist counts the steps per section for a gasoline
+// transfer into a can with a squeeze bulb.
+func ExampleBuildChecklist() {
+	c := BuildChecklist(ChecklistContext{
+		Liquid:    "gasoline",
+		Hazards:   Hazards{Flammable: true, FlammableClass: "IB", Volatile: true, Toxic: true},
+		Method:    PrimeHandPump,
+		Discharge: DischargeContainer,
+	})
+	for _, sec := range Sections() {
+		n := 0
+		for _, s := range c.Steps {
+			if s.Section == sec {
+				n++
+			}
+		}
+		fmt.Printf("%s: %d\n", sec.Title(), n)
+	}
+	s, _ := c.Current()
+	fmt.Println("first:", s.ID)
+	// Output:
+	// Hazard check: 5
+	// Set-up: 8
+	// Prime: 6
+	// Run and watch: 6
+	// Stop and drain the hose: 5
+	// Close out: 4
+	// first: hazard.liquid
 }

@@ -47,6 +47,22 @@ func (r Reading) Validate() error {
 	return nil
 }
 
+// NewReading parses a level typed by the technician (a length in the job's
+// unit system, any accepted suffix: "0.42", "42 cm", "1 ft 5 in") and
+// returns the reading at time at. Errors name the level and the accepted
+// range.
+func NewReading(levelText string, sys System, at time.Time, note string) (Reading, error) {
+	v, err := Parse(DimLength, levelText, sys)
+	if err != nil {
+		return Reading{}, fmt.Errorf("level reading: %w", err)
+	}
+	r := Reading{At: at, Level: v, Note: strings.TrimSpace(note)}
+	if err := r.Validate(); err != nil {
+		return Reading{}, err
+	}
+	return r, nil
+}
+
 // DrainCurve is a simulated drain: levels (m) at times (s) counted from the
 // start level, times increasing, the last point at the stop. Stop is the stop
 // reason code (target, intake, crest, equal) when the simulator knows it.

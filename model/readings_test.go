@@ -2,6 +2,7 @@ package model
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"math/rand/v2"
 	"strings"
@@ -373,4 +374,41 @@ func TestFitOnPlannedDrain(t *testing.T) {
 	if c, _ := sim(0, 0.05); len(c.Times) != 1 || c.Stop != "intake" {
 		t.Errorf("start below the intake: %+v", c)
 	}
+}
+
+func TestNewReading(t *testing.T) {
+	r, err := NewReading("42 cm", US, rdT0, " clear ")
+	if err != nil || math.Abs(r.Level-0.42) > 1e-12 || r.Note != "clear" || !r.At.Equal(rdT0) {
+		t.Errorf("NewReading(42 cm) = %+v, %v", r, err)
+	}
+	r, err = NewReading("1.5", US, rdT0, "")
+	if err != nil || math.Abs(r.Level-1.5*0.3048) > 1e-12 { // 1 ft = 0.3048 m exactly (NIST SP 811)
+		t.Errorf("bare number in US = %+v, %v", r, err)
+	}
+	for _, bad := range []string{"", "NaN", "0x10", "2000 m"} {
+		if _, err := NewReading(bad, SI, rdT0, ""); err == nil {
+			t.Errorf("NewReading(%q) accepted", bad)
+		}
+	}
+	if _, err := NewReading("0.4", SI, time.Time{}, ""); err == nil {
+		t.Error("reading without a time accepted")
+	}
+}
+
+// ExampleFitReadings fits three readings taken off an analytic drain made
+// with an extra loss of ΔK = 5 (see torricelli above).
+func ExampleFitReadings() {
+	d := torricelli{A: 144, a: math.Pi * 0.05 * 0.05 / 4, z: -1.5, hs: 0.2, R0: 12}
+	start := time.Date(2026, 5, 14, 8, 0, 0, 0, time.UTC)
+	var rs []Reading
+	for _, min := range []float64{0, 30, 60} {
+		rs = append(rs, Reading{At: start.Add(time.Duration(min) * time.Minute), Level: d.level(5, 2.0, min*60)})
+	}
+	f, err := FitReadings(rs, d.sim, FitOptions{})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("extra K %.2f, stop at %.2f m (%s)\n", f.ExtraK, f.StopLevel, f.Stop)
+	// Output: extra K 5.00, stop at 0.20 m (intake)
 }
