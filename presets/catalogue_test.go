@@ -3,7 +3,9 @@ package presets
 import (
 	"bytes"
 	"errors"
+	"flag"
 	"math"
+	"os"
 	"regexp"
 	"strings"
 	"testing"
@@ -547,5 +549,30 @@ func TestTankTemplatesBuild(t *testing.T) {
 				t.Errorf("%s: %.3f m³, nominal 1.000", tk.ID, full)
 			}
 		}
+	}
+}
+
+var update = flag.Bool("update", false, "rewrite the golden files in testdata")
+
+// The listing of the built-in catalogue, kept as a golden file so that a
+// change to any entry or to the layout shows in review. Refresh with
+// go test ./presets -run TestListingGolden -update.
+func TestListingGolden(t *testing.T) {
+	var buf bytes.Buffer
+	if err := Builtin().WriteListing(&buf); err != nil {
+		t.Fatal(err)
+	}
+	const path = "testdata/listing.golden"
+	if *update {
+		if err := os.WriteFile(path, buf.Bytes(), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run with -update to create it)", err)
+	}
+	if !bytes.Equal(buf.Bytes(), want) {
+		t.Errorf("listing differs from %s; run with -update after checking the change", path)
 	}
 }

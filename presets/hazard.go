@@ -177,11 +177,18 @@ type FlashClass uint8
 const (
 	// NoFlashClass: no flash point (water, brines, aqueous mixtures).
 	NoFlashClass FlashClass = iota
+	// ClassIA: flash point below 22.8 °C and boiling point below 37.8 °C.
 	ClassIA
+	// ClassIB: flash point below 22.8 °C, boiling point 37.8 °C or more
+	// (gasoline).
 	ClassIB
+	// ClassIC: flash point 22.8 °C to below 37.8 °C.
 	ClassIC
+	// ClassII: flash point 37.8 °C to below 60 °C (diesel, kerosene).
 	ClassII
+	// ClassIIIA: flash point 60 °C to below 93 °C.
 	ClassIIIA
+	// ClassIIIB: flash point 93 °C or more (lubricating and hydraulic oils).
 	ClassIIIB
 )
 

@@ -97,9 +97,9 @@ func mustSeawater(id, name string, s float64) Liquid {
 	return l
 }
 
-// OilParams describe a petroleum liquid from data-sheet values: density at
+// oilParams describe a petroleum liquid from data-sheet values: density at
 // 15 °C and kinematic viscosity at two temperatures.
-type OilParams struct {
+type oilParams struct {
 	Density15 calc.Density     // kg/m³ at 15 °C
 	T1, T2    calc.Temperature // viscosity reference temperatures (usually 40 and 100 °C)
 	Nu1, Nu2  float64          // kinematic viscosity at T1 and T2, mm²/s
@@ -112,8 +112,8 @@ type OilParams struct {
 }
 
 // oilModel builds density (API 11.1), viscosity (ASTM D341 Walther through
-// the two points) and vapour pressure from OilParams.
-func oilModel(p OilParams) propModel {
+// the two points) and vapour pressure from oilParams.
+func oilModel(p oilParams) propModel {
 	k0, k1 := p.K0, p.K1
 	if k0 == 0 && k1 == 0 {
 		k1 = 0.6278
@@ -267,7 +267,7 @@ func builtinLiquids() []Liquid {
 				Flash:         "ASTM D975 No. 2-D minimum 52 °C (EN 590: above 55 °C); Class II, " + srcNFPA30,
 			},
 			Note: "Treat as flammable when warm (within 9 K of its flash point). Discharge of any oil needs a sheen check and a record.",
-			model: oilModel(OilParams{Density15: 835, T1: celsius(40), Nu1: 3.0, T2: celsius(100), Nu2: 1.2,
+			model: oilModel(oilParams{Density15: 835, T1: celsius(40), Nu1: 3.0, T2: celsius(100), Nu2: 1.2,
 				K0: 186.9696, K1: 0.4862, VaporPressure: -1}),
 		},
 		{
@@ -285,7 +285,7 @@ func builtinLiquids() []Liquid {
 				Flash:         "minimum 38 °C, ASTM D3699 / Jet A (from memory); Class II by 0.2 K, " + srcNFPA30,
 			},
 			Note: "Flash point barely above 37.8 °C: treat as flammable above about 29 °C.",
-			model: oilModel(OilParams{Density15: 800, T1: celsius(40), Nu1: 1.5, T2: celsius(-20), Nu2: 4.0,
+			model: oilModel(oilParams{Density15: 800, T1: celsius(40), Nu1: 1.5, T2: celsius(-20), Nu2: 4.0,
 				K0: 594.5418, K1: 0, VaporPressure: -1}),
 		},
 		mustGasoline("gasoline", "Gasoline (winter blend, conservative)", GasolineWinterRVP),
@@ -323,7 +323,7 @@ func hydraulicOil(vg int, nu100, flash, pour float64) Liquid {
 			Flash:         fmt.Sprintf("flash point about %.0f °C (typical data sheet, from memory); Class IIIB, ", flash) + srcNFPA30,
 		},
 		Note: "Very viscous when cold: expect laminar flow and long drains. Oil discharge needs a sheen check and a record.",
-		model: oilModel(OilParams{Density15: 870, T1: celsius(40), Nu1: float64(vg), T2: celsius(100), Nu2: nu100,
+		model: oilModel(oilParams{Density15: 870, T1: celsius(40), Nu1: float64(vg), T2: celsius(100), Nu2: nu100,
 			K0: 0, K1: 0.6278, VaporPressure: 0}),
 	}
 }

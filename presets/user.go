@@ -965,8 +965,8 @@ func (p *parser) table(i int, id string, t *tableDoc) (tableModel, error) {
 	return m, nil
 }
 
-func (p *parser) oil(i int, id string, d liquidDoc) (OilParams, error) {
-	fail := func(key string, err error) (OilParams, error) { return OilParams{}, p.errAt("liquid", i, id, key, err) }
+func (p *parser) oil(i int, id string, d liquidDoc) (oilParams, error) {
+	fail := func(key string, err error) (oilParams, error) { return oilParams{}, p.errAt("liquid", i, id, key, err) }
 	if d.Density15 == nil {
 		return fail("density_15c_kg_m3", errors.New("missing for model oil"))
 	}
@@ -1013,6 +1013,6 @@ func (p *parser) oil(i int, id string, d liquidDoc) (OilParams, error) {
 		}
 		pv = *d.Vapor
 	}
-	return OilParams{Density15: calc.Density(*d.Density15), T1: celsius(t1), Nu1: *d.Nu1, T2: celsius(t2), Nu2: *d.Nu2,
+	return oilParams{Density15: calc.Density(*d.Density15), T1: celsius(t1), Nu1: *d.Nu1, T2: celsius(t2), Nu2: *d.Nu2,
 		K0: 0, K1: 0.6278, VaporPressure: pv}, nil
 }
