@@ -3,6 +3,7 @@ package calc
 import (
 	"errors"
 	"math"
+	"strconv"
 )
 
 // StopReason says why a drain plan ends. The strings are stable codes used in
@@ -26,6 +27,24 @@ const (
 	// StopReceiverFull: a transfer filled the receiving vessel to its brim.
 	StopReceiverFull StopReason = "receiver_full"
 )
+
+// Text is a short plain description of the stop for records and the command
+// line's human-readable output.
+func (r StopReason) Text() string {
+	switch r {
+	case StopTarget:
+		return "the target level is reached"
+	case StopIntake:
+		return "the intake uncovers (level at intake + required submergence; below it the intake draws air)"
+	case StopCrest:
+		return "the crest pressure falls to the vapour pressure as the lift grows; the column breaks at the crest"
+	case StopEqual:
+		return "the levels come within " + strconv.FormatFloat(float64(EqualHead)*100, 'g', 3, 64) + " cm of each other; the flow tapers to nothing"
+	case StopReceiverFull:
+		return "the receiving vessel is full"
+	}
+	return string(r)
+}
 
 // EqualHead is the head at which a drain is reported as having reached
 // "levels equal". The flow falls to zero as the head does, so the last
@@ -775,6 +794,9 @@ func (p *planner) run() (DrainPlan, error) {
 	}
 	if start.Verdict == RunsNearLimit {
 		plan.WorkingLimitLevel, plan.WorkingLimitFound = Length(p.h0), true
+	}
+	if start.Warnings.Has(WarnIntakeShallow) {
+		return stopNow(StopIntake)
 	}
 
 	xBottom, xTarget, xFull, xEqual, x0, haveX0 := p.geoLimits()

@@ -539,6 +539,7 @@ func TestDrainStopsAtOnce(t *testing.T) {
 		{"outlet above the surface", DrainInput{Tank: tank, Siphon: baseSiphon(1.4, 0.05, 1.9, 1.45)}, StopEqual},
 		{"head under 1 cm", DrainInput{Tank: tank, Siphon: baseSiphon(1.4, 0.05, 1.9, 1.395)}, StopEqual},
 		{"intake too shallow", DrainInput{Tank: tank, Siphon: baseSiphon(0.1, 0.05, 1.9, -2)}, StopIntake},
+		{"intake at the surface", DrainInput{Tank: tank, Siphon: baseSiphon(0.7, 0.7, 1.9, -2)}, StopIntake},
 		{"receiver already full", DrainInput{Tank: tank, Siphon: baseSiphon(1.4, 0.05, 1.9, -2),
 			Receiver: &Receiver{Tank: mustTank(NewRectangular(1, 1, 0.5)), Floor: -2.5, Level: 0.5}}, StopReceiverFull},
 	}
