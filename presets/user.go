@@ -253,6 +253,27 @@ func (p *parser) locate(section string, idx int, key string) int {
 	return header
 }
 
+// locateTop finds a top-level key or a table header named name.
+func (p *parser) locateTop(name string) int {
+	top := true // top-level keys come before the first table header
+	for n, text := range p.lines {
+		t := strings.TrimSpace(text)
+		if strings.HasPrefix(t, "[") {
+			if m := headerRe.FindStringSubmatch(text); m != nil {
+				if strings.ReplaceAll(m[1], " ", "") == name {
+					return n + 1
+				}
+				top = false
+				continue
+			}
+		}
+		if k, _, ok := strings.Cut(t, "="); top && ok && strings.Trim(strings.TrimSpace(k), `"'`) == name {
+			return n + 1
+		}
+	}
+	return 0
+}
+
 // scan returns the line of "leaf = …" inside the idx-th [[section]] entry
 // (0 if absent) and the entry's header line.
 func (p *parser) scan(section string, idx int, leaf string) (line, header int) {
@@ -321,6 +342,8 @@ func parse(src, file, origin string, base *Catalogue) (*Catalogue, error) {
 		line := 0
 		if section != "" {
 			line = p.locate(section, -1, key)
+		} else {
+			line = p.locateTop(key)
 		}
 		return nil, &ParseError{File: file, Line: line, Field: k.String(), Err: ErrUnknownField}
 	}

@@ -115,6 +115,8 @@ func TestLoadUserErrors(t *testing.T) {
 		{"syntax", "[[liquid]]\nid = \"a\"\nt_min_c = \n", 3, "", ErrSyntax},
 		{"wrong type", "[[liquid]]\nid = \"a\"\nt_min_c = \"cold\"\n", 3, "t_min_c", ErrSyntax},
 		{"unknown key", "[[hose]]\nid = \"x\"\ninside_diameter_mm = 20\nsource = \"s\"\ndiameter_in = 1\n", 5, "hose.diameter_in", ErrUnknownField},
+		{"unknown top key", "version = 2\n[[hose]]\nid = \"x\"\ninside_diameter_mm = 20\nsource = \"s\"\n", 1, "version", ErrUnknownField},
+		{"unknown table", "# my presets\n[[hose]]\nid = \"x\"\ninside_diameter_mm = 20\nsource = \"s\"\n[[liquids]]\nid = \"x\"\n", 6, "liquids", ErrUnknownField},
 		{"t_max out of range", liq + "t_min_c = 5\nt_max_c = 300\ndensity_kg_m3 = 1000\nviscosity_mpa_s = 1\n", 5, `liquid "a" t_max_c`, nil},
 		{"t_max below t_min", liq + "t_min_c = 30\ndensity_kg_m3 = 1000\nviscosity_mpa_s = 1\nt_max_c = 10\n", 7, `liquid "a" t_max_c`, nil},
 		{"density", liq + "t_min_c = 5\nt_max_c = 30\ndensity_kg_m3 = 100\nviscosity_mpa_s = 1\n", 6, "density_kg_m3", nil},
