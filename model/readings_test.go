@@ -412,3 +412,23 @@ func ExampleFitReadings() {
 	fmt.Printf("extra K %.2f, stop at %.2f m (%s)\n", f.ExtraK, f.StopLevel, f.Stop)
 	// Output: extra K 5.00, stop at 0.20 m (intake)
 }
+
+func BenchmarkFitReadingsPlanner(b *testing.B) {
+	in := sumpDrain(b)
+	sim := DrainSimulator(in)
+	truth, err := sim(3, float64(in.Siphon.Geometry.Surface))
+	if err != nil {
+		b.Fatal(err)
+	}
+	var rs []Reading
+	for i := 0; i < 10; i++ {
+		s := 600 + float64(i)*300
+		rs = append(rs, Reading{At: rdT0.Add(time.Duration(s) * time.Second), Level: truth.LevelAt(s)})
+	}
+	b.ReportAllocs()
+	var sink Fit
+	for b.Loop() {
+		sink, _ = FitReadings(rs, sim, FitOptions{SumK: in.Siphon.Hose.KMinor()})
+	}
+	_ = sink
+}
