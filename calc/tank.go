@@ -58,6 +58,30 @@ func clampLevel(h, top float64) float64 {
 	return h
 }
 
+// TankWidth is the width of the tank's outline at level h as a side view
+// draws it, m: the diameter of a vertical cylinder, the length of a box or of
+// a pit's section (l + 2sh), the chord 2√(h(D − h)) of a sphere or of a
+// horizontal cylinder seen end-on, the cone's D·h/h_c. A calibration table
+// has no drawing, so it gets the diameter of the circle of the same plan
+// area, √(4A/π). For drawing only.
+func TankWidth(t Tank, h Length) Length {
+	if w, ok := t.(widther); ok {
+		return Length(w.width(clampLevel(float64(h), float64(t.Height()))))
+	}
+	return Length(math.Sqrt(4 * float64(t.Area(h)) / math.Pi))
+}
+
+type widther interface{ width(h float64) float64 }
+
+func (c verticalCylinder) width(float64) float64 { return math.Sqrt(4 * c.area / math.Pi) }
+func (r rectangular) width(float64) float64      { return r.length }
+func (c horizontalCylinder) width(h float64) float64 {
+	return 2 * math.Sqrt(math.Max(h*(2*c.r-h), 0))
+}
+func (c coneBottom) width(h float64) float64 { return 2 * c.r * math.Min(h/c.cone, 1) }
+func (p slopedPit) width(h float64) float64  { return p.l + 2*p.s*h }
+func (s sphere) width(h float64) float64     { return 2 * math.Sqrt(math.Max(h*(2*s.r-h), 0)) }
+
 // levelFinder is implemented by shapes with a closed-form inverse of V(h).
 type levelFinder interface {
 	levelFor(v float64) float64
@@ -112,10 +136,13 @@ func NewRectangular(length, width, height Length) (Tank, error) {
 	if err := checkPositive("tank height", float64(height), MaxTankSize, "m"); err != nil {
 		return nil, err
 	}
-	return rectangular{verticalCylinder{area: float64(length) * float64(width), height: float64(height)}}, nil
+	return rectangular{verticalCylinder{area: float64(length) * float64(width), height: float64(height)}, float64(length)}, nil
 }
 
-type rectangular struct{ verticalCylinder }
+type rectangular struct {
+	verticalCylinder
+	length float64
+}
 
 func (rectangular) Shape() string { return ShapeRectangular }
 

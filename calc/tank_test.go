@@ -234,6 +234,31 @@ func TestTableMonotoneRPN14(t *testing.T) {
 	}
 }
 
+// TestTankWidth: outline widths for the side view (analytic chord and
+// section widths).
+func TestTankWidth(t *testing.T) {
+	cases := []struct {
+		tank Tank
+		h    Length
+		want float64
+	}{
+		{mustTank(NewVerticalCylinder(1.2, 2)), 0.7, 1.2},
+		{mustTank(NewRectangular(3, 2, 1.5)), 0.7, 3},
+		{mustTank(NewHorizontalCylinder(1.2, 2)), 0.6, 1.2},
+		{mustTank(NewHorizontalCylinder(1.2, 2)), 0.3, 2 * math.Sqrt(0.3*0.9)},
+		{mustTank(NewSphere(1.2)), 1.2, 0},
+		{mustTank(NewConeBottom(2, 0.8, 3)), 0.4, 1},
+		{mustTank(NewConeBottom(2, 0.8, 3)), 2, 2},
+		{mustTank(NewSlopedPit(10, 4, 2, 1.5)), 1, 14},
+		{mustTank(NewTable([]float64{0, 1}, []float64{0, math.Pi})), 0.5, 2},
+	}
+	for _, c := range cases {
+		if got := float64(TankWidth(c.tank, c.h)); !tkNear(got, c.want, 1e-12) {
+			t.Errorf("%s at %g: width %g, want %g", c.tank.Shape(), c.h, got, c.want)
+		}
+	}
+}
+
 func TestTankBadInput(t *testing.T) {
 	cases := []struct {
 		name  string
