@@ -128,7 +128,7 @@ func (l Liquid) vaporPressure(T float64) float64 {
 	if _, ok := l.model.(waterModel); ok {
 		return waterVaporPressure(T)
 	}
-	if om, ok := l.model.(overrideModel); ok {
+	if om, ok := l.model.(*overrideModel); ok {
 		if !math.IsNaN(om.pv) {
 			return om.pv
 		}

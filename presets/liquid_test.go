@@ -549,3 +549,15 @@ func BenchmarkFluid(b *testing.B) {
 		})
 	}
 }
+
+// Liquids can be compared with == without a run-time panic (the model
+// package keeps a Liquid in its plan), and a copy compares equal.
+func TestLiquidComparable(t *testing.T) {
+	c := Builtin()
+	for _, l := range c.Liquids() {
+		m := l
+		if m != l || l == (Liquid{}) {
+			t.Errorf("%s: comparison wrong", l.ID)
+		}
+	}
+}

@@ -124,7 +124,7 @@ func oilModel(p oilParams) propModel {
 	if p.VaporPressure < 0 {
 		pv = decaneDIPPR.p
 	}
-	return funcModel{
+	return &funcModel{
 		rho: rho,
 		mu:  func(T, rho float64) float64 { return w.nu(T) * 1e-6 * rho },
 		pv:  pv,
@@ -179,7 +179,7 @@ func Gasoline(rvpKPa float64) (Liquid, error) {
 		},
 		Note: "Most dangerous liquid to siphon. Bond and ground, no ignition sources, approved containers; " +
 			"whether a hose siphon is allowed at all is a local-code and employer question. Very small working lift.",
-		model: funcModel{
+		model: &funcModel{
 			rho: rho,
 			mu:  func(T, _ float64) float64 { return visc.mu(T) },
 			pv:  ap42Gasoline(rvpKPa, 3),
@@ -217,7 +217,7 @@ func glycol(id, name, basis string, freeze float64, hz Hazards, rho, muMPa [5]fl
 			Flash:         "aqueous mixture: no flash point expected at this strength (from memory; check the data sheet)",
 		},
 		Note: note,
-		model: tableModel{
+		model: &tableModel{
 			t: ts, rho: rho[:], mu: mu,
 			pvFunc: waterVaporPressure,
 		},

@@ -31,7 +31,7 @@ type funcModel struct {
 	pv  func(T float64) float64
 }
 
-func (m funcModel) eval(T calc.Temperature, _ calc.Pressure) (calc.Fluid, error) {
+func (m *funcModel) eval(T calc.Temperature, _ calc.Pressure) (calc.Fluid, error) {
 	t := float64(T)
 	rho := m.rho(t)
 	return calc.Fluid{
@@ -49,7 +49,7 @@ type overrideModel struct {
 	rho, mu, pv float64
 }
 
-func (m overrideModel) eval(T calc.Temperature, p calc.Pressure) (calc.Fluid, error) {
+func (m *overrideModel) eval(T calc.Temperature, p calc.Pressure) (calc.Fluid, error) {
 	f, err := m.base.eval(T, p)
 	if err != nil {
 		return f, err
@@ -138,7 +138,7 @@ func sharqawyVaporPressure(T, sGkg float64) float64 {
 // seawaterModel returns the Sharqawy (2010) model at salinity sGkg (g/kg).
 func seawaterModel(sGkg float64) propModel {
 	s := sGkg / 1000
-	return funcModel{
+	return &funcModel{
 		rho: func(T float64) float64 { return sharqawyDensity(T-273.15, s) },
 		mu:  func(T, _ float64) float64 { return sharqawyViscosity(T-273.15, s) },
 		pv:  func(T float64) float64 { return sharqawyVaporPressure(T, sGkg) },
@@ -288,7 +288,7 @@ type tableModel struct {
 	pvFunc         func(T float64) float64
 }
 
-func (m tableModel) eval(T calc.Temperature, _ calc.Pressure) (calc.Fluid, error) {
+func (m *tableModel) eval(T calc.Temperature, _ calc.Pressure) (calc.Fluid, error) {
 	t := float64(T)
 	f := calc.Fluid{
 		Density:   calc.Density(interpLinear(m.t, m.rho, t)),

@@ -719,7 +719,7 @@ func (p *parser) liquid(i int, id string, d liquidDoc, cur *Catalogue) (Liquid, 
 		if !ok {
 			return fail("based_on", fmt.Errorf("no liquid %q (built-in or earlier in this file)", d.BasedOn))
 		}
-		om := overrideModel{base: base.model, rho: math.NaN(), mu: math.NaN(), pv: math.NaN()}
+		om := &overrideModel{base: base.model, rho: math.NaN(), mu: math.NaN(), pv: math.NaN()}
 		src = base.Sources
 		if d.Density != nil {
 			if err := rangeCheck(*d.Density, calc.MinDensity, calc.MaxDensity, "kg/m³"); err != nil {
@@ -779,7 +779,7 @@ func (p *parser) liquid(i int, id string, d liquidDoc, cur *Catalogue) (Liquid, 
 			pv = *d.Vapor
 		}
 		rho, mu := *d.Density, *d.Viscosity*1e-3
-		l.model = funcModel{
+		l.model = &funcModel{
 			rho: func(float64) float64 { return rho },
 			mu:  func(float64, float64) float64 { return mu },
 			pv:  func(float64) float64 { return pv },
@@ -789,7 +789,7 @@ func (p *parser) liquid(i int, id string, d liquidDoc, cur *Catalogue) (Liquid, 
 		if err != nil {
 			return Liquid{}, err
 		}
-		l.model = tm
+		l.model = &tm
 		tmin, tmax = tm.t[0]-273.15, tm.t[len(tm.t)-1]-273.15
 	case "seawater":
 		if d.Salinity == nil {
@@ -852,7 +852,7 @@ func (p *parser) liquid(i int, id string, d liquidDoc, cur *Catalogue) (Liquid, 
 	if err := rangeCheck(tmax, tmin, userMaxC, "°C"); err != nil {
 		return fail("t_max_c", err)
 	}
-	if tm, ok := l.model.(tableModel); ok {
+	if tm, ok := l.model.(*tableModel); ok {
 		if tmin < tm.t[0]-273.15-1e-9 || tmax > tm.t[len(tm.t)-1]-273.15+1e-9 {
 			return fail("t_max_c", fmt.Errorf("range %s to %s °C reaches beyond the table (%s to %s °C)",
 				num(tmin), num(tmax), num(tm.t[0]-273.15), num(tm.t[len(tm.t)-1]-273.15)))
