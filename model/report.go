@@ -100,9 +100,10 @@ func WriteReport(w io.Writer, r ReportInput) error {
 	rw.row("Job created", rw.tmOr(j.Created, "not recorded"))
 	started := flowStart(j)
 	rw.row("Flow started", rw.tmOr(started, "not recorded"))
-	rw.row("Flow stopped", rw.tmOr(j.Stopped, "not recorded"))
-	if !started.IsZero() && !j.Stopped.IsZero() && j.Stopped.After(started) {
-		rw.row("Running time", fmtDuration(j.Stopped.Sub(started).Seconds()))
+	stopped := flowStop(j)
+	rw.row("Flow stopped", rw.tmOr(stopped, "not recorded"))
+	if !started.IsZero() && !stopped.IsZero() && stopped.After(started) {
+		rw.row("Running time", fmtDuration(stopped.Sub(started).Seconds()))
 	}
 	rw.line("")
 
@@ -132,6 +133,20 @@ func WriteReport(w io.Writer, r ReportInput) error {
 	rw.line("")
 
 	rw.cautions(r, p)
+
+	// Sign-off (field-practice §5.1): the step's note if the crew recorded
+	// it, and lines to sign on paper.
+	rw.line("## Sign-off")
+	rw.line("")
+	if i := j.Checklist.Index("closeout.signoff"); i >= 0 && j.Checklist.Steps[i].State == StateDone {
+		s := j.Checklist.Steps[i]
+		rw.line("Recorded in the checklist at " + rw.tm(s.At) + ": " + mdText(orDash(s.Note)) + ".")
+		rw.line("")
+	}
+	rw.line("Work done by (name, signature, date): ______________________________")
+	rw.line("")
+	rw.line("Supervisor or inspector (name, signature, date): ______________________________")
+	rw.line("")
 
 	rw.line("---")
 	rw.line("")
@@ -171,6 +186,18 @@ func flowStart(j Job) time.Time {
 		return j.Started
 	}
 	if i := j.Checklist.Index("run.start"); i >= 0 && j.Checklist.Steps[i].State == StateDone {
+		return j.Checklist.Steps[i].At
+	}
+	return time.Time{}
+}
+
+// flowStop is the job's stop time, or the time the "record the stop" step
+// was marked done.
+func flowStop(j Job) time.Time {
+	if !j.Stopped.IsZero() {
+		return j.Stopped
+	}
+	if i := j.Checklist.Index("stop.record"); i >= 0 && j.Checklist.Steps[i].State == StateDone {
 		return j.Checklist.Steps[i].At
 	}
 	return time.Time{}

@@ -84,6 +84,13 @@ func demoRecordJob(t *testing.T) (Job, Plan) {
 		}
 		j.Readings = append(j.Readings, Reading{At: start.Add(time.Duration(s) * time.Second), Level: lv, Note: note})
 	}
+	stop := start.Add(62 * time.Minute)
+	if err := j.Checklist.Mark("stop.record", StateDone, "", "level 0.240 m", stop); err != nil {
+		t.Fatal(err)
+	}
+	if err := j.Checklist.Mark("closeout.signoff", StateDone, "", "A. Marsh; T. Okoro", stop.Add(20*time.Minute)); err != nil {
+		t.Fatal(err)
+	}
 	j.AddLog(start.Add(-5*time.Minute), "Sheen check before release: none seen (A. Marsh)")
 	j.AddLog(start.Add(65*time.Minute), "Strainer cleared of leaves | flow picked up")
 	return j, p
