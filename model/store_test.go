@@ -350,7 +350,7 @@ func TestKillDuringSave(t *testing.T) {
 	if runtime.GOOS == "js" || runtime.GOOS == "wasip1" {
 		t.Skip("no processes")
 	}
-	rounds, budget := 80, 40*time.Second
+	rounds, budget := 80, 25*time.Second
 	if testing.Short() {
 		rounds, budget = 10, 10*time.Second
 	}
@@ -358,6 +358,7 @@ func TestKillDuringSave(t *testing.T) {
 	rng := rand.New(rand.NewPCG(6, 4))
 	start := time.Now()
 	last, done, saves, inFlight := 0, 0, 0, 0
+	saveTime := 5 * time.Millisecond // running estimate of one save
 	for done < rounds && time.Since(start) < budget {
 		cmd := exec.Command(os.Args[0], "-test.run=^TestKillWriterProcess$", "-test.count=1")
 		cmd.Env = append(os.Environ(), killEnv+"="+path)
@@ -374,8 +375,9 @@ func TestKillDuringSave(t *testing.T) {
 			cmd.Wait()
 			t.Fatalf("round %d: writer did not start: %q", done, sc.Text())
 		}
-		// Kill at a random moment: anywhere from before the first save to
-		// a few dozen saves in.
+		// Kill at a random moment: after a random number (0–4) of saves
+		// this round, plus a random part of the time one save takes, so
+		// that kills fall before, during and between writes.
 		lines := make(chan string, 1024)
 		go func() {
 			for sc.Scan() {
@@ -383,9 +385,33 @@ func TestKillDuringSave(t *testing.T) {
 			}
 			close(lines)
 		}()
-		time.Sleep(time.Duration(rng.IntN(60000)) * time.Microsecond)
+		roundStart := time.Now()
+		wantSaves, got := rng.IntN(5), 0
+		var tail []string
+	wait:
+		for got < wantSaves {
+			select {
+			case line, ok := <-lines:
+				if !ok {
+					break wait
+				}
+				tail = append(tail, line)
+				got++
+			case <-time.After(5 * time.Second):
+				break wait
+			}
+		}
+		perSave := saveTime
+		if got > 0 {
+			perSave = time.Since(roundStart) / time.Duration(got)
+			saveTime = (saveTime + perSave) / 2
+		}
+		time.Sleep(time.Duration(rng.Int64N(int64(2*perSave) + 1)))
 		cmd.Process.Kill()
 		for line := range lines {
+			tail = append(tail, line)
+		}
+		for _, line := range tail {
 			if n, ok := strings.CutPrefix(line, "saved "); ok {
 				last, _ = strconv.Atoi(n)
 				saves++
