@@ -329,7 +329,7 @@ func parse(src, file, origin string, base *Catalogue) (*Catalogue, error) {
 		if m := tomlLineRe.FindStringSubmatch(err.Error()); m != nil {
 			pe.Line, _ = strconv.Atoi(m[1])
 			pe.Field = m[2]
-			pe.Err = fmt.Errorf("%w: %s", ErrSyntax, m[3])
+			pe.Err = fmt.Errorf("%w: %s", ErrSyntax, friendlyType(m[3]))
 		}
 		return nil, pe
 	}
@@ -483,6 +483,33 @@ func parse(src, file, origin string, base *Catalogue) (*Catalogue, error) {
 		c.liquids = append(c.liquids, l)
 	}
 	return c, nil
+}
+
+var typeMsgRe = regexp.MustCompile(`TOML value has type (\w+); destination has type (\w+)`)
+
+// friendlyType rewrites the decoder's type-mismatch message in the words of
+// the file ("expected a number, found text").
+func friendlyType(msg string) string {
+	m := typeMsgRe.FindStringSubmatch(msg)
+	if m == nil {
+		return msg
+	}
+	word := func(t string) string {
+		switch {
+		case strings.HasPrefix(t, "float"), strings.HasPrefix(t, "int"), strings.HasPrefix(t, "uint"):
+			return "a number"
+		case t == "string":
+			return "text in quotes"
+		case t == "bool", t == "boolean":
+			return "true or false"
+		case strings.HasPrefix(t, "slice"), strings.HasPrefix(t, "array"), strings.HasPrefix(t, "[]"):
+			return "a list [ … ]"
+		case strings.HasPrefix(t, "map"), t == "struct", strings.HasPrefix(t, "table"):
+			return "a table"
+		}
+		return t
+	}
+	return "expected " + word(m[2]) + ", found " + word(m[1])
 }
 
 // tomlMessage is the TOML library's message without its own "toml: line N"

@@ -114,6 +114,7 @@ func TestLoadUserErrors(t *testing.T) {
 	}{
 		{"syntax", "[[liquid]]\nid = \"a\"\nt_min_c = \n", 3, "", ErrSyntax},
 		{"wrong type", "[[liquid]]\nid = \"a\"\nt_min_c = \"cold\"\n", 3, "t_min_c", ErrSyntax},
+		{"text for a flag", "[[material]]\nid = \"m\"\ncollapses = 1\n", 3, "collapses", ErrSyntax},
 		{"unknown key", "[[hose]]\nid = \"x\"\ninside_diameter_mm = 20\nsource = \"s\"\ndiameter_in = 1\n", 5, "hose.diameter_in", ErrUnknownField},
 		{"unknown top key", "version = 2\n[[hose]]\nid = \"x\"\ninside_diameter_mm = 20\nsource = \"s\"\n", 1, "version", ErrUnknownField},
 		{"unknown table", "# my presets\n[[hose]]\nid = \"x\"\ninside_diameter_mm = 20\nsource = \"s\"\n[[liquids]]\nid = \"x\"\n", 6, "liquids", ErrUnknownField},
@@ -163,6 +164,9 @@ func TestLoadUserErrors(t *testing.T) {
 			}
 			if k.is != nil && !errors.Is(err, k.is) {
 				t.Errorf("%v does not wrap %v", err, k.is)
+			}
+			if strings.Contains(err.Error(), "destination has type") {
+				t.Errorf("message %q speaks Go, not the file's words", err)
 			}
 			if !strings.HasPrefix(err.Error(), "presets.toml:") {
 				t.Errorf("message %q lacks the file name", err)
