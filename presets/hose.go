@@ -99,7 +99,7 @@ func (f Fitting) KAt(d calc.Length) KRange {
 	return KRange{Central: f.K.Central * ft, Low: f.K.Low * ft, High: f.K.High * ft}
 }
 
-// craneFT is the Crane TP-410 (2009) f_T table, nominal size (mm) against
+// craneFTmm and craneFTval are the Crane TP-410 (2009) f_T table, nominal size (mm) against
 // the fully turbulent Darcy factor of clean commercial steel; confirmed via
 // the `fluids` library (hydraulics note §2.2).
 var craneFTmm = []float64{15, 20, 25, 32, 40, 50, 65, 80, 100, 125, 150, 200, 250, 350, 400, 550, 600, 900}

@@ -24,6 +24,7 @@ type ParseError struct {
 	Err   error  // what is wrong
 }
 
+// Error formats the error as "file:line: field: what is wrong".
 func (e *ParseError) Error() string {
 	var b strings.Builder
 	b.WriteString(e.File)
