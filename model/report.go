@@ -165,7 +165,7 @@ func (r ReportInput) fit() (*Fit, error) {
 	if len(r.Job.Readings) == 0 {
 		return nil, nil
 	}
-	if r.Plan.Err != nil {
+	if !planComputed(r.Plan) {
 		return nil, errors.New("no plan to compare with (the plan could not be computed)")
 	}
 	if r.Plan.Drain == nil || r.Plan.DrainIn.Tank == nil {
@@ -333,6 +333,11 @@ func (rw *recWriter) plan(p Plan) {
 		rw.line("")
 		return
 	}
+	if !planComputed(p) {
+		rw.line("No plan was given with this record.")
+		rw.line("")
+		return
+	}
 	r := p.Result
 	rw.line("| Item | Value |")
 	rw.line("| --- | --- |")
@@ -376,11 +381,15 @@ func (rw *recWriter) plan(p Plan) {
 	rw.line("")
 }
 
+// planComputed tells a Plan from Compute (which always sets at least one
+// hose) from a zero Plan.
+func planComputed(p Plan) bool { return p.Err == nil && p.Siphon.Hoses >= 1 }
+
 func (rw *recWriter) warnings(p Plan) {
 	rw.line("## Warnings")
 	rw.line("")
 	var ws []calc.Warning
-	if p.Err == nil {
+	if planComputed(p) {
 		ws = p.Result.WarningList()
 	}
 	if len(ws) == 0 {

@@ -292,6 +292,23 @@ func TestReportWriteError(t *testing.T) {
 	}
 }
 
+// A zero input writes a record that says what is missing, without a verdict.
+func TestReportZeroInput(t *testing.T) {
+	var b bytes.Buffer
+	in := ReportInput{Job: Job{Readings: []Reading{{At: time.Unix(1e9, 0), Level: 1}, {At: time.Unix(1e9+600, 0), Level: 0.9}}}}
+	if err := WriteReport(&b, in); err != nil {
+		t.Fatal(err)
+	}
+	md := b.String()
+	if strings.Contains(md, "| Verdict |") || !strings.Contains(md, "No plan was given") || !strings.Contains(md, "no plan to compare with") {
+		t.Errorf("zero plan record:\n%s", md)
+	}
+	checkRecord(t, in, md)
+	if err := WriteReadingsCSV(&b, in); err != nil {
+		t.Fatal(err)
+	}
+}
+
 func TestFmtDuration(t *testing.T) {
 	for _, tc := range []struct {
 		s    float64
