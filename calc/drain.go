@@ -430,8 +430,8 @@ func (p *planner) init(in *DrainInput, points int) error {
 	}
 	p.start = start
 	if p.fixed == nil {
-		rho := float64(p.s.Fluid.Density)
-		p.allowance = GasAllowanceFraction * float64(p.s.AtmPressure) / (rho * StandardGravity)
+		// Solve's gas-release allowance, as it applies it
+		p.allowance = float64(start.FlowingCrestLimit - start.WorkingCrestHeight)
 		L := float64(p.s.Hose.Length)
 		p.lUp = float64(p.s.Hose.UpLegLength)
 		if p.lUp == 0 {

@@ -427,6 +427,17 @@ func crestCase() DrainInput {
 	return DrainInput{Tank: mustTank(NewVerticalCylinder(1.5, 2)), Siphon: s}
 }
 
+// solveLevel is Solve for s with the surface at level h.
+func solveLevel(t *testing.T, s Siphon, h Length) Result {
+	t.Helper()
+	s.Geometry.Surface = h
+	r, err := Solve(s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r
+}
+
 // TestDrainCrestStopIsWhereSolveFlips: the crest stop lies where Solve's
 // verdict turns to WillNotRun (cannot run) as the level falls, to 1e-5 m; the
 // working-limit level lies above it (property of the crest equations in
@@ -440,15 +451,7 @@ func TestDrainCrestStopIsWhereSolveFlips(t *testing.T) {
 	if plan.StopReason != StopCrest || !plan.CrestLimitFound || plan.CrestLimitLevel != plan.StopLevel {
 		t.Fatalf("plan %+v", plan.StopReason)
 	}
-	at := func(h Length) Result {
-		s := in.Siphon
-		s.Geometry.Surface = h
-		r, err := Solve(s)
-		if err != nil {
-			t.Fatal(err)
-		}
-		return r
-	}
+	at := func(h Length) Result { return solveLevel(t, in.Siphon, h) }
 	if r := at(plan.StopLevel); r.Verdict == WillNotRun {
 		t.Errorf("Solve will not run at the stop level %g", plan.StopLevel)
 	}
@@ -457,6 +460,23 @@ func TestDrainCrestStopIsWhereSolveFlips(t *testing.T) {
 	}
 	if !plan.WorkingLimitFound || !(plan.WorkingLimitLevel > plan.CrestLimitLevel) {
 		t.Errorf("working limit %g (found %v) should be above the crest limit %g", plan.WorkingLimitLevel, plan.WorkingLimitFound, plan.CrestLimitLevel)
+	}
+	// Solve's verdict turns from runs to runs-near-limit at the working
+	// limit (a lower crest, so that this happens during the drain).
+	low := in
+	low.Siphon.Geometry.Crest = 6.2
+	pl, err := PlanDrain(low)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if pl.Start.Verdict != Runs || !pl.WorkingLimitFound || pl.CrestLimitFound {
+		t.Fatalf("low crest: start %v, working limit %v, crest limit %v", pl.Start.Verdict, pl.WorkingLimitFound, pl.CrestLimitFound)
+	}
+	if r := solveLevel(t, low.Siphon, pl.WorkingLimitLevel+1e-5); r.Verdict != Runs {
+		t.Errorf("just above the working limit level Solve says %v", r.Verdict)
+	}
+	if r := solveLevel(t, low.Siphon, pl.WorkingLimitLevel-1e-5); r.Verdict != RunsNearLimit {
+		t.Errorf("just below the working limit level Solve says %v", r.Verdict)
 	}
 	// Stopping at a target above it still reports where the crest would break.
 	in.Target = plan.StopLevel + 0.2
