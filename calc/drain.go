@@ -161,9 +161,10 @@ type DrainPlan struct {
 //
 //	dh/dt = −Q(h)/A(h),  t = ∫_{h_stop}^{h₀} A(h)/Q(h − z_outlet) dh
 //
-// (the quasi-steady tank-draining equation; e.g. Çengel & Cimbala, Fluid
-// Mechanics, "unsteady draining of a tank", and shared/reference/hydraulics.md
-// §7 for its closed forms).
+// (the quasi-steady tank-draining equation, as in Çengel & Cimbala, Fluid
+// Mechanics: Fundamentals and Applications, Ch. 5 example "Discharge of water
+// from a tank"; closed forms for cylinders and spheres in the project's
+// reference notes, shared/reference/hydraulics.md §7).
 //
 // Method. Q depends on the levels only through the head H (the lift enters
 // only the crest check), so Q(H), the required intake submergence S(H) and the
@@ -204,6 +205,10 @@ type DrainPlan struct {
 // [0, start level), a curve size not in {0} ∪ [2, MaxCurvePoints], a receiver
 // level not in [0, its height], a receiver floor beyond ±MaxElevation; an
 // error wrapping ErrNoTank when a tank is missing.
+//
+// Caution: the plan is an estimate from measured inputs and a steady-flow
+// model; it does not make a drain safe or lawful. Watch the drain, and follow
+// local codes, permits and licensed practice for the site and the discharge.
 //
 // PlanDrain allocates only the curve.
 func PlanDrain(in DrainInput) (DrainPlan, error) {
@@ -919,7 +924,8 @@ func (p *planner) polishCrest(x, xMax float64) (float64, error) {
 }
 
 // Gauss–Lobatto 4-point rule on [−1, 1]: nodes ±1, ±1/√5, weights 1/6, 5/6;
-// exact for polynomials of degree ≤ 5 (Abramowitz & Stegun 25.4.32).
+// exact for polynomials of degree ≤ 5 (Lobatto integration, Abramowitz &
+// Stegun, Handbook of Mathematical Functions, 25.4.32).
 const lobattoInner = 0.4472135954999579
 
 // quadIntervals is the number of quadrature intervals over the drain.
