@@ -91,6 +91,8 @@ type Model struct {
 	// lastGood is the input text of the last valid plan (ctrl+r puts a
 	// field back to it).
 	lastGood map[model.FieldID]string
+	// drawnDirty: the drawn views have not yet seen the last plan.
+	drawnDirty bool
 
 	focus     PaneID
 	lower     PaneID // wide screens: the view shown in the lower strip
@@ -238,7 +240,7 @@ func (m *Model) setStyles(st Styles) {
 }
 
 // typing reports whether keys go into a text field (letters are text).
-func (m Model) typing() bool {
+func (m *Model) typing() bool {
 	if m.jobs.open || m.showHelp {
 		return false
 	}
@@ -249,7 +251,7 @@ func (m Model) typing() bool {
 	return false
 }
 
-func (m Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
+func (m *Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 	m.flash = ""
 	k := m.keys
 	// Keys that work everywhere, also while typing.
@@ -257,7 +259,7 @@ func (m Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 	case key.Matches(msg, k.Quit):
 		return m.quit()
 	case key.Matches(msg, k.SaveNow):
-		return m, m.save(true)
+		return *m, m.save(true)
 	case key.Matches(msg, k.UnitsAny):
 		return m.toggleUnits()
 	}
@@ -266,7 +268,7 @@ func (m Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 		if key.Matches(msg, k.Help, k.Leave, k.QuitNav) || msg.String() == "enter" {
 			m.showHelp = false
 		}
-		return m, nil
+		return *m, nil
 	}
 	if m.jobs.open {
 		return m.jobKey(msg)
@@ -278,24 +280,24 @@ func (m Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 			return m.quit()
 		case key.Matches(msg, k.Help):
 			m.showHelp = true
-			return m, nil
+			return *m, nil
 		case key.Matches(msg, k.Units):
 			return m.toggleUnits()
 		case key.Matches(msg, k.Save):
 			m.flash = "saving now (every change is saved anyway)"
-			return m, m.save(true)
+			return *m, m.save(true)
 		case key.Matches(msg, k.Open):
 			m.jobs.open = true
 			m.jobs.loading = true
-			return m, listJobsCmd(m.dir)
+			return *m, listJobsCmd(m.dir)
 		case key.Matches(msg, k.NextPane):
-			return m, m.setFocus((m.focus + 1) % paneCount)
+			return *m, m.setFocus((m.focus + 1) % paneCount)
 		case key.Matches(msg, k.PrevPane):
-			return m, m.setFocus((m.focus + paneCount - 1) % paneCount)
+			return *m, m.setFocus((m.focus + paneCount - 1) % paneCount)
 		}
 		for i, b := range k.PaneKeys {
 			if key.Matches(msg, b) {
-				return m, m.setFocus(PaneID(i))
+				return *m, m.setFocus(PaneID(i))
 			}
 		}
 	}
@@ -310,27 +312,27 @@ func (m Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 	if !typing && msg.Text != "" && !key.Matches(msg, k.Up, k.Down) {
 		m.flash = "“" + msg.Text + "” does nothing here. Keys: 1–4 forms, 5–9 views, ? all keys"
 	}
-	return m, nil
+	return *m, nil
 }
 
 // formKey handles a key in a form pane.
-func (m Model) formKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
+func (m *Model) formKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 	k := m.keys
 	f := &m.forms[m.focus]
 	switch {
 	case key.Matches(msg, k.NextField):
 		m.moveField(+1)
-		return m, m.saveResume()
+		return *m, m.saveResume()
 	case key.Matches(msg, k.PrevField):
 		m.moveField(-1)
-		return m, m.saveResume()
+		return *m, m.saveResume()
 	case key.Matches(msg, k.Leave):
 		if f.Editing() {
 			f.StopEditing()
 		} else {
 			m.flash = "navigate mode: press enter to type in the marked field"
 		}
-		return m, nil
+		return *m, nil
 	}
 	picker := f.SelectedIsPicker()
 	if !picker && f.Editing() {
@@ -341,10 +343,10 @@ func (m Model) formKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 			} else {
 				m.moveField(+1)
 			}
-			return m, m.saveResume()
+			return *m, m.saveResume()
 		case key.Matches(msg, k.Edit):
 			f.StopEditing()
-			return m, nil
+			return *m, nil
 		case key.Matches(msg, k.Restore):
 			return m.restoreField()
 		}
@@ -354,19 +356,19 @@ func (m Model) formKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 		if edit != nil {
 			return m.applyEdit(*edit, cmd)
 		}
-		return m, cmd
+		return *m, cmd
 	}
 	// Navigate mode (or a picker, where letters are still commands).
 	switch {
 	case key.Matches(msg, k.Up):
 		m.moveField(-1)
-		return m, m.saveResume()
+		return *m, m.saveResume()
 	case key.Matches(msg, k.Down):
 		m.moveField(+1)
-		return m, m.saveResume()
+		return *m, m.saveResume()
 	case !picker && key.Matches(msg, k.Edit):
 		f.StartEditing()
-		return m, nil
+		return *m, nil
 	}
 	if picker {
 		var edit *FieldEdit
@@ -374,12 +376,12 @@ func (m Model) formKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 		if edit != nil {
 			return m.applyEdit(*edit, nil)
 		}
-		return m, nil
+		return *m, nil
 	}
 	if msg.Text != "" {
 		m.flash = "not typing: press enter first to type in “" + f.Selected().Label + "”"
 	}
-	return m, nil
+	return *m, nil
 }
 
 // moveField moves the selection within the form, and on into the next or
@@ -413,11 +415,12 @@ func (m *Model) setFocus(p PaneID) tea.Cmd {
 	if !p.isForm() && p != PaneSide {
 		m.lower = p
 	}
+	m.syncDrawn()
 	return m.saveResume()
 }
 
 // applyEdit stores the new text, recomputes and saves.
-func (m Model) applyEdit(e FieldEdit, cmd tea.Cmd) (tea.Model, tea.Cmd) {
+func (m *Model) applyEdit(e FieldEdit, cmd tea.Cmd) (tea.Model, tea.Cmd) {
 	_ = m.job.Set(e.ID, e.Text) // the error comes back with the plan's field errors
 	m.job.Updated = m.now()
 	if e.ID == model.FieldLiquid || e.ID == model.FieldPriming {
@@ -425,22 +428,22 @@ func (m Model) applyEdit(e FieldEdit, cmd tea.Cmd) (tea.Model, tea.Cmd) {
 		m.rebuildChecklist(e.ID)
 	}
 	m.recompute()
-	return m, tea.Batch(cmd, m.save(false))
+	return *m, tea.Batch(cmd, m.save(false))
 }
 
 // restoreField puts back the field's text from the last valid plan's job
 // when the field is invalid (ctrl+r).
-func (m Model) restoreField() (tea.Model, tea.Cmd) {
+func (m *Model) restoreField() (tea.Model, tea.Cmd) {
 	f := &m.forms[m.focus]
 	id := f.Selected().ID
 	if m.errs[id] == nil {
 		m.flash = "nothing to undo: the field is valid"
-		return m, nil
+		return *m, nil
 	}
 	old, ok := m.lastGood[id]
 	if !ok {
 		m.flash = "no earlier valid text for this field"
-		return m, nil
+		return *m, nil
 	}
 	return m.applyEdit(FieldEdit{ID: id, Text: old}, nil)
 }
@@ -511,6 +514,23 @@ func (m *Model) refresh() {
 		rd.StaleField = m.firstError()
 	}
 	m.result.SetData(rd, sys)
+	m.drawnDirty = true
+	m.syncDrawn()
+	m.log.SetEntries(m.job.Log)
+}
+
+// syncDrawn hands the plan to the drawn views (Side view, Drain curve) when
+// they are on screen; drawing them is the costly part of a keystroke, so a
+// hidden view is brought up to date only when it is shown.
+func (m *Model) syncDrawn() {
+	if !m.drawnDirty {
+		return
+	}
+	sideOn := m.lay.Wide || m.focus == PaneSide
+	curveOn := m.focus == PaneCurve || (m.lay.Wide && (m.lower == PaneCurve || m.lower == PaneSide))
+	if !sideOn && !curveOn {
+		return
+	}
 	if m.hasPlan {
 		m.side.SetGeometry(planToSide(m.plan, &m.job))
 		if c, ok := planToCurve(m.plan); ok {
@@ -522,11 +542,11 @@ func (m *Model) refresh() {
 		m.side.ClearGeometry()
 		m.curve.ClearCurve()
 	}
-	m.log.SetEntries(m.job.Log)
+	m.drawnDirty = false
 }
 
 // firstError is the message of the first invalid field in screen order.
-func (m Model) firstError() string {
+func (m *Model) firstError() string {
 	for _, f := range model.Fields() {
 		if err := m.errs[f.ID]; err != nil {
 			return f.Pane.String() + " › " + fieldMessage(f, err)
@@ -535,7 +555,7 @@ func (m Model) firstError() string {
 	return ""
 }
 
-func (m Model) toggleUnits() (tea.Model, tea.Cmd) {
+func (m *Model) toggleUnits() (tea.Model, tea.Cmd) {
 	sys := model.US
 	if m.job.Units == model.US {
 		sys = model.SI
@@ -546,7 +566,7 @@ func (m Model) toggleUnits() (tea.Model, tea.Cmd) {
 	m.curve.SetUnits(sys)
 	m.recompute()
 	m.flash = "units now " + sysName(sys) + " (bare numbers you typed keep their old unit)"
-	return m, m.save(false)
+	return *m, m.save(false)
 }
 
 func sysName(s model.System) string {
@@ -558,9 +578,9 @@ func sysName(s model.System) string {
 
 // quit saves (the last save happens in main after the program ends too)
 // and quits.
-func (m Model) quit() (tea.Model, tea.Cmd) {
+func (m *Model) quit() (tea.Model, tea.Cmd) {
 	m.quitting = true
-	return m, tea.Quit
+	return *m, tea.Quit
 }
 
 // save starts a save of a copy of the job, or marks the job dirty when a
@@ -594,9 +614,9 @@ func (m *Model) saveResume() tea.Cmd {
 	return m.save(false)
 }
 
-func (m Model) saved(msg jobSavedMsg) (tea.Model, tea.Cmd) {
+func (m *Model) saved(msg jobSavedMsg) (tea.Model, tea.Cmd) {
 	if msg.seq != m.saveSeq {
-		return m, nil // stale reply
+		return *m, nil // stale reply
 	}
 	m.saving = false
 	m.saveErr = msg.err
@@ -605,15 +625,15 @@ func (m Model) saved(msg jobSavedMsg) (tea.Model, tea.Cmd) {
 		m.markedAs = msg.path
 	}
 	if m.dirty {
-		return m, m.save(false)
+		return *m, m.save(false)
 	}
-	return m, nil
+	return *m, nil
 }
 
-func (m Model) loaded(msg jobLoadedMsg) (tea.Model, tea.Cmd) {
+func (m *Model) loaded(msg jobLoadedMsg) (tea.Model, tea.Cmd) {
 	if msg.err != nil {
 		m.jobs.err = msg.err
-		return m, nil
+		return *m, nil
 	}
 	m.jobs.open = false
 	m.job = msg.job
@@ -627,7 +647,7 @@ func (m Model) loaded(msg jobLoadedMsg) (tea.Model, tea.Cmd) {
 	m.curve.SetUnits(m.job.Units)
 	m.resume()
 	m.recompute()
-	return m, m.save(true)
+	return *m, m.save(true)
 }
 
 // resize lays the panes out for a w×h terminal.
@@ -653,6 +673,7 @@ func (m *Model) resize(w, h int) {
 		m.log.SetSize(l.Main.W, l.Main.H)
 	}
 	m.jobs.w, m.jobs.h = l.Main.W, l.Main.H
+	m.syncDrawn()
 }
 
 // View draws the screen. It only formats what Update computed.
@@ -691,7 +712,7 @@ func (m Model) View() tea.View {
 }
 
 // cursor is the real terminal cursor in the field being typed in.
-func (m Model) cursor() *tea.Cursor {
+func (m *Model) cursor() *tea.Cursor {
 	if m.showHelp || m.jobs.open || !m.focus.isForm() {
 		return nil
 	}
@@ -705,7 +726,7 @@ func (m Model) cursor() *tea.Cursor {
 	return c
 }
 
-func (m Model) mainView(w, h int) string {
+func (m *Model) mainView(w, h int) string {
 	if m.jobs.open {
 		return m.jobs.View()
 	}
@@ -731,7 +752,7 @@ func (m Model) mainView(w, h int) string {
 }
 
 // lastForm is the form shown on a wide screen while a view has the focus.
-func (m Model) lastForm() int {
+func (m *Model) lastForm() int {
 	if p, ok := paneByName(m.job.Resume.Pane); ok && p.isForm() {
 		return int(p)
 	}
@@ -743,7 +764,7 @@ func (m Model) lastForm() int {
 	return 0
 }
 
-func (m Model) lowerView() string {
+func (m *Model) lowerView() string {
 	l := m.lay.Lower
 	switch m.lower {
 	case PaneLog:
@@ -756,7 +777,7 @@ func (m Model) lowerView() string {
 }
 
 // headerView is the top line: program, job, units, save state and mode.
-func (m Model) headerView() string {
+func (m *Model) headerView() string {
 	st := m.styles
 	mode := st.Mode.Render(" NAVIGATE ")
 	if m.typing() {
@@ -789,7 +810,7 @@ func (m Model) headerView() string {
 
 // tabsView is the pane selector: digit and name, the selected one in
 // reverse video and brackets (legible without colour).
-func (m Model) tabsView() string {
+func (m *Model) tabsView() string {
 	st := m.styles
 	names := paneNames
 	if m.lay.W < 110 {
@@ -814,7 +835,7 @@ func (m Model) tabsView() string {
 }
 
 // helpLine is the one-line help for the present state, or a one-shot hint.
-func (m Model) helpLine() string {
+func (m *Model) helpLine() string {
 	if m.flash != "" {
 		return fitBlock([]string{m.styles.Warning.Render("! " + m.flash)}, m.lay.W, 1)
 	}

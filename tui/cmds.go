@@ -174,7 +174,7 @@ func fileBase(p string) string {
 }
 
 // jobKey handles a key while the job list is open.
-func (m Model) jobKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
+func (m *Model) jobKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 	l := &m.jobs
 	switch {
 	case key.Matches(msg, m.keys.Leave), key.Matches(msg, m.keys.Open):
@@ -185,7 +185,7 @@ func (m Model) jobKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 		l.cursor = min(l.cursor+1, max(len(l.jobs)-1, 0))
 	case msg.String() == "enter":
 		if l.cursor < len(l.jobs) && l.jobs[l.cursor].Err == nil {
-			return m, loadJobCmd(l.jobs[l.cursor].Path)
+			return *m, loadJobCmd(l.jobs[l.cursor].Path)
 		}
 		if l.cursor < len(l.jobs) {
 			l.err = l.jobs[l.cursor].Err
@@ -200,5 +200,5 @@ func (m Model) jobKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 		}
 		return m.loaded(jobLoadedMsg{path: path, job: demo})
 	}
-	return m, nil
+	return *m, nil
 }

@@ -33,6 +33,7 @@ type FormPane struct {
 	styles  Styles
 	keys    KeyMap
 	sys     model.System
+	gen     int // bumped when styles or size change: every row is drawn again
 }
 
 // formField is one row of a form.
@@ -47,6 +48,12 @@ type formField struct {
 	shown   string // the value as read, in the job's unit system, or the choice label
 	errText string // the field's error, "" when fine
 	used    bool   // false when the field does not apply (e.g. tank width of a cylinder)
+
+	// The row as drawn, and the key it was drawn for (see renderRows).
+	line     string
+	errLines []string
+	key      rowKey
+	rendered bool
 }
 
 // FieldEdit is what an edit in a form reports to the root: a field and its
@@ -99,6 +106,8 @@ func (f *FormPane) SetStyles(st Styles) {
 			f.fields[i].input.SetStyles(ts)
 		}
 	}
+	f.gen++
+	f.renderRows()
 }
 
 // SetSize sets the pane's size in cells.
@@ -110,6 +119,8 @@ func (f *FormPane) SetSize(w, h int) {
 			f.fields[i].input.SetWidth(iw)
 		}
 	}
+	f.gen++
+	f.renderRows()
 }
 
 // Column widths: marker, label, input, converted value.
@@ -155,6 +166,7 @@ func (f *FormPane) SetJob(j *model.Job, errs map[model.FieldID]error) {
 	if f.cursor >= len(f.fields) {
 		f.cursor = 0
 	}
+	f.renderRows()
 }
 
 // fieldMessage is the text under an invalid field: the model's field error
@@ -332,6 +344,7 @@ func (f *FormPane) SetCursor(i int) {
 	if f.editing {
 		f.focusInput()
 	}
+	f.renderRows()
 }
 
 // SelectField selects a field by ID; false if the pane has no such field.
@@ -349,12 +362,14 @@ func (f *FormPane) SelectField(id model.FieldID) bool {
 func (f *FormPane) StartEditing() {
 	f.editing = true
 	f.focusInput()
+	f.renderRows()
 }
 
 // StopEditing leaves typing mode (navigate mode).
 func (f *FormPane) StopEditing() {
 	f.editing = false
 	f.blurInput()
+	f.renderRows()
 }
 
 func (f *FormPane) focusInput() {
@@ -408,7 +423,9 @@ func (f FormPane) Update(msg tea.Msg) (FormPane, tea.Cmd, *FieldEdit) {
 		if !ok {
 			return f, nil, nil
 		}
-		return f, nil, f.pickerKey(km)
+		e := f.pickerKey(km)
+		f.renderRows()
+		return f, nil, e
 	}
 	if !f.editing {
 		return f, nil, nil
@@ -419,6 +436,7 @@ func (f FormPane) Update(msg tea.Msg) (FormPane, tea.Cmd, *FieldEdit) {
 	before := ff.input.Value()
 	var cmd tea.Cmd
 	ff.input, cmd = ff.input.Update(msg)
+	f.renderRows()
 	if v := ff.input.Value(); v != before {
 		return f, cmd, &FieldEdit{ID: ff.spec.ID, Text: v}
 	}
@@ -485,7 +503,7 @@ func (f FormPane) CursorPos() *tea.Cursor {
 	if c == nil {
 		return nil
 	}
-	_, row := f.rows()
+	row := f.selectedLine()
 	top := f.scrollTop(row)
 	if row-top < 0 || row-top >= f.bodyHeight() {
 		return nil
@@ -498,56 +516,99 @@ func (f FormPane) CursorPos() *tea.Cursor {
 // Rendering. The pane is: a title line, the field rows (with error lines),
 // and at the bottom the selected field's help.
 
+// selectedLine is the line index of the selected field (rows without the
+// rendering).
+func (f FormPane) selectedLine() int {
+	n := 0
+	for i := 0; i < f.cursor && i < len(f.fields); i++ {
+		n++
+		if e := f.fields[i].errText; e != "" {
+			n += len(wrapText("✗ "+e, max(f.w-4, 10), 3))
+		}
+	}
+	return n
+}
+
 // rows lays out the field rows as lines and returns the line index of the
 // selected field.
 func (f FormPane) rows() ([]string, int) {
-	st := f.styles
-	lw, iw := f.labelWidth(), f.inputWidth()
-	sw := max(f.w-markerW-lw-iw-2*formColGap, 0)
 	lines := make([]string, 0, len(f.fields)+4)
 	sel := 0
 	for i := range f.fields {
-		ff := &f.fields[i]
-		focused := i == f.cursor
-		if focused {
+		if i == f.cursor {
 			sel = len(lines)
 		}
-		marker := "  "
-		labelSt := st.Label
-		if focused {
-			marker = "▶ "
-			labelSt = st.LabelFocused
-		}
-		if !ff.used {
-			labelSt = st.Muted
-		}
-		label := labelSt.Render(padRight(ansi.Truncate(ff.spec.Label, lw, "…"), lw))
-		var body string
-		switch {
-		case ff.spec.IsPicker():
-			body = f.pickerCell(ff, focused, iw+formColGap+sw)
-		case !ff.used:
-			body = st.Muted.Render(padRight("not used here", iw+formColGap+sw))
-		default:
-			in := ff.input.View()
-			if w := lipgloss.Width(in); w < iw {
-				in += strings.Repeat(" ", iw-w)
-			}
-			shown := ff.shown
-			sst := st.Unit
-			if ff.errText != "" {
-				shown, sst = "✗ invalid", st.Danger
-			}
-			body = ansi.Truncate(in, iw, "") + " " + sst.Render(ansi.Truncate(shown, sw, "…"))
-		}
-		lines = append(lines, marker+label+" "+body)
-		if ff.errText != "" {
-			for _, l := range wrapText("✗ "+ff.errText, max(f.w-4, 10), 3) {
-				lines = append(lines, "    "+st.Danger.Render(l))
-			}
-		}
+		lines = append(lines, f.fields[i].line)
+		lines = append(lines, f.fields[i].errLines...)
 	}
 	return lines, sel
+}
+
+// rowKey is everything a row's rendering depends on; a row is drawn again
+// only when its key changes (this runs on every keystroke).
+type rowKey struct {
+	raw, shown, errText string
+	focused, used, edit bool
+	pos, sub, w, gen    int
+	value               string
+}
+
+// renderRows redraws the rows whose key changed. Every method that changes
+// what a row shows ends by calling it, so View only assembles.
+func (f *FormPane) renderRows() {
+	for i := range f.fields {
+		ff := &f.fields[i]
+		k := rowKey{raw: ff.raw, shown: ff.shown, errText: ff.errText, focused: i == f.cursor, used: ff.used,
+			edit: f.editing, pos: ff.input.Position(), sub: ff.sub, w: f.w, gen: f.gen, value: ff.input.Value()}
+		if ff.rendered && k == ff.key {
+			continue
+		}
+		ff.key, ff.rendered = k, true
+		ff.line, ff.errLines = f.renderRow(i)
+	}
+}
+
+func (f *FormPane) renderRow(i int) (string, []string) {
+	st := f.styles
+	lw, iw := f.labelWidth(), f.inputWidth()
+	sw := max(f.w-markerW-lw-iw-2*formColGap, 0)
+	ff := &f.fields[i]
+	focused := i == f.cursor
+	marker := "  "
+	labelSt := st.Label
+	if focused {
+		marker = "▶ "
+		labelSt = st.LabelFocused
+	}
+	if !ff.used {
+		labelSt = st.Muted
+	}
+	label := labelSt.Render(padRight(ansi.Truncate(ff.spec.Label, lw, "…"), lw))
+	var body string
+	switch {
+	case ff.spec.IsPicker():
+		body = f.pickerCell(ff, focused, iw+formColGap+sw)
+	case !ff.used:
+		body = st.Muted.Render(padRight("not used here", iw+formColGap+sw))
+	default:
+		in := ff.input.View()
+		if w := lipgloss.Width(in); w < iw {
+			in += strings.Repeat(" ", iw-w)
+		}
+		shown := ff.shown
+		sst := st.Unit
+		if ff.errText != "" {
+			shown, sst = "✗ invalid", st.Danger
+		}
+		body = ansi.Truncate(in, iw, "") + " " + sst.Render(ansi.Truncate(shown, sw, "…"))
+	}
+	var errs []string
+	if ff.errText != "" {
+		for _, l := range wrapText("✗ "+ff.errText, max(f.w-4, 10), 3) {
+			errs = append(errs, "    "+st.Danger.Render(l))
+		}
+	}
+	return marker + label + " " + body, errs
 }
 
 func (f FormPane) pickerCell(ff *formField, focused bool, w int) string {

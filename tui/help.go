@@ -27,7 +27,7 @@ var helpCautions = []string{
 }
 
 // fullHelpView renders the help screen in exactly w×h cells.
-func (m Model) fullHelpView(w, h int) string {
+func (m *Model) fullHelpView(w, h int) string {
 	st := m.styles
 	lines := []string{st.PaneTitle.Render("All keys") + st.Muted.Render("  (esc or ? to close)"), ""}
 	cols := m.keys.fullHelp()

@@ -65,7 +65,8 @@ type ResultPane struct {
 	sys    model.System
 	w, h   int
 	styles Styles
-	lines  []string // rendered on every change; View only frames them
+	lines  []string // rendered on every change
+	frame  string   // the framed pane, rendered on every change; View returns it
 }
 
 // NewResultPane returns an empty Result pane.
@@ -100,6 +101,11 @@ func verdictText(v calc.Verdict) (string, Status) {
 }
 
 func (r *ResultPane) render() {
+	r.lines = r.content()
+	r.frame = r.framed()
+}
+
+func (r *ResultPane) content() []string {
 	st := r.styles
 	d := r.data
 	iw := max(r.w-4, 8) // inside the border and one space each side
@@ -114,8 +120,7 @@ func (r *ResultPane) render() {
 		for _, l := range wrapText("Fix the field marked ✗ on the left: "+d.StaleField, iw, 3) {
 			add(st.Warning.Render(l))
 		}
-		r.lines = ls
-		return
+		return ls
 	}
 	word, status := verdictText(d.Verdict)
 	add(st.Style(status).Render(status.Symbol() + " " + word))
@@ -188,28 +193,31 @@ func (r *ResultPane) render() {
 			add(st.Style(w.Status).Render(l))
 		}
 	}
-	r.lines = ls
+	return ls
 }
 
-// View renders the framed pane in exactly w×h cells.
-func (r ResultPane) View() string {
+// View returns the framed pane, exactly w×h cells.
+func (r ResultPane) View() string { return r.frame }
+
+func (r ResultPane) framed() string {
 	if r.w < 3 || r.h < 3 {
 		return fitBlock(nil, r.w, r.h)
 	}
-	inner := fitBlock(prefixAll(r.lines, " "), r.w-2, r.h-2)
+	// The frame is drawn by hand (one styled string per side) rather than
+	// with a lipgloss border: this runs on every keystroke.
+	b := r.styles.Border.GetBorderStyle()
+	mute := r.styles.Muted
 	title := r.styles.PaneTitle.Render(" Result ")
-	box := r.styles.Border.Width(r.w).Height(r.h).Render(inner)
-	// Put the title into the top border.
-	lines := strings.SplitN(box, "\n", 2)
-	if len(lines) == 2 {
-		top := r.styles.Muted.Render(r.styles.Border.GetBorderStyle().TopLeft+"─") + title
-		rest := r.w - 3 - lipgloss.Width(title)
-		if rest > 0 {
-			top += r.styles.Muted.Render(strings.Repeat("─", rest) + r.styles.Border.GetBorderStyle().TopRight)
-		}
-		box = top + "\n" + lines[1]
+	rest := max(r.w-3-lipgloss.Width(title), 0)
+	out := make([]string, 0, r.h)
+	out = append(out, mute.Render(b.TopLeft+b.Top)+title+mute.Render(strings.Repeat(b.Top, rest)+b.TopRight))
+	left, right := mute.Render(b.Left), mute.Render(b.Right)
+	inner := strings.Split(fitBlock(prefixAll(r.lines, " "), r.w-2, r.h-2), "\n")
+	for _, l := range inner {
+		out = append(out, left+l+right)
 	}
-	return box
+	out = append(out, mute.Render(b.BottomLeft+strings.Repeat(b.Bottom, r.w-2)+b.BottomRight))
+	return strings.Join(out, "\n")
 }
 
 func prefixAll(ls []string, p string) []string {

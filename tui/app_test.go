@@ -1,0 +1,505 @@
+package tui
+
+import (
+	"math"
+	"strings"
+	"testing"
+	"time"
+
+	tea "charm.land/bubbletea/v2"
+	"github.com/charmbracelet/x/ansi"
+
+	"drawdown/calc"
+	"drawdown/model"
+	"drawdown/presets"
+)
+
+// Test helpers: build the root on the demo job with a fixed clock and no
+// saving, drive Update with key messages, run returned commands inline.
+
+var testClock = time.Date(2026, time.March, 14, 8, 0, 0, 0, time.UTC)
+
+func newTestModel(t testing.TB, w, h int) Model {
+	t.Helper()
+	m := New(Options{Start: Start{Job: model.DemoJob()}, NoSave: true,
+		Now: func() time.Time { return testClock }, Loc: time.UTC})
+	return send(t, m, tea.WindowSizeMsg{Width: w, Height: h})
+}
+
+// send delivers one message and runs what it returns (saves are off, so the
+// commands are cheap and local).
+func send(t testing.TB, m Model, msg tea.Msg) Model {
+	t.Helper()
+	next, cmd := m.Update(msg)
+	m = next.(Model)
+	return runCmd(t, m, cmd, 0)
+}
+
+func runCmd(t testing.TB, m Model, cmd tea.Cmd, depth int) Model {
+	if cmd == nil || depth > 4 {
+		return m
+	}
+	msg := cmd()
+	switch msg := msg.(type) {
+	case nil:
+		return m
+	case tea.BatchMsg:
+		for _, c := range msg {
+			m = runCmd(t, m, c, depth+1)
+		}
+		return m
+	case tea.QuitMsg:
+		return m
+	}
+	next, c := m.Update(msg)
+	return runCmd(t, next.(Model), c, depth+1)
+}
+
+// keyMsg builds a key press from its name ("enter", "shift+tab", "ctrl+u",
+// "5", "a").
+func keyMsg(name string) tea.KeyPressMsg {
+	special := map[string]rune{"enter": tea.KeyEnter, "esc": tea.KeyEscape, "tab": tea.KeyTab,
+		"up": tea.KeyUp, "down": tea.KeyDown, "left": tea.KeyLeft, "right": tea.KeyRight,
+		"backspace": tea.KeyBackspace, "space": tea.KeySpace, "f1": tea.KeyF1}
+	if name == "shift+tab" {
+		return tea.KeyPressMsg{Code: tea.KeyTab, Mod: tea.ModShift}
+	}
+	if strings.HasPrefix(name, "ctrl+") {
+		return tea.KeyPressMsg{Code: rune(name[5]), Mod: tea.ModCtrl}
+	}
+	if c, ok := special[name]; ok {
+		return tea.KeyPressMsg{Code: c}
+	}
+	r := []rune(name)[0]
+	return tea.KeyPressMsg{Code: r, Text: name}
+}
+
+func press(t testing.TB, m Model, keys ...string) Model {
+	t.Helper()
+	for _, k := range keys {
+		m = send(t, m, keyMsg(k))
+	}
+	return m
+}
+
+// typeText types s one rune at a time.
+func typeText(t testing.TB, m Model, s string) Model {
+	t.Helper()
+	for _, r := range s {
+		m = send(t, m, tea.KeyPressMsg{Code: r, Text: string(r)})
+	}
+	return m
+}
+
+// selectField goes to the field's pane (digit key in navigate mode) and
+// moves down to it.
+func selectField(t testing.TB, m Model, id model.FieldID) Model {
+	t.Helper()
+	spec, ok := model.FieldByID(id)
+	if !ok {
+		t.Fatalf("no field %s", id)
+	}
+	if m.typing() {
+		m = press(t, m, "esc")
+	}
+	m = press(t, m, string(rune('1'+int(spec.Pane))))
+	f := m.forms[spec.Pane]
+	for i := 0; i < 20 && f.Selected().ID != id; i++ {
+		m = press(t, m, "down")
+		f = m.forms[spec.Pane]
+	}
+	if f.Selected().ID != id {
+		t.Fatalf("could not reach field %s", id)
+	}
+	return m
+}
+
+// enterField replaces a typed field's text the way a technician does:
+// select it, enter, backspace over the old text, type, enter.
+func enterField(t testing.TB, m Model, id model.FieldID, text string) Model {
+	t.Helper()
+	m = selectField(t, m, id)
+	m = press(t, m, "enter")
+	for range []rune(m.job.Inputs[id]) {
+		m = press(t, m, "backspace")
+	}
+	m = typeText(t, m, text)
+	return press(t, m, "enter")
+}
+
+func frame(m Model) string { return ansi.Strip(m.View().Content) }
+
+// checkScreen asserts a whole frame is exactly w×h cells with no NaN/Inf.
+func checkScreen(t *testing.T, m Model) string {
+	t.Helper()
+	plain := frame(m)
+	paneCheckFrame(t, plain, m.width, m.height)
+	return plain
+}
+
+// TestScreen: golden frames of the main screen and each view, at the
+// minimum size and a larger one.
+func TestScreen(t *testing.T) {
+	cases := []struct {
+		name string
+		w, h int
+		keys []string
+	}{
+		{"hose_80x24", 80, 24, nil},
+		{"lift_80x24", 80, 24, []string{"2"}},
+		{"liquid_80x24", 80, 24, []string{"3"}},
+		{"tank_80x24", 80, 24, []string{"4"}},
+		{"side_80x24", 80, 24, []string{"5"}},
+		{"curve_80x24", 80, 24, []string{"6"}},
+		{"whatif_80x24", 80, 24, []string{"7"}},
+		{"checklist_80x24", 80, 24, []string{"8"}},
+		{"log_80x24", 80, 24, []string{"9"}},
+		{"help_80x24", 80, 24, []string{"?"}},
+		{"typing_80x24", 80, 24, []string{"down", "enter"}},
+		{"us_units_80x24", 80, 24, []string{"u"}},
+		{"hose_120x40", 120, 40, nil},
+		{"side_120x40", 120, 40, []string{"5"}},
+		{"curve_120x40", 120, 40, []string{"6"}},
+		{"whatif_120x40", 120, 40, []string{"7"}},
+		{"checklist_120x40", 120, 40, []string{"8"}},
+		{"log_120x40", 120, 40, []string{"9"}},
+		{"too_small_79x24", 79, 24, nil},
+		{"too_small_40x10", 40, 10, nil},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			m := newTestModel(t, c.w, c.h)
+			m = press(t, m, c.keys...)
+			paneGolden(t, m.View().Content, c.w, c.h)
+		})
+	}
+}
+
+// TestStaleResult: an invalid field shows its message beside it and the last
+// valid result stays on screen, marked stale.
+func TestStaleResult(t *testing.T) {
+	m := newTestModel(t, 80, 24)
+	before := m.result.Data()
+	// Every prefix of "1 mm" after the old text is erased is invalid, so the
+	// last valid plan is the one for "38" (bare: 38 mm).
+	m = enterField(t, m, model.FieldHoseID, "1 mm")
+	got := checkScreen(t, m)
+	// Accepted range from model.FieldSpec (3 to 600 mm).
+	if !strings.Contains(got, "✗ Hose inside diameter") || !strings.Contains(got, "3 to 600") {
+		t.Errorf("no field message with the accepted range:\n%s", got)
+	}
+	if !strings.Contains(got, "STALE") {
+		t.Errorf("result not marked stale:\n%s", got)
+	}
+	after := m.result.Data()
+	if after.Flow != before.Flow || !after.Stale {
+		t.Errorf("last valid result not kept: flow %v → %v, stale %v", before.Flow, after.Flow, after.Stale)
+	}
+	if m.job.Inputs[model.FieldHoseID] != "1 mm" {
+		t.Errorf("typed text lost: %q", m.job.Inputs[model.FieldHoseID])
+	}
+	paneGolden(t, m.View().Content, 80, 24)
+	// ctrl+r puts back the last valid text.
+	m = selectField(t, m, model.FieldHoseID)
+	m = press(t, m, "enter", "ctrl+r")
+	if m.stale || m.job.Inputs[model.FieldHoseID] != "38" {
+		t.Errorf("ctrl+r: stale %v, text %q", m.stale, m.job.Inputs[model.FieldHoseID])
+	}
+}
+
+// TestTypedScenario types a whole case through Update and checks the numbers
+// on screen against model.Compute for the same inputs (itself checked
+// against published values in model and calc), plus the Darcy–Weisbach
+// energy balance as an analytic identity.
+func TestTypedScenario(t *testing.T) {
+	// An invented case: a 25 m run of 1 in hose over a 1.2 m wall, 3 m drop,
+	// from a 2 m vertical cylinder holding 1.5 m, intake 10 cm off the floor.
+	inputs := []struct {
+		id   model.FieldID
+		text string
+	}{
+		{model.FieldHoseID, "1in"},
+		{model.FieldHoseLength, "25 m"},
+		{model.FieldLift, "1.2m"},
+		{model.FieldDrop, "3 m"},
+		{model.FieldTankHeight, "2 m"},
+		{model.FieldTankLevel, "1.5m"},
+		{model.FieldIntakeHeight, "10 cm"},
+		{model.FieldTemp, "59F"},
+	}
+	m := newTestModel(t, 80, 24)
+	// Tank shape: cycle the picker to vertical-cylinder.
+	m = selectField(t, m, model.FieldTankShape)
+	for i := 0; i < 10 && m.job.Inputs[model.FieldTankShape] != "vertical-cylinder"; i++ {
+		m = press(t, m, "right")
+	}
+	m = enterField(t, m, model.FieldTankDiameter, "2 m")
+	for _, in := range inputs {
+		m = enterField(t, m, in.id, in.text)
+	}
+	want := model.DemoJob()
+	want.Inputs[model.FieldTankShape] = "vertical-cylinder"
+	delete(want.Inputs, model.FieldTankLength)
+	delete(want.Inputs, model.FieldTankWidth)
+	want.Inputs[model.FieldTankDiameter] = "2 m"
+	for _, in := range inputs {
+		if got := m.job.Inputs[in.id]; got != in.text {
+			t.Errorf("%s: stored %q, typed %q", in.id, got, in.text)
+		}
+		want.Inputs[in.id] = in.text
+	}
+	m.job.Inputs[model.FieldTankLength] = ""
+	m.job.Inputs[model.FieldTankWidth] = ""
+	p := model.Compute(want, presets.Builtin())
+	if !p.OK() || p.Drain == nil {
+		t.Fatalf("reference plan failed: %v", p.Err)
+	}
+	if m.stale || !m.hasPlan {
+		t.Fatalf("screen plan stale: %v", m.firstError())
+	}
+	got := checkScreen(t, m)
+	r := p.Result
+	for _, s := range []string{
+		model.Format(model.DimFlow, float64(r.Flow), model.SI),
+		speedText(model.SI, float64(r.Velocity)),
+		duration(float64(p.Drain.Time)),
+		model.Format(model.DimLength, float64(r.WorkingCrestHeight), model.SI),
+		model.Format(model.DimLength, float64(r.MaxCrestHeight), model.SI),
+	} {
+		if !strings.Contains(got, s) {
+			t.Errorf("screen lacks %q:\n%s", s, got)
+		}
+	}
+	d := m.result.Data()
+	if d.Flow != float64(r.Flow) || d.Time != float64(p.Drain.Time) {
+		t.Errorf("shown flow %g, time %g; Compute gives %g, %g", d.Flow, d.Time, float64(r.Flow), float64(p.Drain.Time))
+	}
+	// Analytic: H = V²/(2g)·(1 + ΣK + f·L/D) (Darcy–Weisbach, design §3).
+	s := p.Siphon
+	v := float64(r.Velocity)
+	h := v * v / (2 * calc.StandardGravity) *
+		(1 + s.Hose.KMinor() + r.FrictionFactor*float64(s.Hose.Length)/float64(s.Hose.Diameter))
+	if math.Abs(h-float64(r.Head))/float64(r.Head) > 0.01 {
+		t.Errorf("energy balance: V²/2g(1+ΣK+fL/D) = %g m, head %g m", h, float64(r.Head))
+	}
+	// Switch units: the same flow in gal/min.
+	m = press(t, m, "esc", "u")
+	got = checkScreen(t, m)
+	if s := model.Format(model.DimFlow, float64(r.Flow), model.US); !strings.Contains(got, s) {
+		t.Errorf("US screen lacks %q:\n%s", s, got)
+	}
+}
+
+// TestNoNaNInf throws awkward text at every typed field and checks the
+// frames for NaN and Inf. The form echoes what was typed (nothing typed is
+// lost), so for text that itself spells NaN or Inf only the columns right of
+// the form (the Result pane) and the drawn views are checked.
+func TestNoNaNInf(t *testing.T) {
+	bad := []string{"0", "-1", "1e400", "NaN", "-Inf", "0x10", "1/0", "99999999", "-", "1e-300"}
+	m := newTestModel(t, 80, 24)
+	for _, f := range model.Fields() {
+		if f.IsPicker() {
+			m = selectField(t, m, f.ID)
+			for i := 0; i < 3; i++ {
+				m = press(t, m, "right")
+				checkScreen(t, m)
+			}
+			continue
+		}
+		for _, text := range bad {
+			m = enterField(t, m, f.ID, text)
+			echo := strings.ContainsAny(strings.ToLower(text), "ni")
+			plain := frame(m)
+			if echo {
+				var right []string
+				for _, l := range strings.Split(plain, "\n") {
+					r := []rune(l)
+					right = append(right, string(r[min(m.lay.Main.W, len(r)):]))
+				}
+				plain = strings.Join(right, "\n")
+			}
+			for _, w := range []string{"NaN", "Inf", "inf", "nan"} {
+				if strings.Contains(plain, w) {
+					t.Fatalf("%s = %q: frame contains %q:\n%s", f.ID, text, w, frame(m))
+				}
+			}
+		}
+		m = press(t, m, "ctrl+r")
+	}
+	// The drawn views and the wide screen after all that.
+	for _, p := range []string{"5", "6", "9"} {
+		checkScreen(t, press(t, m, p))
+	}
+	checkScreen(t, send(t, m, tea.WindowSizeMsg{Width: 120, Height: 40}))
+}
+
+// TestResize shrinks the screen from 120×40 to 1×1 and back; every frame is
+// exactly the terminal's size and below 80×24 says so.
+func TestResize(t *testing.T) {
+	m := newTestModel(t, 120, 40)
+	m = press(t, m, "down", "enter") // typing, so a cursor is placed
+	sizes := [][2]int{{120, 40}, {100, 30}, {80, 24}, {79, 24}, {80, 23}, {60, 20}, {40, 12}, {20, 5}, {10, 3}, {1, 1}, {0, 0}, {80, 24}, {200, 60}}
+	for _, s := range sizes {
+		m = send(t, m, tea.WindowSizeMsg{Width: s[0], Height: s[1]})
+		v := m.View()
+		plain := ansi.Strip(v.Content)
+		if s[0] > 0 && s[1] > 0 {
+			paneCheckFrame(t, plain, s[0], s[1])
+		}
+		small := s[0] < MinWidth || s[1] < MinHeight
+		if small && s[0] >= 20 && s[1] >= 5 && !strings.Contains(plain, "Terminal too small") {
+			t.Errorf("%dx%d: no size message:\n%s", s[0], s[1], plain)
+		}
+		if small && v.Cursor != nil {
+			t.Errorf("%dx%d: cursor placed on the size message", s[0], s[1])
+		}
+		if c := v.Cursor; c != nil && (c.X >= s[0] || c.Y >= s[1]) {
+			t.Errorf("%dx%d: cursor off screen at %d,%d", s[0], s[1], c.X, c.Y)
+		}
+	}
+}
+
+// TestCursorSteady: the real cursor sits in the field being typed in and
+// never blinks (a blinking cursor writes to the terminal while idle).
+func TestCursorSteady(t *testing.T) {
+	m := newTestModel(t, 80, 24)
+	if m.View().Cursor != nil {
+		t.Error("cursor shown in navigate mode")
+	}
+	m = press(t, m, "down", "enter")
+	c := m.View().Cursor
+	if c == nil || c.Blink {
+		t.Fatalf("typing: cursor %+v", c)
+	}
+	lines := strings.Split(frame(m), "\n")
+	row := []rune(lines[c.Y])
+	// Cursor just after "12 m" in the Hose length row.
+	if !strings.Contains(string(row), "Hose length") || string(row[c.X-4:c.X]) != "12 m" {
+		t.Errorf("cursor at %d,%d in %q", c.X, c.Y, string(row))
+	}
+}
+
+// TestKeysModes: letters are commands only in navigate mode.
+func TestKeysModes(t *testing.T) {
+	m := newTestModel(t, 80, 24)
+	m = press(t, m, "down", "enter") // typing in Hose length
+	m = typeText(t, m, "u")          // goes into the field, no unit switch
+	if m.job.Units != model.SI || m.job.Inputs[model.FieldHoseLength] != "12 mu" {
+		t.Errorf("typing mode: units %v, text %q", m.job.Units, m.job.Inputs[model.FieldHoseLength])
+	}
+	m = press(t, m, "backspace", "esc", "u") // navigate: u switches units
+	if m.job.Units != model.US {
+		t.Errorf("navigate mode: u did not switch units")
+	}
+	m = press(t, m, "enter", "ctrl+u") // ctrl+u works while typing
+	if m.job.Units != model.SI {
+		t.Errorf("ctrl+u while typing did not switch units")
+	}
+	m = press(t, m, "esc", "8")
+	if m.focus != PaneChecklist {
+		t.Errorf("8 went to %v", m.focus)
+	}
+	m = press(t, m, "tab")
+	m = press(t, m, "1", "?")
+	if !m.showHelp || !strings.Contains(frame(m), "All keys") {
+		t.Error("? did not open the help screen")
+	}
+	m = press(t, m, "esc")
+	if m.showHelp {
+		t.Error("esc did not close help")
+	}
+	// Pickers cycle with ←/→ in navigate mode.
+	m = selectField(t, m, model.FieldOutletSubmerged)
+	m = press(t, m, "right")
+	if m.job.Inputs[model.FieldOutletSubmerged] != "yes" {
+		t.Errorf("picker: %q", m.job.Inputs[model.FieldOutletSubmerged])
+	}
+	// Multi picker: space adds the highlighted fitting, - removes it.
+	m = selectField(t, m, model.FieldHoseFittings)
+	before := m.job.Inputs[model.FieldHoseFittings]
+	m = press(t, m, "space")
+	if n := strings.Count(m.job.Inputs[model.FieldHoseFittings], ","); n != strings.Count(before, ",")+1 {
+		t.Errorf("fittings after space: %q (was %q)", m.job.Inputs[model.FieldHoseFittings], before)
+	}
+	m = press(t, m, "-")
+	if multiLabel(m.forms[0].fields[4].choices, m.job.Inputs[model.FieldHoseFittings]) !=
+		multiLabel(m.forms[0].fields[4].choices, before) {
+		t.Errorf("fittings after -: %q (was %q)", m.job.Inputs[model.FieldHoseFittings], before)
+	}
+}
+
+// TestResume: a job reopens at the pane and field it was left on.
+func TestResume(t *testing.T) {
+	m := newTestModel(t, 80, 24)
+	m = selectField(t, m, model.FieldDrop)
+	j := m.Job()
+	if j.Resume.Pane != "Lift & outlet" || j.Resume.Field != model.FieldDrop {
+		t.Fatalf("resume not recorded: %+v", j.Resume)
+	}
+	m2 := New(Options{Start: Start{Job: j}, NoSave: true})
+	if m2.focus != PaneLift || m2.forms[PaneLift].Selected().ID != model.FieldDrop {
+		t.Errorf("reopened at %v / %s", m2.focus, m2.forms[PaneLift].Selected().ID)
+	}
+}
+
+// TestSaveCommand: each change saves a copy of the job through a command;
+// a save finishing after a later change is followed by another.
+func TestSaveCommand(t *testing.T) {
+	t.Setenv("DRAWDOWN_HOME", t.TempDir())
+	dir, err := model.JobsDir()
+	if err != nil {
+		t.Fatal(err)
+	}
+	st := Start{Job: model.DemoJob(), Dir: dir, Path: model.NewJobPath(dir, "demo")}
+	m := New(Options{Start: st})
+	m = send(t, m, tea.WindowSizeMsg{Width: 80, Height: 24})
+	m = enterField(t, m, model.FieldHoseLength, "15 m")
+	got, err := model.Load(st.Path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got.Inputs[model.FieldHoseLength] != "15 m" {
+		t.Errorf("saved hose length %q", got.Inputs[model.FieldHoseLength])
+	}
+	if last, _ := model.LastJobPath(); last == "" {
+		t.Error("last job not recorded")
+	}
+	if !strings.Contains(frame(m), "✓ saved") {
+		t.Errorf("no saved mark:\n%s", frame(m))
+	}
+	// Stale reply is dropped.
+	m2, _ := m.Update(jobSavedMsg{seq: m.saveSeq + 5, err: errTest})
+	if m2.(Model).saveErr != nil {
+		t.Error("stale save reply was used")
+	}
+	// A start with this folder resumes the job.
+	s := OpenStart()
+	if s.Path == "" || s.Job.Inputs[model.FieldHoseLength] != "15 m" {
+		t.Errorf("OpenStart: %q %q", s.Path, s.Job.Inputs[model.FieldHoseLength])
+	}
+}
+
+type testErr string
+
+func (e testErr) Error() string { return string(e) }
+
+const errTest = testErr("disk full")
+
+// BenchmarkKeystroke is one keystroke at 80×24: Update (Job.Set and
+// model.Compute with the drain plan) and View.
+func BenchmarkKeystroke(b *testing.B) {
+	m := newTestModel(b, 80, 24)
+	m = press(b, m, "down", "enter") // typing in Hose length "12 m"
+	keys := []tea.KeyPressMsg{keyMsg("backspace"), {Code: 'm', Text: "m"}}
+	b.ReportAllocs()
+	b.ResetTimer()
+	var sink int
+	for i := 0; i < b.N; i++ {
+		next, _ := m.Update(keys[i%2])
+		m = next.(Model)
+		sink += len(m.View().Content)
+	}
+	if sink == 0 {
+		b.Fatal("empty view")
+	}
+}
