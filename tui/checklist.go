@@ -98,7 +98,7 @@ func NewChecklistView(st DrawStyles) ChecklistView {
 	ts := ti.Styles()
 	ts.Cursor.Blink = false // a blinking cursor streams bytes over SSH
 	ti.SetStyles(ts)
-	return ChecklistView{input: ti, keys: DefaultChecklistKeys(), styles: st}
+	return ChecklistView{input: ti, keys: DefaultChecklistKeys(), styles: st.prepared()}
 }
 
 // SetSize sets the pane's size in cells; View fills exactly w×h.
@@ -108,7 +108,7 @@ func (v *ChecklistView) SetSize(w, h int) {
 }
 
 // SetStyles replaces the styles.
-func (v *ChecklistView) SetStyles(st DrawStyles) { v.styles = st }
+func (v *ChecklistView) SetStyles(st DrawStyles) { v.styles = st.prepared() }
 
 // SetKeys replaces the pane's keys.
 func (v *ChecklistView) SetKeys(k ChecklistKeys) { v.keys = k }
@@ -300,7 +300,7 @@ func ckWrap(s string, w int) []string {
 	for _, para := range strings.Split(s, "\n") {
 		line := ""
 		for _, word := range strings.Fields(para) {
-			for lipgloss.Width(word) > w { // a word longer than the line
+			for drawWidth(word) > w { // a word longer than the line
 				if line != "" {
 					out = append(out, line)
 					line = ""
@@ -314,7 +314,7 @@ func ckWrap(s string, w int) []string {
 			case word == "":
 			case line == "":
 				line = word
-			case lipgloss.Width(line)+1+lipgloss.Width(word) <= w:
+			case drawWidth(line)+1+drawWidth(word) <= w:
 				line += " " + word
 			default:
 				out = append(out, line)
@@ -372,20 +372,21 @@ func (v ChecklistView) View() string {
 	st := &v.styles
 	steps := v.cl.Steps
 	if len(steps) == 0 {
-		return drawFit([]string{drawClip("Checklist: no steps yet — choose the liquid and the priming method.", w)}, w, h)
+		return st.drawLines([]drawLine{drawPlain("Checklist: no steps yet — choose the liquid and the priming method.", clsText)}, w, h)
 	}
 	step := steps[min(max(v.cur, 0), len(steps)-1)]
 
 	// The bottom block: input line (when typing) and the detail.
-	var input []string
+	var input []drawLine
 	if v.mode != ckBrowse {
 		label := "Reason to skip (required):"
 		if v.mode == ckNote {
 			label = "Note for this step:"
 		}
-		input = append(input, st.Title.Render(drawClip(label, w)), v.input.View())
+		iv := v.input.View()
+		input = append(input, drawPlain(label, clsTitle), drawLine{{text: iv, raw: true, width: lipgloss.Width(iv)}})
 		if v.errText != "" {
-			input = append(input, st.Danger.Render(drawClip(v.errText, w)))
+			input = append(input, drawPlain(v.errText, clsDanger))
 		}
 	}
 
@@ -399,7 +400,7 @@ func (v ChecklistView) View() string {
 	// Height budget: title 1, then list and detail share the rest; the
 	// list keeps at least three rows (or what is left in a tiny pane).
 	var listH int
-	var detail []string
+	var detail []drawLine
 	room := h - 1 - len(input)
 	if wide {
 		listH = room
@@ -413,8 +414,7 @@ func (v ChecklistView) View() string {
 		listH = room - len(detail)
 	}
 
-	title := "Checklist · " + v.progressText() + " · " + step.Section.Title()
-	lines := []string{st.Title.Render(drawClip(title, w))}
+	lines := []drawLine{drawPlain("Checklist · "+v.progressText()+" · "+step.Section.Title(), clsTitle)}
 
 	// Step list, scrolled so the selection stays in view with some steps
 	// after it.
@@ -423,7 +423,7 @@ func (v ChecklistView) View() string {
 	if listH > 0 && n > listH {
 		top = min(max(v.cur-listH/3, 0), n-listH)
 	}
-	var list []string
+	var list []drawLine
 	for i := top; i < n && len(list) < listH; i++ {
 		s := steps[i]
 		sym, cls := ckSymbol(s.State)
@@ -435,34 +435,32 @@ func (v ChecklistView) View() string {
 		if s.Caution != "" {
 			text = "! " + text // a caution goes with this step
 		}
-		body := drawClip(mark+sym+" "+text, listW)
-		if i == v.cur && v.focused {
-			body += strings.Repeat(" ", max(listW-lipgloss.Width(body), 0))
-			list = append(list, st.Selected.Render(body))
-			continue
+		switch {
+		case i == v.cur && v.focused:
+			list = append(list, drawLine{{text: drawClip(mark+sym+" "+text, listW), cls: clsSelected}}.fit(listW))
+			// keep the reverse bar across the whole width
+			list[len(list)-1][len(list[len(list)-1])-1].cls = clsSelected
+		case s.State == model.StateNotApplicable:
+			list = append(list, drawPlain(mark+sym+" "+text, clsMuted))
+		default:
+			list = append(list, drawLine{{text: mark + sym, cls: cls}, {text: " " + text}})
 		}
-		row := st.style(cls).Render(mark+sym) + " " + drawClip(text, max(listW-lipgloss.Width(mark+sym)-1, 0))
-		if s.State == model.StateNotApplicable {
-			row = st.Muted.Render(body)
-		}
-		list = append(list, row)
 	}
 	if wide {
-		right := append([]string{}, detail...)
-		for i := 0; i < max(len(list), len(right)); i++ {
-			l, r := "", ""
+		for i := 0; i < max(len(list), len(detail)); i++ {
+			var l, r drawLine
 			if i < len(list) {
 				l = list[i]
 			}
-			if i < len(right) {
-				r = right[i]
+			if i < len(detail) {
+				r = detail[i]
 			}
-			l = drawFit([]string{l}, listW, 1)
-			lines = append(lines, l+" "+r)
+			row := append(l.fit(listW), drawSeg{text: " "})
+			lines = append(lines, append(row, r...))
 		}
 	} else {
 		for len(list) < listH {
-			list = append(list, "")
+			list = append(list, nil)
 		}
 		lines = append(lines, list...)
 		lines = append(lines, detail...)
@@ -473,33 +471,36 @@ func (v ChecklistView) View() string {
 		input = input[len(input)-h:]
 	}
 	for len(lines) < h-len(input) {
-		lines = append(lines, "")
+		lines = append(lines, nil)
 	}
 	lines = append(lines[:min(len(lines), h-len(input))], input...)
-	return drawFit(lines, w, h)
+	return st.drawLines(lines, w, h)
 }
 
 // detailLines is the selected step in full, in at most maxH lines: section,
 // text, state, note and the caution in a box with the rule it comes from.
 // When room is short the caution and the state are kept first, then the
 // text, the note and the heading.
-func (v *ChecklistView) detailLines(s model.Step, w, maxH int) []string {
-	st := &v.styles
+func (v *ChecklistView) detailLines(s model.Step, w, maxH int) []drawLine {
 	if w < 8 || maxH <= 0 {
 		return nil
 	}
-	head := []string{st.Muted.Render(drawClip(s.Section.Title()+" · step "+strconv.Itoa(v.cur+1)+" of "+strconv.Itoa(len(v.cl.Steps)), w))}
-	text := ckWrap(s.Text, w)
+	plain := func(ls []string, cls drawClass) []drawLine {
+		out := make([]drawLine, len(ls))
+		for i, l := range ls {
+			out[i] = drawPlain(l, cls)
+		}
+		return out
+	}
+	head := plain([]string{s.Section.Title() + " · step " + strconv.Itoa(v.cur+1) + " of " + strconv.Itoa(len(v.cl.Steps))}, clsMuted)
+	text := plain(ckWrap(s.Text, w), clsText)
 	sl, cls := ckStateLine(s)
-	var state []string
-	for _, l := range ckWrap(sl, w) {
-		state = append(state, st.style(cls).Render(l))
-	}
-	var note []string
+	state := plain(ckWrap(sl, w), cls)
+	var note []drawLine
 	if s.Note != "" {
-		note = ckWrap("note: "+s.Note, w)
+		note = plain(ckWrap("note: "+s.Note, w), clsText)
 	}
-	var box []string
+	var box []drawLine
 	if s.Caution != "" {
 		inner := w - 4
 		body := ckWrap(s.Caution, inner)
@@ -509,13 +510,13 @@ func (v *ChecklistView) detailLines(s model.Step, w, maxH int) []string {
 		// Keep the box whole: cut its body, never its frame.
 		body = body[:min(len(body), max(maxH-2, 1))]
 		t := "┌─ ! Caution "
-		t += strings.Repeat("─", max(w-1-lipgloss.Width(t), 0)) + "┐"
-		box = append(box, st.Box.Render(drawClip(t, w)))
+		t += strings.Repeat("─", max(w-1-drawWidth(t), 0)) + "┐"
+		box = append(box, drawPlain(t, clsBox))
 		for _, l := range body {
-			pad := strings.Repeat(" ", max(inner-lipgloss.Width(l), 0))
-			box = append(box, st.Box.Render("│ ")+l+pad+st.Box.Render(" │"))
+			pad := strings.Repeat(" ", max(inner-drawWidth(l), 0))
+			box = append(box, drawLine{{text: "│ ", cls: clsBox}, {text: l + pad}, {text: " │", cls: clsBox}})
 		}
-		box = append(box, st.Box.Render("└"+strings.Repeat("─", max(w-2, 0))+"┘"))
+		box = append(box, drawPlain("└"+strings.Repeat("─", max(w-2, 0))+"┘", clsBox))
 	}
 	room := maxH - len(box)
 	state = state[:min(len(state), max(room, 0))]

@@ -244,3 +244,16 @@ func TestChecklistNeverBreaks(t *testing.T) {
 		}
 	}
 }
+
+// The Checklist frame is built in View (it holds a live text input): one
+// View of a 31-step list at 44×21.
+func BenchmarkChecklistView(b *testing.B) {
+	v := NewChecklistView(NewDrawStyles(NewStyles(true)))
+	v.SetSize(44, 21)
+	v.SetChecklist(ckDemo())
+	v.Focus()
+	b.ReportAllocs()
+	for b.Loop() {
+		paneSink = v.View()
+	}
+}

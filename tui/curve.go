@@ -64,7 +64,7 @@ type CurveView struct {
 
 // NewCurveView returns an empty Drain curve pane in the given unit system.
 func NewCurveView(st DrawStyles, sys model.System) CurveView {
-	v := CurveView{styles: st, units: newDrawUnits(sys)}
+	v := CurveView{styles: st.prepared(), units: newDrawUnits(sys)}
 	v.redraw()
 	return v
 }
@@ -73,7 +73,7 @@ func NewCurveView(st DrawStyles, sys model.System) CurveView {
 func (v *CurveView) SetSize(w, h int) { v.w, v.h = max(w, 0), max(h, 0); v.redraw() }
 
 // SetStyles replaces the styles.
-func (v *CurveView) SetStyles(st DrawStyles) { v.styles = st; v.redraw() }
+func (v *CurveView) SetStyles(st DrawStyles) { v.styles = st.prepared(); v.redraw() }
 
 // SetUnits switches the axes to another unit system.
 func (v *CurveView) SetUnits(sys model.System) { v.units = newDrawUnits(sys); v.redraw() }
@@ -191,7 +191,7 @@ func (v *CurveView) redraw() {
 	}
 	if len(c.Points) < 2 || c.StopTime <= 0 || c.Points[len(c.Points)-1].T <= 0 {
 		msg := "No drain: it stops at once at " + v.units.length(c.StopLevel) + " (" + curveReasonText(c.StopReason) + ")."
-		v.frame = drawFit([]string{v.styles.Warn.Render(drawClip("! "+msg, w))}, w, h)
+		v.frame = drawFit([]string{v.styles.paintRun(clsWarn, drawClip("! "+msg, w))}, w, h)
 		return
 	}
 	if w < 24 || h < 6 {

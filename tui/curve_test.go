@@ -118,3 +118,24 @@ func TestCurveViewNeverBreaks(t *testing.T) {
 		}
 	}
 }
+
+// One keystroke's worth of work for the Drain curve: a new 200-point plan,
+// then the frame, at the compact (44×21) and wide lower (120×17) sizes.
+func BenchmarkCurveViewSetCurveView(b *testing.B) {
+	for _, s := range []struct {
+		name string
+		w, h int
+	}{{"44x21", 44, 21}, {"120x17", 120, 17}} {
+		b.Run(s.name, func(b *testing.B) {
+			v := NewCurveView(NewDrawStyles(NewStyles(true)), model.SI)
+			v.SetSize(s.w, s.h)
+			c := cvTorricelli(2.0, -0.6, 0.35, 2.54, 0.00143, 200)
+			c.StopReason = "intake"
+			b.ReportAllocs()
+			for b.Loop() {
+				v.SetCurve(c)
+				paneSink = v.View()
+			}
+		})
+	}
+}

@@ -35,6 +35,45 @@ type DrawStyles struct {
 	Selected lipgloss.Style // the cursor (reverse video: legible without colour)
 	Current  lipgloss.Style // the present choice (bold)
 	Box      lipgloss.Style // the caution box frame
+
+	paint *drawPaint // escape codes per class, made once by prepared()
+}
+
+// drawPaint holds, for each class, the escape codes its style puts before
+// and after a run of text, so that drawing a frame costs string appends
+// rather than a lipgloss render per run (measured: a render per run made a
+// Side view frame take about 0.4 ms).
+type drawPaint struct {
+	pre, post [clsCount]string
+	ok        [clsCount]bool // false: fall back to Style.Render
+}
+
+// prepared returns the styles with their escape codes worked out.
+func (s DrawStyles) prepared() DrawStyles {
+	if s.paint != nil {
+		return s
+	}
+	p := &drawPaint{}
+	for c := drawClass(0); c < clsCount; c++ {
+		r := s.style(c).Render("X")
+		i := strings.IndexByte(r, 'X')
+		if i >= 0 && strings.Count(r, "X") == 1 && ansi.Strip(r) == "X" {
+			p.pre[c], p.post[c], p.ok[c] = r[:i], r[i+1:], true
+		}
+	}
+	s.paint = p
+	return s
+}
+
+// paintRun styles one run of single-line text in class c.
+func (s *DrawStyles) paintRun(c drawClass, text string) string {
+	if text == "" {
+		return ""
+	}
+	if s.paint != nil && s.paint.ok[c] {
+		return s.paint.pre[c] + text + s.paint.post[c]
+	}
+	return s.style(c).Render(text)
 }
 
 // PlainDrawStyles uses no colour at all: bold, faint and reverse only. The
@@ -71,6 +110,8 @@ const (
 	clsDanger
 	clsTitle
 	clsSelected
+	clsBox
+	clsCount // number of classes
 )
 
 func (s *DrawStyles) style(c drawClass) lipgloss.Style {
@@ -93,6 +134,9 @@ func (s *DrawStyles) style(c drawClass) lipgloss.Style {
 		return s.Title
 	case clsSelected:
 		return s.Selected
+	case clsBox:
+		return s.Box
+	case clsText, clsCount:
 	}
 	return s.Text
 }
@@ -227,15 +271,47 @@ func (c *drawCanvas) render(st *DrawStyles) string {
 				j++
 			}
 			s := string(run)
-			if row[i].cls == clsText || strings.TrimSpace(s) == "" {
+			if row[i].cls == clsText || row[i].cls != clsSelected && strings.TrimSpace(s) == "" {
 				b.WriteString(s)
 			} else {
-				b.WriteString(st.style(row[i].cls).Render(s))
+				b.WriteString(st.paintRun(row[i].cls, s))
 			}
 			i = j
 		}
 	}
 	return b.String()
+}
+
+// drawWidth is the cell width of plain text. Text of narrow runes only
+// (every glyph the drawn panes use: Latin, punctuation, arrows, box
+// drawing, braille, geometric shapes) is counted rune by rune; anything
+// else (escape codes, wide scripts) goes to lipgloss.Width. The fast path
+// matters: grapheme segmentation made the Checklist frame cost 0.7 ms.
+func drawWidth(s string) int {
+	n := 0
+	for _, r := range s {
+		if r < 0x20 || r >= 0x1100 && (r < 0x2000 || r >= 0x2e80) {
+			return lipgloss.Width(s)
+		}
+		n++
+	}
+	return n
+}
+
+// drawClip cuts plain text to w cells with an ellipsis.
+func drawClip(s string, w int) string {
+	if w <= 0 {
+		return ""
+	}
+	n := drawWidth(s)
+	if n <= w {
+		return s
+	}
+	if n == len([]rune(s)) { // narrow runes only
+		r := []rune(s)
+		return string(r[:w-1]) + "…"
+	}
+	return ansi.Truncate(s, w, "…")
 }
 
 // drawFit pads or cuts styled lines to exactly w cells and h lines.
@@ -260,15 +336,77 @@ func drawFit(lines []string, w, h int) string {
 	return strings.Join(out, "\n")
 }
 
-// drawClip cuts plain text to w cells with an ellipsis.
-func drawClip(s string, w int) string {
-	if w <= 0 {
+// drawSeg is a run of one-line text in one class. A raw segment is already
+// styled (a text input's view) and carries its width.
+type drawSeg struct {
+	text  string
+	cls   drawClass
+	raw   bool
+	width int
+}
+
+// drawLine is one line of segments.
+type drawLine []drawSeg
+
+func drawPlain(text string, cls drawClass) drawLine { return drawLine{{text: text, cls: cls}} }
+
+// fit clips the line to w cells (an ellipsis marks the cut) and pads it
+// with spaces to exactly w.
+func (l drawLine) fit(w int) drawLine {
+	out := make(drawLine, 0, len(l)+1)
+	x := 0
+	for _, sg := range l {
+		if x >= w {
+			break
+		}
+		sw := sg.width
+		if !sg.raw {
+			sw = drawWidth(sg.text)
+		}
+		if x+sw > w {
+			if sg.raw {
+				sg.text = ansi.Truncate(sg.text, w-x, "…")
+			} else {
+				sg.text = drawClip(sg.text, w-x)
+			}
+			sw = w - x
+		}
+		sg.width = sw
+		out = append(out, sg)
+		x += sw
+	}
+	if x < w {
+		out = append(out, drawSeg{text: strings.Repeat(" ", w-x), width: w - x})
+	}
+	return out
+}
+
+// drawLines renders lines into exactly w×h cells.
+func (s *DrawStyles) drawLines(lines []drawLine, w, h int) string {
+	if w <= 0 || h <= 0 {
 		return ""
 	}
-	if lipgloss.Width(s) <= w {
-		return s
+	var b strings.Builder
+	for i := 0; i < h; i++ {
+		if i > 0 {
+			b.WriteByte('\n')
+		}
+		var l drawLine
+		if i < len(lines) {
+			l = lines[i]
+		}
+		for _, sg := range l.fit(w) {
+			switch {
+			case sg.raw:
+				b.WriteString(sg.text)
+			case sg.cls == clsText || sg.cls != clsSelected && strings.TrimSpace(sg.text) == "":
+				b.WriteString(sg.text)
+			default:
+				b.WriteString(s.paintRun(sg.cls, sg.text))
+			}
+		}
 	}
-	return ansi.Truncate(s, w, "…")
+	return b.String()
 }
 
 // SideGeometry is what the Side view draws: plain heights in metres on one
@@ -342,7 +480,7 @@ type SideView struct {
 
 // NewSideView returns an empty Side view in the given unit system.
 func NewSideView(st DrawStyles, sys model.System) SideView {
-	v := SideView{styles: st, units: newDrawUnits(sys)}
+	v := SideView{styles: st.prepared(), units: newDrawUnits(sys)}
 	v.redraw()
 	return v
 }
@@ -351,7 +489,7 @@ func NewSideView(st DrawStyles, sys model.System) SideView {
 func (v *SideView) SetSize(w, h int) { v.w, v.h = max(w, 0), max(h, 0); v.redraw() }
 
 // SetStyles replaces the styles (after a background-colour change).
-func (v *SideView) SetStyles(st DrawStyles) { v.styles = st; v.redraw() }
+func (v *SideView) SetStyles(st DrawStyles) { v.styles = st.prepared(); v.redraw() }
 
 // SetUnits switches the labels to another unit system.
 func (v *SideView) SetUnits(sys model.System) { v.units = newDrawUnits(sys); v.redraw() }
@@ -473,7 +611,7 @@ func (v *SideView) statusText(short bool) (string, drawClass) {
 func (v *SideView) summaryLines(w int) []string {
 	g := v.geo
 	st, cls := v.statusText(w < 40)
-	lines := []string{v.styles.style(cls).Render(drawClip(st, w))}
+	lines := []string{v.styles.paintRun(cls, drawClip(st, w))}
 	add := func(s string) { lines = append(lines, drawClip(s, w)) }
 	add("crest " + v.elev(g.Crest))
 	add("level " + v.elev(g.Level))

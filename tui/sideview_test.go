@@ -175,3 +175,60 @@ func TestSideViewNeverBreaks(t *testing.T) {
 		}
 	}
 }
+
+// Styling must never change the text: the coloured frame, stripped, is the
+// plain frame (status is carried by words and symbols, not by colour).
+func TestDrawnPanesSameTextInColour(t *testing.T) {
+	for _, dark := range []bool{true, false} {
+		col := NewDrawStyles(NewStyles(dark))
+		plain := PlainDrawStyles()
+		frames := func(st DrawStyles) []string {
+			sv := NewSideView(st, model.SI)
+			sv.SetSize(78, 10)
+			sv.SetGeometry(svDemo())
+			cv := NewCurveView(st, model.SI)
+			cv.SetSize(78, 10)
+			c := cvTorricelli(2.0, -0.6, 0.35, 2.54, 0.00143, 60)
+			c.StopReason = "intake"
+			cv.SetCurve(c)
+			wv := NewWhatIfView(st, model.SI)
+			wv.SetSize(78, 10)
+			wv.SetTable(wiDemo())
+			wv.Focus()
+			ck := NewChecklistView(st)
+			ck.SetSize(78, 10)
+			ck.SetChecklist(ckDemo())
+			ck.Focus()
+			return []string{sv.View(), cv.View(), wv.View(), ck.View()}
+		}
+		a, b := frames(col), frames(plain)
+		for i := range a {
+			if ansi.Strip(a[i]) != ansi.Strip(b[i]) {
+				t.Errorf("dark=%v pane %d: text differs with colour:\n%s\n---\n%s", dark, i, ansi.Strip(a[i]), ansi.Strip(b[i]))
+			}
+		}
+	}
+}
+
+var paneSink string
+
+// One keystroke's worth of work for the Side view: new heights, then the
+// frame, at the compact (44×21) and wide (28×20) sizes.
+func BenchmarkSideViewSetGeometryView(b *testing.B) {
+	for _, s := range []struct {
+		name string
+		w, h int
+	}{{"44x21", 44, 21}, {"28x20", 28, 20}, {"118x22", 118, 22}} {
+		b.Run(s.name, func(b *testing.B) {
+			v := NewSideView(NewDrawStyles(NewStyles(true)), model.SI)
+			v.SetSize(s.w, s.h)
+			g := svDemo()
+			b.ReportAllocs()
+			for i := 0; b.Loop(); i++ {
+				g.Crest = 2.7 + float64(i%7)*0.01
+				v.SetGeometry(g)
+				paneSink = v.View()
+			}
+		})
+	}
+}

@@ -84,7 +84,7 @@ type WhatIfView struct {
 
 // NewWhatIfView returns an empty What-if pane in the given unit system.
 func NewWhatIfView(st DrawStyles, sys model.System) WhatIfView {
-	v := WhatIfView{styles: st, units: newDrawUnits(sys), keys: newWhatIfKeys()}
+	v := WhatIfView{styles: st.prepared(), units: newDrawUnits(sys), keys: newWhatIfKeys()}
 	v.redraw()
 	return v
 }
@@ -93,7 +93,7 @@ func NewWhatIfView(st DrawStyles, sys model.System) WhatIfView {
 func (v *WhatIfView) SetSize(w, h int) { v.w, v.h = max(w, 0), max(h, 0); v.redraw() }
 
 // SetStyles replaces the styles.
-func (v *WhatIfView) SetStyles(st DrawStyles) { v.styles = st; v.redraw() }
+func (v *WhatIfView) SetStyles(st DrawStyles) { v.styles = st.prepared(); v.redraw() }
 
 // SetUnits switches the table to another unit system.
 func (v *WhatIfView) SetUnits(sys model.System) { v.units = newDrawUnits(sys); v.redraw() }

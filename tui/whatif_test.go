@@ -254,3 +254,16 @@ func TestWhatIfFromGrid(t *testing.T) {
 		}
 	}
 }
+
+// A new 7×5 table and its frame.
+func BenchmarkWhatIfSetTableView(b *testing.B) {
+	v := NewWhatIfView(NewDrawStyles(NewStyles(true)), model.SI)
+	v.SetSize(120, 17)
+	v.Focus()
+	tab := wiDemo()
+	b.ReportAllocs()
+	for b.Loop() {
+		v.SetTable(tab)
+		paneSink = v.View()
+	}
+}
