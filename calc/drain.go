@@ -578,15 +578,11 @@ const (
 	evIntake event = iota
 	evCrest
 	evWorking
-	evEqual
 )
 
 // g is the event function for ev at x: positive while the drain goes on.
 func (p *planner) g(ev event, x float64) float64 {
 	hs, _, _, H := p.state(x)
-	if ev == evEqual {
-		return H - p.eps
-	}
 	if H <= 0 {
 		return -1
 	}
