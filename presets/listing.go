@@ -29,7 +29,7 @@ func (c *Catalogue) WriteListing(w io.Writer) error {
 		if l.Basis != "" {
 			lw.field("basis", l.Basis)
 		}
-		lw.field("valid", fmt.Sprintf("%s to %s °C", cnum(l.Min), cnum(l.Max)))
+		lw.field("valid", fmt.Sprintf("%s to %s °C (%s to %s °F)", cnum(l.Min), cnum(l.Max), fnum(l.Min), fnum(l.Max)))
 		T := calc.Celsius(20)
 		if T < l.Min {
 			T = l.Min
@@ -43,10 +43,10 @@ func (c *Catalogue) WriteListing(w io.Writer) error {
 			lw.field("at "+cnum(T)+" °C", err.Error())
 		}
 		if l.Cold > 0 {
-			lw.field("cold limit", fmt.Sprintf("%s %s °C", l.ColdKind, cnum(l.Cold)))
+			lw.field("cold limit", fmt.Sprintf("%s %s °C (%s °F)", l.ColdKind, cnum(l.Cold), fnum(l.Cold)))
 		}
 		if l.Flash > 0 {
-			lw.field("flash point", fmt.Sprintf("%s °C, NFPA 30 class %s", cnum(l.Flash), l.Class))
+			lw.field("flash point", fmt.Sprintf("%s °C (%s °F), NFPA 30 class %s", cnum(l.Flash), fnum(l.Flash), l.Class))
 		}
 		lw.field("hazards", l.Hazards.String())
 		lw.field("density", l.Sources.Density)
@@ -217,7 +217,7 @@ func (lw *listWriter) origin(o string) {
 
 // units that wrap keeps on the same line as the number before them.
 var glueUnits = map[string]bool{
-	"Pa": true, "kPa": true, "°C": true, "K": true, "mm": true, "m": true, "mL": true,
+	"Pa": true, "kPa": true, "°C": true, "°F": true, "K": true, "mm": true, "m": true, "mL": true,
 	"mm²/s": true, "mPa·s": true, "kg/m³": true, "%": true, "in": true, "psi": true,
 }
 
@@ -270,6 +270,9 @@ func wrap(s string, width int) []string {
 }
 
 func cnum(t calc.Temperature) string { return gnum(math.Round(t.Celsius()*100) / 100) }
+
+// fnum is the temperature in °F, rounded to 0.1.
+func fnum(t calc.Temperature) string { return gnum(math.Round((t.Celsius()*1.8+32)*10) / 10) }
 
 func gnum(v float64) string { return fmt.Sprintf("%.4g", v) }
 
