@@ -456,12 +456,12 @@ func BuildChecklist(ctx ChecklistContext) Checklist {
 	h := ctx.Hazards
 	liquid := ctx.Liquid
 	if liquid == "" {
-		liquid = "the liquid"
+		liquid = "not yet named"
 	}
 
 	// ---- Hazard check (field-practice §1.2 question 1, §3).
 	b.add(SectionHazard, "hazard.liquid",
-		"Identify "+liquid+" and read its safety data sheet; note what it looks and smells like.",
+		"Identify the liquid ("+liquid+") and check its hazards on the safety data sheet where there is one; note what it looks and smells like.",
 		"Treat an unknown liquid as hazardous until it is identified.", rulePractice)
 	if ctx.ConfinedSpace {
 		b.add(SectionHazard, "hazard.cs.permit",
@@ -657,7 +657,7 @@ func BuildChecklist(ctx ChecklistContext) Checklist {
 		b.add(SectionRun, "run.atmosphere",
 			"Keep monitoring the atmosphere from outside while the level falls.",
 			"Lowering the liquid or stirring sludge can release hydrogen sulfide and other gases.",
-			ruleAtmosphere)
+			ruleConfined)
 	}
 	if h.Environmental {
 		b.add(SectionRun, "run.sheen",
