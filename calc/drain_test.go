@@ -322,9 +322,9 @@ func bruteDrain(in DrainInput, dt float64) (tStop, hStop float64, why StopReason
 // in time and 1 mm in stop level, over shapes, stop reasons and flow regimes.
 // Source: independent numerical integration of the same quasi-steady model.
 func TestDrainMatchesBruteForce(t *testing.T) {
-	diesel := Fluid{Density: 840, Viscosity: 3.0e-3, VaporPressure: 300}   // EN 590 range values (hydraulics.md §8.2), rounded
-	glycol := Fluid{Density: 1070, Viscosity: 9.0e-3, VaporPressure: 1500} // ~50 % glycol near 5 °C, order of Melinder's table (hydraulics.md §8.3), rounded
-	oil := Fluid{Density: 870, Viscosity: 0.1, VaporPressure: 100}         // ISO VG 100 oil near 40 °C (hydraulics.md §8.4), rounded
+	diesel := Fluid{Density: 840, Viscosity: 3.0e-3, VaporPressure: 300}   // 3.6 mm²/s, inside the EN 590 range 2.0–4.5 mm²/s at 40 °C (hydraulics.md §8.2)
+	glycol := Fluid{Density: 1070, Viscosity: 9.0e-3, VaporPressure: 1500} // illustrative cold glycol mix: Melinder's table gives 4.9 mPa·s for EG 50 vol% at 15 °C (hydraulics.md §8.3); colder is thicker
+	oil := Fluid{Density: 870, Viscosity: 0.1, VaporPressure: 100}         // about ISO VG 100 (100 mm²/s) at 40 °C (hydraulics.md §8.4), rounded
 	with := func(s Siphon, f func(*Siphon)) Siphon { f(&s); return s }
 	cases := []struct {
 		name   string
@@ -550,6 +550,8 @@ func TestDrainCurve(t *testing.T) {
 // the reason.
 func TestDrainStopsAtOnce(t *testing.T) {
 	tank := mustTank(NewVerticalCylinder(1.2, 1.5))
+	// Expected reasons follow Solve's verdict rules (calc/solve.go doc) and
+	// the stop rules in PlanDrain's doc.
 	cases := []struct {
 		name   string
 		in     DrainInput

@@ -5,6 +5,8 @@ import (
 	"testing"
 )
 
+// TestAroundChoice: neighbouring standard hose bores (13 … 150 mm, common
+// practice) and lengths ×½ … ×2.
 func TestAroundChoice(t *testing.T) {
 	cases := []struct {
 		l, d      Length
