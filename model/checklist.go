@@ -340,6 +340,19 @@ type ChecklistContext struct {
 	// treated as a biohazard). ContextFor keeps them when the liquid
 	// changes; Hazards is the liquid's tags plus these.
 	ExtraHazards Hazards `json:"extra_hazards,omitzero"`
+	// SheenSeen: the crew recorded a sheen, odour of product or
+	// discoloration in the liquid before or during the release. Unless the
+	// liquid goes to a container or truck, the checklist then holds the
+	// release: no priming, running or release steps, only recording and
+	// collection (field-practice §3.8, the sheen rule; a hard branch).
+	SheenSeen bool `json:"sheen_seen,omitempty"`
+}
+
+// Held reports whether the checklist holds the release: a sheen was
+// recorded and the liquid would leave the site's control (not into a
+// container or truck).
+func (ctx ChecklistContext) Held() bool {
+	return ctx.SheenSeen && ctx.Discharge != DischargeContainer
 }
 
 // Union returns the hazards set in h or in o (the first known NFPA class).
@@ -619,6 +632,11 @@ func BuildChecklist(ctx ChecklistContext) Checklist {
 		b.needNote()
 	}
 
+	if ctx.Held() {
+		b.heldSteps(ctx)
+		return Checklist{Context: ctx, Steps: b.steps}
+	}
+
 	// ---- Prime (field-practice §2).
 	b.add(SectionPrime, "prime.no-mouth",
 		"Prime only by the method below. Never start a siphon by mouth suction.",
@@ -749,6 +767,32 @@ func BuildChecklist(ctx ChecklistContext) Checklist {
 		"This record does not authorise a discharge.", rulePractice)
 
 	return Checklist{Context: ctx, Steps: b.steps}
+}
+
+// heldSteps replaces the prime, run and release steps when a sheen was seen:
+// do not release, stop a running siphon, record, collect, notify as the plan
+// requires (field-practice §3.8; 40 CFR 110 and 112.8(c)(3)).
+func (b *builder) heldSteps(ctx ChecklistContext) {
+	b.add(SectionPrime, "hold.no-release",
+		"Sheen, odour or discoloration recorded: do not release this liquid to the "+ctx.Discharge.Label()+". Do not prime; if a siphon is running, stop it now.",
+		"Detergents or dispersants are not a fix: they hide oil and are themselves prohibited. The facility's plan or permit governs.",
+		ruleSheen)
+	b.add(SectionStop, "hold.record",
+		"Record what was seen (sheen, odour, colour), where and when; take photos with time stamps.",
+		"", ruleSPCC)
+	b.needNote()
+	b.add(SectionStop, "hold.notify",
+		"Make the notifications the facility's plan or permit requires, and record who was told and when.",
+		"A sheen reaching waters or shorelines is a reportable discharge of oil. "+deferLocal, ruleSheen)
+	b.add(SectionCloseOut, "hold.collect",
+		"Arrange collection for proper disposal (drums or a vacuum truck) and record the hauler and manifest.",
+		deferLocal, ruleSPCC)
+	b.needNote()
+	b.add(SectionCloseOut, "closeout.reseal",
+		"Close and reseal any containment drain valve; record the time.", "", ruleSPCC)
+	b.add(SectionCloseOut, "closeout.signoff",
+		"Sign off: name or initials of who did the work and of the supervisor.",
+		"This record does not authorise a discharge.", rulePractice)
 }
 
 // primeSteps adds the steps of the chosen method (field-practice §2.1–§2.7).
@@ -894,6 +938,14 @@ var ErrReasonRequired = errors.New("a reason is required to skip a step")
 // ErrNoteRequired is returned by Mark when a step that asks for a recorded
 // fact is marked done without a note.
 var ErrNoteRequired = errors.New("this step is done only with its reading or reference in the note")
+
+// WithSheen rebuilds the checklist with the sheen flag set or cleared (see
+// ChecklistContext.SheenSeen), keeping every mark.
+func (c Checklist) WithSheen(seen bool) Checklist {
+	ctx := c.Context
+	ctx.SheenSeen = seen
+	return c.Rebuild(ctx)
+}
 
 // Index returns the position of the step with this ID, or -1.
 func (c *Checklist) Index(id string) int {

@@ -577,3 +577,42 @@ func ExampleBuildChecklist() {
 	// Close out: 4
 	// first: hazard.liquid
 }
+
+// A recorded sheen holds the release: no priming, running or release steps,
+// only recording, notification and collection (40 CFR 110 sheen rule and
+// 40 CFR 112.8(c)(3), field-practice §3.8: "any sheen … do not release;
+// collect it for proper disposal"). A transfer into a container is not a
+// release and keeps its steps.
+func TestChecklistSheenHoldsRelease(t *testing.T) {
+	at := time.Date(2026, 3, 14, 7, 50, 0, 0, time.UTC)
+	ctx := ChecklistContext{Liquid: "bund water", Hazards: hzDikeWater, Method: PrimeHandPump, Discharge: DischargeStorm}
+	c := BuildChecklist(ctx)
+	if err := c.Mark("setup.inspect-before", StateDone, "", "rainbow sheen near the sump, 07:48, AM", at); err != nil {
+		t.Fatal(err)
+	}
+	held := c.WithSheen(true)
+	if !held.Context.Held() {
+		t.Fatal("not held")
+	}
+	for _, s := range held.Steps {
+		if s.Section == SectionRun || (s.Section == SectionPrime && s.ID != "hold.no-release") || strings.HasPrefix(s.ID, "prime.") {
+			t.Errorf("release step %s kept while held", s.ID)
+		}
+	}
+	for _, id := range []string{"hold.no-release", "hold.record", "hold.notify", "hold.collect", "closeout.reseal", "setup.inspect-before"} {
+		if held.Index(id) < 0 {
+			t.Errorf("held checklist lacks %s", id)
+		}
+	}
+	if s := held.Steps[held.Index("setup.inspect-before")]; s.State != StateDone || !strings.Contains(s.Note, "sheen") {
+		t.Errorf("inspection mark lost: %+v", s)
+	}
+	ctx.Discharge = DischargeContainer
+	ctx.SheenSeen = true
+	if k := BuildChecklist(ctx); k.Context.Held() || k.Index("prime.pump.stroke") < 0 {
+		t.Error("transfer to a container held")
+	}
+	if back := held.WithSheen(false); back.Index("prime.pump.stroke") < 0 || back.Index("hold.no-release") >= 0 {
+		t.Error("clearing the sheen flag did not restore the release steps")
+	}
+}

@@ -91,6 +91,13 @@ func WriteReport(w io.Writer, r ReportInput) error {
 	if ctx.Discharge != "" {
 		rw.row("Discharge to", ctx.Discharge.Label())
 	}
+	if ctx.SheenSeen {
+		if ctx.Held() {
+			rw.row("Sheen, odour or discoloration", "recorded: release held, liquid to be collected")
+		} else {
+			rw.row("Sheen, odour or discoloration", "recorded")
+		}
+	}
 	rw.row("Confined space", yesNo(ctx.ConfinedSpace))
 	if ctx.Method != "" {
 		rw.row("Priming method", ctx.Method.Label())
