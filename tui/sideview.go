@@ -434,12 +434,16 @@ type SideGeometry struct {
 	// less when not known. Working keeps the gas-release allowance;
 	// Theoretical is (p_atm − p_v)/(ρg) at zero flow.
 	WorkingLimit, TheoreticalLimit float64
+	// FlowingLimit is the crest limit at the present flow (lift), m; zero
+	// when not known. A crest above it will not run; it is stated in words
+	// (no line is drawn: it lies just under the theoretical limit).
+	FlowingLimit float64
 }
 
 // sanitize replaces non-finite numbers with 0 and negative sizes with 0.
 func (g SideGeometry) sanitize() SideGeometry {
 	for _, p := range []*float64{&g.TankHeight, &g.TankWidth, &g.Level, &g.Intake, &g.Crest,
-		&g.Outlet, &g.Target, &g.WorkingLimit, &g.TheoreticalLimit} {
+		&g.Outlet, &g.Target, &g.WorkingLimit, &g.TheoreticalLimit, &g.FlowingLimit} {
 		*p = drawFinite(*p)
 	}
 	g.TankHeight = max(g.TankHeight, 0)
@@ -457,6 +461,7 @@ const (
 	svCrestUnknown     svCrest = iota // no limits given
 	svCrestWithin                     // at or below the working limit
 	svCrestOverWorking                // above working, below theoretical
+	svCrestOverFlowing                // above the limit at the present flow
 	svCrestOverTheory                 // above the zero-flow theoretical limit
 )
 
@@ -504,6 +509,8 @@ func (v *SideView) SetGeometry(g SideGeometry) {
 	switch {
 	case g.TheoreticalLimit > 0 && lift > g.TheoreticalLimit:
 		v.crest = svCrestOverTheory
+	case g.FlowingLimit > 0 && lift > g.FlowingLimit:
+		v.crest = svCrestOverFlowing
 	case g.WorkingLimit > 0 && lift > g.WorkingLimit:
 		v.crest = svCrestOverWorking
 	case g.WorkingLimit > 0:
@@ -576,41 +583,51 @@ func (v *SideView) redraw() {
 	v.frame = v.drawing(w, h)
 }
 
-// statusText is the one-line verdict on the crest and the drop, in words.
-func (v *SideView) statusText(short bool) (string, drawClass) {
+// statusText is the one-line verdict on the crest and the drop, in words:
+// the longest wording that fits w cells.
+func (v *SideView) statusText(w int) (string, drawClass) {
 	g := v.geo
 	lift := g.Crest - g.Level
 	u := v.units
+	var cls drawClass
+	var say []string // longest first
 	switch {
 	case v.noDrop:
-		if short {
-			return "✗ outlet not below level", clsDanger
-		}
-		return "✗ outlet not below the level: no drop, no flow", clsDanger
+		cls = clsDanger
+		say = []string{"✗ outlet not below the level: no drop, no flow", "✗ outlet not below level: no flow", "✗ no drop"}
 	case v.crest == svCrestOverTheory:
-		if short {
-			return "✗ crest above limit", clsDanger
-		}
-		return "✗ crest " + u.length(lift-g.TheoreticalLimit) + " above the theoretical limit: will not run", clsDanger
+		cls = clsDanger
+		say = []string{"✗ crest " + u.length(lift-g.TheoreticalLimit) + " above the theoretical limit: will not run",
+			"✗ crest above limit: will not run", "✗ crest above limit"}
+	case v.crest == svCrestOverFlowing:
+		cls = clsDanger
+		say = []string{"✗ crest " + u.length(lift-g.FlowingLimit) + " above the limit at this flow: will not run",
+			"✗ crest above limit: will not run", "✗ crest above limit"}
 	case v.crest == svCrestOverWorking:
-		if short {
-			return "! crest over working limit", clsWarn
-		}
-		return "! crest " + u.length(lift-g.WorkingLimit) + " over the working limit: gas will gather, may break", clsWarn
+		cls = clsWarn
+		say = []string{"! crest " + u.length(lift-g.WorkingLimit) + " over the working limit: gas will gather, may break",
+			"! crest " + u.length(lift-g.WorkingLimit) + " over working limit", "! over working limit"}
 	case v.crest == svCrestWithin:
-		if short {
-			return "✓ lift " + u.length(lift) + " of " + u.length(g.WorkingLimit), clsOK
-		}
-		return "✓ lift " + u.length(lift) + " within working limit " + u.length(g.WorkingLimit) +
-			" · drop " + u.length(g.Level-g.Outlet), clsOK
+		cls = clsOK
+		say = []string{"✓ lift " + u.length(lift) + " within working limit " + u.length(g.WorkingLimit) + " · drop " + u.length(g.Level-g.Outlet),
+			"✓ lift " + u.length(lift) + " of " + u.length(g.WorkingLimit) + " · drop " + u.length(g.Level-g.Outlet),
+			"✓ lift " + u.length(lift) + " of " + u.length(g.WorkingLimit)}
+	default:
+		cls = clsText
+		say = []string{"lift " + u.length(lift) + " · drop " + u.length(g.Level-g.Outlet)}
 	}
-	return "lift " + u.length(lift) + " · drop " + u.length(g.Level-g.Outlet), clsText
+	for _, t := range say {
+		if drawWidth(t) <= w {
+			return t, cls
+		}
+	}
+	return say[len(say)-1], cls
 }
 
 // summaryLines is the text fallback for a pane too small to draw in.
 func (v *SideView) summaryLines(w int) []string {
 	g := v.geo
-	st, cls := v.statusText(w < 40)
+	st, cls := v.statusText(w)
 	lines := []string{v.styles.paintRun(cls, drawClip(st, w))}
 	add := func(s string) { lines = append(lines, drawClip(s, w)) }
 	add("crest " + v.elev(g.Crest))
@@ -809,7 +826,7 @@ func (v *SideView) drawing(w, h int) string {
 	crestCls := clsText
 	crestText := "crest " + v.elev(g.Crest)
 	switch v.crest {
-	case svCrestOverTheory:
+	case svCrestOverTheory, svCrestOverFlowing:
 		crestCls, crestText = clsDanger, "✗ "+crestText+" OVER LIMIT"
 	case svCrestOverWorking:
 		crestCls, crestText = clsWarn, "! "+crestText+" over working"
@@ -876,7 +893,7 @@ func (v *SideView) drawing(w, h int) string {
 		}
 	}
 
-	st, cls := v.statusText(w < 70)
+	st, cls := v.statusText(w)
 	c.text(0, h-1, drawClip(st, w), cls)
 	return c.render(&v.styles)
 }

@@ -118,6 +118,11 @@ func TestSideView(t *testing.T) {
 			g.OutletSubmerged, g.Outlet, g.WorkingLimit, g.TheoreticalLimit = true, 0.8, 3.0, 4.0
 			return g
 		}(), model.SI},
+		{"over_flowing", func() SideGeometry {
+			g := svDemo()
+			g.Crest, g.WorkingLimit, g.FlowingLimit, g.TheoreticalLimit = 6.4, 3.3, 4.2, 4.5 // a warm volatile liquid: invented limits
+			return g
+		}(), model.US},
 		{"pit_no_drop", SideGeometry{Level: 0, Intake: -0.5, Crest: 1.2, Outlet: 0.3, WorkingLimit: 6, TheoreticalLimit: 9.5}, model.SI},
 	}
 	for _, c := range cases {
@@ -163,7 +168,7 @@ func TestSideViewNeverBreaks(t *testing.T) {
 			Tank: rng.IntN(2) == 0, TankHeight: pick(), TankWidth: pick(),
 			Level: pick(), Intake: pick(), Crest: pick(), Outlet: pick(),
 			OutletSubmerged: rng.IntN(2) == 0, HasTarget: rng.IntN(2) == 0, Target: pick(),
-			WorkingLimit: pick(), TheoreticalLimit: pick(),
+			WorkingLimit: pick(), TheoreticalLimit: pick(), FlowingLimit: pick(),
 		}
 		w, h := rng.IntN(130)-2, rng.IntN(45)-2
 		v := NewSideView(PlainDrawStyles(), model.System(rng.IntN(2)))
