@@ -300,7 +300,7 @@ func FitReadings(readings []Reading, sim Simulator, opt FitOptions) (Fit, error)
 			if end := rs[0].At.Add(secondsDuration(c.End())); end.Before(f.Finish) {
 				f.Finish = end
 			}
-			if f.Stop == "" || f.Stop == string(calc.StopIntake) && c.Stop != "" {
+			if c.Stop != "" {
 				f.Stop = c.Stop
 			}
 			f.StopLevel = c.Levels[len(c.Levels)-1]
