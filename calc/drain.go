@@ -49,8 +49,8 @@ func (r StopReason) Text() string {
 // EqualHead is the head at which a drain is reported as having reached
 // "levels equal". The flow falls to zero as the head does, so the last
 // centimetre would take very long (for laminar flow, for ever); 1 cm is
-// below what a tape on a tank wall resolves (our choice, stated in the
-// output).
+// well inside the error of heights taped in the field (see
+// DefaultHeightTolerance). Our choice; the plan reports it in EqualHead.
 const EqualHead Length = 0.01
 
 // Curve sizes.
