@@ -100,15 +100,21 @@ type Model struct {
 	result    ResultPane
 	side      SideView
 	curve     CurveView
-	log       LogPane
-	help      help.Model
-	showHelp  bool
-	jobs      jobList
-	flash     string // one-shot hint on the help line, cleared by the next key
-	width     int
-	height    int
-	lay       layout
-	startNote string
+	whatif    WhatIfView
+	checklist ChecklistView
+	// whatIfSeq tags the What-if grid computations; a reply for an older
+	// plan is dropped.
+	whatIfSeq   uint64
+	whatIfDirty bool
+	log         LogPane
+	help        help.Model
+	showHelp    bool
+	jobs        jobList
+	flash       string // one-shot hint on the help line, cleared by the next key
+	width       int
+	height      int
+	lay         layout
+	startNote   string
 
 	// Saving: one save in flight at a time; a change during a save marks
 	// the job dirty and another save follows.
@@ -151,6 +157,10 @@ func New(o Options) Model {
 	m.result = NewResultPane(st)
 	m.side = NewSideView(ds, m.job.Units)
 	m.curve = NewCurveView(ds, m.job.Units)
+	m.whatif = NewWhatIfView(ds, m.job.Units)
+	m.checklist = NewChecklistView(ds)
+	m.checklist.SetChecklist(m.job.Checklist)
+	m.checklist.SetCurrent(m.job.Resume.StepID)
 	m.log = NewLogPane(st, km, o.Loc)
 	m.help = help.New()
 	m.help.Styles = st.HelpStyles()
@@ -161,7 +171,23 @@ func New(o Options) Model {
 	m.resume()
 	m.recompute()
 	m.resize(MinWidth, MinHeight)
+	m.focusViews()
 	return m
+}
+
+// focusViews gives the keyed views (What-if, Checklist) the focus when
+// they are the focused pane.
+func (m *Model) focusViews() {
+	if m.focus == PaneWhatIf {
+		m.whatif.Focus()
+	} else {
+		m.whatif.Blur()
+	}
+	if m.focus == PaneChecklist {
+		m.checklist.Focus()
+	} else {
+		m.checklist.Blur()
+	}
 }
 
 // resume puts the focus where the job was left.
@@ -206,7 +232,7 @@ func (m Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
 		return m.key(msg)
 	case tea.WindowSizeMsg:
 		m.resize(msg.Width, msg.Height)
-		return m, nil
+		return m, m.whatIfCmd()
 	case tea.BackgroundColorMsg:
 		m.setStyles(NewStyles(msg.IsDark()))
 		return m, nil
@@ -217,6 +243,31 @@ func (m Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
 		return m, nil
 	case jobLoadedMsg:
 		return m.loaded(msg)
+	case whatIfMsg:
+		if msg.seq == m.whatIfSeq {
+			if msg.err != nil || !msg.ok {
+				m.whatif.ClearTable()
+			} else {
+				m.whatif.SetTable(msg.table)
+			}
+		}
+		return m, nil
+	case WhatIfAdoptMsg:
+		return m.adopt(msg)
+	case ChecklistMarkMsg:
+		return m.mark(msg)
+	case ChecklistNoteMsg:
+		if err := m.job.Checklist.SetNote(msg.ID, msg.Note); err != nil {
+			m.flash = err.Error()
+			return m, nil
+		}
+		m.job.Updated = m.now()
+		m.checklist.SetChecklist(m.job.Checklist)
+		return m, m.save(false)
+	case ChecklistStepMsg:
+		m.job.Resume.StepID = msg.ID
+		m.job.Resume.Step = m.job.Checklist.Index(msg.ID)
+		return m, m.save(false)
 	case StopMsg:
 		m.job.AddLog(m.now(), "stopped ("+msg.Reason+"); job saved")
 		m.quitting = true
@@ -234,6 +285,8 @@ func (m *Model) setStyles(st Styles) {
 	m.result.SetStyles(st)
 	m.side.SetStyles(ds)
 	m.curve.SetStyles(ds)
+	m.whatif.SetStyles(ds)
+	m.checklist.SetStyles(ds)
 	m.log.SetStyles(st)
 	m.help.Styles = st.HelpStyles()
 	m.jobs.styles = st
@@ -248,7 +301,7 @@ func (m *Model) typing() bool {
 		f := m.forms[m.focus]
 		return f.Editing() && !f.SelectedIsPicker()
 	}
-	return false
+	return m.focus == PaneChecklist && m.checklist.Typing()
 }
 
 func (m *Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
@@ -274,6 +327,23 @@ func (m *Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 		return m.jobKey(msg)
 	}
 	typing := m.typing()
+	// The focused view's own keys come before the navigate letters (the
+	// Checklist's s is "skip" there, not "save").
+	switch m.focus {
+	case PaneChecklist:
+		if typing || key.Matches(msg, m.checklist.ShortHelp()...) {
+			var cmd tea.Cmd
+			m.checklist, cmd = m.checklist.Update(msg)
+			return *m, cmd
+		}
+	case PaneWhatIf:
+		if key.Matches(msg, m.whatif.ShortHelp()...) {
+			var cmd tea.Cmd
+			m.whatif, cmd = m.whatif.Update(msg)
+			return *m, cmd
+		}
+	case PaneHose, PaneLift, PaneLiquid, PaneTank, PaneSide, PaneCurve, PaneLog, paneCount:
+	}
 	if !typing {
 		switch {
 		case key.Matches(msg, k.QuitNav):
@@ -415,8 +485,9 @@ func (m *Model) setFocus(p PaneID) tea.Cmd {
 	if !p.isForm() && p != PaneSide {
 		m.lower = p
 	}
+	m.focusViews()
 	m.syncDrawn()
-	return m.saveResume()
+	return tea.Batch(m.saveResume(), m.whatIfCmd())
 }
 
 // applyEdit stores the new text, recomputes and saves.
@@ -428,7 +499,7 @@ func (m *Model) applyEdit(e FieldEdit, cmd tea.Cmd) (tea.Model, tea.Cmd) {
 		m.rebuildChecklist(e.ID)
 	}
 	m.recompute()
-	return *m, tea.Batch(cmd, m.save(false))
+	return *m, tea.Batch(cmd, m.save(false), m.whatIfCmd())
 }
 
 // restoreField puts back the field's text from the last valid plan's job
@@ -515,7 +586,9 @@ func (m *Model) refresh() {
 	}
 	m.result.SetData(rd, sys)
 	m.drawnDirty = true
+	m.whatIfDirty = true
 	m.syncDrawn()
+	m.checklist.SetChecklist(m.job.Checklist)
 	m.log.SetEntries(m.job.Log)
 }
 
@@ -564,9 +637,10 @@ func (m *Model) toggleUnits() (tea.Model, tea.Cmd) {
 	m.job.Updated = m.now()
 	m.side.SetUnits(sys)
 	m.curve.SetUnits(sys)
+	m.whatif.SetUnits(sys)
 	m.recompute()
 	m.flash = "units now " + sysName(sys) + " (bare numbers you typed keep their old unit)"
-	return *m, m.save(false)
+	return *m, tea.Batch(m.save(false), m.whatIfCmd())
 }
 
 func sysName(s model.System) string {
@@ -607,9 +681,8 @@ func (m *Model) saveResume() tea.Cmd {
 	if m.focus.isForm() {
 		r.Field = m.forms[m.focus].Selected().ID
 	}
-	r.Step = m.job.Checklist.CurrentIndex()
-	if s, ok := m.job.Checklist.Current(); ok {
-		r.StepID = s.ID
+	if id := m.checklist.CurrentID(); id != "" {
+		r.StepID, r.Step = id, m.job.Checklist.Index(id)
 	}
 	return m.save(false)
 }
@@ -645,9 +718,15 @@ func (m *Model) loaded(msg jobLoadedMsg) (tea.Model, tea.Cmd) {
 	m.hasPlan = false
 	m.side.SetUnits(m.job.Units)
 	m.curve.SetUnits(m.job.Units)
+	m.whatif.SetUnits(m.job.Units)
+	m.checklist = NewChecklistView(NewDrawStyles(m.styles))
+	m.checklist.SetChecklist(m.job.Checklist)
+	m.checklist.SetCurrent(m.job.Resume.StepID)
 	m.resume()
 	m.recompute()
-	return *m, m.save(true)
+	m.resize(m.width, m.height)
+	m.focusViews()
+	return *m, tea.Batch(m.save(true), m.whatIfCmd())
 }
 
 // resize lays the panes out for a w×h terminal.
@@ -667,10 +746,14 @@ func (m *Model) resize(w, h int) {
 		m.side.SetSize(l.Side.W, l.Side.H)
 		m.curve.SetSize(l.Lower.W, l.Lower.H)
 		m.log.SetSize(l.Lower.W, l.Lower.H)
+		m.whatif.SetSize(l.Lower.W, l.Lower.H)
+		m.checklist.SetSize(l.Lower.W, l.Lower.H)
 	} else {
 		m.side.SetSize(l.Main.W, l.Main.H)
 		m.curve.SetSize(l.Main.W, l.Main.H)
 		m.log.SetSize(l.Main.W, l.Main.H)
+		m.whatif.SetSize(l.Main.W, l.Main.H)
+		m.checklist.SetSize(l.Main.W, l.Main.H)
 	}
 	m.jobs.w, m.jobs.h = l.Main.W, l.Main.H
 	m.syncDrawn()
@@ -746,9 +829,13 @@ func (m *Model) mainView(w, h int) string {
 		return m.curve.View()
 	case PaneLog:
 		return m.log.View()
-	case PaneWhatIf, PaneChecklist, paneCount:
+	case PaneWhatIf:
+		return m.whatif.View()
+	case PaneChecklist:
+		return m.checklist.View()
+	case paneCount:
 	}
-	return fitBlock([]string{m.styles.PaneTitle.Render(m.focus.String()), m.styles.Muted.Render("not ready in this build")}, w, h)
+	return fitBlock(nil, w, h)
 }
 
 // lastForm is the form shown on a wide screen while a view has the focus.
@@ -771,9 +858,13 @@ func (m *Model) lowerView() string {
 		return m.log.View()
 	case PaneCurve, PaneSide:
 		return m.curve.View()
-	case PaneHose, PaneLift, PaneLiquid, PaneTank, PaneWhatIf, PaneChecklist, paneCount:
+	case PaneWhatIf:
+		return m.whatif.View()
+	case PaneChecklist:
+		return m.checklist.View()
+	case PaneHose, PaneLift, PaneLiquid, PaneTank, paneCount:
 	}
-	return fitBlock([]string{m.styles.PaneTitle.Render(m.lower.String()), m.styles.Muted.Render("not ready in this build")}, l.W, l.H)
+	return fitBlock(nil, l.W, l.H)
 }
 
 // headerView is the top line: program, job, units, save state and mode.
@@ -852,6 +943,13 @@ func (m *Model) helpLine() string {
 		b = m.forms[m.focus].ShortHelp()
 	case m.focus == PaneLog:
 		b = append(m.log.ShortHelp(), m.keys.shortHelp(false, false, false)...)
+	case m.focus == PaneChecklist:
+		b = m.checklist.ShortHelp()
+		if !m.checklist.Typing() {
+			b = append(b, m.keys.Panes, m.keys.QuitNav)
+		}
+	case m.focus == PaneWhatIf:
+		b = append(m.whatif.ShortHelp(), m.keys.Panes, m.keys.QuitNav)
 	default:
 		b = m.keys.shortHelp(false, false, false)
 	}
@@ -1033,4 +1131,77 @@ func planToCurve(p model.Plan) (DrainCurve, bool) {
 		c.HasTarget, c.Target = true, t
 	}
 	return c, true
+}
+
+// whatIfMsg carries a What-if grid computed in the background.
+type whatIfMsg struct {
+	seq   uint64
+	table WhatIfTable
+	ok    bool
+	err   error
+}
+
+// whatIfCmd computes the What-if grid for the present plan when the pane is
+// on screen and the plan changed. The sweep is a few dozen drain plans
+// (several milliseconds), so it runs as a command tagged with a counter.
+func (m *Model) whatIfCmd() tea.Cmd {
+	on := m.focus == PaneWhatIf || (m.lay.Wide && m.lower == PaneWhatIf)
+	if !on || !m.whatIfDirty || !m.hasPlan {
+		return nil
+	}
+	m.whatIfDirty = false
+	m.whatIfSeq++
+	seq := m.whatIfSeq
+	in := m.plan.DrainIn
+	if m.plan.Drain == nil {
+		in = calc.DrainInput{Siphon: m.plan.Siphon}
+	}
+	hasTank := m.plan.Drain != nil
+	h := m.plan.Siphon.Hose
+	hoses := m.plan.Siphon.Hoses
+	return func() tea.Msg {
+		ls, ds := calc.AroundChoice(h.Length, h.Diameter)
+		g, err := calc.WhatIf(in, ls, ds)
+		if err != nil {
+			return whatIfMsg{seq: seq, err: err}
+		}
+		return whatIfMsg{seq: seq, ok: true, table: WhatIfFromGrid(g, float64(h.Length), float64(h.Diameter), hoses, hasTank)}
+	}
+}
+
+// adopt takes a What-if cell as the job's hose.
+func (m *Model) adopt(a WhatIfAdoptMsg) (tea.Model, tea.Cmd) {
+	sys := m.job.Units
+	l := model.Format(model.DimLength, a.Length, sys)
+	d := model.Format(model.DimDiameter, a.Diameter, sys)
+	_ = m.job.Set(model.FieldHoseLength, l)
+	_ = m.job.Set(model.FieldHoseID, d)
+	_ = m.job.Set(model.FieldHoseCount, strconv.Itoa(max(a.Hoses, 1)))
+	m.job.AddLog(m.now(), "what-if: hose changed to "+strconv.Itoa(max(a.Hoses, 1))+" × "+d+" bore, "+l+" long")
+	m.job.Updated = m.now()
+	m.recompute()
+	m.flash = "now using " + strconv.Itoa(max(a.Hoses, 1)) + " × " + d + ", " + l + " (see the Hose pane)"
+	return *m, tea.Batch(m.save(false), m.whatIfCmd())
+}
+
+// mark records a checklist step's state with the time, logs it and saves.
+func (m *Model) mark(c ChecklistMarkMsg) (tea.Model, tea.Cmd) {
+	now := m.now()
+	if err := m.job.Checklist.Mark(c.ID, c.State, c.Reason, "", now); err != nil {
+		m.flash = err.Error()
+		return *m, nil
+	}
+	text := "checklist: " + c.ID + " " + c.State.Label()
+	if c.Reason != "" {
+		text += " (" + c.Reason + ")"
+	}
+	m.job.AddLog(now, text)
+	m.job.Updated = now
+	if c.Current != "" {
+		m.job.Resume.StepID = c.Current
+		m.job.Resume.Step = m.job.Checklist.Index(c.Current)
+	}
+	m.checklist.SetChecklist(m.job.Checklist)
+	m.log.SetEntries(m.job.Log)
+	return *m, m.save(false)
 }
