@@ -437,6 +437,9 @@ func (p *parser) unknownUnit(rest string) string {
 	if strings.HasPrefix(rest, ",") || strings.HasPrefix(rest, "_") {
 		return "use a decimal point, not a comma, and no digit separators"
 	}
+	if low := normUnit(rest); p.d == DimPressure && (strings.HasSuffix(low, "g") && low != "inhg" && low != "mmhg" && low != "\"hg" || strings.Contains(low, "gauge")) {
+		return strconv.Quote(rest) + " is a gauge pressure; enter the absolute pressure (a barometer reading)"
+	}
 	if p.d == DimViscosity && strings.Contains(strings.ToLower(rest), "st") {
 		return strconv.Quote(rest) + " is a kinematic viscosity; enter the dynamic viscosity (mPa·s = mm²/s × density in g/cm³)"
 	}
@@ -489,7 +492,9 @@ func (p *parser) toSI(v float64, u unit) (float64, error) {
 		}
 		si = 0
 	}
-	if math.Abs(si) > maxSI || math.IsNaN(si) {
+	// The 0.1 % slack lets Format's rounded output of a value at the bound
+	// parse again.
+	if math.Abs(si) > maxSI*1.001 || math.IsNaN(si) {
 		return 0, p.fail(0, "number too large", ErrTooLarge)
 	}
 	if si == 0 {

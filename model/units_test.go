@@ -183,6 +183,8 @@ func TestParseRejects(t *testing.T) {
 		{"15C", DimLength, ErrUnit, "accepted units m, cm, mm"},
 		{"25 furlongs", DimLength, ErrUnit, "furlongs"},
 		{"2 cSt", DimViscosity, ErrUnit, "kinematic"},
+		{"14.7 psig", DimPressure, ErrUnit, "gauge"},
+		{"1 barg", DimPressure, ErrUnit, "gauge"},
 		{"3 ft 2 m", DimLength, ErrUnit, "inches"},
 		{"2 m", DimNumber, ErrUnit, "plain number"},
 		{"-500C", DimTemperature, ErrSyntax, "absolute zero"},
