@@ -87,7 +87,7 @@ func bandCases(s Siphon, tol Tolerance) (slow, fast Siphon, dz float64, err erro
 			eHi = float64(SmoothRoughnessHigh)
 		}
 	}
-	maxE := float64(s.Hose.Diameter) / 2
+	maxE := MaxRelativeRoughness * float64(s.Hose.Diameter)
 	if err = checkRange("roughness, low end", eLo, 0, maxE, "m"); err != nil {
 		return
 	}
@@ -150,7 +150,7 @@ func bandCases(s Siphon, tol Tolerance) (slow, fast Siphon, dz float64, err erro
 // input is moved). It is the flow band without a tank.
 //
 // Errors: Solve's errors for s; a *RangeError for a tolerance outside its
-// range (height tolerance 0–10 m; roughness 0 … D/2 with low ≤ high; ΣK
+// range (height tolerance 0–10 m; roughness 0 … D/10 with low ≤ high; ΣK
 // 0 … MaxK with low ≤ high).
 func FlowBand(s Siphon, tol Tolerance) (low, high FlowRate, err error) {
 	if _, err = Solve(s); err != nil {

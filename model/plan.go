@@ -54,7 +54,7 @@ type Plan struct {
 	// KLow and KHigh bound ΣK (all fittings) over the fittings' published
 	// spread; RoughLow and RoughHigh bound ε over the material's range.
 	KLow, KHigh        float64
-	RoughLow, RoughHig calc.Length
+	RoughLow, RoughHigh calc.Length
 	// FlowLow and FlowHigh bound the flow over the input uncertainties.
 	FlowLow, FlowHigh calc.FlowRate
 
@@ -64,6 +64,9 @@ type Plan struct {
 	DrainIn  calc.DrainInput
 	TimeLow  calc.Seconds
 	TimeHigh calc.Seconds
+	// SlowMayNotStart is true when, at the slow end of the tolerances, the
+	// siphon would not run at all: TimeHigh then has no upper bound.
+	SlowMayNotStart bool
 
 	// PumpStrokes is the number of hand-pump strokes to fill the hoses, 0
 	// when no stroke volume is given.
@@ -213,11 +216,11 @@ func (c *computer) run() {
 	if m, ok := c.cat.Material(matID); ok {
 		p.Material = m
 		hose.Roughness = m.Roughness
-		p.RoughLow, p.RoughHig = m.RoughnessLow, m.RoughnessHigh
+		p.RoughLow, p.RoughHigh = m.RoughnessLow, m.RoughnessHigh
 	}
 	if v, ok := c.num(FieldHoseRoughness); ok {
 		hose.Roughness = calc.Length(v)
-		p.RoughLow, p.RoughHig = hose.Roughness, hose.Roughness
+		p.RoughLow, p.RoughHigh = hose.Roughness, hose.Roughness
 	}
 	c.fittings(&hose)
 	hoses := 1
@@ -489,83 +492,53 @@ func (c *computer) calcFieldError(id FieldID, err error) error {
 	return &FieldError{ID: id, Label: f.Label, Text: c.text(id), Detail: err.Error(), Err: err}
 }
 
-// bandCases returns the siphon at the slow and the fast ends of the input
-// uncertainties: roughness over the material's published range, ΣK from the
-// fittings' low to high values, and every measured height off by the height
-// tolerance in the direction that slows (or speeds) the flow — less drop,
-// more lift, a shallower intake.
-func (c *computer) bandCases() (slow, fast calc.Siphon) {
+// tolerance states the input uncertainties for the band: the height
+// tolerance the technician set, roughness over the material's published
+// range (or the override exactly), and ΣK from the fittings' low values to
+// their high values, at least calc.KFactorHigh times the central sum
+// (handbook K are lower bounds at siphon velocities).
+func (c *computer) tolerance() calc.Tolerance {
 	p := &c.p
-	tol := 0.03
+	t := calc.Tolerance{RoughnessLow: p.RoughLow, RoughnessHigh: p.RoughHigh}
 	if v, ok := c.num(FieldTolHeight); ok {
-		tol = v
-	}
-	slow, fast = p.Siphon, p.Siphon
-	slow.Hose.Roughness, fast.Hose.Roughness = p.RoughHig, p.RoughLow
-	if k := p.Siphon.Hose.KMinor(); k > 0 {
-		// Scale each part so the sums hit the ends of the ΣK range.
-		lo, hi := p.KLow/k, p.KHigh/k
-		scale := func(h *calc.Hose, f float64) {
-			h.KEntrance *= f
-			h.KUpLeg *= f
-			h.KDownLeg *= f
+		t.Height = calc.Length(v)
+		if v == 0 {
+			t.Height = 1e-9 // "no tolerance" (zero means the default in calc)
 		}
-		scale(&slow.Hose, hi)
-		scale(&fast.Hose, lo)
 	}
-	t := calc.Length(tol)
-	slow.Geometry.Outlet += t
-	slow.Geometry.Crest += t
-	fast.Geometry.Outlet -= t
-	fast.Geometry.Crest -= t
-	if fast.Geometry.Crest < fast.Geometry.Intake {
-		fast.Geometry.Crest = fast.Geometry.Intake
-	}
-	return slow, fast
+	k := p.Siphon.Hose.KMinor()
+	t.KLow = min(p.KLow, k)
+	t.KHigh = max(p.KHigh, calc.KFactorHigh*k)
+	return t
 }
 
-// band fills FlowLow and FlowHigh. A bound that cannot be solved (the slow
-// case may not run at all) is a flow of zero.
+// band fills FlowLow and FlowHigh (calc.FlowBand). When the band cannot be
+// computed, it collapses to the central flow and a note says so.
 func (c *computer) band() {
 	p := &c.p
-	slow, fast := c.bandCases()
-	if r, err := calc.Solve(slow); err == nil {
-		p.FlowLow = r.Flow
-	}
-	if r, err := calc.Solve(fast); err == nil {
-		p.FlowHigh = r.Flow
+	lo, hi, err := calc.FlowBand(p.Siphon, c.tolerance())
+	if err != nil {
+		lo, hi = p.Result.Flow, p.Result.Flow
+		c.note("no flow range: " + err.Error())
 	}
 	// The central value always lies inside its own band.
-	p.FlowLow = min(p.FlowLow, p.Result.Flow)
-	p.FlowHigh = max(p.FlowHigh, p.Result.Flow)
+	p.FlowLow = min(lo, p.Result.Flow)
+	p.FlowHigh = max(hi, p.Result.Flow)
 }
 
-// drainBand fills TimeLow and TimeHigh: the fast case drains sooner. Each end
-// keeps the central plan's target so the times compare like with like.
+// drainBand fills TimeLow and TimeHigh (calc.PlanBand).
 func (c *computer) drainBand() {
 	p := &c.p
-	slow, fast := c.bandCases()
-	run := func(s calc.Siphon) (calc.Seconds, bool) {
-		in := p.DrainIn
-		in.Siphon = s
-		in.CurvePoints = 2
-		if in.Target == 0 {
-			in.Target = p.Drain.StopLevel
-			if in.Target >= s.Geometry.Surface {
-				return 0, false
-			}
-		}
-		d, err := calc.PlanDrain(in)
-		if err != nil {
-			return 0, false
-		}
-		return d.Time, true
-	}
 	p.TimeLow, p.TimeHigh = p.Drain.Time, p.Drain.Time
-	if t, ok := run(fast); ok {
-		p.TimeLow = min(t, p.Drain.Time)
+	b, err := calc.PlanBand(p.DrainIn, c.tolerance())
+	if err != nil {
+		c.note("no time range: " + err.Error())
+		return
 	}
-	if t, ok := run(slow); ok {
-		p.TimeHigh = max(t, p.Drain.Time)
+	p.TimeLow = min(b.TimeLow, p.Drain.Time)
+	p.TimeHigh = max(b.TimeHigh, p.Drain.Time)
+	p.SlowMayNotStart = b.SlowWillNotRun
+	if b.SlowWillNotRun {
+		c.note("at the slow end of the height, roughness and fitting tolerances the siphon would not start: the longest time has no bound")
 	}
 }

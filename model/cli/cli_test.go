@@ -4,8 +4,12 @@ import (
 	"bytes"
 	"encoding/json"
 	"math"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
+
+	"drawdown/model"
 )
 
 func run(t *testing.T, args ...string) (string, string, int) {
@@ -121,5 +125,41 @@ func TestCalcTextUS(t *testing.T) {
 	}
 	if strings.Contains(out, "NaN") || strings.Contains(out, "Inf") {
 		t.Errorf("non-finite value in output:\n%s", out)
+	}
+}
+
+func TestReportCommand(t *testing.T) {
+	home := t.TempDir()
+	t.Setenv("DRAWDOWN_HOME", home)
+	t.Setenv("XDG_CONFIG_HOME", t.TempDir())
+	dir, err := model.JobsDir()
+	if err != nil {
+		t.Fatal(err)
+	}
+	path := filepath.Join(dir, "bund-b2.json")
+	if err := model.SaveAtomic(path, model.DemoJob()); err != nil {
+		t.Fatal(err)
+	}
+	out := t.TempDir()
+	var so, se bytes.Buffer
+	if code := Run([]string{"report", "bund-b2", "--out", out}, &so, &se); code != 0 {
+		t.Fatalf("exit %d: %s", code, se.String())
+	}
+	md, err := os.ReadFile(filepath.Join(out, "bund-b2-record.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"Bund B2", "does not authorise"} {
+		if !strings.Contains(string(md), want) {
+			t.Errorf("record lacks %q", want)
+		}
+	}
+	if _, err := os.Stat(filepath.Join(out, "bund-b2-readings.csv")); err != nil {
+		t.Error(err)
+	}
+	so.Reset()
+	se.Reset()
+	if code := Run([]string{"report", "no-such-job"}, &so, &se); code != 2 || !strings.Contains(se.String(), "no-such-job") {
+		t.Errorf("missing job: exit %d, %q", code, se.String())
 	}
 }
