@@ -16,6 +16,8 @@ func DemoJob() Job {
 	j.Site = "Harrowfen Depot (demo, invented)"
 	j.Location = "North yard, bund B2 around diesel day tank T4; outlet to the east ditch"
 	j.Crew = "A. Marsh (lead), T. Okoro"
+	j.Source = "Bund B2: open concrete bund, 8 m × 5 m floor, 0.95 m walls"
+	j.Receiver = "East ditch (storm), 1.15 m below the bund floor"
 	j.Notes = "Demo job with invented names and figures. Inspect the water for a sheen " +
 		"before release; if a sheen is seen, do not discharge: call for a vacuum truck."
 	j.Inputs = map[FieldID]string{

@@ -32,6 +32,11 @@ type Job struct {
 	Location string `json:"location,omitempty"` // free text: yard, bund, vault number
 	Crew     string `json:"crew,omitempty"`
 	Notes    string `json:"notes,omitempty"`
+	// Source describes the vessel drained ("bund B2, concrete, 8 × 5 m");
+	// Receiver where the liquid goes ("east ditch", "IBC tote 3"). Free
+	// text for the record; the geometry is in Inputs.
+	Source   string `json:"source,omitempty"`
+	Receiver string `json:"receiver,omitempty"`
 
 	// Units is the unit system for display and for bare numbers.
 	Units System `json:"units"`
@@ -46,6 +51,9 @@ type Job struct {
 	// (zero until they happen).
 	Started time.Time `json:"started,omitzero"`
 	Stopped time.Time `json:"stopped,omitzero"`
+	// Closed is when the job was closed out (record complete); zero while
+	// open.
+	Closed time.Time `json:"closed,omitzero"`
 
 	Resume Resume `json:"resume"`
 

@@ -117,6 +117,29 @@ func TestFixtureFormatStable(t *testing.T) {
 	}
 }
 
+func TestMigrateHook(t *testing.T) {
+	// A stand-in step from a pretend version 0 that called the name
+	// "title": the hook runs each step and stamps the current version.
+	migrations[0] = func(raw map[string]json.RawMessage) error {
+		raw["name"] = raw["title"]
+		delete(raw, "title")
+		return nil
+	}
+	t.Cleanup(func() { delete(migrations, 0) })
+	raw := map[string]json.RawMessage{
+		"schema": json.RawMessage(`"drawdown-job"`), "version": json.RawMessage(`0`),
+		"title": json.RawMessage(`"old pit"`),
+	}
+	b, err := migrate(raw, 0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	j, err := decodeBytes(b)
+	if err != nil || j.Name != "old pit" || j.Version != JobVersion {
+		t.Errorf("migrated job = %+v, %v", j, err)
+	}
+}
+
 func TestMigrateUnknownVersion(t *testing.T) {
 	// Version 1 is the first format: there is no step from 0.
 	if _, err := migrate(map[string]json.RawMessage{}, 0); err == nil || !strings.Contains(err.Error(), "no conversion from version 0") {
