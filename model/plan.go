@@ -53,7 +53,7 @@ type Plan struct {
 	Result calc.Result
 	// KLow and KHigh bound ΣK (all fittings) over the fittings' published
 	// spread; RoughLow and RoughHigh bound ε over the material's range.
-	KLow, KHigh        float64
+	KLow, KHigh         float64
 	RoughLow, RoughHigh calc.Length
 	// FlowLow and FlowHigh bound the flow over the input uncertainties.
 	FlowLow, FlowHigh calc.FlowRate
