@@ -20,6 +20,9 @@ type WhatIfCell struct {
 	NearLimit bool    // runs, but the crest is over the working limit
 	Flow      float64 // all hoses, m³/s
 	Time      float64 // time to the stop, s (ignored without a tank)
+	// StopReason is why the drain stops ("target", "intake", "crest",
+	// "equal"; empty without a tank), shown for the selected cell.
+	StopReason string
 }
 
 // WhatIfParallel is the current hose run with a given number of hoses.
@@ -234,6 +237,9 @@ func (v *WhatIfView) cellText(c WhatIfCell) (flow, tm string, cls drawClass) {
 	flow, _ = model.FormatParts(model.DimFlow, drawFinite(c.Flow), v.units.sys)
 	if v.t.HasTime {
 		tm = wiHMM(c.Time)
+		if c.Time <= 0 {
+			tm = "none" // it would stop at once (see the footer)
+		}
 	}
 	cls = clsText
 	if c.NearLimit {
@@ -303,8 +309,7 @@ func (v *WhatIfView) table(w, h int) string {
 	diaLbl := make([]string, nc)
 	diaW := 0
 	for i, d := range t.Diameters {
-		num, unit := model.FormatParts(model.DimDiameter, drawFinite(d), u.sys)
-		diaLbl[i] = strings.TrimSuffix(num, ".0") + " " + unit // nominal bores: "25 mm"
+		diaLbl[i] = v.diaText(d)
 		diaW = max(diaW, lipgloss.Width(diaLbl[i]))
 	}
 
@@ -434,12 +439,20 @@ func (v *WhatIfView) table(w, h int) string {
 
 	// Footer: what Enter adopts.
 	if m, ok := v.Selected(); ok {
-		f := "enter: use " + u.length(m.Length) + " × " + u.diameter(m.Diameter)
+		f := "enter: use " + u.length(m.Length) + " × " + v.diaText(m.Diameter)
 		if m.Hoses > 1 {
 			f += " × " + strconv.Itoa(m.Hoses) + " hoses"
 		}
-		if !v.selectedRuns() {
+		c := v.selectedCell()
+		switch {
+		case c.Invalid:
+			f += " (does not fit the route)"
+		case !c.Runs:
 			f += " (✗ will not run)"
+		case t.HasTime && c.Time <= 0:
+			f += " (stops at once: " + curveReasonText(c.StopReason) + ")"
+		case t.HasTime && c.StopReason != "":
+			f += " (stops: " + curveReasonText(c.StopReason) + ")"
 		}
 		if !v.focused {
 			f = "select this pane to pick a hose"
@@ -449,16 +462,23 @@ func (v *WhatIfView) table(w, h int) string {
 	return cv.render(&v.styles)
 }
 
-// selectedRuns reports whether the selected alternative runs.
-func (v *WhatIfView) selectedRuns() bool {
+// selectedCell is the selected alternative's outcome.
+func (v *WhatIfView) selectedCell() WhatIfCell {
 	t := v.t
 	if v.r >= len(t.Lengths) {
 		if len(t.Parallel) == 0 {
-			return false
+			return WhatIfCell{}
 		}
-		return t.Parallel[min(v.c, len(t.Parallel)-1)].Cell.Runs
+		return t.Parallel[min(v.c, len(t.Parallel)-1)].Cell
 	}
-	return t.Cells[v.r][v.c].Runs
+	return t.Cells[v.r][v.c]
+}
+
+// diaText is a bore as the table shows it: "25 mm" (nominal bores without
+// a trailing ".0"), "1.50 in".
+func (v *WhatIfView) diaText(d float64) string {
+	num, unit := model.FormatParts(model.DimDiameter, drawFinite(d), v.units.sys)
+	return strings.TrimSuffix(num, ".0") + " " + unit
 }
 
 // WhatIfFromGrid converts a calc what-if grid for SetTable. length,
@@ -468,11 +488,12 @@ func (v *WhatIfView) selectedRuns() bool {
 func WhatIfFromGrid(g calc.WhatIfGrid, length, diameter float64, hoses int, hasTank bool) WhatIfTable {
 	cell := func(c calc.WhatIfCell) WhatIfCell {
 		return WhatIfCell{
-			Invalid:   c.Err != nil,
-			Runs:      c.Err == nil && c.Verdict != calc.WillNotRun,
-			NearLimit: c.Verdict == calc.RunsNearLimit,
-			Flow:      float64(c.Flow),
-			Time:      float64(c.Time),
+			Invalid:    c.Err != nil,
+			Runs:       c.Err == nil && c.Verdict != calc.WillNotRun,
+			NearLimit:  c.Verdict == calc.RunsNearLimit,
+			Flow:       float64(c.Flow),
+			Time:       float64(c.Time),
+			StopReason: string(c.StopReason),
 		}
 	}
 	nearest := func(xs []calc.Length, x float64) int {
@@ -507,4 +528,38 @@ func WhatIfFromGrid(g calc.WhatIfGrid, length, diameter float64, hoses int, hasT
 	}
 	t.Row, t.Col = nearest(g.Lengths, length), nearest(g.Diameters, diameter)
 	return t
+}
+
+// WhatIfReadyMsg carries a What-if table computed by WhatIfCmd. Seq is the
+// tag given to WhatIfCmd: a reply whose tag is not the latest is stale and
+// should be dropped.
+type WhatIfReadyMsg struct {
+	Seq   int
+	Table WhatIfTable
+	Err   error
+}
+
+// WhatIfCmd computes the what-if grid around the plan's hose (seven
+// lengths × five standard bores from calc.AroundChoice, and 1 … 4 hoses in
+// parallel) as a command, since it is one drain plan per cell. It captures
+// copies of the values it needs, never the live model. It returns nil when
+// the plan has no valid result.
+func WhatIfCmd(p model.Plan, seq int) tea.Cmd {
+	if !p.OK() {
+		return nil
+	}
+	hasTank := p.Tank != nil
+	in := p.DrainIn
+	if !hasTank {
+		in = calc.DrainInput{Siphon: p.Siphon}
+	}
+	h, hoses := p.Siphon.Hose, p.Siphon.Hoses
+	return func() tea.Msg {
+		lengths, diams := calc.AroundChoice(h.Length, h.Diameter)
+		g, err := calc.WhatIf(in, lengths, diams)
+		if err != nil {
+			return WhatIfReadyMsg{Seq: seq, Err: err}
+		}
+		return WhatIfReadyMsg{Seq: seq, Table: WhatIfFromGrid(g, float64(h.Length), float64(h.Diameter), hoses, hasTank)}
+	}
 }

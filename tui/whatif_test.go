@@ -12,6 +12,7 @@ import (
 
 	"drawdown/calc"
 	"drawdown/model"
+	"drawdown/presets"
 )
 
 // wiDemo builds an invented 7×5 table around 12 m of 25 mm hose. Flows use
@@ -26,7 +27,7 @@ func wiDemo() WhatIfTable {
 		a := math.Pi * d * d / 4
 		v := math.Sqrt(2 * 9.80665 * 2.6 / (1 + 1.5 + 0.02*l/d))
 		flow := float64(n) * a * v
-		return WhatIfCell{Runs: true, Flow: flow, Time: 4 / flow}
+		return WhatIfCell{Runs: true, Flow: flow, Time: 4 / flow, StopReason: "intake"}
 	}
 	t := WhatIfTable{Lengths: lengths, Diameters: diams, Row: 3, Col: 2, Hoses: 1, HasTime: true}
 	for _, l := range lengths {
@@ -267,3 +268,58 @@ func BenchmarkWhatIfSetTableView(b *testing.B) {
 		paneSink = v.View()
 	}
 }
+
+// The demo job's what-if grid: 7 lengths × 5 bores around its hose, the
+// present cell in the middle, and the present cell's flow equal to the
+// plan's own flow (the same calc solve on the same inputs; a consistency
+// check, the physics is checked in calc against its sources).
+func TestWhatIfCmdDemo(t *testing.T) {
+	p := model.Compute(model.DemoJob(), presets.Builtin())
+	if !p.OK() {
+		t.Fatalf("demo plan: %v", p.Err)
+	}
+	cmd := WhatIfCmd(p, 7)
+	if cmd == nil {
+		t.Fatal("no command for a valid plan")
+	}
+	msg, ok := cmd().(WhatIfReadyMsg)
+	if !ok || msg.Err != nil || msg.Seq != 7 {
+		t.Fatalf("reply %+v", msg)
+	}
+	tab := msg.Table
+	if len(tab.Lengths) != 7 || len(tab.Diameters) != 5 || len(tab.Parallel) != calc.WhatIfHoseCounts {
+		t.Fatalf("grid %d×%d, %d parallel", len(tab.Lengths), len(tab.Diameters), len(tab.Parallel))
+	}
+	if tab.Row != 3 {
+		t.Errorf("present length on row %d, want 3 (×1 of ×½ … ×2)", tab.Row)
+	}
+	got, want := tab.Cells[tab.Row][tab.Col].Flow, float64(p.Result.Flow)
+	if math.Abs(got-want) > 1e-9*want {
+		t.Errorf("present cell flow %g m³/s, plan flow %g m³/s", got, want)
+	}
+	if tab.HasTime != (p.Tank != nil) {
+		t.Errorf("HasTime %v with tank %v", tab.HasTime, p.Tank != nil)
+	}
+	v := NewWhatIfView(PlainDrawStyles(), model.SI)
+	v.SetSize(44, 21)
+	v.SetTable(tab)
+	v.Focus()
+	paneCheckFrame(t, ansi.Strip(v.View()), 44, 21)
+	if testing.Verbose() {
+		t.Logf("\n%s", ansi.Strip(v.View()))
+	}
+	if WhatIfCmd(model.Plan{Err: errors.New("bad input")}, 8) != nil {
+		t.Error("a command for a plan without a result")
+	}
+}
+
+// The grid is a command because it costs one drain plan per cell.
+func BenchmarkWhatIfCmdDemo(b *testing.B) {
+	p := model.Compute(model.DemoJob(), presets.Builtin())
+	b.ReportAllocs()
+	for i := 0; b.Loop(); i++ {
+		paneSink2 = WhatIfCmd(p, i)()
+	}
+}
+
+var paneSink2 any
