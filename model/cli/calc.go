@@ -346,6 +346,7 @@ type jsonResult struct {
 	PumpStrokes          int           `json:"pump_strokes,omitempty"`
 	Warnings             []jsonWarning `json:"warnings"`
 	Notes                []string      `json:"notes"`
+	Cautions             []string      `json:"cautions"`
 	Drain                *jsonDrain    `json:"drain,omitempty"`
 }
 
@@ -380,6 +381,7 @@ func jsonOf(p model.Plan) jsonResult {
 		PumpStrokes:          p.PumpStrokes,
 		Warnings:             []jsonWarning{},
 		Notes:                append([]string{}, p.Notes...),
+		Cautions:             p.Cautions(),
 	}
 	for _, w := range r.WarningList() {
 		j.Warnings = append(j.Warnings, jsonWarning{Code: w.Code.String(), Message: w.Message})

@@ -85,8 +85,12 @@ func writeText(w io.Writer, p model.Plan, o calcOptions) {
 			fmt.Fprintf(w, "  - %s\n", n)
 		}
 	}
-	fmt.Fprintln(w, "Never start a siphon by mouth. This is a plan, not a permit: local codes, permits and")
-	fmt.Fprintln(w, "licensed practice govern entry, discharge and the handling of the liquid.")
+	fmt.Fprintln(w, "Cautions")
+	for _, c := range p.Cautions() {
+		fmt.Fprintf(w, "  * %s\n", c)
+	}
+	fmt.Fprintln(w, "This is a plan, not a permit: local codes, permits and licensed practice govern entry,")
+	fmt.Fprintln(w, "discharge and the handling of the liquid.")
 }
 
 func speed(v float64, sys model.System) string {
