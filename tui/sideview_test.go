@@ -202,7 +202,7 @@ func TestDrawnPanesSameTextInColour(t *testing.T) {
 			wv.Focus()
 			ck := NewChecklistView(st)
 			ck.SetSize(78, 10)
-			ck.SetChecklist(ckDemo())
+			ck.SetChecklist(ckFixed())
 			ck.Focus()
 			return []string{sv.View(), cv.View(), wv.View(), ck.View()}
 		}
