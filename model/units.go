@@ -356,7 +356,9 @@ const (
 // "3/4"; a mixed number "1-1/2" or "1 1/2". A unit suffix may follow, with or
 // without a space ("25mm", "25 mm", "3/4 in", `3/4"`, "40'", "15C", "59°F",
 // "29.6inHg", "2.5 L/min"); units of either system are accepted whatever sys
-// is. For lengths, feet and inches may be combined ("6 ft 3 in", `5'6"`).
+// is. Feet and inches may be combined ("6 ft 3 in", `5'6"`, "5'6"), and so
+// may days, hours, minutes and seconds, one pair at a time ("1 h 30 min",
+// "1h30", "2 min 15 s").
 // Unit matching ignores case and spaces. A bare number takes the default unit
 // of d in sys (see DefaultUnit). Temperatures below absolute zero are rejected.
 //
@@ -421,10 +423,8 @@ func (p *parser) quantity(sys System) (float64, error) {
 	if p.d == DimNumber {
 		return 0, p.fail(p.pos, "unexpected "+strconv.Quote(rest)+" after the number", ErrUnit)
 	}
-	if p.d == DimLength || p.d == DimDiameter || p.d == DimRoughness {
-		if tail, ok := splitFeet(rest); ok {
-			return p.feetInches(v, p.pos+len(rest)-len(tail))
-		}
+	if c, tail, ok := splitCompound(p.d, rest); ok {
+		return p.compoundValue(v, c, p.pos+len(rest)-len(tail))
 	}
 	u, ok := lookupUnit(p.d, rest)
 	if !ok {
@@ -446,40 +446,69 @@ func (p *parser) unknownUnit(rest string) string {
 	return "unit " + strconv.Quote(rest) + " is not accepted for a " + p.d.String()
 }
 
-// splitFeet reports whether rest starts with a foot unit followed by more
-// text that begins with a digit (as in "ft 3 in" or `'6"`), and returns the
-// tail.
-func splitFeet(rest string) (tail string, ok bool) {
-	low := strings.ToLower(rest)
-	for _, f := range []string{"feet", "foot", "ft", "'", "′"} {
-		if !strings.HasPrefix(low, f) {
-			continue
-		}
-		t := strings.TrimLeftFunc(rest[len(f):], unicode.IsSpace)
-		if t != "" && (t[0] >= '0' && t[0] <= '9' || t[0] == '.') {
-			return t, true
-		}
-	}
-	return "", false
+// compound is a pair of units written together, as in "6 ft 3 in" or
+// "1 h 30 min": a major unit (any of its spellings, longest first) followed
+// by a number in the minor unit, whose symbol may be left off ("5'6",
+// "1h30").
+type compound struct {
+	major []string
+	minor string
+	ratio float64 // minor units per major unit
 }
 
-func (p *parser) feetInches(ft float64, start int) (float64, error) {
+var lengthCompound = []compound{{major: []string{"feet", "foot", "ft", "'", "′"}, minor: "in", ratio: 12}}
+
+var compounds = [dimCount][]compound{
+	DimLength:    lengthCompound,
+	DimDiameter:  lengthCompound,
+	DimRoughness: lengthCompound,
+	DimTime: {
+		{major: []string{"days", "day", "d"}, minor: "h", ratio: 24},
+		{major: []string{"hours", "hour", "hrs", "hr", "h"}, minor: "min", ratio: 60},
+		{major: []string{"minutes", "minute", "mins", "min"}, minor: "s", ratio: 60},
+	},
+}
+
+// splitCompound reports whether rest starts with a major unit of d followed
+// by more text that begins with a digit, and returns the pair and the tail.
+func splitCompound(d Dim, rest string) (compound, string, bool) {
+	for _, c := range compounds[d] {
+		for _, m := range c.major {
+			if len(rest) < len(m) || !strings.EqualFold(rest[:len(m)], m) {
+				continue
+			}
+			t := strings.TrimLeftFunc(rest[len(m):], unicode.IsSpace)
+			if t != "" && (isDigit(t[0]) || t[0] == '.') {
+				return c, t, true
+			}
+		}
+	}
+	return compound{}, "", false
+}
+
+// compoundValue reads the minor part of a compound at start and returns
+// major×ratio + minor in the minor unit, converted to SI.
+func (p *parser) compoundValue(major float64, c compound, start int) (float64, error) {
 	q := parser{d: p.d, text: p.text, pos: start}
-	in, err := q.number()
+	minor, err := q.number()
 	if err != nil {
 		return 0, err
 	}
-	if in < 0 {
-		return 0, q.fail(start, "the inches after feet cannot be negative", ErrSyntax)
+	u, _ := unitByName(p.d, c.minor)
+	if rest := strings.TrimSpace(q.text[q.pos:]); rest != "" {
+		v, ok := lookupUnit(p.d, rest)
+		if !ok || v.name != c.minor {
+			return 0, q.fail(q.pos, "after "+c.major[len(c.major)-1]+", give "+c.minor+
+				" (e.g. 6 ft 3 in, 1 h 30 min)", ErrUnit)
+		}
 	}
-	u, ok := lookupUnit(p.d, q.text[q.pos:])
-	if !ok || u.name != "in" {
-		return 0, q.fail(q.pos, "after feet, give inches (e.g. 6 ft 3 in)", ErrUnit)
+	if minor < 0 {
+		return 0, q.fail(start, "the second part of a compound cannot be negative", ErrSyntax)
 	}
-	if ft < 0 || (ft == 0 && math.Signbit(ft)) {
-		in = -in
+	if major < 0 || (major == 0 && math.Signbit(major)) {
+		minor = -minor
 	}
-	return p.toSI(ft*12+in, u)
+	return p.toSI(major*c.ratio+minor, u)
 }
 
 func (p *parser) toSI(v float64, u unit) (float64, error) {
