@@ -98,6 +98,7 @@ func NewChecklistView(st DrawStyles) ChecklistView {
 	ts := ti.Styles()
 	ts.Cursor.Blink = false // a blinking cursor streams bytes over SSH
 	ti.SetStyles(ts)
+	ti.SetVirtualCursor(false) // the root places the terminal's own cursor (CursorPos)
 	return ChecklistView{input: ti, keys: DefaultChecklistKeys(), styles: st.prepared()}
 }
 
@@ -142,6 +143,29 @@ func (v ChecklistView) CurrentID() string {
 		return ""
 	}
 	return v.cl.Steps[v.cur].ID
+}
+
+// CursorPos is the terminal cursor for the reason or note being typed,
+// relative to the pane's top-left corner, or nil when not typing.
+func (v ChecklistView) CursorPos() *tea.Cursor {
+	if v.mode == ckBrowse || v.w <= 0 || v.h <= 0 {
+		return nil
+	}
+	c := v.input.Cursor()
+	if c == nil {
+		return nil
+	}
+	n := 2 // label and input lines at the bottom, then the error line
+	if v.errText != "" {
+		n++
+	}
+	row := v.h - n + 1
+	if row < 0 || row >= v.h {
+		return nil
+	}
+	c.Y = row
+	c.X = min(c.X, v.w-1)
+	return c
 }
 
 // Typing reports whether the pane is reading text (a reason or a note): the

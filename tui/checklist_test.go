@@ -284,3 +284,32 @@ func BenchmarkChecklistView(b *testing.B) {
 		paneSink = v.View()
 	}
 }
+
+// While a reason is typed the terminal's own cursor sits after the typed
+// text on the input line (the root adds the pane's origin); otherwise none.
+func TestChecklistCursorPos(t *testing.T) {
+	v := NewChecklistView(PlainDrawStyles())
+	v.SetSize(78, 10)
+	v.SetChecklist(ckFixed())
+	v.Focus()
+	if v.CursorPos() != nil {
+		t.Fatal("cursor while not typing")
+	}
+	v, _ = ckPress(v, "s", "a", "b")
+	c := v.CursorPos()
+	if c == nil || c.Y != 9 || c.X != 4 { // last line; prompt "› " is 2 cells
+		t.Fatalf("cursor %+v, want (4, 9)", c)
+	}
+	lines := strings.Split(ansi.Strip(v.View()), "\n")
+	if !strings.HasPrefix(lines[9], "› ab") {
+		t.Errorf("input line %q", lines[9])
+	}
+	v, _ = ckPress(v, "backspace", "backspace", "enter") // empty: the error line appears below
+	if c := v.CursorPos(); c == nil || c.Y != 8 || c.X != 2 {
+		t.Fatalf("cursor with the error line %+v, want (2, 8)", c)
+	}
+	v, _ = ckPress(v, "esc")
+	if v.CursorPos() != nil {
+		t.Error("cursor after esc")
+	}
+}
