@@ -32,7 +32,7 @@ type DrawStyles struct {
 	OK       lipgloss.Style // "✓" states
 	Warn     lipgloss.Style // "!" states
 	Danger   lipgloss.Style // "✗" states
-	Selected lipgloss.Style // the cursor (reverse video: legible without colour)
+	Selected lipgloss.Style // the cursor (reversed: legible without colour)
 	Current  lipgloss.Style // the present choice (bold)
 	Box      lipgloss.Style // the caution box frame
 

@@ -397,7 +397,7 @@ func (v *WhatIfView) table(w, h int) string {
 		}
 		cls := ct.cls
 		if sel && v.focused {
-			// Reverse video over the whole cell, with the ▸ marker:
+			// Reversed colours over the whole cell, with the ▸ marker:
 			// legible without colour.
 			pad := func(s string) string { return s + strings.Repeat(" ", max(cw-1-lipgloss.Width(s), 0)) }
 			first, second, cls = pad(first), pad(second), clsSelected
