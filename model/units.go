@@ -103,23 +103,28 @@ func (d Dim) String() string {
 	return dimNames[d]
 }
 
-// Exact unit factors, all from NIST Special Publication 811 (2008 edition),
-// "Guide for the Use of the International System of Units (SI)", Appendix B.8
-// (factors by unit name) and B.9 (by kind of quantity). Those marked "exact"
-// are exact by definition there (boldface in B.8).
+// Unit factors. Source: NIST Special Publication 811 (2008 edition), "Guide
+// for the Use of the International System of Units (SI)", Appendix B.8
+// (factors by unit name). The inch, foot, avoirdupois pound, US gallon
+// (231 in³), standard atmosphere and bar are exact by definition (bold in
+// B.8); the pound-force is exact as lb × g_n (g_n = 9.80665 m/s²), so psi
+// is exact here and agrees with B.8's 6.894 757 E+03. The two mercury
+// columns are B.8's conventional values (0 °C, standard gravity), not exact.
+// The printed B.8 factors are quoted from memory of the table; the tests
+// check them to the digits B.8 prints.
 const (
-	metrePerInch  = 0.0254         // in → m, exact (NIST SP 811 B.8)
-	metrePerFoot  = 0.3048         // ft → m, exact (NIST SP 811 B.8)
-	kgPerPound    = 0.45359237     // lb (avoirdupois) → kg, exact (NIST SP 811 B.8)
-	m3PerGallon   = 3.785411784e-3 // US liquid gallon → m³, exact (NIST SP 811 B.8)
-	pascalPerPSI  = kgPerPound * 9.80665 / (metrePerInch * metrePerInch)
-	pascalPerInHg = 3386.389 // inch of mercury, conventional at 0 °C → Pa (NIST SP 811 B.8: 3.386 389 E+03)
-	pascalPerMmHg = 133.3224 // mm of mercury, conventional at 0 °C → Pa (NIST SP 811 B.8: 1.333 224 E+02)
-	pascalPerAtm  = 101325   // standard atmosphere → Pa, exact (NIST SP 811 B.8)
-	m3PerCubicFt  = metrePerFoot * metrePerFoot * metrePerFoot
-	m3PerBarrel   = 42 * m3PerGallon // petroleum barrel (42 US gal) → m³, exact (NIST SP 811 B.8: 1.589 873 E-01)
-	fahrenheitOff = 459.67           // °F → K: T/K = (t/°F + 459.67)/1.8 (NIST SP 811 B.8)
-	celsiusOff    = 273.15           // °C → K: T/K = t/°C + 273.15 (NIST SP 811 B.8)
+	metrePerInch  = 0.0254                                               // in → m, exact
+	metrePerFoot  = 0.3048                                               // ft → m, exact
+	kgPerPound    = 0.45359237                                           // lb (avoirdupois) → kg, exact
+	m3PerGallon   = 3.785411784e-3                                       // US liquid gallon → m³, exact (B.8 prints 3.785 412 E-03)
+	pascalPerPSI  = kgPerPound * 9.80665 / (metrePerInch * metrePerInch) // lbf/in² → Pa, exact (B.8: 6.894 757 E+03)
+	pascalPerInHg = 3386.389                                             // inch of mercury, conventional → Pa (B.8: 3.386 389 E+03)
+	pascalPerMmHg = 133.3224                                             // mm of mercury, conventional → Pa (B.8: 1.333 224 E+02)
+	pascalPerAtm  = 101325                                               // standard atmosphere → Pa, exact
+	m3PerCubicFt  = metrePerFoot * metrePerFoot * metrePerFoot           // ft³ → m³, exact (B.8: 2.831 685 E-02)
+	m3PerBarrel   = 42 * m3PerGallon                                     // petroleum barrel (42 US gal) → m³, exact (B.8: 1.589 873 E-01)
+	fahrenheitOff = 459.67                                               // T/K = (t/°F + 459.67)/1.8, exact (B.9)
+	celsiusOff    = 273.15                                               // T/K = t/°C + 273.15, exact (B.9)
 )
 
 // unit is one accepted unit: si = (v + off) × scale.
