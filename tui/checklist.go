@@ -440,15 +440,41 @@ func (v ChecklistView) View() string {
 
 	lines := []drawLine{drawPlain("Checklist · "+v.progressText()+" · "+step.Section.Title(), clsTitle)}
 
-	// Step list, scrolled so the selection stays in view with some steps
-	// after it.
-	n := len(steps)
+	// Step list: one row per step, with a heading row where a section
+	// starts when there is room for them (12 rows or more), scrolled so
+	// the selection stays in view with some steps after it.
+	type ckRow struct {
+		step int           // index into steps, or -1 for a heading
+		head model.Section // the heading's section
+	}
+	rows := make([]ckRow, 0, len(steps)+6)
+	curRow := 0
+	for i, s := range steps {
+		if listH >= 12 && (i == 0 || s.Section != steps[i-1].Section) {
+			rows = append(rows, ckRow{step: -1, head: s.Section})
+		}
+		if i == v.cur {
+			curRow = len(rows)
+		}
+		rows = append(rows, ckRow{step: i})
+	}
 	top := 0
-	if listH > 0 && n > listH {
-		top = min(max(v.cur-listH/3, 0), n-listH)
+	if listH > 0 && len(rows) > listH {
+		top = min(max(curRow-listH/3, 0), len(rows)-listH)
+		if top > 0 && rows[top-1].step < 0 && curRow-top+1 < listH {
+			top-- // keep a section's heading with its first step
+		}
 	}
 	var list []drawLine
-	for i := top; i < n && len(list) < listH; i++ {
+	for _, r := range rows[top:] {
+		if len(list) >= listH {
+			break
+		}
+		if r.step < 0 {
+			list = append(list, drawPlain("── "+r.head.Title()+" ", clsMuted))
+			continue
+		}
+		i := r.step
 		s := steps[i]
 		sym, cls := ckSymbol(s.State)
 		mark := "  "
@@ -462,7 +488,7 @@ func (v ChecklistView) View() string {
 		switch {
 		case i == v.cur && v.focused:
 			list = append(list, drawLine{{text: drawClip(mark+sym+" "+text, listW), cls: clsSelected}}.fit(listW))
-			// keep the reverse bar across the whole width
+			// keep the reversed bar across the whole width
 			list[len(list)-1][len(list[len(list)-1])-1].cls = clsSelected
 		case s.State == model.StateNotApplicable:
 			list = append(list, drawPlain(mark+sym+" "+text, clsMuted))
