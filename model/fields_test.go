@@ -60,6 +60,9 @@ func TestFieldTable(t *testing.T) {
 	if _, ok := FieldByID("nope"); ok {
 		t.Error("FieldByID(nope) found")
 	}
+	if PaneHose.String() != "Hose" || PaneLift.String() != "Lift & outlet" || PaneLiquid.String() != "Liquid & site" || PaneTank.String() != "Tank" {
+		t.Error("pane titles (design §5)")
+	}
 	n := 0
 	for _, p := range Panes() {
 		n += len(FieldsIn(p))

@@ -473,3 +473,50 @@ func TestKillDuringSave(t *testing.T) {
 		t.Errorf("only %d kill rounds ran", done)
 	}
 }
+
+func TestStoreErrorsAndHousekeeping(t *testing.T) {
+	dir := t.TempDir()
+	// A missing file: the message names the path.
+	missing := filepath.Join(dir, "nope.json")
+	if _, err := Load(missing); err == nil || !strings.Contains(err.Error(), missing) || !errors.Is(err, os.ErrNotExist) {
+		t.Errorf("Load(missing) = %v", err)
+	}
+	// A folder that cannot be made (a file is in the way).
+	blocker := filepath.Join(dir, "file")
+	os.WriteFile(blocker, nil, 0o600)
+	if err := SaveAtomic(filepath.Join(blocker, "job.json"), DemoJob()); err == nil {
+		t.Error("SaveAtomic under a file succeeded")
+	}
+	// A stale temporary file left by a killed writer goes at the next save;
+	// a fresh one (another writer's save in flight) stays.
+	path := filepath.Join(dir, "job.json")
+	stale := filepath.Join(dir, ".job.json.tmp-111")
+	fresh := filepath.Join(dir, ".job.json.tmp-222")
+	os.WriteFile(stale, []byte("{"), 0o600)
+	os.WriteFile(fresh, []byte("{"), 0o600)
+	old := time.Now().Add(-2 * staleTemp)
+	os.Chtimes(stale, old, old)
+	if err := SaveAtomic(path, DemoJob()); err != nil {
+		t.Fatal(err)
+	}
+	if _, err := os.Stat(stale); !errors.Is(err, os.ErrNotExist) {
+		t.Error("stale temporary file kept")
+	}
+	if _, err := os.Stat(fresh); err != nil {
+		t.Error("fresh temporary file removed")
+	}
+}
+
+func TestHomeFallback(t *testing.T) {
+	t.Setenv("DRAWDOWN_HOME", "")
+	t.Setenv("XDG_DATA_HOME", "relative/ignored") // XDG requires an absolute path
+	h := t.TempDir()
+	t.Setenv("HOME", h)
+	got, err := Home()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if runtime.GOOS == "linux" && got != filepath.Join(h, ".local", "share", "drawdown") {
+		t.Errorf("Home = %q", got)
+	}
+}
