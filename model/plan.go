@@ -145,7 +145,8 @@ func (c *computer) choice(id FieldID) string {
 		c.fail(id, err)
 		return ""
 	}
-	return t
+	canon, _ := f.ChoiceID(t, c.cat)
+	return canon
 }
 
 func (c *computer) note(s string) { c.p.Notes = append(c.p.Notes, s) }

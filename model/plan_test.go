@@ -118,3 +118,15 @@ func BenchmarkCompute(b *testing.B) {
 		sinkPlan = Compute(j, cat)
 	}
 }
+
+// Pickers accept any case; Compute uses the catalogue's spelling.
+func TestComputePickerCase(t *testing.T) {
+	j := DemoJob()
+	j.Inputs[FieldTankShape] = "Rectangular"
+	j.Inputs[FieldLiquid] = "WATER"
+	j.Inputs[FieldHoseMaterial] = "Suction-Helix"
+	p := Compute(j, presets.Builtin())
+	if p.Err != nil || p.Drain == nil {
+		t.Fatalf("mixed-case pickers: %v", p.Err)
+	}
+}
