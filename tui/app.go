@@ -5,7 +5,6 @@ import (
 	"strings"
 	"time"
 
-	"charm.land/bubbles/v2/help"
 	"charm.land/bubbles/v2/key"
 	tea "charm.land/bubbletea/v2"
 	"github.com/charmbracelet/x/ansi"
@@ -107,7 +106,6 @@ type Model struct {
 	whatIfSeq   uint64
 	whatIfDirty bool
 	log         LogPane
-	help        help.Model
 	showHelp    bool
 	jobs        jobList
 	flash       string // one-shot hint on the help line, cleared by the next key
@@ -162,8 +160,6 @@ func New(o Options) Model {
 	m.checklist.SetChecklist(m.job.Checklist)
 	m.checklist.SetCurrent(m.job.Resume.StepID)
 	m.log = NewLogPane(st, km, o.Loc)
-	m.help = help.New()
-	m.help.Styles = st.HelpStyles()
 	m.jobs = newJobList(st, km)
 	if m.startNote != "" {
 		m.job.AddLog(now(), m.startNote)
@@ -288,7 +284,6 @@ func (m *Model) setStyles(st Styles) {
 	m.whatif.SetStyles(ds)
 	m.checklist.SetStyles(ds)
 	m.log.SetStyles(st)
-	m.help.Styles = st.HelpStyles()
 	m.jobs.styles = st
 }
 
@@ -741,7 +736,6 @@ func (m *Model) resize(w, h int) {
 		m.forms[i].SetSize(l.Main.W, l.Main.H)
 	}
 	m.result.SetSize(l.Result.W, l.Result.H)
-	m.help.SetWidth(w)
 	if l.Wide {
 		m.side.SetSize(l.Side.W, l.Side.H)
 		m.curve.SetSize(l.Lower.W, l.Lower.H)
@@ -870,31 +864,31 @@ func (m *Model) lowerView() string {
 // headerView is the top line: program, job, units, save state and mode.
 func (m *Model) headerView() string {
 	st := m.styles
-	mode := st.Mode.Render(" NAVIGATE ")
+	mode := st.fast.Mode.Render(" NAVIGATE ")
 	if m.typing() {
-		mode = st.Mode.Render(" TYPING ")
+		mode = st.fast.Mode.Render(" TYPING ")
 	}
 	var save string
 	switch {
 	case m.noSave:
-		save = st.Warning.Render("! not saving")
+		save = st.fast.Warning.Render("! not saving")
 	case m.saveErr != nil:
-		save = st.Danger.Render("✗ NOT SAVED")
+		save = st.fast.Danger.Render("✗ NOT SAVED")
 	case m.saving || m.dirty:
-		save = st.Muted.Render("… saving")
+		save = st.fast.Muted.Render("… saving")
 	case !m.lastSaved.IsZero():
-		save = st.OK.Render("✓ saved")
+		save = st.fast.OK.Render("✓ saved")
 	default:
-		save = st.Muted.Render("· unchanged")
+		save = st.fast.Muted.Render("· unchanged")
 	}
-	right := st.Title.Render(m.job.Units.String()) + "  " + save + " " + mode
-	left := st.Title.Render("drawdown") + st.Muted.Render(" · ")
+	right := st.fast.Title.Render(m.job.Units.String()) + "  " + save + " " + mode
+	left := st.fast.Title.Render("drawdown") + st.fast.Muted.Render(" · ")
 	room := m.lay.W - ansi.StringWidth(left) - ansi.StringWidth(right) - 1
 	name := m.job.Name
 	if name == "" {
 		name = "(unnamed job)"
 	}
-	left += st.Value.Render(ansi.Truncate(name, max(room, 0), "…"))
+	left += st.fast.Value.Render(ansi.Truncate(name, max(room, 0), "…"))
 	gap := max(m.lay.W-ansi.StringWidth(left)-ansi.StringWidth(right), 0)
 	return fitBlock([]string{left + strings.Repeat(" ", gap) + right}, m.lay.W, 1)
 }
@@ -910,16 +904,16 @@ func (m *Model) tabsView() string {
 	var b strings.Builder
 	for i := PaneID(0); i < paneCount; i++ {
 		if i == PaneSide {
-			b.WriteString(st.Muted.Render("│"))
+			b.WriteString(st.fast.Muted.Render("│"))
 		}
 		label := strconv.Itoa(int(i)+1) + " " + names[i]
 		switch {
 		case i == m.focus:
-			b.WriteString(st.TabActive.Render("[" + label + "]"))
+			b.WriteString(st.fast.TabActive.Render("[" + label + "]"))
 		case m.lay.Wide && i == m.lower && !m.focus.isForm():
-			b.WriteString(st.Tab.Render("(" + label + ")"))
+			b.WriteString(st.fast.Tab.Render("(" + label + ")"))
 		default:
-			b.WriteString(st.Tab.Render(" " + label + " "))
+			b.WriteString(st.fast.Tab.Render(" " + label + " "))
 		}
 	}
 	return fitBlock([]string{b.String()}, m.lay.W, 1)
@@ -928,10 +922,10 @@ func (m *Model) tabsView() string {
 // helpLine is the one-line help for the present state, or a one-shot hint.
 func (m *Model) helpLine() string {
 	if m.flash != "" {
-		return fitBlock([]string{m.styles.Warning.Render("! " + m.flash)}, m.lay.W, 1)
+		return fitBlock([]string{m.styles.fast.Warning.Render("! " + m.flash)}, m.lay.W, 1)
 	}
 	if m.saveErr != nil {
-		return fitBlock([]string{m.styles.Danger.Render("✗ not saved: " + m.saveErr.Error())}, m.lay.W, 1)
+		return fitBlock([]string{m.styles.fast.Danger.Render("✗ not saved: " + m.saveErr.Error())}, m.lay.W, 1)
 	}
 	var b []key.Binding
 	switch {
@@ -953,7 +947,7 @@ func (m *Model) helpLine() string {
 	default:
 		b = m.keys.shortHelp(false, false, false)
 	}
-	return fitBlock([]string{m.help.ShortHelpView(b)}, m.lay.W, 1)
+	return shortHelpLine(m.styles, b, m.lay.W)
 }
 
 // joinColumns puts blocks of equal height side by side, line by line.

@@ -136,16 +136,16 @@ func (l jobList) ShortHelp() []key.Binding {
 // View renders the overlay in exactly w×h cells.
 func (l jobList) View() string {
 	st := l.styles
-	out := []string{st.PaneTitle.Render("Open a job") + st.Muted.Render("  enter opens, d new demo job, esc back")}
+	out := []string{st.fast.PaneTitle.Render("Open a job") + st.fast.Muted.Render("  enter opens, d new demo job, esc back")}
 	switch {
 	case l.loading:
-		out = append(out, st.Muted.Render("reading the job folder…"))
+		out = append(out, st.fast.Muted.Render("reading the job folder…"))
 	case l.err != nil:
 		for _, s := range wrapText("✗ "+l.err.Error(), max(l.w-2, 10), 3) {
-			out = append(out, st.Danger.Render(s))
+			out = append(out, st.fast.Danger.Render(s))
 		}
 	case len(l.jobs) == 0:
-		out = append(out, st.Muted.Render("No saved jobs in "+l.dir))
+		out = append(out, st.fast.Muted.Render("No saved jobs in "+l.dir))
 	}
 	room := max(l.h-len(out)-1, 1)
 	top := max(l.cursor-room+1, 0)
@@ -158,9 +158,9 @@ func (l jobList) View() string {
 		}
 		line := j.Updated.Format("2006-01-02 15:04") + "  " + name + status
 		if i == l.cursor {
-			out = append(out, st.LabelFocused.Render("▶ "+line))
+			out = append(out, st.fast.LabelFocused.Render("▶ "+line))
 		} else {
-			out = append(out, "  "+st.Value.Render(line))
+			out = append(out, "  "+st.fast.Value.Render(line))
 		}
 	}
 	return fitBlock(out, l.w, l.h)

@@ -33,7 +33,8 @@ type FormPane struct {
 	styles  Styles
 	keys    KeyMap
 	sys     model.System
-	gen     int // bumped when styles or size change: every row is drawn again
+	gen     int      // bumped when styles or size change: every row is drawn again
+	help    []string // the selected field's help, wrapped (see renderRows)
 }
 
 // formField is one row of a form.
@@ -566,6 +567,7 @@ func (f *FormPane) renderRows() {
 		ff.key, ff.rendered = k, true
 		ff.line, ff.errLines = f.renderRow(i)
 	}
+	f.help = f.makeHelpLines()
 }
 
 func (f *FormPane) renderRow(i int) (string, []string) {
@@ -575,13 +577,13 @@ func (f *FormPane) renderRow(i int) (string, []string) {
 	ff := &f.fields[i]
 	focused := i == f.cursor
 	marker := "  "
-	labelSt := st.Label
+	labelSt := st.fast.Label
 	if focused {
 		marker = "▶ "
-		labelSt = st.LabelFocused
+		labelSt = st.fast.LabelFocused
 	}
 	if !ff.used {
-		labelSt = st.Muted
+		labelSt = st.fast.Muted
 	}
 	label := labelSt.Render(padRight(ansi.Truncate(ff.spec.Label, lw, "…"), lw))
 	var body string
@@ -589,23 +591,23 @@ func (f *FormPane) renderRow(i int) (string, []string) {
 	case ff.spec.IsPicker():
 		body = f.pickerCell(ff, focused, iw+formColGap+sw)
 	case !ff.used:
-		body = st.Muted.Render(padRight("not used here", iw+formColGap+sw))
+		body = st.fast.Muted.Render(padRight("not used here", iw+formColGap+sw))
 	default:
 		in := ff.input.View()
 		if w := lipgloss.Width(in); w < iw {
 			in += strings.Repeat(" ", iw-w)
 		}
 		shown := ff.shown
-		sst := st.Unit
+		sst := st.fast.Unit
 		if ff.errText != "" {
-			shown, sst = "✗ invalid", st.Danger
+			shown, sst = "✗ invalid", st.fast.Danger
 		}
 		body = ansi.Truncate(in, iw, "") + " " + sst.Render(ansi.Truncate(shown, sw, "…"))
 	}
 	var errs []string
 	if ff.errText != "" {
 		for _, l := range wrapText("✗ "+ff.errText, max(f.w-4, 10), 3) {
-			errs = append(errs, "    "+st.Danger.Render(l))
+			errs = append(errs, "    "+st.fast.Danger.Render(l))
 		}
 	}
 	return marker + label + " " + body, errs
@@ -620,25 +622,28 @@ func (f FormPane) pickerCell(ff *formField, focused bool, w int) string {
 			n := multiCounts(ff.raw)[strings.ToLower(c.ID)]
 			text = "◀ " + c.Label + " ▶ ×" + strconv.Itoa(n)
 		}
-		return st.Input.Render(ansi.Truncate(text, w, "…"))
+		return st.fast.Input.Render(ansi.Truncate(text, w, "…"))
 	}
 	text := ff.shown
 	if focused {
 		text = "◀ " + text + " ▶"
 	}
-	s := st.Input
+	s := st.fast.Input
 	if focused {
-		s = st.InputFocused
+		s = st.fast.InputFocused
 	}
 	if ff.errText != "" {
-		return st.Danger.Render(ansi.Truncate("✗ "+text, w, "…"))
+		return st.fast.Danger.Render(ansi.Truncate("✗ "+text, w, "…"))
 	}
 	return s.Render(ansi.Truncate(text, w, "…"))
 }
 
 // helpLines is the selected field's help (and the chosen entry's note, and
 // the list of fittings when the fittings picker is selected).
-func (f FormPane) helpLines() []string {
+func (f FormPane) helpLines() []string { return f.help }
+
+// makeHelpLines works out the selected field's help text (in renderRows).
+func (f FormPane) makeHelpLines() []string {
 	if len(f.fields) == 0 {
 		return nil
 	}
@@ -678,7 +683,7 @@ func (f FormPane) View() string {
 		return ""
 	}
 	st := f.styles
-	title := st.PaneTitle.Render(f.Title())
+	title := st.fast.PaneTitle.Render(f.Title())
 	mode := "  navigate: enter to type"
 	if f.editing {
 		mode = "  typing: esc when done"
@@ -686,7 +691,7 @@ func (f FormPane) View() string {
 			mode = "  choosing: ←/→"
 		}
 	}
-	title += st.Muted.Render(mode)
+	title += st.fast.Muted.Render(mode)
 	rows, sel := f.rows()
 	bh := f.bodyHeight()
 	top := f.scrollTop(sel)
@@ -697,9 +702,9 @@ func (f FormPane) View() string {
 	for len(out) < 1+bh {
 		out = append(out, "")
 	}
-	out = append(out, st.Muted.Render(strings.Repeat("─", max(f.w-1, 0))))
+	out = append(out, st.fast.Muted.Render(strings.Repeat("─", max(f.w-1, 0))))
 	for _, l := range f.helpLines() {
-		out = append(out, st.Muted.Render(l))
+		out = append(out, st.fast.Muted.Render(l))
 	}
 	return fitBlock(out, f.w, f.h)
 }

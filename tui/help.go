@@ -29,7 +29,7 @@ var helpCautions = []string{
 // fullHelpView renders the help screen in exactly w×h cells.
 func (m *Model) fullHelpView(w, h int) string {
 	st := m.styles
-	lines := []string{st.PaneTitle.Render("All keys") + st.Muted.Render("  (esc or ? to close)"), ""}
+	lines := []string{st.fast.PaneTitle.Render("All keys") + st.fast.Muted.Render("  (esc or ? to close)"), ""}
 	cols := m.keys.fullHelp()
 	titles := []string{"In a form", "Panes", "Anywhere"}
 	// Lay the columns out side by side when they fit, else one under another.
@@ -67,11 +67,11 @@ func (m *Model) fullHelpView(w, h int) string {
 	}
 	lines = append(lines, "")
 	for _, l := range helpIntro {
-		lines = append(lines, st.Value.Render(l))
+		lines = append(lines, st.fast.Value.Render(l))
 	}
 	lines = append(lines, "")
 	for _, l := range helpCautions {
-		lines = append(lines, st.Warning.Render(l))
+		lines = append(lines, st.fast.Warning.Render(l))
 	}
 	return fitBlock(lines, w, h)
 }
@@ -79,7 +79,7 @@ func (m *Model) fullHelpView(w, h int) string {
 func ansiWidth(s string) int { return ansi.StringWidth(s) }
 
 func helpColumn(st Styles, title string, bs []key.Binding) []string {
-	out := []string{st.Title.Render(title)}
+	out := []string{st.fast.Title.Render(title)}
 	kw := 0
 	for _, b := range bs {
 		kw = max(kw, ansiWidth(b.Help().Key))
@@ -89,7 +89,46 @@ func helpColumn(st Styles, title string, bs []key.Binding) []string {
 			continue
 		}
 		h := b.Help()
-		out = append(out, st.HelpKey.Render(padRight(h.Key, kw))+"  "+st.HelpDesc.Render(h.Desc))
+		out = append(out, st.fast.HelpKey.Render(padRight(h.Key, kw))+"  "+st.fast.HelpDesc.Render(h.Desc))
 	}
 	return out
+}
+
+// shortHelpLine is the one-line help: "key desc • key desc …", cut at the
+// last whole entry that fits, exactly w cells. It is drawn on every frame,
+// so it uses the fixed escape sequences of Styles.fast.
+func shortHelpLine(st Styles, bs []key.Binding, w int) string {
+	var b strings.Builder
+	used := 0
+	sep := " • "
+	for _, k := range bs {
+		if !k.Enabled() {
+			continue
+		}
+		h := k.Help()
+		if h.Key == "" && h.Desc == "" {
+			continue
+		}
+		n := ansi.StringWidth(h.Key) + 1 + ansi.StringWidth(h.Desc)
+		extra := 0
+		if used > 0 {
+			extra = 3 // " • "
+		}
+		if used+extra+n > w-2 {
+			if used+2 <= w {
+				b.WriteString(st.fast.HelpSep.Render(" …"))
+				used += 2
+			}
+			break
+		}
+		if used > 0 {
+			b.WriteString(st.fast.HelpSep.Render(sep))
+		}
+		b.WriteString(st.fast.HelpKey.Render(h.Key) + " " + st.fast.HelpDesc.Render(h.Desc))
+		used += extra + n
+	}
+	if used < w {
+		b.WriteString(strings.Repeat(" ", w-used))
+	}
+	return b.String()
 }

@@ -63,9 +63,9 @@ func (l LogPane) Update(msg tea.Msg) (LogPane, tea.Cmd) {
 // View renders exactly w×h cells.
 func (l LogPane) View() string {
 	st := l.styles
-	out := []string{st.PaneTitle.Render("Log") + st.Muted.Render("  the job's record, newest last; ↑/↓ scroll")}
+	out := []string{st.fast.PaneTitle.Render("Log") + st.fast.Muted.Render("  the job's record, newest last; ↑/↓ scroll")}
 	if len(l.entries) == 0 {
-		out = append(out, st.Muted.Render("Nothing logged yet."))
+		out = append(out, st.fast.Muted.Render("Nothing logged yet."))
 		return fitBlock(out, l.w, l.h)
 	}
 	var lines []string
@@ -75,9 +75,9 @@ func (l LogPane) View() string {
 		wrapped := wrapText(text, max(l.w-len(stamp)-2, 10), 4)
 		for i, w := range wrapped {
 			if i == 0 {
-				lines = append(lines, st.Muted.Render(stamp)+"  "+st.Value.Render(w))
+				lines = append(lines, st.fast.Muted.Render(stamp)+"  "+st.fast.Value.Render(w))
 			} else {
-				lines = append(lines, strings.Repeat(" ", len(stamp)+2)+st.Value.Render(w))
+				lines = append(lines, strings.Repeat(" ", len(stamp)+2)+st.fast.Value.Render(w))
 			}
 		}
 	}

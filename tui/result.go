@@ -113,26 +113,26 @@ func (r *ResultPane) content() []string {
 	var ls []string
 	add := func(s string) { ls = append(ls, s) }
 	row := func(label, value string) {
-		add(st.Muted.Render(padRight(label, 9)) + st.Value.Render(value))
+		add(st.fast.Muted.Render(padRight(label, 9)) + st.fast.Value.Render(value))
 	}
 	if !d.Valid {
-		add(st.Warning.Render("? NO RESULT YET"))
+		add(st.fast.Warning.Render("? NO RESULT YET"))
 		for _, l := range wrapText("Fix the field marked ✗ on the left: "+d.StaleField, iw, 3) {
-			add(st.Warning.Render(l))
+			add(st.fast.Warning.Render(l))
 		}
 		return ls
 	}
 	word, status := verdictText(d.Verdict)
-	add(st.Style(status).Render(status.Symbol() + " " + word))
+	add(st.fastStyle(status).Render(status.Symbol() + " " + word))
 	if d.Why != "" && d.Verdict != calc.Runs {
 		for _, l := range wrapText(d.Why, iw, 2) {
-			add(st.Style(status).Render("  " + l))
+			add(st.fastStyle(status).Render("  " + l))
 		}
 	}
 	if d.Stale {
-		add(st.Warning.Reverse(true).Render("! STALE — fix the marked field"))
+		add(st.fast.Stale.Render("! STALE — fix the marked field"))
 		if d.StaleField != "" {
-			add(st.Warning.Render(ansiCut("  ✗ "+d.StaleField, iw)))
+			add(st.fast.Warning.Render(ansiCut("  ✗ "+d.StaleField, iw)))
 		}
 	}
 	if d.Verdict != calc.WillNotRun {
@@ -140,7 +140,7 @@ func (r *ResultPane) content() []string {
 		if d.Hoses > 1 {
 			flow += " (" + strconv.Itoa(d.Hoses) + " hoses)"
 		}
-		add(st.Muted.Render(padRight("Flow", 9)) + st.Big.Render(flow))
+		add(st.fast.Muted.Render(padRight("Flow", 9)) + st.fast.Big.Render(flow))
 		if d.HasBand {
 			row("", "range "+rangeText(f(model.DimFlow, d.FlowLow), f(model.DimFlow, d.FlowHigh)))
 		}
@@ -160,7 +160,7 @@ func (r *ResultPane) content() []string {
 	}
 	row("Crest", "lift "+f(model.DimLength, d.Lift))
 	lim := func(label string, v float64) {
-		add(st.Muted.Render("  "+padRight(label, 17)) + st.Value.Render(f(model.DimLength, v)))
+		add(st.fast.Muted.Render("  "+padRight(label, 17)) + st.fast.Value.Render(f(model.DimLength, v)))
 	}
 	lim("limit, no flow", d.MaxCrest)
 	if d.Verdict != calc.WillNotRun || d.FlowingLimit > 0 {
@@ -178,8 +178,8 @@ func (r *ResultPane) content() []string {
 	if d.Margin < 0 {
 		sign = "−"
 	}
-	add(st.Muted.Render("  "+padRight("margin", 17)) +
-		st.Style(mst).Render(sign+f(model.DimLength, math.Abs(d.Margin))+" "+mst.Symbol()))
+	add(st.fast.Muted.Render("  "+padRight("margin", 17)) +
+		st.fastStyle(mst).Render(sign+f(model.DimLength, math.Abs(d.Margin))+" "+mst.Symbol()))
 	prime := f(model.DimVolume, d.PrimingVolume)
 	if d.Strokes > 0 {
 		prime += ", " + strconv.Itoa(d.Strokes) + " strokes"
@@ -190,7 +190,7 @@ func (r *ResultPane) content() []string {
 			if i > 0 {
 				l = "  " + l
 			}
-			add(st.Style(w.Status).Render(l))
+			add(st.fastStyle(w.Status).Render(l))
 		}
 	}
 	return ls
@@ -206,8 +206,8 @@ func (r ResultPane) framed() string {
 	// The frame is drawn by hand (one styled string per side) rather than
 	// with a lipgloss border: this runs on every keystroke.
 	b := r.styles.Border.GetBorderStyle()
-	mute := r.styles.Muted
-	title := r.styles.PaneTitle.Render(" Result ")
+	mute := r.styles.fast.Muted
+	title := r.styles.fast.PaneTitle.Render(" Result ")
 	rest := max(r.w-3-lipgloss.Width(title), 0)
 	out := make([]string, 0, r.h)
 	out = append(out, mute.Render(b.TopLeft+b.Top)+title+mute.Render(strings.Repeat(b.Top, rest)+b.TopRight))

@@ -2,8 +2,8 @@ package tui
 
 import (
 	"image/color"
+	"strings"
 
-	"charm.land/bubbles/v2/help"
 	"charm.land/lipgloss/v2"
 )
 
@@ -41,6 +41,76 @@ type Styles struct {
 	HelpKey  lipgloss.Style
 	HelpDesc lipgloss.Style
 	HelpSep  lipgloss.Style
+
+	// fast holds the same styles as fixed escape sequences (see paint), for
+	// the text drawn on every keystroke.
+	fast fastStyles
+}
+
+// paint is a style reduced to the escape sequences before and after a
+// single line of text. lipgloss's Render works out a style's frame, margins
+// and widths on every call; for the plain colour-and-attribute styles used
+// here that is fixed, so it is worked out once.
+type paint struct{ pre, post string }
+
+// paintMark is a private-use character that no style changes.
+const paintMark = "\uE000"
+
+func newPaint(st lipgloss.Style) paint {
+	r := st.Render(paintMark)
+	i := strings.Index(r, paintMark)
+	if i < 0 {
+		return paint{}
+	}
+	return paint{pre: r[:i], post: r[i+len(paintMark):]}
+}
+
+// Render styles one line of text (several lines are styled line by line).
+func (p paint) Render(s string) string {
+	if s == "" {
+		return ""
+	}
+	if strings.IndexByte(s, '\n') >= 0 {
+		ls := strings.Split(s, "\n")
+		for i, l := range ls {
+			ls[i] = p.Render(l)
+		}
+		return strings.Join(ls, "\n")
+	}
+	return p.pre + s + p.post
+}
+
+type fastStyles struct {
+	Title, Mode, Tab, TabActive, PaneTitle               paint
+	Label, LabelFocused, Input, InputFocused, Value, Big paint
+	Unit, Muted, OK, Warning, Danger, Stale              paint
+	HelpKey, HelpDesc, HelpSep                           paint
+}
+
+func newFastStyles(s Styles) fastStyles {
+	return fastStyles{
+		Title: newPaint(s.Title), Mode: newPaint(s.Mode), Tab: newPaint(s.Tab), TabActive: newPaint(s.TabActive),
+		PaneTitle: newPaint(s.PaneTitle), Label: newPaint(s.Label), LabelFocused: newPaint(s.LabelFocused),
+		Input: newPaint(s.Input), InputFocused: newPaint(s.InputFocused), Value: newPaint(s.Value), Big: newPaint(s.Big),
+		Unit: newPaint(s.Unit), Muted: newPaint(s.Muted), OK: newPaint(s.OK), Warning: newPaint(s.Warning),
+		Danger: newPaint(s.Danger), Stale: newPaint(s.Warning.Reverse(true)),
+		HelpKey: newPaint(s.HelpKey), HelpDesc: newPaint(s.HelpDesc), HelpSep: newPaint(s.HelpSep),
+	}
+}
+
+// fastStyle is Style as a paint.
+func (s Styles) fastStyle(st Status) paint {
+	switch st {
+	case StatusOK:
+		return s.fast.OK
+	case StatusWarn:
+		return s.fast.Warning
+	case StatusBad:
+		return s.fast.Danger
+	case StatusInfo:
+		return s.fast.Muted
+	}
+	return s.fast.Value
 }
 
 // NewStyles builds the styles for a dark or a light background.
@@ -80,21 +150,8 @@ func NewStyles(isDark bool) Styles {
 	s.HelpKey = lipgloss.NewStyle().Foreground(accent).Bold(true)
 	s.HelpDesc = lipgloss.NewStyle().Foreground(text)
 	s.HelpSep = lipgloss.NewStyle().Foreground(muted)
+	s.fast = newFastStyles(s)
 	return s
-}
-
-// HelpStyles gives the bubbles help widget our explicit colours (its own
-// default grey maps to black on a 16-colour terminal).
-func (s Styles) HelpStyles() help.Styles {
-	return help.Styles{
-		Ellipsis:       s.HelpSep,
-		ShortKey:       s.HelpKey,
-		ShortDesc:      s.HelpDesc,
-		ShortSeparator: s.HelpSep,
-		FullKey:        s.HelpKey,
-		FullDesc:       s.HelpDesc,
-		FullSeparator:  s.HelpSep,
-	}
 }
 
 // Status is a traffic state that is always shown as a word or symbol plus a
