@@ -29,6 +29,10 @@ type DrainCurve struct {
 	StopReason string       // "target", "intake", "crest" or "equal" (as in the JSON output)
 	HasTarget  bool
 	Target     float64 // planned stop level, m
+	// HasGasLevel: below GasLevel (m) the lift exceeds the working crest
+	// height and gas gathers at the crest (calc.DrainPlan.WorkingLimitLevel).
+	HasGasLevel bool
+	GasLevel    float64
 }
 
 // curveReasonText says why the drain stops, in the technician's words.
@@ -93,6 +97,7 @@ func (v *CurveView) SetCurve(c DrainCurve) {
 	}
 	c.Points = pts
 	c.StopTime, c.StopLevel, c.Target = drawFinite(c.StopTime), drawFinite(c.StopLevel), drawFinite(c.Target)
+	c.GasLevel = drawFinite(c.GasLevel)
 	if n := len(pts); n > 0 && c.StopTime <= 0 {
 		c.StopTime, c.StopLevel = pts[n-1].T, pts[n-1].Level
 	}
@@ -351,10 +356,23 @@ func (v *CurveView) plot(w, h int) string {
 			lastEnd = cv.text(x, axisRow+1, lbl, clsMuted) - 1
 		}
 	}
-	// Target level, dashed, under the curve.
+	// Target level and gas level, dashed, under the curve; their names
+	// are written on the lines after the curve is drawn.
+	type lineLabel struct {
+		row int
+		say []string // longest first
+	}
+	var names []lineLabel
+	if c.HasGasLevel && c.GasLevel >= ylo*u.lenPer && c.GasLevel <= yhi*u.lenPer {
+		r := plotTop + dotRow(c.GasLevel)/4
+		cv.hline(px, px+pw-1, r, '┈', clsWarn)
+		g := u.length(c.GasLevel)
+		names = append(names, lineLabel{r, []string{" ! gas gathers at the crest below " + g + " ", " ! gas at crest below " + g + " ", " ! gas below " + g + " ", " ! gas "}})
+	}
 	if c.HasTarget {
 		r := plotTop + dotRow(c.Target)/4
 		cv.hline(px, px+pw-1, r, '╌', clsLimit)
+		names = append(names, lineLabel{r, []string{" target " + u.length(c.Target) + " ", " target "}})
 	}
 	// Stop line.
 	stopCol := px + colOf(tStop)/2
@@ -397,6 +415,22 @@ func (v *CurveView) plot(w, h int) string {
 	}
 	// Stop point.
 	cv.set(stopCol, plotTop+dotRow(c.StopLevel)/4, '■', clsWarn)
+
+	// Line names go where the line is still bare (at the left, where the
+	// level is usually high), shortened to fit.
+	for _, nm := range names {
+		x0 := px + 1
+		x1 := x0
+		for x1 < px+pw && (cv.get(x1, nm.row) == '╌' || cv.get(x1, nm.row) == '┈') {
+			x1++
+		}
+		for _, t := range nm.say {
+			if drawWidth(t) <= x1-x0 {
+				cv.text(x0, nm.row, t, clsMuted)
+				break
+			}
+		}
+	}
 
 	// Flow strip: one bar per cell column, eighths of a cell per step.
 	if flowH > 0 && peak > 0 {
@@ -476,6 +510,9 @@ func CurveFromPlan(p *calc.DrainPlan, target float64, hasTarget bool) DrainCurve
 		StopReason: string(p.StopReason),
 		HasTarget:  hasTarget,
 		Target:     target,
+		// Below this level the lift exceeds the working crest height.
+		HasGasLevel: p.WorkingLimitFound,
+		GasLevel:    float64(p.WorkingLimitLevel),
 	}
 	for i, q := range p.Curve {
 		c.Points[i] = CurvePoint{T: float64(q.Time), Level: float64(q.Level), Flow: float64(q.Flow)}

@@ -34,6 +34,10 @@ func TestCurveView(t *testing.T) {
 	target := intake
 	target.HasTarget, target.Target = true, 0.35
 	target.StopReason = "target"
+	// A warm liquid over a high wall: gas gathers once the level is below
+	// 1.2 m (invented).
+	gas := intake
+	gas.HasGasLevel, gas.GasLevel = true, 1.2
 	// Into a receiver: the levels close in and the flow tapers off over
 	// several hours (head 1.2 m → 2 cm).
 	equal := cvTorricelli(2.0, 0.8, 0.82, 20, 0.0008, 80)
@@ -49,6 +53,7 @@ func TestCurveView(t *testing.T) {
 	}{
 		{"intake", intake, true, model.SI},
 		{"target_us", target, true, model.US},
+		{"gas_level", gas, true, model.SI},
 		{"equal_hours", equal, true, model.SI},
 		{"short_seconds", short, true, model.SI},
 		{"empty", DrainCurve{}, false, model.SI},
@@ -102,7 +107,7 @@ func TestCurveViewNeverBreaks(t *testing.T) {
 	for i := 0; i < 2000; i++ {
 		n := rng.IntN(12)
 		c := DrainCurve{StopTime: pick(1e5), StopLevel: pick(5), StopReason: []string{"", "target", "intake", "crest", "equal", "odd"}[rng.IntN(6)],
-			HasTarget: rng.IntN(2) == 0, Target: pick(5)}
+			HasTarget: rng.IntN(2) == 0, Target: pick(5), HasGasLevel: rng.IntN(2) == 0, GasLevel: pick(5)}
 		tt := 0.0
 		for j := 0; j < n; j++ {
 			tt += pick(1e4)
