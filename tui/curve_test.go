@@ -9,6 +9,7 @@ import (
 	"github.com/charmbracelet/x/ansi"
 
 	"drawdown/model"
+	"drawdown/presets"
 )
 
 // cvTorricelli samples an invented drain of a constant-area tank through a
@@ -142,5 +143,31 @@ func BenchmarkCurveViewSetCurveView(b *testing.B) {
 				paneSink = v.View()
 			}
 		})
+	}
+}
+
+// The demo job's drain plan through CurveFromPlan: the title states the
+// plan's own stop time and reason (formatting only; the drain itself is
+// checked in calc against its analytic cases).
+func TestCurveFromPlanDemo(t *testing.T) {
+	p := model.Compute(model.DemoJob(), presets.Builtin())
+	if p.Drain == nil {
+		t.Skip("the demo job has no drain plan")
+	}
+	c := CurveFromPlan(p.Drain, float64(p.DrainIn.Target), p.DrainIn.Target > 0)
+	if len(c.Points) != len(p.Drain.Curve) || c.StopReason != string(p.Drain.StopReason) {
+		t.Fatalf("curve %d points, reason %q", len(c.Points), c.StopReason)
+	}
+	v := NewCurveView(PlainDrawStyles(), model.SI)
+	v.SetSize(118, 22)
+	v.SetCurve(c)
+	got := ansi.Strip(v.View())
+	paneCheckFrame(t, got, 118, 22)
+	want := "stops after " + model.Format(model.DimTime, float64(p.Drain.Time), model.SI)
+	if !strings.Contains(got, want) || !strings.Contains(got, curveReasonText(c.StopReason)) {
+		t.Errorf("title lacks %q / reason:\n%s", want, got)
+	}
+	if CurveFromPlan(nil, 0, false).Points != nil {
+		t.Error("nil plan gave points")
 	}
 }
