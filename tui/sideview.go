@@ -254,27 +254,45 @@ func (c *drawCanvas) vline(x, y0, y1 int, r rune, cls drawClass) {
 }
 
 // render turns the canvas into h lines of exactly w cells, styling each run
-// of equal class once.
+// of equal class once. It writes straight into one builder: no string per
+// run.
 func (c *drawCanvas) render(st *DrawStyles) string {
 	var b strings.Builder
-	run := make([]rune, 0, c.w)
+	b.Grow(c.w*c.h*3 + c.h*16)
 	for y := 0; y < c.h; y++ {
 		if y > 0 {
 			b.WriteByte('\n')
 		}
 		row := c.cells[y*c.w : (y+1)*c.w]
 		for i := 0; i < len(row); {
+			cls := row[i].cls
 			j := i
-			run = run[:0]
-			for j < len(row) && row[j].cls == row[i].cls {
-				run = append(run, row[j].r)
+			blank := true
+			for j < len(row) && row[j].cls == cls {
+				if row[j].r != ' ' {
+					blank = false
+				}
 				j++
 			}
-			s := string(run)
-			if row[i].cls == clsText || row[i].cls != clsSelected && strings.TrimSpace(s) == "" {
-				b.WriteString(s)
-			} else {
-				b.WriteString(st.paintRun(row[i].cls, s))
+			paint := cls != clsText && (cls == clsSelected || !blank)
+			fast := st.paint != nil && st.paint.ok[cls]
+			switch {
+			case !paint:
+				for _, cell := range row[i:j] {
+					b.WriteRune(cell.r)
+				}
+			case fast:
+				b.WriteString(st.paint.pre[cls])
+				for _, cell := range row[i:j] {
+					b.WriteRune(cell.r)
+				}
+				b.WriteString(st.paint.post[cls])
+			default:
+				rs := make([]rune, 0, j-i)
+				for _, cell := range row[i:j] {
+					rs = append(rs, cell.r)
+				}
+				b.WriteString(st.style(cls).Render(string(rs)))
 			}
 			i = j
 		}
