@@ -247,12 +247,11 @@ func (v ChecklistView) Update(msg tea.Msg) (ChecklistView, tea.Cmd) {
 			return v, ckStepCmd(v.CurrentID())
 		}
 	case key.Matches(k, v.keys.Done):
-		if v.cur < n-1 {
-			v.cur++
-		}
+		v.advance()
 		return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StateDone, Current: v.CurrentID()})
 	case key.Matches(k, v.keys.NotApplies):
-		return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StateNotApplicable, Current: id})
+		v.advance()
+		return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StateNotApplicable, Current: v.CurrentID()})
 	case key.Matches(k, v.keys.Reopen):
 		if v.cl.Steps[v.cur].State != model.StatePending {
 			return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StatePending, Current: id})
@@ -263,6 +262,14 @@ func (v ChecklistView) Update(msg tea.Msg) (ChecklistView, tea.Cmd) {
 		return v, v.openInput(ckNote, v.cl.Steps[v.cur].Note, "e.g. gas reading, permit number, initials")
 	}
 	return v, nil
+}
+
+// advance moves the selection on after a step is marked (not past the
+// last step).
+func (v *ChecklistView) advance() {
+	if v.cur < len(v.cl.Steps)-1 {
+		v.cur++
+	}
 }
 
 // submit ends typing: a skip needs a non-blank reason.
@@ -276,7 +283,8 @@ func (v ChecklistView) submit() (ChecklistView, tea.Cmd) {
 			return v, nil
 		}
 		v.closeInput()
-		return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StateSkipped, Reason: text, Current: id})
+		v.advance()
+		return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StateSkipped, Reason: text, Current: v.CurrentID()})
 	case ckNote:
 		v.closeInput()
 		return v, ckEmit(ChecklistNoteMsg{ID: id, Note: text})

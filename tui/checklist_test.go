@@ -165,7 +165,8 @@ func TestChecklistKeys(t *testing.T) {
 		t.Fatalf("typing sent %v", msgs)
 	}
 	v, msgs = ckPress(v, "enter")
-	want = ChecklistMarkMsg{ID: second, State: model.StateSkipped, Reason: "no mains on site", Current: second}
+	third := cl.Steps[2].ID
+	want = ChecklistMarkMsg{ID: second, State: model.StateSkipped, Reason: "no mains on site", Current: third}
 	if len(msgs) != 1 || msgs[0] != want {
 		t.Fatalf("skip: %v, want %v", msgs, want)
 	}
@@ -181,20 +182,25 @@ func TestChecklistKeys(t *testing.T) {
 
 	// A note.
 	v, msgs = ckPress(v, "n", "O", "2", " ", "2", "0", ".", "9", "%", "enter")
-	if len(msgs) != 1 || msgs[0] != (ChecklistNoteMsg{ID: second, Note: "O2 20.9%"}) {
+	if len(msgs) != 1 || msgs[0] != (ChecklistNoteMsg{ID: third, Note: "O2 20.9%"}) {
 		t.Fatalf("note: %v", msgs)
 	}
 
-	// Moving reports the step; x marks not applicable.
+	// Moving reports the step; x marks not applicable and moves on.
+	v, msgs = ckPress(v, "up")
+	if len(msgs) != 1 || msgs[0] != (ChecklistStepMsg{ID: second}) {
+		t.Fatalf("up: %v", msgs)
+	}
 	v, msgs = ckPress(v, "down")
-	third := cl.Steps[2].ID
 	if len(msgs) != 1 || msgs[0] != (ChecklistStepMsg{ID: third}) {
 		t.Fatalf("down: %v", msgs)
 	}
-	_, msgs = ckPress(v, "x")
-	if len(msgs) != 1 || msgs[0] != (ChecklistMarkMsg{ID: third, State: model.StateNotApplicable, Current: third}) {
+	v, msgs = ckPress(v, "x")
+	fourth := cl.Steps[3].ID
+	if len(msgs) != 1 || msgs[0] != (ChecklistMarkMsg{ID: third, State: model.StateNotApplicable, Current: fourth}) {
 		t.Fatalf("x: %v", msgs)
 	}
+	v, _ = ckPress(v, "up")
 
 	// The root applies a mark and hands the checklist back: the selection
 	// stays on the same step, and backspace offers to reopen it.
