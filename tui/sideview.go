@@ -713,12 +713,21 @@ func (v *SideView) drawing(w, h int) string {
 		datum = "heights above tank floor"
 	}
 	scale := "1 row ≈ " + u.length(dz)
-	caption := "Side view · " + datum + " · " + scale
-	if lipgloss.Width(caption) > w {
-		caption = "Side view · " + strings.TrimPrefix(datum, "heights ") + " · " + scale
+	var caption string
+	shape := ""
+	if g.Tank && g.Shape != "" {
+		shape = " · " + g.Shape
 	}
-	if lipgloss.Width(caption) > w {
-		caption = "Side view · " + scale
+	for _, cand := range []string{
+		"Side view" + shape + " · " + datum + " · " + scale,
+		"Side view · " + datum + " · " + scale,
+		"Side view · " + strings.TrimPrefix(datum, "heights ") + " · " + scale,
+		"Side view · " + scale,
+	} {
+		caption = cand
+		if drawWidth(cand) <= w {
+			break
+		}
 	}
 	c.text(0, 0, drawClip(caption, w), clsTitle)
 
@@ -876,7 +885,7 @@ func (v *SideView) drawing(w, h int) string {
 	// status line always states the working limit).
 	if (g.WorkingLimit > 0 && !showW) || (g.TheoreticalLimit > 0 && !showT) {
 		note := " · crest limits above, off scale ↑"
-		if x := lipgloss.Width(caption); x+lipgloss.Width(note) <= w {
+		if x := drawWidth(caption); x+drawWidth(note) <= w {
 			c.text(x, 0, note, clsMuted)
 		}
 	}
