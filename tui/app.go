@@ -874,9 +874,9 @@ func (m *Model) headerView() string {
 		save = st.fast.Warning.Render("! not saving")
 	case m.saveErr != nil:
 		save = st.fast.Danger.Render("✗ NOT SAVED")
-	case m.saving || m.dirty:
-		save = st.fast.Muted.Render("… saving")
 	case !m.lastSaved.IsZero():
+		// Kept while the next save runs (a few milliseconds): a mark that
+		// flickers on every keystroke costs bytes and says nothing.
 		save = st.fast.OK.Render("✓ saved")
 	default:
 		save = st.fast.Muted.Render("· unchanged")

@@ -522,10 +522,7 @@ func (f FormPane) CursorPos() *tea.Cursor {
 func (f FormPane) selectedLine() int {
 	n := 0
 	for i := 0; i < f.cursor && i < len(f.fields); i++ {
-		n++
-		if e := f.fields[i].errText; e != "" {
-			n += len(wrapText("✗ "+e, max(f.w-4, 10), 3))
-		}
+		n += 1 + len(f.fields[i].errLines)
 	}
 	return n
 }
@@ -601,16 +598,13 @@ func (f *FormPane) renderRow(i int) (string, []string) {
 		sst := st.fast.Unit
 		if ff.errText != "" {
 			shown, sst = "✗ invalid", st.fast.Danger
+			if focused {
+				shown = "✗ below"
+			}
 		}
 		body = ansi.Truncate(in, iw, "") + " " + sst.Render(ansi.Truncate(shown, sw, "…"))
 	}
-	var errs []string
-	if ff.errText != "" {
-		for _, l := range wrapText("✗ "+ff.errText, max(f.w-4, 10), 3) {
-			errs = append(errs, "    "+st.fast.Danger.Render(l))
-		}
-	}
-	return marker + label + " " + body, errs
+	return marker + label + " " + body, nil
 }
 
 func (f FormPane) pickerCell(ff *formField, focused bool, w int) string {
@@ -642,12 +636,26 @@ func (f FormPane) pickerCell(ff *formField, focused bool, w int) string {
 // the list of fittings when the fittings picker is selected).
 func (f FormPane) helpLines() []string { return f.help }
 
-// makeHelpLines works out the selected field's help text (in renderRows).
+// helpHeight is the fixed height of the help area at the foot of a form, so
+// that rows never move while typing (a moving form costs bytes on a slow
+// link and loses the eye).
+const helpHeight = 3
+
+// makeHelpLines works out the foot of the form (in renderRows): the selected
+// field's error in full when it has one, else its help.
 func (f FormPane) makeHelpLines() []string {
 	if len(f.fields) == 0 {
 		return nil
 	}
 	ff := f.fields[f.cursor]
+	w := max(f.w-2, 10)
+	var out []string
+	if ff.errText != "" {
+		for _, l := range wrapText("✗ "+ff.errText, w, helpHeight) {
+			out = append(out, f.styles.fast.Danger.Render(l))
+		}
+		return out
+	}
 	text := ff.spec.Help
 	if ff.spec.IsPicker() {
 		if ff.spec.Multi {
@@ -662,11 +670,14 @@ func (f FormPane) makeHelpLines() []string {
 	} else if r := ff.spec.RangeText(f.sys); r != "" {
 		text += " Accepted " + r + "."
 	}
-	return wrapText(text, max(f.w-2, 10), 3)
+	for _, l := range wrapText(text, w, helpHeight) {
+		out = append(out, f.styles.fast.Muted.Render(l))
+	}
+	return out
 }
 
 func (f FormPane) bodyHeight() int {
-	return max(f.h-1-len(f.helpLines())-1, 1)
+	return max(f.h-1-helpHeight-1, 1)
 }
 
 func (f FormPane) scrollTop(sel int) int {
@@ -703,9 +714,7 @@ func (f FormPane) View() string {
 		out = append(out, "")
 	}
 	out = append(out, st.fast.Muted.Render(strings.Repeat("─", max(f.w-1, 0))))
-	for _, l := range f.helpLines() {
-		out = append(out, st.fast.Muted.Render(l))
-	}
+	out = append(out, f.helpLines()...)
 	return fitBlock(out, f.w, f.h)
 }
 

@@ -123,16 +123,13 @@ func (r *ResultPane) content() []string {
 		return ls
 	}
 	word, status := verdictText(d.Verdict)
+	if d.Stale {
+		word += " (last valid)"
+	}
 	add(st.fastStyle(status).Render(status.Symbol() + " " + word))
 	if d.Why != "" && d.Verdict != calc.Runs {
 		for _, l := range wrapText(d.Why, iw, 2) {
 			add(st.fastStyle(status).Render("  " + l))
-		}
-	}
-	if d.Stale {
-		add(st.fast.Stale.Render("! STALE — fix the marked field"))
-		if d.StaleField != "" {
-			add(st.fast.Warning.Render(ansiCut("  ✗ "+d.StaleField, iw)))
 		}
 	}
 	if d.Verdict != calc.WillNotRun {
@@ -212,7 +209,22 @@ func (r ResultPane) framed() string {
 	out := make([]string, 0, r.h)
 	out = append(out, mute.Render(b.TopLeft+b.Top)+title+mute.Render(strings.Repeat(b.Top, rest)+b.TopRight))
 	left, right := mute.Render(b.Left), mute.Render(b.Right)
-	inner := strings.Split(fitBlock(prefixAll(r.lines, " "), r.w-2, r.h-2), "\n")
+	body := prefixAll(r.lines, " ")
+	if r.data.Stale && r.data.Valid && r.h-2 >= 4 {
+		// The stale notice sits at the foot of the pane, so that the
+		// figures above it do not move when a field turns invalid.
+		foot := []string{" " + r.styles.fast.Stale.Render(" ! STALE: fix the ✗ field "),
+			" " + r.styles.fast.Warning.Render(ansiCut("✗ "+r.data.StaleField, r.w-4))}
+		n := r.h - 2 - len(foot)
+		if len(body) > n {
+			body = body[:n]
+		}
+		for len(body) < n {
+			body = append(body, "")
+		}
+		body = append(body, foot...)
+	}
+	inner := strings.Split(fitBlock(body, r.w-2, r.h-2), "\n")
 	for _, l := range inner {
 		out = append(out, left+l+right)
 	}
