@@ -36,7 +36,7 @@ var paneNames = [paneCount]string{"Hose", "Lift & outlet", "Liquid & site", "Tan
 	"Drain curve", "What-if", "Checklist", "Log"}
 
 // paneShort are the tab titles on a narrow screen.
-var paneShort = [paneCount]string{"Hose", "Lift", "Liquid", "Tank", "Side", "Curve", "What-if", "Checklist", "Log"}
+var paneShort = [paneCount]string{"Hose", "Lift", "Liquid", "Tank", "Side", "Curve", "What-if", "Checks", "Log"}
 
 func (p PaneID) String() string {
 	if p < 0 || p >= paneCount {
@@ -113,6 +113,7 @@ type Model struct {
 	height      int
 	lay         layout
 	startNote   string
+	firstSave   bool // a fresh job waits for its first save
 
 	// Saving: one save in flight at a time; a change during a save marks
 	// the job dirty and another save follows.
@@ -142,7 +143,7 @@ func New(o Options) Model {
 	m := Model{
 		keys: km, styles: st, cat: cat, now: now,
 		job: o.Start.Job, path: o.Start.Path, dir: o.Start.Dir,
-		noSave: o.NoSave || o.Start.Path == "", startNote: o.Start.Note,
+		noSave: o.NoSave || o.Start.Path == "", startNote: o.Start.Note, firstSave: o.Start.Fresh,
 		lower: PaneCurve,
 	}
 	if m.job.Inputs == nil {
@@ -228,7 +229,12 @@ func (m Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
 		return m.key(msg)
 	case tea.WindowSizeMsg:
 		m.resize(msg.Width, msg.Height)
-		return m, m.whatIfCmd()
+		var save tea.Cmd
+		if m.firstSave {
+			m.firstSave = false
+			save = m.save(true)
+		}
+		return m, tea.Batch(m.whatIfCmd(), save)
 	case tea.BackgroundColorMsg:
 		m.setStyles(NewStyles(msg.IsDark()))
 		return m, nil

@@ -1,12 +1,18 @@
 package tui
 
 import (
+	"bytes"
 	"math"
+	"os"
+	"path/filepath"
+	"regexp"
+	"strconv"
 	"strings"
 	"testing"
 	"time"
 
 	tea "charm.land/bubbletea/v2"
+	"github.com/charmbracelet/colorprofile"
 	"github.com/charmbracelet/x/ansi"
 
 	"drawdown/calc"
@@ -501,5 +507,68 @@ func BenchmarkKeystroke(b *testing.B) {
 	}
 	if sink == 0 {
 		b.Fatal("empty view")
+	}
+}
+
+// sgrToken shows an SGR escape as ⟨params⟩ so that a golden file with the
+// attributes stays readable.
+var sgrToken = regexp.MustCompile("\x1b\\[([0-9;:]*)m")
+
+// TestNoColor renders the main screen under NO_COLOR the way the renderer
+// does (colorprofile's colourless ASCII profile) and keeps the attributes
+// that remain in the golden file as ⟨n⟩ tokens. No colour may survive, and
+// the focus and the status must still show: reverse video (7) for the
+// selected field and tab, bold (1) for the verdict, and words and symbols.
+func TestNoColor(t *testing.T) {
+	env := []string{"TERM=xterm-256color", "NO_COLOR=1"}
+	prof := colorprofile.Env(env)
+	if prof != colorprofile.Ascii {
+		t.Fatalf("NO_COLOR gives profile %v, want Ascii", prof)
+	}
+	m := newTestModel(t, 80, 24)
+	m = enterField(t, m, model.FieldLift, "12 m") // over the limit: WILL NOT RUN
+	var buf bytes.Buffer
+	w := &colorprofile.Writer{Forward: &buf, Profile: prof}
+	if _, err := w.WriteString(m.View().Content); err != nil {
+		t.Fatal(err)
+	}
+	out := buf.String()
+	for _, sgr := range sgrToken.FindAllStringSubmatch(out, -1) {
+		for _, p := range strings.FieldsFunc(sgr[1], func(r rune) bool { return r == ';' || r == ':' }) {
+			n, _ := strconv.Atoi(p)
+			if (n >= 30 && n <= 49) || (n >= 90 && n <= 107) {
+				t.Fatalf("colour SGR %q left under NO_COLOR", sgr[0])
+			}
+		}
+	}
+	plain := ansi.Strip(out)
+	for _, want := range []string{"✗ WILL NOT RUN", "▶ Lift over crest", "[2 Lift]"} {
+		if !strings.Contains(plain, want) {
+			t.Errorf("NO_COLOR screen lacks %q:\n%s", want, plain)
+		}
+	}
+	if !strings.Contains(out, "\x1b[7m") && !strings.Contains(out, ";7m") {
+		t.Error("no reverse video for the focus under NO_COLOR")
+	}
+	readable := sgrToken.ReplaceAllString(out, "⟨$1⟩")
+	path := filepath.Join("testdata", t.Name()+".golden")
+	if *update {
+		if err := os.WriteFile(path, []byte(readable), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run with -update)", err)
+	}
+	if string(want) != readable {
+		t.Errorf("NO_COLOR frame differs from %s:\n%s", path, readable)
+	}
+	// On a 16-colour terminal only the 16 basic colours may appear.
+	buf.Reset()
+	w.Profile = colorprofile.ANSI
+	_, _ = w.WriteString(m.View().Content)
+	if strings.Contains(buf.String(), "38;5;") || strings.Contains(buf.String(), "38;2;") {
+		t.Error("extended colours on a 16-colour terminal")
 	}
 }

@@ -80,6 +80,9 @@ type Start struct {
 	Path string // where saves go
 	Dir  string // the jobs folder
 	Note string // shown in the log and the top bar, "" when all is well
+	// Fresh: the job is not on disk yet (the demo, or a new job); it is
+	// saved as soon as the screen starts, so a dropped link resumes it.
+	Fresh bool
 }
 
 // OpenStart finds the job to start with. It reads at most two small files
@@ -97,11 +100,11 @@ func OpenStart() Start {
 			return Start{Job: j, Path: last, Dir: dir}
 		}
 		demo := model.DemoJob()
-		return Start{Job: demo, Path: model.NewJobPath(dir, demo.Name), Dir: dir,
+		return Start{Job: demo, Path: model.NewJobPath(dir, demo.Name), Dir: dir, Fresh: true,
 			Note: "could not open the last job, left it untouched: " + lerr.Error() + " (opened the demo job)"}
 	}
 	demo := model.DemoJob()
-	return Start{Job: demo, Path: model.NewJobPath(dir, demo.Name), Dir: dir}
+	return Start{Job: demo, Path: model.NewJobPath(dir, demo.Name), Dir: dir, Fresh: true}
 }
 
 // jobList is the open-job overlay: the job folder, newest first.

@@ -128,7 +128,7 @@ func (r *ResultPane) content() []string {
 	}
 	add(st.fastStyle(status).Render(status.Symbol() + " " + word))
 	if d.Why != "" && d.Verdict != calc.Runs {
-		for _, l := range wrapText(d.Why, iw, 2) {
+		for _, l := range wrapText(d.Why, iw-2, 2) {
 			add(st.fastStyle(status).Render("  " + l))
 		}
 	}
@@ -251,9 +251,10 @@ func rangeText(lo, hi string) string {
 	if lo == hi {
 		return lo
 	}
-	// Share the unit when both ends have the same one.
-	li, hi2 := strings.LastIndexByte(lo, ' '), strings.LastIndexByte(hi, ' ')
-	if li > 0 && hi2 > 0 && lo[li:] == hi[hi2:] {
+	// Share the unit when both ends are one number and the same unit
+	// ("60.4–100 L/min", but "22 min – 1 h 36 min").
+	li, hi2 := strings.IndexByte(lo, ' '), strings.IndexByte(hi, ' ')
+	if li > 0 && hi2 > 0 && lo[li:] == hi[hi2:] && strings.Count(lo, " ") == 1 {
 		return lo[:li] + "–" + hi
 	}
 	return lo + " – " + hi
