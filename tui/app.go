@@ -936,7 +936,7 @@ func (m *Model) helpLine() string {
 	var b []key.Binding
 	switch {
 	case m.showHelp:
-		b = []key.Binding{m.keys.Leave}
+		b = []key.Binding{m.keys.CloseHelp}
 	case m.jobs.open:
 		b = m.jobs.ShortHelp()
 	case m.focus.isForm():

@@ -11,52 +11,50 @@ import (
 // behaviour), how the two modes work, and the standing cautions.
 
 var helpIntro = []string{
-	"Two modes. NAVIGATE (top right): letters and digits are commands.",
-	"TYPING: keys go into the marked field; enter or esc when done.",
-	"Every change recomputes at once and is saved at once.",
-	"Numbers take a unit: 25mm, 1in, 3/4 in, 40ft, 15C, 59F, 98.2kPa.",
-	"A bare number takes the unit shown beside the field (SI or US).",
+	"NAVIGATE: letters and digits are commands. TYPING: keys go into the field;",
+	"enter or esc when done. Units: 25mm 1in 3/4 in 40ft 15C 59F 98.2kPa 29.6inHg.",
+	"Every change is computed and saved at once.",
 }
 
 var helpCautions = []string{
-	"Never start a siphon by mouth. Confined spaces need a permit, air",
-	"testing and an attendant. Flammable liquids: bond and ground, no",
-	"ignition sources. Secure the discharge end. drawdown plans and",
-	"records; it does not make a job safe or allowed: local codes,",
-	"permits and licensed practice govern.",
+	"Never start a siphon by mouth. Confined spaces: permit, air testing, attendant.",
+	"Flammable liquids: bond, ground, no ignition sources. Secure the discharge end.",
+	"drawdown plans and records; local codes, permits and licensed practice govern.",
 }
 
 // fullHelpView renders the help screen in exactly w×h cells.
 func (m *Model) fullHelpView(w, h int) string {
 	st := m.styles
-	lines := []string{st.fast.PaneTitle.Render("All keys") + st.fast.Muted.Render("  (esc or ? to close)"), ""}
+	lines := []string{st.fast.PaneTitle.Render("All keys") + st.fast.Muted.Render("  (esc or ? to close)")}
 	cols := m.keys.fullHelp()
 	titles := []string{"In a form", "Panes", "Anywhere"}
-	// Lay the columns out side by side when they fit, else one under another.
+	// Columns side by side when they fit, else one under another.
 	var blocks [][]string
+	var widths []int
+	total := 0
 	for i, col := range cols {
-		blocks = append(blocks, helpColumn(st, titles[i], col))
-	}
-	colW := 0
-	for _, b := range blocks {
+		b := helpColumn(st, titles[i], col)
+		cw := 0
 		for _, l := range b {
-			colW = max(colW, ansiWidth(l))
+			cw = max(cw, ansiWidth(l))
 		}
+		blocks = append(blocks, b)
+		widths = append(widths, cw+2)
+		total += cw + 2
 	}
-	colW += 3
-	if colW*len(blocks) <= w {
+	if total <= w {
 		n := 0
 		for _, b := range blocks {
 			n = max(n, len(b))
 		}
 		for r := 0; r < n; r++ {
 			var sb strings.Builder
-			for _, b := range blocks {
+			for i, b := range blocks {
 				cell := ""
 				if r < len(b) {
 					cell = b[r]
 				}
-				sb.WriteString(cell + strings.Repeat(" ", max(colW-ansiWidth(cell), 0)))
+				sb.WriteString(cell + strings.Repeat(" ", max(widths[i]-ansiWidth(cell), 0)))
 			}
 			lines = append(lines, sb.String())
 		}

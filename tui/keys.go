@@ -20,6 +20,7 @@ type KeyMap struct {
 	UnitsAny  key.Binding // ctrl+u
 	Help      key.Binding // ? or F1
 	Leave     key.Binding // esc: stop editing / close an overlay
+	CloseHelp key.Binding // esc or ? on the help screen
 
 	// Form movement.
 	Up      key.Binding
@@ -53,6 +54,7 @@ func DefaultKeyMap() KeyMap {
 		UnitsAny:  key.NewBinding(key.WithKeys("ctrl+u"), key.WithHelp("ctrl+u", "SI ⇄ US units")),
 		Help:      key.NewBinding(key.WithKeys("?", "f1"), key.WithHelp("?", "all keys")),
 		Leave:     key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "stop typing")),
+		CloseHelp: key.NewBinding(key.WithKeys("esc", "?"), key.WithHelp("esc/?", "close this help")),
 
 		Up:      key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "field up")),
 		Down:    key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "field down")),
@@ -66,7 +68,7 @@ func DefaultKeyMap() KeyMap {
 		QuitNav:  key.NewBinding(key.WithKeys("q"), key.WithHelp("q", "save and quit")),
 		Units:    key.NewBinding(key.WithKeys("u"), key.WithHelp("u", "SI ⇄ US")),
 		Save:     key.NewBinding(key.WithKeys("s"), key.WithHelp("s", "save")),
-		Open:     key.NewBinding(key.WithKeys("o"), key.WithHelp("o", "jobs")),
+		Open:     key.NewBinding(key.WithKeys("o"), key.WithHelp("o", "open a job")),
 		PrevPane: key.NewBinding(key.WithKeys("["), key.WithHelp("[", "prev pane")),
 		NextPane: key.NewBinding(key.WithKeys("]"), key.WithHelp("]", "next pane")),
 		Panes:    key.NewBinding(key.WithKeys("1", "2", "3", "4", "5", "6", "7", "8", "9"), key.WithHelp("1-9", "pane")),

@@ -139,7 +139,7 @@ func (r *ResultPane) content() []string {
 		}
 		add(st.fast.Muted.Render(padRight("Flow", 9)) + st.fast.Big.Render(flow))
 		if d.HasBand {
-			row("", "range "+rangeText(f(model.DimFlow, d.FlowLow), f(model.DimFlow, d.FlowHigh)))
+			row("  range", rangeText(f(model.DimFlow, d.FlowLow), f(model.DimFlow, d.FlowHigh)))
 		}
 		row("Speed", speedText(r.sys, d.Velocity)+", "+d.Regime)
 	}
@@ -150,7 +150,7 @@ func (r *ResultPane) content() []string {
 			row("Stops in", duration(d.Time))
 		}
 		if d.TimeHigh > 0 && d.TimeLow > 0 && math.Abs(d.TimeHigh-d.TimeLow) > 1 {
-			row("", "range "+rangeText(duration(d.TimeLow), duration(d.TimeHigh)))
+			row("  range", rangeText(duration(d.TimeLow), duration(d.TimeHigh)))
 		}
 		row("", stopReasonText(d.StopReason))
 		row("", "at "+f(model.DimLength, d.StopLevel)+", "+f(model.DimVolume, d.Residual)+" left")
