@@ -636,17 +636,18 @@ func (m *Model) toggleUnits() (tea.Model, tea.Cmd) {
 	}
 	m.job.SetUnits(sys)
 	m.job.Updated = m.now()
+	m.job.AddLog(m.job.Updated, "units switched to "+sys.String())
 	m.side.SetUnits(sys)
 	m.curve.SetUnits(sys)
 	m.whatif.SetUnits(sys)
 	m.recompute()
-	m.flash = "units now " + sysName(sys) + " (bare numbers you typed keep their old unit)"
+	m.flash = "units: " + sysName(sys) + "; what you typed keeps its unit"
 	return *m, tea.Batch(m.save(false), m.whatIfCmd())
 }
 
 func sysName(s model.System) string {
 	if s == model.US {
-		return "US customary (ft, in, psi, °F, gal)"
+		return "US (ft, in, psi, °F, gal)"
 	}
 	return "SI (m, mm, kPa, °C, L)"
 }

@@ -572,3 +572,20 @@ func TestNoColor(t *testing.T) {
 		t.Error("extended colours on a 16-colour terminal")
 	}
 }
+
+// TestStopMsg: on SIGHUP or SIGTERM main sends StopMsg; the screen logs it
+// and quits (main then saves the job it returns).
+func TestStopMsg(t *testing.T) {
+	m := newTestModel(t, 80, 24)
+	next, cmd := m.Update(StopMsg{Reason: "SIGHUP"})
+	if cmd == nil {
+		t.Fatal("no quit command")
+	}
+	if _, ok := cmd().(tea.QuitMsg); !ok {
+		t.Error("StopMsg did not quit")
+	}
+	j := next.(Model).Job()
+	if n := len(j.Log); n == 0 || !strings.Contains(j.Log[n-1].Text, "SIGHUP") {
+		t.Errorf("stop not logged: %+v", j.Log)
+	}
+}

@@ -139,7 +139,7 @@ func (l jobList) ShortHelp() []key.Binding {
 // View renders the overlay in exactly w×h cells.
 func (l jobList) View() string {
 	st := l.styles
-	out := []string{st.fast.PaneTitle.Render("Open a job") + st.fast.Muted.Render("  enter opens, d new demo job, esc back")}
+	out := []string{st.fast.PaneTitle.Render("Open a job") + st.fast.Muted.Render("  enter open · d demo · esc back")}
 	switch {
 	case l.loading:
 		out = append(out, st.fast.Muted.Render("reading the job folder…"))
