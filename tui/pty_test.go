@@ -142,12 +142,18 @@ func TestPTYBytes(t *testing.T) {
 	}
 	rec.quiet(200*time.Millisecond, 2*time.Second)
 
+	// send types one key and counts what the screen writes for it: it waits
+	// for the first byte (each of these keys changes the screen), then for
+	// 100 ms of quiet, so that a slow machine does not split or merge frames.
 	send := func(s string) int {
 		before := rec.size()
 		if _, err := master.WriteString(s); err != nil {
 			t.Fatal(err)
 		}
-		rec.quiet(80*time.Millisecond, time.Second)
+		for end := time.Now().Add(2 * time.Second); rec.size() == before && time.Now().Before(end); {
+			time.Sleep(time.Millisecond)
+		}
+		rec.quiet(100*time.Millisecond, 2*time.Second)
 		return rec.size() - before
 	}
 	send("j")  // Hose length
@@ -175,6 +181,7 @@ func TestPTYBytes(t *testing.T) {
 	median := counts[len(counts)/2]
 	slices.Sort(typing)
 
+	rec.quiet(500*time.Millisecond, 3*time.Second)
 	before := rec.size()
 	time.Sleep(2 * time.Second)
 	idle := rec.size() - before
