@@ -580,6 +580,7 @@ func (m *Model) refresh() {
 	rd := ResultData{}
 	if m.hasPlan {
 		rd = planToResult(m.plan)
+		rd.Hazards = hazardWords(m.plan.Hazards, m.job.Checklist.Context.Hazards)
 	}
 	rd.Stale = m.stale
 	if m.stale {
@@ -990,6 +991,26 @@ func tooSmall(w, h int) string {
 
 // Conversions from the plan to what the panes show. These run in Update
 // (through refresh), never in View.
+
+// hazardWords names the liquid's hazards (catalogue at this temperature,
+// plus those the crew recorded for the job) for the Result pane's caution
+// line; the Checklist carries the steps and the cautions in full.
+func hazardWords(p presets.Hazards, j model.Hazards) []string {
+	var out []string
+	add := func(on bool, w string) {
+		if on {
+			out = append(out, w)
+		}
+	}
+	add(p.Has(presets.Flammable) || j.Flammable, "flammable")
+	add(!p.Has(presets.Flammable) && !j.Flammable && (p.Has(presets.Combustible) || j.Combustible), "combustible")
+	add(p.Has(presets.Toxic) || j.Toxic, "toxic")
+	add(p.Has(presets.Biohazard) || j.Biohazard, "sewage/biohazard")
+	add(p.Has(presets.Environmental) || j.Environmental, "inspect before release")
+	add(p.Has(presets.Hot) || j.Hot, "hot")
+	add(p.Has(presets.FreezingRisk) || j.FreezingRisk, "may freeze")
+	return out
+}
 
 // planToResult picks the Result pane's figures from a valid plan.
 func planToResult(p model.Plan) ResultData {

@@ -49,6 +49,9 @@ type ResultData struct {
 	PrimingVolume float64 // m³
 	Strokes       int     // hand-pump strokes, 0 when no stroke volume
 	Warnings      []WarnLine
+	// Hazards are short words for the liquid's hazards ("flammable",
+	// "inspect before release"); the caution line points to the Checklist.
+	Hazards []string
 }
 
 // WarnLine is one warning as the Result pane shows it.
@@ -182,6 +185,15 @@ func (r *ResultPane) content() []string {
 		prime += ", " + strconv.Itoa(d.Strokes) + " strokes"
 	}
 	row("Prime", prime)
+	if len(d.Hazards) > 0 {
+		text := "! " + strings.Join(d.Hazards, ", ") + ": see the Checklist (8). Local codes and permits govern."
+		for i, l := range wrapText(text, iw-2, 3) {
+			if i > 0 {
+				l = "  " + l
+			}
+			add(st.fast.Warning.Render(l))
+		}
+	}
 	for _, w := range d.Warnings {
 		for i, l := range wrapText(w.Status.Symbol()+" "+w.Text, iw, 2) {
 			if i > 0 {
