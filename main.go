@@ -20,7 +20,6 @@ import (
 
 	tea "charm.land/bubbletea/v2"
 
-	"drawdown/model"
 	"drawdown/model/cli"
 	"drawdown/tui"
 )
@@ -90,12 +89,11 @@ func runScreen(stderr io.Writer) int {
 		fmt.Fprintln(stderr, "drawdown:", err)
 		code = 1
 	}
-	if fm, ok := final.(tui.Model); ok && fm.Path() != "" {
-		if serr := model.SaveAtomic(fm.Path(), fm.Job()); serr != nil {
+	if fm, ok := final.(tui.Model); ok {
+		if serr := tui.SaveFinal(fm); serr != nil {
 			fmt.Fprintln(stderr, "drawdown: the job was NOT saved at exit:", serr)
 			return 1
 		}
-		_ = model.SetLastJob(fm.Path())
 	}
 	return code
 }

@@ -478,9 +478,17 @@ func TestSaveCommand(t *testing.T) {
 	if m2.(Model).saveErr != nil {
 		t.Error("stale save reply was used")
 	}
+	// The exit save (main, after Run) writes the latest job.
+	m = enterField(t, m, model.FieldDrop, "2 m")
+	if err := SaveFinal(m); err != nil {
+		t.Fatal(err)
+	}
+	if got, err := model.Load(st.Path); err != nil || got.Inputs[model.FieldDrop] != "2 m" {
+		t.Errorf("exit save: %v, drop %q", err, got.Inputs[model.FieldDrop])
+	}
 	// A start with this folder resumes the job.
 	s := OpenStart()
-	if s.Path == "" || s.Job.Inputs[model.FieldHoseLength] != "15 m" {
+	if s.Path == "" || s.Job.Inputs[model.FieldHoseLength] != "15 m" || s.Fresh {
 		t.Errorf("OpenStart: %q %q", s.Path, s.Job.Inputs[model.FieldHoseLength])
 	}
 }

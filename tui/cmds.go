@@ -3,6 +3,7 @@ package tui
 import (
 	"errors"
 	"strings"
+	"sync"
 	"time"
 
 	"charm.land/bubbles/v2/key"
@@ -42,11 +43,35 @@ type jobLoadedMsg struct {
 // SIGTERM).
 type StopMsg struct{ Reason string }
 
+// fileMu orders every write of a job file in this process: the root keeps
+// one save in flight, and SaveFinal (at exit) waits for it, so an older copy
+// can never land after the final one.
+var fileMu sync.Mutex
+
+func saveLocked(path string, j model.Job) error {
+	fileMu.Lock()
+	defer fileMu.Unlock()
+	return model.SaveAtomic(path, j)
+}
+
+// SaveFinal saves the job once more when the program ends (main calls it
+// with the model Run returns, also after SIGHUP or SIGTERM), after any save
+// still in flight, and records it as the job to resume.
+func SaveFinal(m Model) error {
+	if m.noSave || m.path == "" {
+		return nil
+	}
+	if err := saveLocked(m.path, m.Job()); err != nil {
+		return err
+	}
+	return model.SetLastJob(m.path)
+}
+
 // saveCmd writes the job atomically and, when markLast is set, records it as
 // the job to resume.
 func saveCmd(path string, j model.Job, seq uint64, markLast bool) tea.Cmd {
 	return func() tea.Msg {
-		err := model.SaveAtomic(path, j)
+		err := saveLocked(path, j)
 		if err == nil && markLast {
 			if lerr := model.SetLastJob(path); lerr != nil {
 				err = errors.New("saved, but could not record it as the last job: " + lerr.Error())
