@@ -175,6 +175,9 @@ func New(o Options) Model {
 // focusViews gives the keyed views (What-if, Checklist) the focus when
 // they are the focused pane.
 func (m *Model) focusViews() {
+	for i := range m.forms {
+		m.forms[i].SetActive(PaneID(i) == m.focus)
+	}
 	if m.focus == PaneWhatIf {
 		m.whatif.Focus()
 	} else {
@@ -466,6 +469,7 @@ func (m *Model) moveField(d int) {
 	f.StopEditing()
 	next := (int(m.focus) + d + 4) % 4
 	m.focus = PaneID(next)
+	m.focusViews()
 	nf := &m.forms[next]
 	if d > 0 {
 		nf.First()
@@ -918,7 +922,7 @@ func (m *Model) tabsView() string {
 		switch {
 		case i == m.focus:
 			b.WriteString(st.fast.TabActive.Render("[" + label + "]"))
-		case m.lay.Wide && i == m.lower && !m.focus.isForm():
+		case m.lay.Wide && i == m.lower:
 			b.WriteString(st.fast.Tab.Render("(" + label + ")"))
 		default:
 			b.WriteString(st.fast.Tab.Render(" " + label + " "))

@@ -35,6 +35,20 @@ type FormPane struct {
 	sys     model.System
 	gen     int      // bumped when styles or size change: every row is drawn again
 	help    []string // the selected field's help, wrapped (see renderRows)
+	// inactive: another pane has the focus (wide screens show the form
+	// anyway); the selection marker is hidden.
+	inactive bool
+}
+
+// SetActive shows or hides the selection marker (a form on screen while
+// another pane has the focus is inactive).
+func (f *FormPane) SetActive(on bool) {
+	if f.inactive == !on {
+		return
+	}
+	f.inactive = !on
+	f.gen++
+	f.renderRows()
 }
 
 // formField is one row of a form.
@@ -572,7 +586,7 @@ func (f *FormPane) renderRow(i int) (string, []string) {
 	lw, iw := f.labelWidth(), f.inputWidth()
 	sw := max(f.w-markerW-lw-iw-2*formColGap, 0)
 	ff := &f.fields[i]
-	focused := i == f.cursor
+	focused := i == f.cursor && !f.inactive
 	marker := "  "
 	labelSt := st.fast.Label
 	if focused {
@@ -701,6 +715,9 @@ func (f FormPane) View() string {
 		if f.SelectedIsPicker() {
 			mode = "  choosing: ←/→"
 		}
+	}
+	if f.inactive {
+		mode = "  keys 1–4 to edit"
 	}
 	title += st.fast.Muted.Render(mode)
 	rows, sel := f.rows()
