@@ -89,7 +89,7 @@ func runScreen(stderr io.Writer) int {
 		fmt.Fprintln(stderr, "drawdown:", err)
 		code = 1
 	}
-	if fm, ok := final.(tui.Model); ok {
+	if fm, ok := final.(*tui.Model); ok {
 		if serr := tui.SaveFinal(fm); serr != nil {
 			fmt.Fprintln(stderr, "drawdown: the job was NOT saved at exit:", serr)
 			return 1

@@ -129,7 +129,7 @@ type Model struct {
 
 // New builds the root model for a job. It computes the first plan at once,
 // so the first frame shows the answer.
-func New(o Options) Model {
+func New(o Options) *Model {
 	cat := o.Cat
 	if cat == nil {
 		cat = presets.Builtin()
@@ -140,7 +140,7 @@ func New(o Options) Model {
 	}
 	km := DefaultKeyMap()
 	st := NewStyles(true)
-	m := Model{
+	m := &Model{
 		keys: km, styles: st, cat: cat, now: now,
 		job: o.Start.Job, path: o.Start.Path, dir: o.Start.Dir,
 		noSave: o.NoSave || o.Start.Path == "", startNote: o.Start.Note, firstSave: o.Start.Fresh,
@@ -178,6 +178,7 @@ func (m *Model) focusViews() {
 	for i := range m.forms {
 		m.forms[i].SetActive(PaneID(i) == m.focus)
 	}
+	m.redrawForm()
 	if m.focus == PaneWhatIf {
 		m.whatif.Focus()
 	} else {
@@ -215,18 +216,18 @@ func (m *Model) resume() {
 }
 
 // Job returns a copy of the job as it stands (main saves it at exit).
-func (m Model) Job() model.Job { return m.job.Clone() }
+func (m *Model) Job() model.Job { return m.job.Clone() }
 
 // Path is where the job is saved ("" when saving is off).
-func (m Model) Path() string { return m.path }
+func (m *Model) Path() string { return m.path }
 
 // Init asks the terminal for its background colour; the first frame does
 // not wait for the answer (dark is assumed until it comes).
-func (m Model) Init() tea.Cmd { return tea.RequestBackgroundColor }
+func (m *Model) Init() tea.Cmd { return tea.RequestBackgroundColor }
 
 // Update routes a message: global keys first, then sizes, then typed
 // replies to their owner, then everything else to the focused pane.
-func (m Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
+func (m *Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
 	switch msg := msg.(type) {
 	case tea.KeyPressMsg:
 		return m.key(msg)
@@ -316,7 +317,7 @@ func (m *Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 	case key.Matches(msg, k.Quit):
 		return m.quit()
 	case key.Matches(msg, k.SaveNow):
-		return *m, m.save(true)
+		return m, m.save(true)
 	case key.Matches(msg, k.UnitsAny):
 		return m.toggleUnits()
 	}
@@ -325,7 +326,7 @@ func (m *Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 		if key.Matches(msg, k.Help, k.Leave, k.QuitNav) || msg.String() == "enter" {
 			m.showHelp = false
 		}
-		return *m, nil
+		return m, nil
 	}
 	if m.jobs.open {
 		return m.jobKey(msg)
@@ -338,13 +339,13 @@ func (m *Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 		if typing || key.Matches(msg, m.checklist.ShortHelp()...) {
 			var cmd tea.Cmd
 			m.checklist, cmd = m.checklist.Update(msg)
-			return *m, cmd
+			return m, cmd
 		}
 	case PaneWhatIf:
 		if key.Matches(msg, m.whatif.ShortHelp()...) {
 			var cmd tea.Cmd
 			m.whatif, cmd = m.whatif.Update(msg)
-			return *m, cmd
+			return m, cmd
 		}
 	case PaneHose, PaneLift, PaneLiquid, PaneTank, PaneSide, PaneCurve, PaneLog, paneCount:
 	}
@@ -354,24 +355,24 @@ func (m *Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 			return m.quit()
 		case key.Matches(msg, k.Help):
 			m.showHelp = true
-			return *m, nil
+			return m, nil
 		case key.Matches(msg, k.Units):
 			return m.toggleUnits()
 		case key.Matches(msg, k.Save):
 			m.flash = "saving now (every change is saved anyway)"
-			return *m, m.save(true)
+			return m, m.save(true)
 		case key.Matches(msg, k.Open):
 			m.jobs.open = true
 			m.jobs.loading = true
-			return *m, listJobsCmd(m.dir)
+			return m, listJobsCmd(m.dir)
 		case key.Matches(msg, k.NextPane):
-			return *m, m.setFocus((m.focus + 1) % paneCount)
+			return m, m.setFocus((m.focus + 1) % paneCount)
 		case key.Matches(msg, k.PrevPane):
-			return *m, m.setFocus((m.focus + paneCount - 1) % paneCount)
+			return m, m.setFocus((m.focus + paneCount - 1) % paneCount)
 		}
 		for i, b := range k.PaneKeys {
 			if key.Matches(msg, b) {
-				return *m, m.setFocus(PaneID(i))
+				return m, m.setFocus(PaneID(i))
 			}
 		}
 	}
@@ -386,7 +387,7 @@ func (m *Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 	if !typing && msg.Text != "" && !key.Matches(msg, k.Up, k.Down) {
 		m.flash = "“" + msg.Text + "” does nothing here. Keys: 1–4 forms, 5–9 views, ? all keys"
 	}
-	return *m, nil
+	return m, nil
 }
 
 // formKey handles a key in a form pane.
@@ -396,17 +397,17 @@ func (m *Model) formKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 	switch {
 	case key.Matches(msg, k.NextField):
 		m.moveField(+1)
-		return *m, m.saveResume()
+		return m, m.saveResume()
 	case key.Matches(msg, k.PrevField):
 		m.moveField(-1)
-		return *m, m.saveResume()
+		return m, m.saveResume()
 	case key.Matches(msg, k.Leave):
 		if f.Editing() {
 			f.StopEditing()
 		} else {
 			m.flash = "navigate mode: press enter to type in the marked field"
 		}
-		return *m, nil
+		return m, nil
 	}
 	picker := f.SelectedIsPicker()
 	if !picker && f.Editing() {
@@ -417,45 +418,45 @@ func (m *Model) formKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 			} else {
 				m.moveField(+1)
 			}
-			return *m, m.saveResume()
+			return m, m.saveResume()
 		case key.Matches(msg, k.Edit):
 			f.StopEditing()
-			return *m, nil
+			return m, nil
 		case key.Matches(msg, k.Restore):
 			return m.restoreField()
 		}
 		var edit *FieldEdit
 		var cmd tea.Cmd
-		*f, cmd, edit = f.Update(msg)
+		cmd, edit = f.Update(msg)
 		if edit != nil {
 			return m.applyEdit(*edit, cmd)
 		}
-		return *m, cmd
+		return m, cmd
 	}
 	// Navigate mode (or a picker, where letters are still commands).
 	switch {
 	case key.Matches(msg, k.Up):
 		m.moveField(-1)
-		return *m, m.saveResume()
+		return m, m.saveResume()
 	case key.Matches(msg, k.Down):
 		m.moveField(+1)
-		return *m, m.saveResume()
+		return m, m.saveResume()
 	case !picker && key.Matches(msg, k.Edit):
 		f.StartEditing()
-		return *m, nil
+		return m, nil
 	}
 	if picker {
 		var edit *FieldEdit
-		*f, _, edit = f.Update(msg)
+		_, edit = f.Update(msg)
 		if edit != nil {
 			return m.applyEdit(*edit, nil)
 		}
-		return *m, nil
+		return m, nil
 	}
 	if msg.Text != "" {
 		m.flash = "not typing: press enter first to type in “" + f.Selected().Label + "”"
 	}
-	return *m, nil
+	return m, nil
 }
 
 // moveField moves the selection within the form, and on into the next or
@@ -504,7 +505,7 @@ func (m *Model) applyEdit(e FieldEdit, cmd tea.Cmd) (tea.Model, tea.Cmd) {
 		m.rebuildChecklist(e.ID)
 	}
 	m.recompute()
-	return *m, tea.Batch(cmd, m.save(false), m.whatIfCmd())
+	return m, tea.Batch(cmd, m.save(false), m.whatIfCmd())
 }
 
 // restoreField puts back the field's text from the last valid plan's job
@@ -514,12 +515,12 @@ func (m *Model) restoreField() (tea.Model, tea.Cmd) {
 	id := f.Selected().ID
 	if m.errs[id] == nil {
 		m.flash = "nothing to undo: the field is valid"
-		return *m, nil
+		return m, nil
 	}
 	old, ok := m.lastGood[id]
 	if !ok {
 		m.flash = "no earlier valid text for this field"
-		return *m, nil
+		return m, nil
 	}
 	return m.applyEdit(FieldEdit{ID: id, Text: old}, nil)
 }
@@ -580,6 +581,7 @@ func (m *Model) refresh() {
 	for i := range m.forms {
 		m.forms[i].SetJob(&m.job, m.errs)
 	}
+	m.redrawForm()
 	sys := m.job.Units
 	rd := ResultData{}
 	if m.hasPlan {
@@ -596,6 +598,19 @@ func (m *Model) refresh() {
 	m.syncDrawn()
 	m.checklist.SetChecklist(m.job.Checklist)
 	m.log.SetEntries(m.job.Log)
+}
+
+// redrawForm brings the rows of the form on screen up to date (the others
+// are drawn when they are shown).
+func (m *Model) redrawForm() {
+	f := m.focus
+	if !f.isForm() {
+		if !m.lay.Wide {
+			return
+		}
+		f = PaneID(m.lastForm())
+	}
+	m.forms[f].renderRows()
 }
 
 // syncDrawn hands the plan to the drawn views (Side view, Drain curve) when
@@ -647,7 +662,7 @@ func (m *Model) toggleUnits() (tea.Model, tea.Cmd) {
 	m.whatif.SetUnits(sys)
 	m.recompute()
 	m.flash = "units: " + sysName(sys) + "; what you typed keeps its unit"
-	return *m, tea.Batch(m.save(false), m.whatIfCmd())
+	return m, tea.Batch(m.save(false), m.whatIfCmd())
 }
 
 func sysName(s model.System) string {
@@ -661,7 +676,7 @@ func sysName(s model.System) string {
 // and quits.
 func (m *Model) quit() (tea.Model, tea.Cmd) {
 	m.quitting = true
-	return *m, tea.Quit
+	return m, tea.Quit
 }
 
 // save starts a save of a copy of the job, or marks the job dirty when a
@@ -696,7 +711,7 @@ func (m *Model) saveResume() tea.Cmd {
 
 func (m *Model) saved(msg jobSavedMsg) (tea.Model, tea.Cmd) {
 	if msg.seq != m.saveSeq {
-		return *m, nil // stale reply
+		return m, nil // stale reply
 	}
 	m.saving = false
 	m.saveErr = msg.err
@@ -705,15 +720,15 @@ func (m *Model) saved(msg jobSavedMsg) (tea.Model, tea.Cmd) {
 		m.markedAs = msg.path
 	}
 	if m.dirty {
-		return *m, m.save(false)
+		return m, m.save(false)
 	}
-	return *m, nil
+	return m, nil
 }
 
 func (m *Model) loaded(msg jobLoadedMsg) (tea.Model, tea.Cmd) {
 	if msg.err != nil {
 		m.jobs.err = msg.err
-		return *m, nil
+		return m, nil
 	}
 	m.jobs.open = false
 	m.job = msg.job
@@ -733,7 +748,7 @@ func (m *Model) loaded(msg jobLoadedMsg) (tea.Model, tea.Cmd) {
 	m.recompute()
 	m.resize(m.width, m.height)
 	m.focusViews()
-	return *m, tea.Batch(m.save(true), m.whatIfCmd())
+	return m, tea.Batch(m.save(true), m.whatIfCmd())
 }
 
 // resize lays the panes out for a w×h terminal.
@@ -762,11 +777,12 @@ func (m *Model) resize(w, h int) {
 		m.checklist.SetSize(l.Main.W, l.Main.H)
 	}
 	m.jobs.w, m.jobs.h = l.Main.W, l.Main.H
+	m.redrawForm()
 	m.syncDrawn()
 }
 
 // View draws the screen. It only formats what Update computed.
-func (m Model) View() tea.View {
+func (m *Model) View() tea.View {
 	v := tea.NewView("")
 	v.AltScreen = true
 	v.WindowTitle = "drawdown"
@@ -1207,7 +1223,7 @@ func (m *Model) adopt(a WhatIfAdoptMsg) (tea.Model, tea.Cmd) {
 	m.job.Updated = m.now()
 	m.recompute()
 	m.flash = "now using " + strconv.Itoa(max(a.Hoses, 1)) + " × " + d + ", " + l + " (see the Hose pane)"
-	return *m, tea.Batch(m.save(false), m.whatIfCmd())
+	return m, tea.Batch(m.save(false), m.whatIfCmd())
 }
 
 // mark records a checklist step's state with the time, logs it and saves.
@@ -1215,7 +1231,7 @@ func (m *Model) mark(c ChecklistMarkMsg) (tea.Model, tea.Cmd) {
 	now := m.now()
 	if err := m.job.Checklist.Mark(c.ID, c.State, c.Reason, "", now); err != nil {
 		m.flash = err.Error()
-		return *m, nil
+		return m, nil
 	}
 	text := "checklist: " + c.ID + " " + c.State.Label()
 	if c.Reason != "" {
@@ -1229,5 +1245,5 @@ func (m *Model) mark(c ChecklistMarkMsg) (tea.Model, tea.Cmd) {
 	}
 	m.checklist.SetChecklist(m.job.Checklist)
 	m.log.SetEntries(m.job.Log)
-	return *m, m.save(false)
+	return m, m.save(false)
 }

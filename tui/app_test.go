@@ -2,6 +2,7 @@ package tui
 
 import (
 	"bytes"
+	"image/color"
 	"math"
 	"os"
 	"path/filepath"
@@ -25,7 +26,7 @@ import (
 
 var testClock = time.Date(2026, time.March, 14, 8, 0, 0, 0, time.UTC)
 
-func newTestModel(t testing.TB, w, h int) Model {
+func newTestModel(t testing.TB, w, h int) *Model {
 	t.Helper()
 	m := New(Options{Start: Start{Job: model.DemoJob()}, NoSave: true,
 		Now: func() time.Time { return testClock }, Loc: time.UTC})
@@ -34,14 +35,14 @@ func newTestModel(t testing.TB, w, h int) Model {
 
 // send delivers one message and runs what it returns (saves are off, so the
 // commands are cheap and local).
-func send(t testing.TB, m Model, msg tea.Msg) Model {
+func send(t testing.TB, m *Model, msg tea.Msg) *Model {
 	t.Helper()
 	next, cmd := m.Update(msg)
-	m = next.(Model)
+	m = next.(*Model)
 	return runCmd(t, m, cmd, 0)
 }
 
-func runCmd(t testing.TB, m Model, cmd tea.Cmd, depth int) Model {
+func runCmd(t testing.TB, m *Model, cmd tea.Cmd, depth int) *Model {
 	if cmd == nil || depth > 4 {
 		return m
 	}
@@ -58,7 +59,7 @@ func runCmd(t testing.TB, m Model, cmd tea.Cmd, depth int) Model {
 		return m
 	}
 	next, c := m.Update(msg)
-	return runCmd(t, next.(Model), c, depth+1)
+	return runCmd(t, next.(*Model), c, depth+1)
 }
 
 // keyMsg builds a key press from its name ("enter", "shift+tab", "ctrl+u",
@@ -80,7 +81,7 @@ func keyMsg(name string) tea.KeyPressMsg {
 	return tea.KeyPressMsg{Code: r, Text: name}
 }
 
-func press(t testing.TB, m Model, keys ...string) Model {
+func press(t testing.TB, m *Model, keys ...string) *Model {
 	t.Helper()
 	for _, k := range keys {
 		m = send(t, m, keyMsg(k))
@@ -89,7 +90,7 @@ func press(t testing.TB, m Model, keys ...string) Model {
 }
 
 // typeText types s one rune at a time.
-func typeText(t testing.TB, m Model, s string) Model {
+func typeText(t testing.TB, m *Model, s string) *Model {
 	t.Helper()
 	for _, r := range s {
 		m = send(t, m, tea.KeyPressMsg{Code: r, Text: string(r)})
@@ -99,7 +100,7 @@ func typeText(t testing.TB, m Model, s string) Model {
 
 // selectField goes to the field's pane (digit key in navigate mode) and
 // moves down to it.
-func selectField(t testing.TB, m Model, id model.FieldID) Model {
+func selectField(t testing.TB, m *Model, id model.FieldID) *Model {
 	t.Helper()
 	spec, ok := model.FieldByID(id)
 	if !ok {
@@ -122,7 +123,7 @@ func selectField(t testing.TB, m Model, id model.FieldID) Model {
 
 // enterField replaces a typed field's text the way a technician does:
 // select it, enter, backspace over the old text, type, enter.
-func enterField(t testing.TB, m Model, id model.FieldID, text string) Model {
+func enterField(t testing.TB, m *Model, id model.FieldID, text string) *Model {
 	t.Helper()
 	m = selectField(t, m, id)
 	m = press(t, m, "enter")
@@ -133,10 +134,10 @@ func enterField(t testing.TB, m Model, id model.FieldID, text string) Model {
 	return press(t, m, "enter")
 }
 
-func frame(m Model) string { return ansi.Strip(m.View().Content) }
+func frame(m *Model) string { return ansi.Strip(m.View().Content) }
 
 // checkScreen asserts a whole frame is exactly w×h cells with no NaN/Inf.
-func checkScreen(t *testing.T, m Model) string {
+func checkScreen(t *testing.T, m *Model) string {
 	t.Helper()
 	plain := frame(m)
 	paneCheckFrame(t, plain, m.width, m.height)
@@ -475,7 +476,7 @@ func TestSaveCommand(t *testing.T) {
 	}
 	// Stale reply is dropped.
 	m2, _ := m.Update(jobSavedMsg{seq: m.saveSeq + 5, err: errTest})
-	if m2.(Model).saveErr != nil {
+	if m2.(*Model).saveErr != nil {
 		t.Error("stale save reply was used")
 	}
 	// The exit save (main, after Run) writes the latest job.
@@ -510,7 +511,7 @@ func BenchmarkKeystroke(b *testing.B) {
 	var sink int
 	for i := 0; i < b.N; i++ {
 		next, _ := m.Update(keys[i%2])
-		m = next.(Model)
+		m = next.(*Model)
 		sink += len(m.View().Content)
 	}
 	if sink == 0 {
@@ -592,8 +593,52 @@ func TestStopMsg(t *testing.T) {
 	if _, ok := cmd().(tea.QuitMsg); !ok {
 		t.Error("StopMsg did not quit")
 	}
-	j := next.(Model).Job()
+	j := next.(*Model).Job()
 	if n := len(j.Log); n == 0 || !strings.Contains(j.Log[n-1].Text, "SIGHUP") {
 		t.Errorf("stop not logged: %+v", j.Log)
+	}
+}
+
+// BenchmarkKeystrokeWide is the same keystroke at 120×40, where the Side
+// view and the Drain curve are on screen and redrawn too.
+func BenchmarkKeystrokeWide(b *testing.B) {
+	m := newTestModel(b, 120, 40)
+	m = press(b, m, "down", "enter")
+	keys := []tea.KeyPressMsg{keyMsg("backspace"), {Code: 'm', Text: "m"}}
+	b.ReportAllocs()
+	b.ResetTimer()
+	var sink int
+	for i := 0; i < b.N; i++ {
+		next, _ := m.Update(keys[i%2])
+		m = next.(*Model)
+		sink += len(m.View().Content)
+	}
+	if sink == 0 {
+		b.Fatal("empty view")
+	}
+}
+
+// TestLightBackground: the styles follow the terminal's background.
+func TestLightBackground(t *testing.T) {
+	m := newTestModel(t, 80, 24)
+	if !m.styles.IsDark {
+		t.Fatal("dark assumed until the terminal answers")
+	}
+	m = send(t, m, tea.BackgroundColorMsg{Color: color.White})
+	if m.styles.IsDark {
+		t.Error("light background not taken")
+	}
+	checkScreen(t, m)
+}
+
+// TestCellWidth: the fast width agrees with ansi.StringWidth on the
+// characters the screens use, and falls back for the others.
+func TestCellWidth(t *testing.T) {
+	st := NewStyles(true)
+	for _, s := range []string{"", "abc", "✓ RUNS", "▶ ◀ · … ≈ ░ ┌─┐│└┘ ━┃┏┓▲▼ ⠒⢦⣀ ■ ┊ ⇄ ΣK µm °C ×2 –",
+		st.fast.OK.Render("✓ RUNS") + " " + st.fast.Muted.Render("x"), "日本語", "e\u0301", "a\tb"} {
+		if got, want := cellWidth(s), ansi.StringWidth(s); got != want {
+			t.Errorf("cellWidth(%q) = %d, ansi.StringWidth = %d", s, got, want)
+		}
 	}
 }

@@ -57,7 +57,7 @@ func saveLocked(path string, j model.Job) error {
 // SaveFinal saves the job once more when the program ends (main calls it
 // with the model Run returns, also after SIGHUP or SIGTERM), after any save
 // still in flight, and records it as the job to resume.
-func SaveFinal(m Model) error {
+func SaveFinal(m *Model) error {
 	if m.noSave || m.path == "" {
 		return nil
 	}
@@ -213,7 +213,7 @@ func (m *Model) jobKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 		l.cursor = min(l.cursor+1, max(len(l.jobs)-1, 0))
 	case msg.String() == "enter":
 		if l.cursor < len(l.jobs) && l.jobs[l.cursor].Err == nil {
-			return *m, loadJobCmd(l.jobs[l.cursor].Path)
+			return m, loadJobCmd(l.jobs[l.cursor].Path)
 		}
 		if l.cursor < len(l.jobs) {
 			l.err = l.jobs[l.cursor].Err
@@ -228,5 +228,5 @@ func (m *Model) jobKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 		}
 		return m.loaded(jobLoadedMsg{path: path, job: demo})
 	}
-	return *m, nil
+	return m, nil
 }

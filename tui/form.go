@@ -4,6 +4,7 @@ import (
 	"errors"
 	"strconv"
 	"strings"
+	"unicode/utf8"
 
 	"charm.land/bubbles/v2/key"
 	"charm.land/bubbles/v2/textinput"
@@ -63,6 +64,11 @@ type formField struct {
 	shown   string // the value as read, in the job's unit system, or the choice label
 	errText string // the field's error, "" when fine
 	used    bool   // false when the field does not apply (e.g. tank width of a cylinder)
+
+	// shown was worked out for this raw text and unit system.
+	described bool
+	descRaw   string
+	descSys   model.System
 
 	// The row as drawn, and the key it was drawn for (see renderRows).
 	line     string
@@ -173,7 +179,10 @@ func (f *FormPane) SetJob(j *model.Job, errs map[model.FieldID]error) {
 		if err := errs[ff.spec.ID]; err != nil && ff.used {
 			ff.errText = fieldMessage(ff.spec, err)
 		}
-		ff.shown = ff.describe(f.sys)
+		if !ff.described || ff.descRaw != ff.raw || ff.descSys != f.sys {
+			ff.shown = ff.describe(f.sys)
+			ff.described, ff.descRaw, ff.descSys = true, ff.raw, f.sys
+		}
 		if ff.spec.Multi && len(ff.choices) > 0 {
 			ff.sub = clamp(ff.sub, 0, len(ff.choices)-1)
 		}
@@ -181,7 +190,8 @@ func (f *FormPane) SetJob(j *model.Job, errs map[model.FieldID]error) {
 	if f.cursor >= len(f.fields) {
 		f.cursor = 0
 	}
-	f.renderRows()
+	// The rows are drawn when the form is on screen (the root calls
+	// renderRows for the visible form), not for all four on each keystroke.
 }
 
 // fieldMessage is the text under an invalid field: the model's field error
@@ -427,35 +437,39 @@ func (f *FormPane) Last() { f.SetCursor(len(f.fields) - 1) }
 
 // Update handles a key for the selected field. The root has already taken
 // the global keys (tab, esc, quit, units…). edit is non-nil when the field's
-// text changed.
-func (f FormPane) Update(msg tea.Msg) (FormPane, tea.Cmd, *FieldEdit) {
+// text changed; the root then stores it, recomputes and redraws the rows.
+// Update works in place (a pointer receiver, unlike the bubbles widgets):
+// the form carries four text inputs and is updated on every keystroke.
+func (f *FormPane) Update(msg tea.Msg) (tea.Cmd, *FieldEdit) {
 	if len(f.fields) == 0 {
-		return f, nil, nil
+		return nil, nil
 	}
 	km, ok := msg.(tea.KeyPressMsg)
 	ff := &f.fields[f.cursor]
 	if ff.spec.IsPicker() {
 		if !ok {
-			return f, nil, nil
+			return nil, nil
 		}
 		e := f.pickerKey(km)
-		f.renderRows()
-		return f, nil, e
+		if e == nil {
+			f.renderRows()
+		}
+		return nil, e
 	}
 	if !f.editing {
-		return f, nil, nil
+		return nil, nil
 	}
 	if ok && key.Matches(km, f.keys.Restore) {
-		return f, nil, nil
+		return nil, nil
 	}
 	before := ff.input.Value()
 	var cmd tea.Cmd
 	ff.input, cmd = ff.input.Update(msg)
-	f.renderRows()
 	if v := ff.input.Value(); v != before {
-		return f, cmd, &FieldEdit{ID: ff.spec.ID, Text: v}
+		return cmd, &FieldEdit{ID: ff.spec.ID, Text: v}
 	}
-	return f, cmd, nil
+	f.renderRows() // the cursor moved
+	return cmd, nil
 }
 
 // pickerKey cycles a picker (left/right/enter) or, in a multi picker, moves
@@ -747,7 +761,7 @@ func (f FormPane) FullHelp() [][]key.Binding { return f.keys.fullHelp() }
 
 // padRight pads s with spaces to w cells (s must be plain text).
 func padRight(s string, w int) string {
-	if n := w - ansi.StringWidth(s); n > 0 {
+	if n := w - cellWidth(s); n > 0 {
 		return s + strings.Repeat(" ", n)
 	}
 	return s
@@ -771,6 +785,43 @@ func wrapText(s string, w, n int) []string {
 	return out
 }
 
+// cellWidth is the width of a styled line in cells. Lines on this screen
+// are made of single-width characters and SGR escapes, for which counting
+// runes outside the escapes is exact and much cheaper than grapheme
+// segmentation; anything else (wide or combining characters, other escapes)
+// goes to ansi.StringWidth.
+func cellWidth(s string) int {
+	n := 0
+	for i := 0; i < len(s); {
+		c := s[i]
+		switch {
+		case c == 0x1b:
+			if i+1 >= len(s) || s[i+1] != '[' {
+				return ansi.StringWidth(s)
+			}
+			j := i + 2
+			for j < len(s) && (s[j] < 0x40 || s[j] > 0x7e) {
+				j++
+			}
+			i = j + 1
+		case c < 0x20 || c == 0x7f:
+			return ansi.StringWidth(s)
+		case c < 0x80:
+			n++
+			i++
+		default:
+			r, size := utf8.DecodeRuneInString(s[i:])
+			if r < 0x300 || (r >= 0x2000 && r < 0x2e80 && !(r >= 0x200b && r <= 0x200f) && !(r >= 0x20d0 && r <= 0x20ff)) {
+				n++
+				i += size
+				continue
+			}
+			return ansi.StringWidth(s)
+		}
+	}
+	return n
+}
+
 // fitBlock pads or cuts styled lines to exactly w cells and h lines.
 func fitBlock(lines []string, w, h int) string {
 	if w <= 0 || h <= 0 {
@@ -782,10 +833,10 @@ func fitBlock(lines []string, w, h int) string {
 		if i < len(lines) {
 			s = lines[i]
 		}
-		sw := ansi.StringWidth(s)
+		sw := cellWidth(s)
 		if sw > w {
 			s = ansi.Truncate(s, w, "…")
-			sw = ansi.StringWidth(s)
+			sw = cellWidth(s)
 		}
 		if sw < w {
 			s += strings.Repeat(" ", w-sw)
