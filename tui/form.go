@@ -9,7 +9,6 @@ import (
 	"charm.land/bubbles/v2/key"
 	"charm.land/bubbles/v2/textinput"
 	tea "charm.land/bubbletea/v2"
-	"charm.land/lipgloss/v2"
 	"github.com/charmbracelet/x/ansi"
 
 	"drawdown/model"
@@ -528,10 +527,13 @@ func (f FormPane) CursorPos() *tea.Cursor {
 	if ff.spec.IsPicker() {
 		return nil
 	}
-	c := ff.input.Cursor()
-	if c == nil {
+	if !ff.input.Focused() {
 		return nil
 	}
+	_, off := inputWindow(ff.input.Value(), ff.input.Position(), f.inputWidth())
+	c := tea.NewCursor(off, 0)
+	c.Shape = tea.CursorBlock
+	c.Color = f.styles.cursorColor()
 	row := f.selectedLine()
 	top := f.scrollTop(row)
 	if row-top < 0 || row-top >= f.bodyHeight() {
@@ -540,6 +542,42 @@ func (f FormPane) CursorPos() *tea.Cursor {
 	c.X += markerW + f.labelWidth() + formColGap
 	c.Y = 1 + row - top // below the title line
 	return c
+}
+
+// inputWindow is the part of a field's text that shows in w cells with the
+// cursor at pos (runes): the text from its start, or scrolled so that the
+// cursor stays in view. off is the cursor's column in the window.
+func inputWindow(v string, pos, w int) (string, int) {
+	r := []rune(v)
+	pos = clamp(pos, 0, len(r))
+	start := 0
+	if pos >= w {
+		start = pos - w + 1
+	}
+	end := min(len(r), start+w)
+	return string(r[start:end]), pos - start
+}
+
+// inputCell draws a typed field's text, exactly w cells: the text as typed
+// (the part around the cursor when it is longer than the cell), or the
+// placeholder in muted text. The text input widget keeps the editing; the
+// drawing is ours, with the fixed escape sequences of Styles.fast, as it is
+// redone on every keystroke. The terminal's own cursor marks the place.
+func (f *FormPane) inputCell(ff *formField, focused bool, w int) string {
+	st := f.styles
+	v := ff.input.Value()
+	if v == "" {
+		return st.fast.Muted.Render(padRight(ansi.Truncate(ff.input.Placeholder, w, "…"), w))
+	}
+	text, _ := inputWindow(v, ff.input.Position(), w)
+	if cellWidth(text) > w {
+		text = ansi.Truncate(text, w, "")
+	}
+	p := st.fast.Input
+	if focused && f.editing {
+		p = st.fast.InputFocused
+	}
+	return p.Render(text) + strings.Repeat(" ", max(w-cellWidth(text), 0))
 }
 
 // Rendering. The pane is: a title line, the field rows (with error lines),
@@ -618,10 +656,7 @@ func (f *FormPane) renderRow(i int) (string, []string) {
 	case !ff.used:
 		body = st.fast.Muted.Render(padRight("not used here", iw+formColGap+sw))
 	default:
-		in := ff.input.View()
-		if w := lipgloss.Width(in); w < iw {
-			in += strings.Repeat(" ", iw-w)
-		}
+		in := f.inputCell(ff, focused, iw)
 		shown := ff.shown
 		sst := st.fast.Unit
 		if ff.errText != "" {
@@ -630,7 +665,7 @@ func (f *FormPane) renderRow(i int) (string, []string) {
 				shown = "✗ below"
 			}
 		}
-		body = ansi.Truncate(in, iw, "") + " " + sst.Render(ansi.Truncate(shown, sw, "…"))
+		body = in + " " + sst.Render(ansi.Truncate(shown, sw, "…"))
 	}
 	return marker + label + " " + body, nil
 }
