@@ -642,3 +642,42 @@ func TestCellWidth(t *testing.T) {
 		}
 	}
 }
+
+// TestJobList: o lists the job folder, d starts a new job from the demo in a
+// new file, enter opens the one selected.
+func TestJobList(t *testing.T) {
+	t.Setenv("DRAWDOWN_HOME", t.TempDir())
+	dir, err := model.JobsDir()
+	if err != nil {
+		t.Fatal(err)
+	}
+	first := model.NewJobPath(dir, "demo")
+	m := New(Options{Start: Start{Job: model.DemoJob(), Dir: dir, Path: first, Fresh: true},
+		Now: func() time.Time { return testClock }})
+	m = send(t, m, tea.WindowSizeMsg{Width: 80, Height: 24})
+	m = enterField(t, m, model.FieldHoseLength, "20 m")
+	m = press(t, m, "o")
+	if !m.jobs.open || len(m.jobs.jobs) != 1 {
+		t.Fatalf("job list: open %v, %d jobs", m.jobs.open, len(m.jobs.jobs))
+	}
+	if !strings.Contains(frame(m), "Open a job") {
+		t.Errorf("no job list on screen:\n%s", frame(m))
+	}
+	m = press(t, m, "d")
+	if m.jobs.open || m.path == first || m.job.Inputs[model.FieldHoseLength] != "12 m" {
+		t.Fatalf("new demo job: open %v, path %s, length %q", m.jobs.open, m.path, m.job.Inputs[model.FieldHoseLength])
+	}
+	m = press(t, m, "o")
+	if len(m.jobs.jobs) != 2 {
+		t.Fatalf("%d jobs listed after the new one", len(m.jobs.jobs))
+	}
+	for i, j := range m.jobs.jobs {
+		if j.Path == first {
+			m.jobs.cursor = i
+		}
+	}
+	m = press(t, m, "enter")
+	if m.path != first || m.job.Inputs[model.FieldHoseLength] != "20 m" {
+		t.Errorf("reopened %s with length %q", m.path, m.job.Inputs[model.FieldHoseLength])
+	}
+}
