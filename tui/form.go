@@ -729,9 +729,14 @@ func (f FormPane) makeHelpLines() []string {
 					text = c.Note + " " + text
 				}
 			}
+			// The row may cut the choice short: name it in full here.
+			text = ff.shown + ". " + text
 		}
 	} else if r := ff.spec.RangeText(f.sys); r != "" {
 		text += " Accepted " + r + "."
+	}
+	if cellWidth(ff.spec.Label) > f.labelWidth() {
+		text = ff.spec.Label + ": " + text // the row cuts the label short
 	}
 	for _, l := range wrapText(text, w, helpHeight) {
 		out = append(out, f.styles.fast.Muted.Render(l))
