@@ -414,9 +414,9 @@ func (m *Model) formKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 		switch {
 		case msg.String() == "up" || msg.String() == "down":
 			if msg.String() == "up" {
-				m.moveField(-1)
+				m.moveInPane(-1)
 			} else {
-				m.moveField(+1)
+				m.moveInPane(+1)
 			}
 			return m, m.saveResume()
 		case key.Matches(msg, k.Edit):
@@ -436,10 +436,10 @@ func (m *Model) formKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 	// Navigate mode (or a picker, where letters are still commands).
 	switch {
 	case key.Matches(msg, k.Up):
-		m.moveField(-1)
+		m.moveInPane(-1)
 		return m, m.saveResume()
 	case key.Matches(msg, k.Down):
-		m.moveField(+1)
+		m.moveInPane(+1)
 		return m, m.saveResume()
 	case !picker && key.Matches(msg, k.Edit):
 		f.StartEditing()
@@ -461,10 +461,16 @@ func (m *Model) formKey(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 
 // moveField moves the selection within the form, and on into the next or
 // previous form at either end.
-func (m *Model) moveField(d int) {
+func (m *Model) moveField(d int) { m.move(d, true) }
+
+// moveInPane moves the selection within the form only (↑/↓ stop at the
+// ends; tab and shift-tab go on into the next form).
+func (m *Model) moveInPane(d int) { m.move(d, false) }
+
+func (m *Model) move(d int, cross bool) {
 	f := &m.forms[m.focus]
 	editing := f.Editing()
-	if f.Move(d) {
+	if f.Move(d) || !cross {
 		return
 	}
 	f.StopEditing()

@@ -305,6 +305,9 @@ func TestNoNaNInf(t *testing.T) {
 	bad := []string{"0", "-1", "1e400", "NaN", "-Inf", "0x10", "1/0", "99999999", "-", "1e-300"}
 	m := newTestModel(t, 80, 24)
 	for _, f := range model.Fields() {
+		if !fieldUsed(&m.job, f.ID) {
+			continue // "not used here": the selection passes over it
+		}
 		if f.IsPicker() {
 			m = selectField(t, m, f.ID)
 			for i := 0; i < 3; i++ {
@@ -679,5 +682,26 @@ func TestJobList(t *testing.T) {
 	m = press(t, m, "enter")
 	if m.path != first || m.job.Inputs[model.FieldHoseLength] != "20 m" {
 		t.Errorf("reopened %s with length %q", m.path, m.job.Inputs[model.FieldHoseLength])
+	}
+}
+
+// TestFieldMoves: ↑/↓ stay in the pane and pass over fields that do not
+// apply; tab goes on into the next pane.
+func TestFieldMoves(t *testing.T) {
+	m := newTestModel(t, 80, 24)
+	m = press(t, m, "1", "up")
+	if m.focus != PaneHose || m.forms[PaneHose].Cursor() != 0 {
+		t.Errorf("up at the top left the pane: %v field %d", m.focus, m.forms[PaneHose].Cursor())
+	}
+	m = press(t, m, "4", "down") // rectangular tank: diameter does not apply
+	if id := m.forms[PaneTank].Selected().ID; id != model.FieldTankLength {
+		t.Errorf("down from the shape went to %s", id)
+	}
+	m = press(t, m, "1")
+	for i := 0; i < 12; i++ {
+		m = press(t, m, "tab")
+	}
+	if m.focus != PaneLift {
+		t.Errorf("tab past the last Hose field: focus %v", m.focus)
 	}
 }

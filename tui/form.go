@@ -419,20 +419,32 @@ func (f *FormPane) blurInput() {
 
 // Move selects the next (+1) or previous (−1) field. It returns false when
 // the move would leave the pane (the root then goes to the next pane).
+// Fields that do not apply to the job ("not used here") are passed over.
 func (f *FormPane) Move(d int) bool {
-	n := f.cursor + d
-	if n < 0 || n >= len(f.fields) {
-		return false
+	for n := f.cursor + d; n >= 0 && n < len(f.fields); n += d {
+		if f.fields[n].used {
+			f.SetCursor(n)
+			return true
+		}
 	}
-	f.SetCursor(n)
-	return true
+	return false
 }
 
-// First and Last select the first or last field.
-func (f *FormPane) First() { f.SetCursor(0) }
+// First and Last select the first or last field in use.
+func (f *FormPane) First() {
+	f.SetCursor(0)
+	if !f.fields[0].used {
+		f.Move(+1)
+	}
+}
 
-// Last selects the last field.
-func (f *FormPane) Last() { f.SetCursor(len(f.fields) - 1) }
+// Last selects the last field in use.
+func (f *FormPane) Last() {
+	f.SetCursor(len(f.fields) - 1)
+	if !f.fields[f.cursor].used {
+		f.Move(-1)
+	}
+}
 
 // Update handles a key for the selected field. The root has already taken
 // the global keys (tab, esc, quit, units…). edit is non-nil when the field's
