@@ -95,6 +95,7 @@ type Model struct {
 
 	focus     PaneID
 	lower     PaneID // wide screens: the view shown in the lower strip
+	form      PaneID // the form last focused (shown on wide screens meanwhile)
 	forms     [4]FormPane
 	result    ResultPane
 	side      SideView
@@ -175,6 +176,9 @@ func New(o Options) *Model {
 // focusViews gives the keyed views (What-if, Checklist) the focus when
 // they are the focused pane.
 func (m *Model) focusViews() {
+	if m.focus.isForm() {
+		m.form = m.focus
+	}
 	for i := range m.forms {
 		m.forms[i].SetActive(PaneID(i) == m.focus)
 	}
@@ -200,11 +204,9 @@ func (m *Model) resume() {
 	if r.Field != "" {
 		for i := range m.forms {
 			if m.forms[i].SelectField(r.Field) {
-				if !m.focus.isForm() {
-					break
-				}
-				if PaneID(i) != m.focus {
-					m.focus = PaneID(i)
+				m.form = PaneID(i)
+				if m.focus.isForm() {
+					m.focus = m.form
 				}
 				break
 			}
@@ -236,7 +238,7 @@ func (m *Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
 		var save tea.Cmd
 		if m.firstSave {
 			m.firstSave = false
-			save = m.save(true)
+			save = m.save()
 		}
 		return m, tea.Batch(m.whatIfCmd(), save)
 	case tea.BackgroundColorMsg:
@@ -269,11 +271,11 @@ func (m *Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
 		}
 		m.job.Updated = m.now()
 		m.checklist.SetChecklist(m.job.Checklist)
-		return m, m.save(false)
+		return m, m.save()
 	case ChecklistStepMsg:
 		m.job.Resume.StepID = msg.ID
 		m.job.Resume.Step = m.job.Checklist.Index(msg.ID)
-		return m, m.save(false)
+		return m, m.save()
 	case StopMsg:
 		m.job.AddLog(m.now(), "stopped ("+msg.Reason+"); job saved")
 		m.quitting = true
@@ -317,7 +319,7 @@ func (m *Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 	case key.Matches(msg, k.Quit):
 		return m.quit()
 	case key.Matches(msg, k.SaveNow):
-		return m, m.save(true)
+		return m, m.save()
 	case key.Matches(msg, k.UnitsAny):
 		return m.toggleUnits()
 	}
@@ -360,7 +362,7 @@ func (m *Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 			return m.toggleUnits()
 		case key.Matches(msg, k.Save):
 			m.flash = "saving now (every change is saved anyway)"
-			return m, m.save(true)
+			return m, m.save()
 		case key.Matches(msg, k.Open):
 			m.jobs.open = true
 			m.jobs.loading = true
@@ -511,7 +513,7 @@ func (m *Model) applyEdit(e FieldEdit, cmd tea.Cmd) (tea.Model, tea.Cmd) {
 		m.rebuildChecklist(e.ID)
 	}
 	m.recompute()
-	return m, tea.Batch(cmd, m.save(false), m.whatIfCmd())
+	return m, tea.Batch(cmd, m.save(), m.whatIfCmd())
 }
 
 // restoreField puts back the field's text from the last valid plan's job
@@ -668,7 +670,7 @@ func (m *Model) toggleUnits() (tea.Model, tea.Cmd) {
 	m.whatif.SetUnits(sys)
 	m.recompute()
 	m.flash = "units: " + sysName(sys) + "; what you typed keeps its unit"
-	return m, tea.Batch(m.save(false), m.whatIfCmd())
+	return m, tea.Batch(m.save(), m.whatIfCmd())
 }
 
 func sysName(s model.System) string {
@@ -687,7 +689,7 @@ func (m *Model) quit() (tea.Model, tea.Cmd) {
 
 // save starts a save of a copy of the job, or marks the job dirty when a
 // save is in flight.
-func (m *Model) save(force bool) tea.Cmd {
+func (m *Model) save() tea.Cmd {
 	if m.noSave {
 		return nil
 	}
@@ -695,7 +697,6 @@ func (m *Model) save(force bool) tea.Cmd {
 		m.dirty = true
 		return nil
 	}
-	_ = force
 	m.saving, m.dirty = true, false
 	m.saveSeq++
 	mark := m.markedAs != m.path
@@ -712,7 +713,7 @@ func (m *Model) saveResume() tea.Cmd {
 	if id := m.checklist.CurrentID(); id != "" {
 		r.StepID, r.Step = id, m.job.Checklist.Index(id)
 	}
-	return m.save(false)
+	return m.save()
 }
 
 func (m *Model) saved(msg jobSavedMsg) (tea.Model, tea.Cmd) {
@@ -726,7 +727,7 @@ func (m *Model) saved(msg jobSavedMsg) (tea.Model, tea.Cmd) {
 		m.markedAs = msg.path
 	}
 	if m.dirty {
-		return m, m.save(false)
+		return m, m.save()
 	}
 	return m, nil
 }
@@ -754,7 +755,7 @@ func (m *Model) loaded(msg jobLoadedMsg) (tea.Model, tea.Cmd) {
 	m.recompute()
 	m.resize(m.width, m.height)
 	m.focusViews()
-	return m, tea.Batch(m.save(true), m.whatIfCmd())
+	return m, tea.Batch(m.save(), m.whatIfCmd())
 }
 
 // resize lays the panes out for a w×h terminal.
@@ -867,17 +868,7 @@ func (m *Model) mainView(w, h int) string {
 }
 
 // lastForm is the form shown on a wide screen while a view has the focus.
-func (m *Model) lastForm() int {
-	if p, ok := paneByName(m.job.Resume.Pane); ok && p.isForm() {
-		return int(p)
-	}
-	for i := range m.forms {
-		if m.forms[i].Selected().ID == m.job.Resume.Field {
-			return i
-		}
-	}
-	return 0
-}
+func (m *Model) lastForm() int { return int(m.form) }
 
 func (m *Model) lowerView() string {
 	l := m.lay.Lower
@@ -1229,7 +1220,7 @@ func (m *Model) adopt(a WhatIfAdoptMsg) (tea.Model, tea.Cmd) {
 	m.job.Updated = m.now()
 	m.recompute()
 	m.flash = "now using " + strconv.Itoa(max(a.Hoses, 1)) + " × " + d + ", " + l + " (see the Hose pane)"
-	return m, tea.Batch(m.save(false), m.whatIfCmd())
+	return m, tea.Batch(m.save(), m.whatIfCmd())
 }
 
 // mark records a checklist step's state with the time, logs it and saves.
@@ -1251,5 +1242,5 @@ func (m *Model) mark(c ChecklistMarkMsg) (tea.Model, tea.Cmd) {
 	}
 	m.checklist.SetChecklist(m.job.Checklist)
 	m.log.SetEntries(m.job.Log)
-	return m, m.save(false)
+	return m, m.save()
 }
