@@ -919,7 +919,7 @@ func (m *Model) headerView() string {
 }
 
 // tabsView is the pane selector: digit and name, the selected one in
-// reverse video and brackets (legible without colour).
+// inverse (reverse) display and brackets (legible without colour).
 func (m *Model) tabsView() string {
 	st := m.styles
 	names := paneNames

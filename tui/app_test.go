@@ -529,7 +529,7 @@ var sgrToken = regexp.MustCompile("\x1b\\[([0-9;:]*)m")
 // TestNoColor renders the main screen under NO_COLOR the way the renderer
 // does (colorprofile's colourless ASCII profile) and keeps the attributes
 // that remain in the golden file as ⟨n⟩ tokens. No colour may survive, and
-// the focus and the status must still show: reverse video (7) for the
+// the focus and the status must still show: inverse (reverse) display (7) for the
 // selected field and tab, bold (1) for the verdict, and words and symbols.
 func TestNoColor(t *testing.T) {
 	env := []string{"TERM=xterm-256color", "NO_COLOR=1"}
@@ -560,7 +560,7 @@ func TestNoColor(t *testing.T) {
 		}
 	}
 	if !strings.Contains(out, "\x1b[7m") && !strings.Contains(out, ";7m") {
-		t.Error("no reverse video for the focus under NO_COLOR")
+		t.Error("no inverse (reverse) display for the focus under NO_COLOR")
 	}
 	readable := sgrToken.ReplaceAllString(out, "⟨$1⟩")
 	path := filepath.Join("testdata", t.Name()+".golden")

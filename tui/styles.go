@@ -10,7 +10,7 @@ import (
 // Styles holds every style the screens use, named for meaning. Colours come
 // only from the 16 basic ANSI colours, so a 16-colour terminal shows exactly
 // what was meant and each colour follows the terminal's own palette. Every
-// status also carries a word or symbol, and focus is shown by reverse video
+// status also carries a word or symbol, and focus is shown by inverse (reverse) display
 // and a marker, so the screen still reads under NO_COLOR.
 //
 // Build it with NewStyles; rebuild it when a tea.BackgroundColorMsg tells
