@@ -31,6 +31,12 @@ type ResultData struct {
 	Velocity                float64 // m/s
 	Regime                  string
 	Reynolds                float64
+	Friction                float64 // Darcy f
+	Head                    float64 // driving head, m
+	CrestPressure           float64 // absolute, while flowing, Pa
+	// Notes are the assumptions the plan made (model.Plan.Notes), shown
+	// when the pane has room.
+	Notes []string
 
 	HasDrain           bool
 	Time               float64 // s to the stop
@@ -201,6 +207,25 @@ func (r *ResultPane) content() []string {
 			}
 			add(st.fastStyle(w.Status).Render(l))
 		}
+	}
+	// On a taller pane: the working figures and the assumptions.
+	if room := r.h - 2 - len(ls); room >= 4 && d.Verdict != calc.WillNotRun {
+		extra := []string{"",
+			st.fast.Muted.Render(padRight("Details", 9)) + st.fast.Value.Render("head "+f(model.DimLength, d.Head)),
+			st.fast.Muted.Render(padRight("", 9)) + st.fast.Value.Render("Re "+strconv.FormatFloat(finite(d.Reynolds), 'f', 0, 64)+
+				", f "+strconv.FormatFloat(finite(d.Friction), 'f', 4, 64)),
+			st.fast.Muted.Render(padRight("", 9)) + st.fast.Value.Render("crest "+f(model.DimPressure, d.CrestPressure)+" abs"),
+		}
+		for _, n := range d.Notes {
+			for i, l := range wrapText(n, iw-2, 2) {
+				p := "· "
+				if i > 0 {
+					p = "  "
+				}
+				extra = append(extra, st.fast.Muted.Render(p+l))
+			}
+		}
+		ls = append(ls, extra[:min(len(extra), room)]...)
 	}
 	return ls
 }
