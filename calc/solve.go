@@ -222,6 +222,9 @@ func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 	if re = c * V; re <= ReLaminarMax {
 		return V, 64 / re, re
 	}
+	// Above Re 2000 the transitional f exceeds 64/Re, so the laminar root
+	// is an upper bound for the transitional one.
+	vLam := V
 
 	// Turbulent branch, Newton on x = 1/√f.
 	a := rr / 3.7
@@ -251,8 +254,12 @@ func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 	phi := func(v float64) float64 {
 		return v*v*(A+transitionFriction(c*v, rr, lo, hi)*B) - twoGH
 	}
-	v0, v1 := ReLaminarMax/c, ReTurbulentMin/c
+	v0, v1 := ReLaminarMax/c, math.Min(ReTurbulentMin/c, vLam)
 	p0, p1 := phi(v0), phi(v1)
+	if p1 < 0 { // guard: fall back to the band's end
+		v1 = ReTurbulentMin / c
+		p1 = phi(v1)
+	}
 	side := 0
 	V = v0
 	for i := 0; i < 200 && p0 != p1; i++ {
