@@ -16,21 +16,21 @@ import (
 //	     standard's equations — a regression value, not a published number;
 //	[M]  from memory, unconfirmed.
 const (
-	srcIF97T35   = "IAPWS R7-97(2012) IF97, Table 35 [P]"
-	srcIF97T36   = "IAPWS R7-97(2012) IF97, Table 36 [P]"
-	srcIF97T5    = "IAPWS R7-97(2012) IF97, Table 5 [P]"
-	srcR1208T4   = "IAPWS R12-08 (2008), Table 4, computed with μ̄2 = 1 [P]"
-	srcNoteSat   = "reference note §1, Eq. (30)/(31) evaluated independently [C]"
-	srcNoteRho   = "reference note §2, 1-atm table, IF97 Region 1 column [C]"
-	srcNoteMu    = "reference note §3, 1-atm table, R12-08 with IF97 density [C]"
-	srcSR709     = "IAPWS SR7-09 (2009), Table 6 (IAPWS-95 based) [P]"
-	srcR1308     = "IAPWS R13-08 (2008), Table 8, pure-water part g_p (IAPWS-95 based) [P]"
-	srcITTC      = "ITTC Recommended Procedure 7.5-02-01-03 (2011), Table 1, fresh water [P2]"
-	srcTanaka    = "Tanaka et al. 2001, Metrologia 38, 301, doi:10.1088/0026-1394/38/4/3, recommended table [P2]"
-	srcPerry     = "Perry's Chemical Engineers' Handbook, 9th ed., Table 2-135, saturated liquid [P2]"
-	srcISO3666   = "ISO/TR 3666:1998, viscosity of water at 20 °C, 1.0016 mPa·s [M] (value from memory)"
-	srcWaterPhysics   = "physical property (analytic expectation)"
-	srcCommonWtr = "common practice: water boils below 100 °C at altitude"
+	srcIF97T35      = "IAPWS R7-97(2012) IF97, Table 35 [P]"
+	srcIF97T36      = "IAPWS R7-97(2012) IF97, Table 36 [P]"
+	srcIF97T5       = "IAPWS R7-97(2012) IF97, Table 5 [P]"
+	srcR1208T4      = "IAPWS R12-08 (2008), Table 4, computed with μ̄2 = 1 [P]"
+	srcNoteSat      = "reference note §1, Eq. (30)/(31) evaluated independently [C]"
+	srcNoteRho      = "reference note §2, 1-atm table, IF97 Region 1 column [C]"
+	srcNoteMu       = "reference note §3, 1-atm table, R12-08 with IF97 density [C]"
+	srcSR709        = "IAPWS SR7-09 (2009), Table 6 (IAPWS-95 based) [P]"
+	srcR1308        = "IAPWS R13-08 (2008), Table 8, pure-water part g_p (IAPWS-95 based) [P]"
+	srcITTC         = "ITTC Recommended Procedure 7.5-02-01-03 (2011), Table 1, fresh water [P2]"
+	srcTanaka       = "Tanaka et al. 2001, Metrologia 38, 301, doi:10.1088/0026-1394/38/4/3, recommended table [P2]"
+	srcPerry        = "Perry's Chemical Engineers' Handbook, 9th ed., Table 2-135, saturated liquid [P2]"
+	srcISO3666      = "ISO/TR 3666:1998, viscosity of water at 20 °C, 1.0016 mPa·s [M] (value from memory)"
+	srcWaterPhysics = "physical property (analytic expectation)"
+	srcCommonWtr    = "common practice: water boils below 100 °C at altitude"
 )
 
 // waterClose reports whether got is within tol of want: relative when rel is
