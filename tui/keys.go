@@ -25,7 +25,9 @@ type KeyMap struct {
 	// Form movement.
 	Up      key.Binding
 	Down    key.Binding
-	Edit    key.Binding // enter: edit the field / next field after editing
+	Edit    key.Binding // enter: type in the field (navigate mode)
+	Done    key.Binding // enter: done typing (the same key, for the help line)
+	UpDown  key.Binding // ↑/↓ for the help line (Up and Down do the work)
 	Prev    key.Binding // left: previous choice in a picker
 	Next    key.Binding // right: next choice in a picker
 	Toggle  key.Binding // space: tick a fitting in a multi picker
@@ -58,7 +60,9 @@ func DefaultKeyMap() KeyMap {
 
 		Up:      key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "field up")),
 		Down:    key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "field down")),
-		Edit:    key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "type / done")),
+		Edit:    key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "type in field")),
+		Done:    key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "done")),
+		UpDown:  key.NewBinding(key.WithKeys("up", "down"), key.WithHelp("↑↓", "field")),
 		Prev:    key.NewBinding(key.WithKeys("left", "h"), key.WithHelp("←", "prev choice")),
 		Next:    key.NewBinding(key.WithKeys("right", "l"), key.WithHelp("→/enter", "next choice")),
 		Toggle:  key.NewBinding(key.WithKeys("space", "x"), key.WithHelp("space", "tick / untick")),
@@ -94,15 +98,16 @@ func (h keyHelp) FullHelp() [][]key.Binding { return h.full }
 // shortHelp is the one-line help for the present state. Only keys that do
 // something now are listed.
 func (k KeyMap) shortHelp(editing, picker, form bool) []key.Binding {
+	// Most needed first: the line is cut at the right on a narrow screen.
 	switch {
-	case editing && picker:
-		return []key.Binding{k.Next, k.Prev, k.NextField, k.Leave, k.UnitsAny, k.Quit}
+	case picker:
+		return []key.Binding{k.Next, k.Prev, k.UpDown, k.Panes, k.Help, k.QuitNav, k.Units}
 	case editing:
-		return []key.Binding{k.Edit, k.NextField, k.Leave, k.UnitsAny, k.Restore, k.Quit}
+		return []key.Binding{k.Done, k.Leave, k.NextField, k.Quit, k.UnitsAny, k.Restore}
 	case form:
-		return []key.Binding{k.Edit, k.Up, k.Down, k.Panes, k.Units, k.Open, k.Help, k.QuitNav}
+		return []key.Binding{k.Edit, k.UpDown, k.Panes, k.Help, k.QuitNav, k.Units, k.Open}
 	}
-	return []key.Binding{k.Panes, k.Units, k.Open, k.Save, k.Help, k.QuitNav}
+	return []key.Binding{k.Panes, k.Help, k.QuitNav, k.Units, k.Open, k.Save}
 }
 
 // fullHelp is the full help screen, in columns.
