@@ -166,6 +166,10 @@ func New(o Options) *Model {
 	if m.startNote != "" {
 		m.job.AddLog(now(), m.startNote)
 	}
+	if !m.noSave && !o.Start.Fresh {
+		// Opened from its file: what is on screen is what is on disk.
+		m.lastSaved, m.markedAs = now(), m.path
+	}
 	m.resume()
 	m.recompute()
 	m.resize(MinWidth, MinHeight)
