@@ -461,7 +461,7 @@ func TestSaveCommand(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	st := Start{Job: model.DemoJob(), Dir: dir, Path: model.NewJobPath(dir, "demo")}
+	st := Start{Job: model.DemoJob(), Dir: dir, Path: model.NewJobPath(dir, "demo"), Fresh: true}
 	m := New(Options{Start: st})
 	m = send(t, m, tea.WindowSizeMsg{Width: 80, Height: 24})
 	m = enterField(t, m, model.FieldHoseLength, "15 m")
