@@ -1071,6 +1071,11 @@ func planToResult(p model.Plan) ResultData {
 		d.CrestLimitLevel, d.HasCrestLimitLevel = float64(dp.CrestLimitLevel), dp.CrestLimitFound
 	}
 	d.Warnings = warnLines(r)
+	if dp := p.Drain; dp != nil && dp.StopReason == calc.StopIntake && dp.Residual > dp.Volume {
+		// More is left than moved: say what the trade does about it.
+		d.Warnings = append(d.Warnings, WarnLine{StatusInfo,
+			"most left: float a board over the intake (common practice)"})
+	}
 	return d
 }
 

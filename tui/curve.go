@@ -35,22 +35,6 @@ type DrainCurve struct {
 	GasLevel    float64
 }
 
-// curveReasonText says why the drain stops, in the technician's words.
-func curveReasonText(r string) string {
-	switch r {
-	case "target":
-		return "target level reached"
-	case "intake":
-		return "intake uncovered"
-	case "crest":
-		return "crest limit reached"
-	case "equal":
-		return "levels equal, flow tapers off"
-	case "":
-		return "end of plan"
-	}
-	return r
-}
 
 // CurveView plots the source level against time with braille dots, a flow
 // strip under it in block characters on the same time axis, the target
@@ -178,9 +162,9 @@ func (v *CurveView) stopText(short bool) string {
 	c := v.curve
 	t := model.Format(model.DimTime, c.StopTime, v.units.sys)
 	if short {
-		return "■ stop " + t + ": " + curveReasonText(c.StopReason)
+		return "■ stop " + t + ": " + stopReasonText(c.StopReason)
 	}
-	return "■ stops after " + t + " at " + v.units.length(c.StopLevel) + ": " + curveReasonText(c.StopReason)
+	return "■ stops after " + t + " at " + v.units.length(c.StopLevel) + ": " + stopReasonText(c.StopReason)
 }
 
 func (v *CurveView) redraw() {
@@ -195,7 +179,7 @@ func (v *CurveView) redraw() {
 		return
 	}
 	if len(c.Points) < 2 || c.StopTime <= 0 || c.Points[len(c.Points)-1].T <= 0 {
-		msg := "No drain: it stops at once at " + v.units.length(c.StopLevel) + " (" + curveReasonText(c.StopReason) + ")."
+		msg := "No drain: it stops at once at " + v.units.length(c.StopLevel) + " (" + stopReasonText(c.StopReason) + ")."
 		v.frame = drawFit([]string{v.styles.paintRun(clsWarn, drawClip("! "+msg, w))}, w, h)
 		return
 	}

@@ -87,7 +87,7 @@ func TestCurveViewMessages(t *testing.T) {
 	c.StopReason = "intake"
 	v.SetCurve(c)
 	got := ansi.Strip(v.View())
-	for _, want := range []string{"intake uncovered", "■", "min", "m ┤"} {
+	for _, want := range []string{"intake draws air", "■", "min", "m ┤"} {
 		if !strings.Contains(got, want) {
 			t.Errorf("frame lacks %q:\n%s", want, got)
 		}
@@ -164,7 +164,7 @@ func TestCurveFromPlanDemo(t *testing.T) {
 	got := ansi.Strip(v.View())
 	paneCheckFrame(t, got, 118, 22)
 	want := "stops after " + model.Format(model.DimTime, float64(p.Drain.Time), model.SI)
-	if !strings.Contains(got, want) || !strings.Contains(got, curveReasonText(c.StopReason)) {
+	if !strings.Contains(got, want) || !strings.Contains(got, stopReasonText(c.StopReason)) {
 		t.Errorf("title lacks %q / reason:\n%s", want, got)
 	}
 	if CurveFromPlan(nil, 0, false).Points != nil {

@@ -342,12 +342,12 @@ func stopReasonText(r string) string {
 	case "target":
 		return "target level reached"
 	case "intake":
-		return "intake uncovered"
+		return "intake draws air"
 	case "crest":
 		return "crest limit reached"
 	case "equal":
-		return "levels equal, flow dies"
-	case "full":
+		return "levels equal, flow tapers off"
+	case "receiver_full":
 		return "receiver full"
 	case "":
 		return "end of plan"

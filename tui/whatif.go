@@ -238,7 +238,7 @@ func (v *WhatIfView) cellText(c WhatIfCell) (flow, tm string, cls drawClass) {
 	if v.t.HasTime {
 		tm = wiHMM(c.Time)
 		if c.Time <= 0 {
-			tm = "none" // it would stop at once (see the footer)
+			tm = "at once" // it would stop at once (see the footer)
 		}
 	}
 	cls = clsText
@@ -450,9 +450,9 @@ func (v *WhatIfView) table(w, h int) string {
 		case !c.Runs:
 			f += " (✗ will not run)"
 		case t.HasTime && c.Time <= 0:
-			f += " (stops at once: " + curveReasonText(c.StopReason) + ")"
+			f += " (stops at once: " + stopReasonText(c.StopReason) + ")"
 		case t.HasTime && c.StopReason != "":
-			f += " (stops: " + curveReasonText(c.StopReason) + ")"
+			f += " (stops: " + stopReasonText(c.StopReason) + ")"
 		}
 		if !v.focused {
 			f = "select this pane to pick a hose"
