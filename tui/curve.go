@@ -35,7 +35,6 @@ type DrainCurve struct {
 	GasLevel    float64
 }
 
-
 // CurveView plots the source level against time with braille dots, a flow
 // strip under it in block characters on the same time axis, the target
 // level as a dashed line and the stop marked with its time and reason. It
