@@ -1,6 +1,7 @@
 package tui
 
 import (
+	"errors"
 	"strconv"
 	"strings"
 	"time"
@@ -107,6 +108,11 @@ type Model struct {
 	whatIfSeq   uint64
 	whatIfDirty bool
 	log         LogPane
+	// fitSeq tags the fits of the readings against the plan; fit and
+	// fitErr are the last one.
+	fitSeq      uint64
+	fit         *model.Fit
+	fitErr      error
 	showHelp    bool
 	jobs        jobList
 	flash       string // one-shot hint on the help line, cleared by the next key
@@ -229,7 +235,7 @@ func (m *Model) Path() string { return m.path }
 
 // Init asks the terminal for its background colour; the first frame does
 // not wait for the answer (dark is assumed until it comes).
-func (m *Model) Init() tea.Cmd { return tea.RequestBackgroundColor }
+func (m *Model) Init() tea.Cmd { return tea.Batch(tea.RequestBackgroundColor, m.refit()) }
 
 // Update routes a message: global keys first, then sizes, then typed
 // replies to their owner, then everything else to the focused pane.
@@ -280,6 +286,30 @@ func (m *Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
 		m.job.Resume.StepID = msg.ID
 		m.job.Resume.Step = m.job.Checklist.Index(msg.ID)
 		return m, m.save()
+	case ReadingAddMsg:
+		return m.addReading(msg)
+	case RecordWriteMsg:
+		m.flash = "writing the job record…"
+		return m, recordCmd(m.job.Clone(), m.plan, m.path, m.now())
+	case recordWrittenMsg:
+		if msg.err != nil {
+			m.flash = "✗ record not written: " + msg.err.Error()
+			return m, nil
+		}
+		m.flash = "record written: " + strings.Join(msg.paths, ", ")
+		m.job.AddLog(m.now(), "job record written: "+strings.Join(msg.paths, ", "))
+		m.log.SetEntries(m.job.Log)
+		return m, m.save()
+	case fitMsg:
+		if msg.seq == m.fitSeq {
+			m.fit, m.fitErr = nil, msg.err
+			if msg.err == nil {
+				f := msg.fit
+				m.fit = &f
+			}
+			m.log.SetSummary(readingsSummary(&m.job, m.fit, m.fitErr, m.loc()))
+		}
+		return m, nil
 	case StopMsg:
 		m.job.AddLog(m.now(), "stopped ("+msg.Reason+"); job saved")
 		m.quitting = true
@@ -312,7 +342,7 @@ func (m *Model) typing() bool {
 		f := m.forms[m.focus]
 		return f.Editing() && !f.SelectedIsPicker()
 	}
-	return m.focus == PaneChecklist && m.checklist.Typing()
+	return (m.focus == PaneChecklist && m.checklist.Typing()) || (m.focus == PaneLog && m.log.Typing())
 }
 
 func (m *Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
@@ -353,7 +383,13 @@ func (m *Model) key(msg tea.KeyPressMsg) (tea.Model, tea.Cmd) {
 			m.whatif, cmd = m.whatif.Update(msg)
 			return m, cmd
 		}
-	case PaneHose, PaneLift, PaneLiquid, PaneTank, PaneSide, PaneCurve, PaneLog, paneCount:
+	case PaneLog:
+		if typing || key.Matches(msg, m.log.ShortHelp()...) {
+			var cmd tea.Cmd
+			m.log, cmd = m.log.Update(msg)
+			return m, cmd
+		}
+	case PaneHose, PaneLift, PaneLiquid, PaneTank, PaneSide, PaneCurve, paneCount:
 	}
 	if !typing {
 		switch {
@@ -505,7 +541,11 @@ func (m *Model) setFocus(p PaneID) tea.Cmd {
 	}
 	m.focusViews()
 	m.syncDrawn()
-	return tea.Batch(m.saveResume(), m.whatIfCmd())
+	var fit tea.Cmd
+	if p == PaneLog {
+		fit = m.refit() // the plan may have changed since the last fit
+	}
+	return tea.Batch(m.saveResume(), m.whatIfCmd(), fit)
 }
 
 // applyEdit stores the new text, recomputes and saves.
@@ -829,8 +869,29 @@ func (m *Model) View() tea.View {
 
 // cursor is the real terminal cursor in the field being typed in.
 func (m *Model) cursor() *tea.Cursor {
-	if m.showHelp || m.jobs.open || !m.focus.isForm() {
+	if m.showHelp || m.jobs.open {
 		return nil
+	}
+	if !m.focus.isForm() {
+		var c *tea.Cursor
+		switch m.focus {
+		case PaneLog:
+			c = m.log.CursorPos()
+		case PaneChecklist:
+			c = m.checklist.CursorPos()
+		case PaneHose, PaneLift, PaneLiquid, PaneTank, PaneSide, PaneCurve, PaneWhatIf, paneCount:
+		}
+		if c == nil {
+			return nil
+		}
+		at := m.lay.Main
+		if m.lay.Wide {
+			at = m.lay.Lower
+		}
+		c.X += at.X
+		c.Y += at.Y
+		c.Blink = false
+		return c
 	}
 	c := m.forms[m.focus].CursorPos()
 	if c == nil {
@@ -965,7 +1026,10 @@ func (m *Model) helpLine() string {
 	case m.focus.isForm():
 		b = m.forms[m.focus].ShortHelp()
 	case m.focus == PaneLog:
-		b = append(m.log.ShortHelp(), m.keys.shortHelp(false, false, false)...)
+		b = m.log.ShortHelp()
+		if !m.log.Typing() {
+			b = append(b, m.keys.shortHelp(false, false, false)...)
+		}
 	case m.focus == PaneChecklist:
 		b = m.checklist.ShortHelp()
 		if !m.checklist.Typing() {
@@ -1257,3 +1321,51 @@ func (m *Model) mark(c ChecklistMarkMsg) (tea.Model, tea.Cmd) {
 	m.log.SetEntries(m.job.Log)
 	return m, m.save()
 }
+
+// addReading records a level reading typed in the Log pane, stamped with the
+// root's clock, and refits the readings against the plan.
+func (m *Model) addReading(msg ReadingAddMsg) (tea.Model, tea.Cmd) {
+	now := m.now()
+	r, err := model.NewReading(msg.Text, m.job.Units, now, "")
+	if err != nil {
+		m.log.ReadingError("✗ " + err.Error())
+		return m, nil
+	}
+	if top, ok := m.tankTop(); ok && r.Level > top {
+		m.log.ReadingError("✗ level reading " + model.Format(model.DimLength, r.Level, m.job.Units) +
+			" is above the tank (" + model.Format(model.DimLength, top, m.job.Units) + ")")
+		return m, nil
+	}
+	m.job.Readings = append(m.job.Readings, r)
+	m.job.AddLog(now, "level reading "+model.Format(model.DimLength, r.Level, m.job.Units))
+	m.job.Updated = now
+	m.log.ReadingTaken()
+	m.log.SetEntries(m.job.Log)
+	m.log.SetSummary(readingsSummary(&m.job, nil, nil, m.loc()))
+	return m, tea.Batch(m.save(), m.refit())
+}
+
+// tankTop is the source tank's height when the plan has a tank.
+func (m *Model) tankTop() (float64, bool) {
+	if !m.hasPlan || m.plan.Tank == nil {
+		return 0, false
+	}
+	return float64(m.plan.Tank.Height()), true
+}
+
+// refit fits the job's readings against the last valid plan, as a command.
+func (m *Model) refit() tea.Cmd {
+	m.fitSeq++
+	if len(m.job.Readings) < 2 || !m.hasPlan || m.plan.Drain == nil {
+		m.fit, m.fitErr = nil, nil
+		if len(m.job.Readings) > 0 && (!m.hasPlan || m.plan.Drain == nil) {
+			m.fitErr = errors.New("no drain plan to compare with: describe the tank in pane 4")
+		}
+		m.log.SetSummary(readingsSummary(&m.job, nil, m.fitErr, m.loc()))
+		return nil
+	}
+	return fitCmd(m.job.Readings, m.plan.DrainIn, m.plan.Siphon.Hose.KMinor(), m.fitSeq)
+}
+
+// loc is the zone times are shown in.
+func (m *Model) loc() *time.Location { return m.log.loc }

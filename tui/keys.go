@@ -42,6 +42,10 @@ type KeyMap struct {
 	PrevPane  key.Binding // [
 	NextPane  key.Binding // ]
 	Panes     key.Binding // 1-9 (help entry only)
+
+	// Log pane.
+	AddReading  key.Binding // r: type a level reading
+	WriteRecord key.Binding // w: write the job record and readings CSV
 	PaneKeys  [9]key.Binding
 	PaneNames [9]string
 }
@@ -77,6 +81,8 @@ func DefaultKeyMap() KeyMap {
 		NextPane: key.NewBinding(key.WithKeys("]"), key.WithHelp("]", "next pane")),
 		Panes:    key.NewBinding(key.WithKeys("1", "2", "3", "4", "5", "6", "7", "8", "9"), key.WithHelp("1-9", "pane")),
 	}
+	k.AddReading = key.NewBinding(key.WithKeys("r"), key.WithHelp("r", "level reading (in 9)"))
+	k.WriteRecord = key.NewBinding(key.WithKeys("w"), key.WithHelp("w", "job record (in 9)"))
 	k.PaneNames = [9]string{"Hose", "Lift & outlet", "Liquid & site", "Tank", "Side view",
 		"Drain curve", "What-if", "Checklist", "Log"}
 	for i := range k.PaneKeys {
@@ -118,6 +124,6 @@ func (k KeyMap) fullHelp() [][]key.Binding {
 	return [][]key.Binding{
 		{k.NextField, k.PrevField, k.Up, k.Down, k.Edit, k.Leave, k.Prev, k.Next, k.Toggle, k.Restore},
 		panes,
-		{k.QuitNav, k.Units, k.Save, k.Open, k.Help, k.Quit, k.SaveNow, k.UnitsAny},
+		{k.QuitNav, k.Units, k.Save, k.Open, k.Help, k.Quit, k.SaveNow, k.UnitsAny, k.AddReading, k.WriteRecord},
 	}
 }

@@ -5,20 +5,27 @@ import (
 	"time"
 
 	"charm.land/bubbles/v2/key"
+	"charm.land/bubbles/v2/textinput"
 	tea "charm.land/bubbletea/v2"
 
 	"drawdown/model"
 )
 
 // LogPane lists the job's log, newest at the bottom, with the time of each
-// line. Up and down scroll it.
+// line, under a summary of the level readings against the plan. Up and down
+// scroll; r types a level reading; w writes the job record.
 type LogPane struct {
 	entries []model.LogEntry
-	scroll  int // lines scrolled up from the bottom
+	summary []string // readings against the plan, worded by the root
+	scroll  int      // lines scrolled up from the bottom
 	w, h    int
 	styles  Styles
 	keys    KeyMap
 	loc     *time.Location
+
+	typing  bool
+	input   textinput.Model
+	errText string
 }
 
 // NewLogPane returns an empty Log pane. loc is the zone times are shown in.
@@ -26,11 +33,21 @@ func NewLogPane(st Styles, km KeyMap, loc *time.Location) LogPane {
 	if loc == nil {
 		loc = time.Local
 	}
-	return LogPane{styles: st, keys: km, loc: loc}
+	ti := textinput.New()
+	ti.Prompt = "› "
+	ti.CharLimit = 40
+	ts := ti.Styles()
+	ts.Cursor.Blink = false // a blinking cursor streams bytes over SSH
+	ti.SetStyles(ts)
+	ti.SetVirtualCursor(false) // the root places the terminal's own cursor
+	return LogPane{styles: st, keys: km, loc: loc, input: ti}
 }
 
 // SetSize sets the pane's size in cells.
-func (l *LogPane) SetSize(w, h int) { l.w, l.h = max(w, 0), max(h, 0) }
+func (l *LogPane) SetSize(w, h int) {
+	l.w, l.h = max(w, 0), max(h, 0)
+	l.input.SetWidth(max(l.w-4, 1))
+}
 
 // SetStyles replaces the styles.
 func (l *LogPane) SetStyles(st Styles) { l.styles = st }
@@ -43,30 +60,115 @@ func (l *LogPane) SetEntries(e []model.LogEntry) {
 	l.entries = e
 }
 
-// Update scrolls with up/down.
+// SetSummary gives the pane the readings summary lines.
+func (l *LogPane) SetSummary(s []string) { l.summary = s }
+
+// ReadingError shows why a typed reading was refused and keeps the input
+// open so it can be corrected.
+func (l *LogPane) ReadingError(msg string) { l.errText = msg }
+
+// ReadingTaken closes the input after the root accepted a reading.
+func (l *LogPane) ReadingTaken() {
+	l.typing = false
+	l.errText = ""
+	l.input.Blur()
+	l.input.Reset()
+}
+
+// Typing reports whether keys go into the reading input.
+func (l LogPane) Typing() bool { return l.typing }
+
+// Update scrolls with up/down, opens the reading input with r, and asks for
+// the record with w.
 func (l LogPane) Update(msg tea.Msg) (LogPane, tea.Cmd) {
-	if km, ok := msg.(tea.KeyPressMsg); ok {
-		switch {
-		case key.Matches(km, l.keys.Up):
-			if l.scroll < len(l.entries)-1 {
-				l.scroll++
+	km, ok := msg.(tea.KeyPressMsg)
+	if !ok {
+		return l, nil
+	}
+	if l.typing {
+		switch km.String() {
+		case "esc":
+			l.ReadingTaken()
+			return l, nil
+		case "enter":
+			text := strings.TrimSpace(l.input.Value())
+			if text == "" {
+				l.errText = "✗ type the level read on the tank, e.g. 0.42 m or 1 ft 5 in"
+				return l, nil
 			}
-		case key.Matches(km, l.keys.Down):
-			if l.scroll > 0 {
-				l.scroll--
-			}
+			return l, func() tea.Msg { return ReadingAddMsg{Text: text} }
+		}
+		var cmd tea.Cmd
+		l.input, cmd = l.input.Update(msg)
+		l.errText = ""
+		return l, cmd
+	}
+	switch {
+	case key.Matches(km, l.keys.AddReading):
+		l.typing = true
+		l.errText = ""
+		l.input.Reset()
+		l.input.Placeholder = "level above the floor, e.g. 0.42 m"
+		return l, l.input.Focus()
+	case key.Matches(km, l.keys.WriteRecord):
+		return l, func() tea.Msg { return RecordWriteMsg{} }
+	case key.Matches(km, l.keys.Up):
+		if l.scroll < len(l.entries)-1 {
+			l.scroll++
+		}
+	case key.Matches(km, l.keys.Down):
+		if l.scroll > 0 {
+			l.scroll--
 		}
 	}
 	return l, nil
 }
 
+// footLines is the reading input at the foot of the pane, when open.
+func (l LogPane) footLines() []string {
+	if !l.typing {
+		return nil
+	}
+	st := l.styles
+	out := []string{st.fast.Label.Render("Level reading now (above the tank floor):"), l.input.View()}
+	if l.errText != "" {
+		out = append(out, st.fast.Danger.Render(l.errText))
+	}
+	return out
+}
+
+// CursorPos is the terminal cursor in the reading input, relative to the
+// pane's top-left corner, or nil when not typing.
+func (l LogPane) CursorPos() *tea.Cursor {
+	if !l.typing || l.w <= 0 || l.h <= 0 {
+		return nil
+	}
+	c := l.input.Cursor()
+	if c == nil {
+		return nil
+	}
+	foot := len(l.footLines())
+	c.Y = l.h - foot + 1
+	return c
+}
+
 // View renders exactly w×h cells.
 func (l LogPane) View() string {
 	st := l.styles
-	out := []string{st.fast.PaneTitle.Render("Log") + st.fast.Muted.Render("  the job's record, newest last; ↑/↓ scroll")}
+	out := []string{st.fast.PaneTitle.Render("Log") + st.fast.Muted.Render("  readings and the job's record, newest last")}
+	for _, s := range l.summary {
+		for _, w := range wrapText(s, max(l.w-2, 10), 3) {
+			if strings.HasPrefix(s, "!") {
+				out = append(out, st.fast.Warning.Render(w))
+			} else {
+				out = append(out, st.fast.Value.Render(w))
+			}
+		}
+	}
+	foot := l.footLines()
 	if len(l.entries) == 0 {
 		out = append(out, st.fast.Muted.Render("Nothing logged yet."))
-		return fitBlock(out, l.w, l.h)
+		return fitBlock(append(padTo(out, l.h-len(foot)), foot...), l.w, l.h)
 	}
 	var lines []string
 	for _, e := range l.entries {
@@ -81,12 +183,29 @@ func (l LogPane) View() string {
 			}
 		}
 	}
-	room := max(l.h-1, 0)
+	room := max(l.h-len(out)-len(foot), 0)
 	end := max(len(lines)-l.scroll, 0)
 	start := max(end-room, 0)
 	out = append(out, lines[start:end]...)
-	return fitBlock(out, l.w, l.h)
+	return fitBlock(append(padTo(out, l.h-len(foot)), foot...), l.w, l.h)
+}
+
+// padTo pads lines with empty lines up to n (or cuts to n).
+func padTo(lines []string, n int) []string {
+	n = max(n, 0)
+	if len(lines) >= n {
+		return lines[:n]
+	}
+	for len(lines) < n {
+		lines = append(lines, "")
+	}
+	return lines
 }
 
 // ShortHelp lists the Log pane's keys.
-func (l LogPane) ShortHelp() []key.Binding { return []key.Binding{l.keys.Up, l.keys.Down} }
+func (l LogPane) ShortHelp() []key.Binding {
+	if l.typing {
+		return []key.Binding{l.keys.Done, l.keys.Leave}
+	}
+	return []key.Binding{l.keys.AddReading, l.keys.WriteRecord, l.keys.Up, l.keys.Down}
+}
