@@ -110,17 +110,17 @@ type Model struct {
 	log         LogPane
 	// fitSeq tags the fits of the readings against the plan; fit and
 	// fitErr are the last one.
-	fitSeq      uint64
-	fit         *model.Fit
-	fitErr      error
-	showHelp    bool
-	jobs        jobList
-	flash       string // one-shot hint on the help line, cleared by the next key
-	width       int
-	height      int
-	lay         layout
-	startNote   string
-	firstSave   bool // a fresh job waits for its first save
+	fitSeq    uint64
+	fit       *model.Fit
+	fitErr    error
+	showHelp  bool
+	jobs      jobList
+	flash     string // one-shot hint on the help line, cleared by the next key
+	width     int
+	height    int
+	lay       layout
+	startNote string
+	firstSave bool // a fresh job waits for its first save
 
 	// Saving: one save in flight at a time; a change during a save marks
 	// the job dirty and another save follows.

@@ -35,19 +35,19 @@ type KeyMap struct {
 	Restore key.Binding // ctrl+r: put back the last valid text of the field
 
 	// Navigate mode only (single keys).
-	QuitNav   key.Binding // q
-	Units     key.Binding // u
-	Save      key.Binding // s
-	Open      key.Binding // o
-	PrevPane  key.Binding // [
-	NextPane  key.Binding // ]
-	Panes     key.Binding // 1-9 (help entry only)
+	QuitNav  key.Binding // q
+	Units    key.Binding // u
+	Save     key.Binding // s
+	Open     key.Binding // o
+	PrevPane key.Binding // [
+	NextPane key.Binding // ]
+	Panes    key.Binding // 1-9 (help entry only)
 
 	// Log pane.
 	AddReading  key.Binding // r: type a level reading
 	WriteRecord key.Binding // w: write the job record and readings CSV
-	PaneKeys  [9]key.Binding
-	PaneNames [9]string
+	PaneKeys    [9]key.Binding
+	PaneNames   [9]string
 }
 
 // DefaultKeyMap returns the key map drawdown ships with.

@@ -2,8 +2,8 @@ package tui
 
 import (
 	"os"
-	"strconv"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"time"
 
@@ -105,4 +105,3 @@ func readingsSummary(j *model.Job, f *model.Fit, fitErr error, loc *time.Locatio
 	}
 	return out
 }
-
