@@ -110,7 +110,7 @@ func WriteReport(w io.Writer, r ReportInput) error {
 	stopped := flowStop(j)
 	rw.row("Flow stopped", rw.tmOr(stopped, "not recorded"))
 	if !started.IsZero() && !stopped.IsZero() && stopped.After(started) {
-		rw.row("Running time", fmtDuration(stopped.Sub(started).Seconds()))
+		rw.row("Running time", FormatDuration(stopped.Sub(started).Seconds()))
 	}
 	rw.line("")
 
@@ -374,9 +374,9 @@ func (rw *recWriter) plan(p Plan) {
 		rw.row("Hand-pump strokes to prime", strconv.Itoa(p.PumpStrokes))
 	}
 	if d := p.Drain; d != nil {
-		tm := fmtDuration(float64(d.Time))
+		tm := FormatDuration(float64(d.Time))
 		if p.TimeLow > 0 && p.TimeHigh > 0 {
-			tm += " (range " + fmtDuration(float64(p.TimeLow)) + " to " + fmtDuration(float64(p.TimeHigh)) + ")"
+			tm += " (range " + FormatDuration(float64(p.TimeLow)) + " to " + FormatDuration(float64(p.TimeHigh)) + ")"
 		}
 		rw.row("Start level", rw.f(DimLength, float64(p.Siphon.Geometry.Surface)))
 		rw.row("Time to the stop", tm)
@@ -664,31 +664,6 @@ func zoneName(t time.Time) string {
 		sign, off = "-", -off
 	}
 	return fmt.Sprintf("%s (UTC%s%02d:%02d)", name, sign, off/3600, off%3600/60)
-}
-
-// fmtDuration writes seconds as "45 s", "12 min", "2 h 10 min" or
-// "3 d 4 h"; "—" for a value that is not finite or negative.
-func fmtDuration(s float64) string {
-	if math.IsNaN(s) || math.IsInf(s, 0) || s < 0 {
-		return "—"
-	}
-	switch {
-	case s < 90:
-		return strconv.Itoa(int(math.Round(s))) + " s"
-	case s < 3600:
-		return strconv.Itoa(int(math.Round(s/60))) + " min"
-	case s < 48*3600:
-		m := int(math.Round(s / 60))
-		if m%60 == 0 {
-			return strconv.Itoa(m/60) + " h"
-		}
-		return strconv.Itoa(m/60) + " h " + strconv.Itoa(m%60) + " min"
-	}
-	h := int(math.Round(s / 3600))
-	if h%24 == 0 {
-		return strconv.Itoa(h/24) + " d"
-	}
-	return strconv.Itoa(h/24) + " d " + strconv.Itoa(h%24) + " h"
 }
 
 // WriteReadingsCSV writes the job's level readings and the planned curve as

@@ -314,8 +314,8 @@ func TestFmtDuration(t *testing.T) {
 		s    float64
 		want string
 	}{{0, "0 s"}, {45, "45 s"}, {600, "10 min"}, {7800, "2 h 10 min"}, {7200, "2 h"}, {3 * 86400, "3 d"}, {-1, "—"}} {
-		if got := fmtDuration(tc.s); got != tc.want {
-			t.Errorf("fmtDuration(%g) = %q, want %q", tc.s, got, tc.want)
+		if got := FormatDuration(tc.s); got != tc.want {
+			t.Errorf("FormatDuration(%g) = %q, want %q", tc.s, got, tc.want)
 		}
 	}
 }

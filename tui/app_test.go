@@ -270,7 +270,7 @@ func TestTypedScenario(t *testing.T) {
 	for _, s := range []string{
 		model.Format(model.DimFlow, float64(r.Flow), model.SI),
 		speedText(model.SI, float64(r.Velocity)),
-		duration(float64(p.Drain.Time)),
+		model.FormatDuration(float64(p.Drain.Time)),
 		model.Format(model.DimLength, float64(r.WorkingCrestHeight), model.SI),
 		model.Format(model.DimLength, float64(r.MaxCrestHeight), model.SI),
 	} {

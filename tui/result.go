@@ -156,10 +156,10 @@ func (r *ResultPane) content() []string {
 		if d.Time < 0.5 {
 			row("Stops", "at once: nothing to drain")
 		} else {
-			row("Stops in", duration(d.Time))
+			row("Stops in", model.FormatDuration(d.Time))
 		}
 		if d.TimeHigh > 0 && d.TimeLow > 0 && math.Abs(d.TimeHigh-d.TimeLow) > 1 {
-			row("  range", rangeText(duration(d.TimeLow), duration(d.TimeHigh)))
+			row("  range", rangeText(model.FormatDuration(d.TimeLow), model.FormatDuration(d.TimeHigh)))
 		}
 		row("", stopReasonText(d.StopReason))
 		row("", "at "+f(model.DimLength, d.StopLevel)+", "+f(model.DimVolume, d.Residual)+" left")
@@ -308,32 +308,6 @@ func speedText(sys model.System, v float64) string {
 		return trimNum(v/0.3048, 1) + " ft/s"
 	}
 	return trimNum(v, 2) + " m/s"
-}
-
-// duration writes a time span the way a crew says it: "45 s", "12 min",
-// "3 h 12 min", "2 d 5 h".
-func duration(s float64) string {
-	s = finite(s)
-	if s < 0 {
-		s = 0
-	}
-	switch {
-	case s < 90:
-		return strconv.Itoa(int(math.Round(s))) + " s"
-	case s < 3600:
-		return strconv.Itoa(int(math.Round(s/60))) + " min"
-	case s < 48*3600:
-		m := int(math.Round(s / 60))
-		h, mm := m/60, m%60
-		if mm == 0 {
-			return strconv.Itoa(h) + " h"
-		}
-		return strconv.Itoa(h) + " h " + strconv.Itoa(mm) + " min"
-	case s < 1e9:
-		h := int(math.Round(s / 3600))
-		return strconv.Itoa(h/24) + " d " + strconv.Itoa(h%24) + " h"
-	}
-	return "more than 30 years"
 }
 
 // stopReasonText says why the drain stops.

@@ -60,7 +60,7 @@ func writeText(w io.Writer, p model.Plan, o calcOptions) {
 
 	if d := p.Drain; d != nil {
 		fmt.Fprintf(w, "Drain (%s)\n", strings.ReplaceAll(p.Tank.Shape(), "-", " "))
-		row("Time", fmt.Sprintf("%s (range %s to %s)", f(model.DimTime, float64(d.Time)), f(model.DimTime, float64(p.TimeLow)), f(model.DimTime, float64(p.TimeHigh))))
+		row("Time", fmt.Sprintf("%s (range %s to %s)", model.FormatDuration(float64(d.Time)), model.FormatDuration(float64(p.TimeLow)), model.FormatDuration(float64(p.TimeHigh))))
 		row("Stops at", fmt.Sprintf("%s above the floor: %s", f(model.DimLength, float64(d.StopLevel)), stopText(d.StopReason)))
 		row("Moved", fmt.Sprintf("%s; left in the tank %s", f(model.DimVolume, float64(d.Volume)), f(model.DimVolume, float64(d.Residual))))
 		if d.CrestLimitFound {
@@ -69,7 +69,7 @@ func writeText(w io.Writer, p model.Plan, o calcOptions) {
 		if o.curve {
 			fmt.Fprintf(w, "\n  %12s  %12s  %14s\n", "time", "level", "flow")
 			for _, pt := range d.Curve {
-				fmt.Fprintf(w, "  %12s  %12s  %14s\n", f(model.DimTime, float64(pt.Time)), f(model.DimLength, float64(pt.Level)), f(model.DimFlow, float64(pt.Flow)))
+				fmt.Fprintf(w, "  %12s  %12s  %14s\n", model.FormatDuration(float64(pt.Time)), f(model.DimLength, float64(pt.Level)), f(model.DimFlow, float64(pt.Flow)))
 			}
 		}
 	}
