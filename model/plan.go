@@ -30,7 +30,31 @@ type Inputs struct {
 	Values    map[FieldID]string
 	Units     System
 	TankTable []TablePoint
+	// Receiver, when set, makes the drain a transfer into that vessel.
+	Receiver *ReceiverSpec
 }
+
+// ReceiverSpec describes a receiving vessel for a transfer: its level rises
+// as the source falls, so the head shrinks from both ends. The command line
+// sets it (the screen has no receiver fields yet). Texts carry units like
+// the fields; bare numbers are in the unit system's default units.
+type ReceiverSpec struct {
+	Shape string // one of the tank shapes
+	// Sizes by name: "diameter", "length", "width", "height" (floor to
+	// brim: the receiver is full there), "cone-height", "side-slope".
+	Sizes map[string]string
+	// Floor is the elevation of the receiver's floor above the source
+	// tank's floor; negative when it stands lower.
+	Floor string
+	// Level is the receiver's level above its own floor at the start
+	// (empty: empty).
+	Level string
+}
+
+// ReceiverField is the FieldID under which Compute reports a problem with
+// the receiver's size or position name ("receiver.diameter",
+// "receiver.floor", …). These are not screen fields.
+func ReceiverField(name string) FieldID { return FieldID("receiver." + name) }
 
 // Plan is everything computed from a job's inputs. Compute fills as much as
 // the inputs allow: Err is nil only when Result is a valid solution.
@@ -60,6 +84,7 @@ type Plan struct {
 
 	// Tank is nil when the job has no tank; then Drain is nil too.
 	Tank     calc.Tank
+	Receiver *calc.Receiver // nil unless the job is a transfer
 	Drain    *calc.DrainPlan
 	DrainIn  calc.DrainInput
 	TimeLow  calc.Seconds
@@ -241,6 +266,10 @@ func (c *computer) run() {
 	if shape == "none" {
 		depth, _ := c.num(FieldIntakeDepth)
 		geo = calc.Geometry{Surface: 0, Intake: calc.Length(-depth), Crest: calc.Length(lift), Outlet: calc.Length(-drop), OutletSubmerged: submerged}
+		if c.in.Receiver != nil {
+			c.fail(FieldTankShape, &FieldError{ID: FieldTankShape, Label: "Tank shape", Text: shape,
+				Detail: "a transfer into a receiver needs the source tank described", Err: calc.ErrNoTank})
+		}
 	} else {
 		level, okLv := c.num(FieldTankLevel)
 		ih, _ := c.num(FieldIntakeHeight)
@@ -248,6 +277,14 @@ func (c *computer) run() {
 			Outlet: calc.Length(level - drop), OutletSubmerged: submerged}
 		if okLv {
 			c.tank(shape, level)
+		}
+		if c.in.Receiver != nil && p.Tank != nil {
+			c.receiver()
+			if r := p.Receiver; r != nil && float64(r.Floor+r.Level) > float64(geo.Outlet) {
+				// The hose end starts under the receiving surface: the head
+				// is to that surface.
+				geo.Outlet, geo.OutletSubmerged = r.Floor+r.Level, true
+			}
 		}
 		if okLv && ih >= level {
 			c.fail(FieldIntakeHeight, &FieldError{ID: FieldIntakeHeight, Label: "Intake height above floor",
@@ -339,30 +376,23 @@ func (c *computer) tank(shape string, level float64) {
 			return
 		}
 	}
-	var t calc.Tank
-	var err error
-	switch shape {
-	case "vertical-cylinder":
-		t, err = calc.NewVerticalCylinder(calc.Length(size(FieldTankDiameter)), calc.Length(height))
-	case "rectangular":
-		t, err = calc.NewRectangular(calc.Length(size(FieldTankLength)), calc.Length(size(FieldTankWidth)), calc.Length(height))
-	case "horizontal-cylinder":
-		t, err = calc.NewHorizontalCylinder(calc.Length(size(FieldTankDiameter)), calc.Length(size(FieldTankLength)))
-	case "cone-bottom":
-		cone := size(FieldTankCone)
-		t, err = calc.NewConeBottom(calc.Length(size(FieldTankDiameter)), calc.Length(cone), calc.Length(math.Max(height, cone)))
-	case "sloped-pit":
-		t, err = calc.NewSlopedPit(calc.Length(size(FieldTankLength)), calc.Length(size(FieldTankWidth)), size(FieldTankSlope), calc.Length(height))
-	case "sphere":
-		t, err = calc.NewSphere(calc.Length(size(FieldTankDiameter)))
-	case "table":
-		lv := make([]float64, len(c.in.TankTable))
-		vo := make([]float64, len(c.in.TankTable))
-		for i, r := range c.in.TankTable {
-			lv[i], vo[i] = r.Level, r.Volume
+	sizes := func(name string) float64 {
+		switch name {
+		case "diameter":
+			return size(FieldTankDiameter)
+		case "length":
+			return size(FieldTankLength)
+		case "width":
+			return size(FieldTankWidth)
+		case "cone-height":
+			return size(FieldTankCone)
+		case "side-slope":
+			return size(FieldTankSlope)
 		}
-		t, err = calc.NewTable(lv, vo)
-	default:
+		return height
+	}
+	t, err := buildTank(shape, sizes, c.in.TankTable)
+	if errors.Is(err, errUnknownShape) {
 		c.fail(FieldTankShape, &FieldError{ID: FieldTankShape, Label: "Tank shape", Text: shape, Detail: `"` + shape + `" is not a tank shape`, Err: ErrNotAChoice})
 		return
 	}
@@ -382,10 +412,107 @@ func (c *computer) tank(shape string, level float64) {
 	p.Tank = t
 }
 
+var errUnknownShape = errors.New("not a tank shape")
+
+// receiver builds the receiving vessel of a transfer from Inputs.Receiver.
+func (c *computer) receiver() {
+	rs := c.in.Receiver
+	sys := c.in.Units
+	ok := true
+	read := func(name, text string, d Dim, lo, hi float64, def float64) float64 {
+		id := ReceiverField(name)
+		label := "Receiver " + strings.ReplaceAll(name, "-", " ")
+		if strings.TrimSpace(text) == "" {
+			if !math.IsNaN(def) {
+				return def
+			}
+			c.fail(id, &FieldError{ID: id, Label: label, Detail: "nothing entered", Accept: Format(d, lo, sys) + " to " + Format(d, hi, sys), Err: ErrNotSet})
+			ok = false
+			return 0
+		}
+		v, err := Parse(d, text, sys)
+		if err == nil && (v < lo || v > hi) {
+			err = calc.ErrOutOfRange
+		}
+		if err != nil {
+			c.fail(id, &FieldError{ID: id, Label: label, Text: text, Detail: "cannot use " + strings.TrimSpace(text) + ": " + err.Error(),
+				Accept: Format(d, lo, sys) + " to " + Format(d, hi, sys), Err: err})
+			ok = false
+		}
+		return v
+	}
+	sizes := map[string]float64{}
+	for _, name := range presets.ShapeSizes(rs.Shape) {
+		d, lo, hi := DimLength, 0.05, calc.MaxTankSize
+		if name == "side-slope" {
+			d, lo, hi = DimNumber, 0, calc.MaxSideSlope
+		}
+		sizes[name] = read(name, rs.Sizes[name], d, lo, hi, math.NaN())
+	}
+	needHeight := rs.Shape != "horizontal-cylinder" && rs.Shape != "sphere"
+	if needHeight {
+		sizes["height"] = read("height", rs.Sizes["height"], DimLength, 0.05, calc.MaxTankSize, math.NaN())
+	}
+	floor := read("floor", rs.Floor, DimLength, -calc.MaxElevation, calc.MaxElevation, math.NaN())
+	level := read("level", rs.Level, DimLength, 0, calc.MaxTankSize, 0)
+	if !ok {
+		return
+	}
+	t, err := buildTank(rs.Shape, func(n string) float64 { return sizes[n] }, nil)
+	if err != nil {
+		id := ReceiverField("shape")
+		c.fail(id, &FieldError{ID: id, Label: "Receiver shape", Text: rs.Shape, Detail: err.Error(), Err: err})
+		return
+	}
+	if level > float64(t.Height()) {
+		id := ReceiverField("level")
+		c.fail(id, &FieldError{ID: id, Label: "Receiver level", Text: rs.Level, Detail: Format(DimLength, level, sys) + " is above its brim",
+			Accept: "0 to " + Format(DimLength, float64(t.Height()), sys), Err: calc.ErrGeometry})
+		return
+	}
+	c.p.Receiver = &calc.Receiver{Tank: t, Floor: calc.Length(floor), Level: calc.Length(level)}
+}
+
+// buildTank makes a calc tank of the shape from its named sizes (m; the
+// side slope is horizontal per vertical): "diameter", "length", "width",
+// "height" (floor to brim), "cone-height", "side-slope"; table is the
+// calibration table for the "table" shape.
+func buildTank(shape string, size func(name string) float64, table []TablePoint) (calc.Tank, error) {
+	L := func(name string) calc.Length { return calc.Length(size(name)) }
+	switch shape {
+	case "vertical-cylinder":
+		return calc.NewVerticalCylinder(L("diameter"), L("height"))
+	case "rectangular":
+		return calc.NewRectangular(L("length"), L("width"), L("height"))
+	case "horizontal-cylinder":
+		return calc.NewHorizontalCylinder(L("diameter"), L("length"))
+	case "cone-bottom":
+		return calc.NewConeBottom(L("diameter"), L("cone-height"), calc.Length(math.Max(size("height"), size("cone-height"))))
+	case "sloped-pit":
+		return calc.NewSlopedPit(L("length"), L("width"), size("side-slope"), L("height"))
+	case "sphere":
+		return calc.NewSphere(L("diameter"))
+	case "table":
+		lv := make([]float64, len(table))
+		vo := make([]float64, len(table))
+		for i, r := range table {
+			lv[i], vo[i] = r.Level, r.Volume
+		}
+		return calc.NewTable(lv, vo)
+	}
+	return nil, errUnknownShape
+}
+
 // drain plans the drain and its time band.
 func (c *computer) drain() {
 	p := &c.p
-	in := calc.DrainInput{Siphon: p.Siphon, Tank: p.Tank}
+	in := calc.DrainInput{Siphon: p.Siphon, Tank: p.Tank, Receiver: p.Receiver}
+	if p.Receiver != nil {
+		// The planner follows the receiving surface itself from the hose end.
+		drop, _ := c.num(FieldDrop)
+		in.Siphon.Geometry.Outlet = p.Siphon.Geometry.Surface - calc.Length(drop)
+		in.Siphon.Geometry.OutletSubmerged = false
+	}
 	if v, ok := c.num(FieldTankTarget); ok {
 		if v >= float64(p.Siphon.Geometry.Surface) {
 			c.fail(FieldTankTarget, &FieldError{ID: FieldTankTarget, Label: "Target level", Text: c.text(FieldTankTarget),

@@ -7,6 +7,7 @@ import (
 	"io"
 	"math"
 	"os"
+	"slices"
 	"sort"
 	"strconv"
 	"strings"
@@ -63,7 +64,12 @@ type calcOptions struct {
 	json, curve, submerged, help bool
 	units                        model.System
 	hose, tankTable              string
+	receiver                     *model.ReceiverSpec
 }
+
+// receiverFlags are the --receiver-* flags of a transfer, by the size or
+// position name model.ReceiverSpec uses.
+var receiverFlags = []string{"diameter", "length", "width", "height", "cone-height", "side-slope", "floor", "level"}
 
 func flagByName(name string) (flagField, bool) {
 	for _, f := range calcFlags {
@@ -75,6 +81,12 @@ func flagByName(name string) (flagField, bool) {
 }
 
 func flagForField(id model.FieldID) string {
+	if rest, ok := strings.CutPrefix(string(id), "receiver."); ok {
+		if rest == "shape" {
+			return "--receiver"
+		}
+		return "--receiver-" + rest
+	}
 	for _, f := range calcFlags {
 		if f.field == id {
 			return "--" + f.name
@@ -143,6 +155,24 @@ func parseCalcArgs(args []string) (map[model.FieldID]string, calcOptions, error)
 			o.tankTable = value
 			continue
 		}
+		if name == "receiver" || strings.HasPrefix(name, "receiver-") {
+			if o.receiver == nil {
+				o.receiver = &model.ReceiverSpec{Sizes: map[string]string{}}
+			}
+			switch part := strings.TrimPrefix(name, "receiver-"); {
+			case name == "receiver":
+				o.receiver.Shape = value
+			case part == "floor":
+				o.receiver.Floor = value
+			case part == "level":
+				o.receiver.Level = value
+			case slices.Contains(receiverFlags, part):
+				o.receiver.Sizes[part] = value
+			default:
+				return nil, o, usagef("unknown flag --%s; see drawdown calc --help", name)
+			}
+			continue
+		}
 		f, ok := flagByName(name)
 		if !ok {
 			return nil, o, usagef("unknown flag --%s; see drawdown calc --help", name)
@@ -163,6 +193,10 @@ func calcUsage(w io.Writer) {
 	fmt.Fprintln(w, "  --outlet-submerged     the hose end sits below a receiving surface (--drop is to that surface)")
 	fmt.Fprintln(w, "  --hose ID              a hose size from `drawdown presets` (sets --hose-id)")
 	fmt.Fprintln(w, "  --tank-table FILE      CSV of level, volume for --tank table")
+	fmt.Fprintln(w, "  --receiver SHAPE       transfer into a receiving vessel (needs --tank); its sizes as")
+	fmt.Fprintln(w, "                         --receiver-diameter, -length, -width, -height (brim), -cone-height,")
+	fmt.Fprintln(w, "                         -side-slope; --receiver-floor (its floor above the source floor,")
+	fmt.Fprintln(w, "                         negative when lower) and --receiver-level (its level at the start)")
 	for _, f := range calcFlags {
 		fmt.Fprintf(w, "  --%-20s %s\n", f.name+" X", f.help)
 	}
@@ -171,7 +205,18 @@ func calcUsage(w io.Writer) {
 // buildInputs validates each given flag against its field (so that the
 // message names the flag) and returns the job inputs.
 func buildInputs(vals map[model.FieldID]string, o calcOptions, cat *presets.Catalogue) (model.Inputs, error) {
-	in := model.Inputs{Values: vals, Units: o.units}
+	in := model.Inputs{Values: vals, Units: o.units, Receiver: o.receiver}
+	if r := o.receiver; r != nil {
+		if r.Shape == "" {
+			return in, usagef("--receiver SHAPE is needed with the --receiver-* sizes")
+		}
+		if !slices.Contains(presets.TankShapes(), r.Shape) {
+			return in, usagef("--receiver: %q is not a tank shape; accepted %s", r.Shape, strings.Join(presets.TankShapes(), ", "))
+		}
+		if shape := vals[model.FieldTankShape]; shape == "" || shape == "none" {
+			return in, usagef("--receiver needs --tank SHAPE for the source vessel")
+		}
+	}
 	if o.hose != "" {
 		h, ok := cat.Hose(o.hose)
 		if !ok {
@@ -310,6 +355,7 @@ type jsonDrain struct {
 	ResidualM3       float64  `json:"residual_m3"`
 	CrestLimitLevelM *float64 `json:"crest_limit_level_m"`
 	StartFlowM3S     float64  `json:"start_flow_m3_s"`
+	ReceiverLevelM   *float64 `json:"receiver_level_m,omitempty"`
 	TargetLevelM     float64  `json:"target_level_m"`
 	Curve            []struct {
 		TimeS  float64 `json:"time_s"`
@@ -401,6 +447,10 @@ func jsonOf(p model.Plan) jsonResult {
 		if d.CrestLimitFound {
 			v := jsonNum(float64(d.CrestLimitLevel))
 			jd.CrestLimitLevelM = &v
+		}
+		if p.Receiver != nil {
+			v := jsonNum(float64(d.ReceiverLevel))
+			jd.ReceiverLevelM = &v
 		}
 		j.Drain = jd
 	}

@@ -163,3 +163,41 @@ func TestReportCommand(t *testing.T) {
 		t.Errorf("missing job: exit %d, %q", code, se.String())
 	}
 }
+
+// A transfer into a receiving vessel: the volume moved out of the source
+// lands in the receiver (volume balance, analytic: 1.2 m × 1.0 m plan area),
+// and a small receiver stops the transfer when full.
+func TestCalcTransfer(t *testing.T) {
+	base := []string{"calc", "--hose-id", "25mm", "--hose-length", "6m", "--lift", "0.3m", "--drop", "1.2m",
+		"--tank", "vertical-cylinder", "--tank-diameter", "1.1m", "--level", "0.9m",
+		"--receiver", "rectangular", "--receiver-length", "1.2m", "--receiver-width", "1m", "--receiver-floor", "-1.5m", "--json"}
+	for _, c := range []struct {
+		height string
+		reason string
+	}{{"1m", ""}, {"0.4m", "receiver_full"}} {
+		out, stderr, code := run(t, append(base, "--receiver-height", c.height)...)
+		if code != 0 {
+			t.Fatalf("exit %d: %s", code, stderr)
+		}
+		var m struct {
+			Drain struct {
+				Volume   float64  `json:"volume_m3"`
+				Reason   string   `json:"stop_reason"`
+				Receiver *float64 `json:"receiver_level_m"`
+			} `json:"drain"`
+		}
+		if err := json.Unmarshal([]byte(out), &m); err != nil {
+			t.Fatal(err)
+		}
+		if m.Drain.Receiver == nil || math.Abs(*m.Drain.Receiver*1.2-m.Drain.Volume) > 1e-6 {
+			t.Errorf("receiver %s: level %v for %g m³ moved; want volume/1.2 m²", c.height, m.Drain.Receiver, m.Drain.Volume)
+		}
+		if c.reason != "" && m.Drain.Reason != c.reason {
+			t.Errorf("receiver %s: stop %q, want %q", c.height, m.Drain.Reason, c.reason)
+		}
+	}
+	_, stderr, code := run(t, append(base[:len(base)-1], "--receiver-floor", "x")...)
+	if code != 2 || !strings.Contains(stderr, "--receiver-") {
+		t.Errorf("bad receiver: exit %d %q", code, stderr)
+	}
+}

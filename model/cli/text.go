@@ -63,6 +63,10 @@ func writeText(w io.Writer, p model.Plan, o calcOptions) {
 		row("Time", fmt.Sprintf("%s (range %s to %s)", model.FormatDuration(float64(d.Time)), model.FormatDuration(float64(p.TimeLow)), model.FormatDuration(float64(p.TimeHigh))))
 		row("Stops at", fmt.Sprintf("%s above the floor: %s", f(model.DimLength, float64(d.StopLevel)), stopText(d.StopReason)))
 		row("Moved", fmt.Sprintf("%s; left in the tank %s", f(model.DimVolume, float64(d.Volume)), f(model.DimVolume, float64(d.Residual))))
+		if p.Receiver != nil {
+			row("Receiver", fmt.Sprintf("level %s above its floor at the stop (brim %s)", f(model.DimLength, float64(d.ReceiverLevel)),
+				f(model.DimLength, float64(p.Receiver.Tank.Height()))))
+		}
 		if d.CrestLimitFound {
 			row("Crest", "the crest would boil once the level falls to "+f(model.DimLength, float64(d.CrestLimitLevel)))
 		}
