@@ -112,6 +112,7 @@ func WriteReport(w io.Writer, r ReportInput) error {
 	if !started.IsZero() && !stopped.IsZero() && stopped.After(started) {
 		rw.row("Running time", FormatDuration(stopped.Sub(started).Seconds()))
 	}
+	rw.row("Job closed out", rw.tmOr(j.Closed, "not yet: checklist steps still to do"))
 	rw.line("")
 
 	rw.inputs(j, p)

@@ -1313,6 +1313,15 @@ func (m *Model) mark(c ChecklistMarkMsg) (tea.Model, tea.Cmd) {
 	}
 	m.job.AddLog(now, text)
 	m.job.Updated = now
+	if pr := m.job.Checklist.Progress(); pr.Total > 0 && pr.Pending == 0 && m.job.Closed.IsZero() {
+		// Every step is done, skipped with a reason, or not applicable.
+		m.job.Closed = now
+		m.job.AddLog(now, "job closed out: every checklist step marked; press w in the Log pane for the record")
+		m.flash = "job closed out: write the record with w in the Log pane (9)"
+	} else if pr.Pending > 0 && !m.job.Closed.IsZero() {
+		m.job.Closed = time.Time{} // a step was put back to do: the job is open again
+		m.job.AddLog(now, "job reopened: a checklist step is to do again")
+	}
 	if c.Current != "" {
 		m.job.Resume.StepID = c.Current
 		m.job.Resume.Step = m.job.Checklist.Index(c.Current)

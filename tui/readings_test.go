@@ -7,6 +7,8 @@ import (
 	"time"
 
 	tea "charm.land/bubbletea/v2"
+
+	"drawdown/model"
 )
 
 // Level readings typed in the Log pane land in the job with the root's
@@ -81,5 +83,22 @@ func TestRecordKey(t *testing.T) {
 	m = send(t, m, tea.Msg(written))
 	if !strings.Contains(m.flash, "record written") {
 		t.Errorf("flash %q", m.flash)
+	}
+}
+
+// Marking the last checklist step closes the job out; putting a step back
+// to do reopens it.
+func TestCloseOut(t *testing.T) {
+	m := newTestModel(t, 80, 24)
+	for _, s := range m.job.Checklist.Steps {
+		m = send(t, m, ChecklistMarkMsg{ID: s.ID, State: model.StateSkipped, Reason: "test run"})
+	}
+	if m.job.Closed.IsZero() {
+		t.Fatal("job not closed after every step was marked")
+	}
+	first := m.job.Checklist.Steps[0].ID
+	m = send(t, m, ChecklistMarkMsg{ID: first, State: model.StatePending})
+	if !m.job.Closed.IsZero() {
+		t.Error("job still closed with a step to do")
 	}
 }
