@@ -42,6 +42,7 @@ const (
 	FieldViscosity FieldID = "viscosity"
 	FieldVapor     FieldID = "vapor"
 
+	FieldTankPreset   FieldID = "tank.preset"
 	FieldTankShape    FieldID = "tank.shape"
 	FieldTankDiameter FieldID = "tank.diameter"
 	FieldTankLength   FieldID = "tank.length"
@@ -212,6 +213,9 @@ var fieldTable = []FieldSpec{
 		Help: "Absolute vapour pressure at the liquid's temperature."},
 
 	// Tank.
+	{ID: FieldTankPreset, Pane: PaneTank, Label: "Tank from catalogue", Dim: DimNumber, Optional: true,
+		Choices: tankPresetChoices,
+		Help:    "A typical vessel from the catalogue fills the shape and sizes; then measure and set the level."},
 	{ID: FieldTankShape, Pane: PaneTank, Label: "Tank shape", Dim: DimNumber, Default: "none",
 		Choices: tankShapeChoices,
 		Help:    "Shape of the source vessel; none for a steady flow figure only."},
@@ -283,6 +287,17 @@ func outletChoices(*presets.Catalogue) []Choice {
 		{ID: "no", Label: "Free (discharges into air)"},
 		{ID: "yes", Label: "Submerged (below the receiving surface)"},
 	}
+}
+
+func tankPresetChoices(c *presets.Catalogue) []Choice {
+	out := []Choice{{ID: "custom", Label: "custom (type the shape and sizes)"}}
+	if c == nil {
+		return out
+	}
+	for _, t := range c.Tanks() {
+		out = append(out, Choice{ID: t.ID, Label: t.Name, Note: t.Note})
+	}
+	return out
 }
 
 func tankShapeChoices(*presets.Catalogue) []Choice {

@@ -3,6 +3,7 @@ package model
 import (
 	"errors"
 	"math"
+	"strconv"
 	"testing"
 
 	"drawdown/calc"
@@ -128,5 +129,38 @@ func TestComputePickerCase(t *testing.T) {
 	p := Compute(j, presets.Builtin())
 	if p.Err != nil || p.Drain == nil {
 		t.Fatalf("mixed-case pickers: %v", p.Err)
+	}
+}
+
+// Every catalogue tank, applied to the demo job with a level inside it,
+// gives a drain plan (the catalogue is usable from the screen and the
+// command line).
+func TestTankPresets(t *testing.T) {
+	cat := presets.Builtin()
+	for _, tp := range cat.Tanks() {
+		j := DemoJob()
+		j.ApplyTankPreset(tp)
+		p := Compute(j, cat)
+		if p.Tank == nil {
+			// The demo's 0.35 m level may not fit a shallow template; set
+			// it to half the tank.
+			if p.Err == nil {
+				t.Errorf("%s: no tank and no error", tp.ID)
+				continue
+			}
+		}
+		if p.Tank != nil {
+			half := float64(p.Tank.Height()) / 2
+			j.Inputs[FieldTankLevel] = strconv.FormatFloat(half, 'f', 3, 64) + " m"
+			j.Inputs[FieldIntakeHeight] = strconv.FormatFloat(half/10, 'f', 3, 64) + " m"
+			p = Compute(j, cat)
+		}
+		if p.Err != nil {
+			t.Errorf("%s (%s): %v", tp.ID, tp.Shape, p.Err)
+			continue
+		}
+		if p.Drain == nil {
+			t.Errorf("%s: no drain plan", tp.ID)
+		}
 	}
 }

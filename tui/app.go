@@ -552,6 +552,17 @@ func (m *Model) setFocus(p PaneID) tea.Cmd {
 func (m *Model) applyEdit(e FieldEdit, cmd tea.Cmd) (tea.Model, tea.Cmd) {
 	_ = m.job.Set(e.ID, e.Text) // the error comes back with the plan's field errors
 	m.job.Updated = m.now()
+	if e.ID == model.FieldTankPreset {
+		if t, ok := m.cat.Tank(e.Text); ok {
+			if prev := m.job.TankSizesText(); prev != "" {
+				// Keep what was typed before the catalogue replaced it.
+				m.job.AddLog(m.now(), "tank before the catalogue choice: "+prev)
+				m.log.SetEntries(m.job.Log)
+			}
+			m.job.ApplyTankPreset(t)
+			m.flash = "tank set from the catalogue: " + t.Name + "; now set the liquid level"
+		}
+	}
 	if e.ID == model.FieldLiquid || e.ID == model.FieldPriming {
 		m.recompute()
 		m.rebuildChecklist(e.ID)

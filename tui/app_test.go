@@ -694,7 +694,7 @@ func TestFieldMoves(t *testing.T) {
 	if m.focus != PaneHose || m.forms[PaneHose].Cursor() != 0 {
 		t.Errorf("up at the top left the pane: %v field %d", m.focus, m.forms[PaneHose].Cursor())
 	}
-	m = press(t, m, "4", "down") // rectangular tank: diameter does not apply
+	m = press(t, m, "4", "down", "down") // catalogue, shape; rectangular tank: diameter does not apply
 	if id := m.forms[PaneTank].Selected().ID; id != model.FieldTankLength {
 		t.Errorf("down from the shape went to %s", id)
 	}

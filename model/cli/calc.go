@@ -63,7 +63,7 @@ var calcFlags = []flagField{
 type calcOptions struct {
 	json, curve, submerged, help bool
 	units                        model.System
-	hose, tankTable              string
+	hose, tankTable, tankPreset  string
 	receiver                     *model.ReceiverSpec
 }
 
@@ -154,6 +154,9 @@ func parseCalcArgs(args []string) (map[model.FieldID]string, calcOptions, error)
 		case "tank-table":
 			o.tankTable = value
 			continue
+		case "tank-preset":
+			o.tankPreset = value
+			continue
 		}
 		if name == "receiver" || strings.HasPrefix(name, "receiver-") {
 			if o.receiver == nil {
@@ -193,6 +196,7 @@ func calcUsage(w io.Writer) {
 	fmt.Fprintln(w, "  --outlet-submerged     the hose end sits below a receiving surface (--drop is to that surface)")
 	fmt.Fprintln(w, "  --hose ID              a hose size from `drawdown presets` (sets --hose-id)")
 	fmt.Fprintln(w, "  --tank-table FILE      CSV of level, volume for --tank table")
+	fmt.Fprintln(w, "  --tank-preset ID       a tank from `drawdown presets` (shape and sizes; flags given win)")
 	fmt.Fprintln(w, "  --receiver SHAPE       transfer into a receiving vessel (needs --tank); its sizes as")
 	fmt.Fprintln(w, "                         --receiver-diameter, -length, -width, -height (brim), -cone-height,")
 	fmt.Fprintln(w, "                         -side-slope; --receiver-floor (its floor above the source floor,")
@@ -226,6 +230,20 @@ func buildInputs(vals map[model.FieldID]string, o calcOptions, cat *presets.Cata
 			return in, usagef("--hose and --hose-id both given; use one")
 		}
 		vals[model.FieldHoseID] = strconv.FormatFloat(float64(h.Diameter)*1000, 'g', 10, 64) + "mm"
+	}
+	if o.tankPreset != "" {
+		t, ok := cat.Tank(o.tankPreset)
+		if !ok {
+			return in, usagef("--tank-preset: %q is not a tank in the catalogue; see drawdown presets", o.tankPreset)
+		}
+		// The template fills what the flags did not give.
+		j := model.Job{Inputs: map[model.FieldID]string{}}
+		j.ApplyTankPreset(t)
+		for id, v := range j.Inputs {
+			if _, given := vals[id]; !given && v != "" {
+				vals[id] = v
+			}
+		}
 	}
 	if o.submerged {
 		vals[model.FieldOutletSubmerged] = "yes"

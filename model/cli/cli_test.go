@@ -201,3 +201,18 @@ func TestCalcTransfer(t *testing.T) {
 		t.Errorf("bad receiver: exit %d %q", code, stderr)
 	}
 }
+
+func TestCalcTankPreset(t *testing.T) {
+	out, stderr, code := run(t, "calc", "--hose-id", "25mm", "--hose-length", "8m", "--lift", "0.4m", "--drop", "1.5m",
+		"--tank-preset", "tote-1000", "--level", "0.8m", "--json")
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	if !strings.Contains(out, `"drain"`) {
+		t.Errorf("no drain plan from a catalogue tank:\n%s", out)
+	}
+	if _, stderr, code := run(t, "calc", "--hose-id", "25mm", "--hose-length", "8m", "--lift", "0.4m", "--drop", "1.5m",
+		"--tank-preset", "bathtub", "--level", "0.8m"); code != 2 || !strings.Contains(stderr, "--tank-preset") {
+		t.Errorf("unknown preset: exit %d %q", code, stderr)
+	}
+}
