@@ -179,7 +179,7 @@ func TestFieldChoices(t *testing.T) {
 			t.Errorf("priming choice %q mentions mouth", c.ID)
 		}
 	}
-	shape, _ := FieldByID(FieldTankShape)
+	shape, _ := FieldByID(FieldTankPreset, FieldTankShape)
 	ids := map[string]bool{}
 	for _, c := range shape.Choices(cat) {
 		ids[c.ID] = true
