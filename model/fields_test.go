@@ -15,7 +15,7 @@ var contractIDs = []FieldID{
 	"hose.id", "hose.length", "hose.upleg", "hose.material", "hose.fittings", "hose.count",
 	"hose.kminor", "hose.roughness", "lift", "drop", "intake.depth", "intake.height",
 	"outlet.submerged", "liquid", "temp", "altitude", "baro", "density", "viscosity", "vapor",
-	"tank.shape", "tank.diameter", "tank.length", "tank.width", "tank.height", "tank.cone",
+	"tank.preset", "tank.shape", "tank.diameter", "tank.length", "tank.width", "tank.height", "tank.cone",
 	"tank.slope", "tank.level", "tank.target", "priming.method", "pump.stroke", "tol.height",
 }
 
@@ -179,7 +179,7 @@ func TestFieldChoices(t *testing.T) {
 			t.Errorf("priming choice %q mentions mouth", c.ID)
 		}
 	}
-	shape, _ := FieldByID(FieldTankPreset, FieldTankShape)
+	shape, _ := FieldByID(FieldTankShape)
 	ids := map[string]bool{}
 	for _, c := range shape.Choices(cat) {
 		ids[c.ID] = true
