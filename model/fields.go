@@ -34,6 +34,18 @@ const (
 	FieldOutletSubmerged FieldID = "outlet.submerged"
 	FieldTolHeight       FieldID = "tol.height"
 
+	// A receiving vessel for a transfer (its level rises as the source
+	// falls). The IDs match ReceiverField(name).
+	FieldReceiverShape    FieldID = "receiver.shape"
+	FieldReceiverDiameter FieldID = "receiver.diameter"
+	FieldReceiverLength   FieldID = "receiver.length"
+	FieldReceiverWidth    FieldID = "receiver.width"
+	FieldReceiverHeight   FieldID = "receiver.height"
+	FieldReceiverCone     FieldID = "receiver.cone-height"
+	FieldReceiverSlope    FieldID = "receiver.side-slope"
+	FieldReceiverFloor    FieldID = "receiver.floor"
+	FieldReceiverLevel    FieldID = "receiver.level"
+
 	FieldLiquid    FieldID = "liquid"
 	FieldTemp      FieldID = "temp"
 	FieldAltitude  FieldID = "altitude"
@@ -194,6 +206,25 @@ var fieldTable = []FieldSpec{
 		Help:    "Free: the end discharges into air. Submerged: it sits below the receiving surface."},
 	{ID: FieldTolHeight, Pane: PaneLift, Label: "Height tolerance", Dim: DimLength, Min: 0, Max: 1, Default: "3 cm",
 		Help: "How far each measured height may be off (±); sets the low and high band."},
+	{ID: FieldReceiverShape, Pane: PaneLift, Label: "Receiving vessel", Dim: DimNumber, Default: "none",
+		Choices: receiverShapeChoices,
+		Help:    "A tank the hose discharges into: its level rises and the head shrinks from both ends. None: a free outlet or an open drain."},
+	{ID: FieldReceiverDiameter, Pane: PaneLift, Label: "Receiver diameter", Dim: DimLength, Min: 0.05, Max: calc.MaxTankSize,
+		Help: "Inside diameter of the receiving vessel."},
+	{ID: FieldReceiverLength, Pane: PaneLift, Label: "Receiver length", Dim: DimLength, Min: 0.05, Max: calc.MaxTankSize,
+		Help: "Inside length of the receiving vessel (a pit: its bottom length)."},
+	{ID: FieldReceiverWidth, Pane: PaneLift, Label: "Receiver width", Dim: DimLength, Min: 0.05, Max: calc.MaxTankSize,
+		Help: "Inside width of the receiving vessel (a pit: its bottom width)."},
+	{ID: FieldReceiverHeight, Pane: PaneLift, Label: "Receiver depth", Dim: DimLength, Min: 0.05, Max: calc.MaxTankSize,
+		Help: "Floor to brim of the receiving vessel: the transfer stops when it is full."},
+	{ID: FieldReceiverCone, Pane: PaneLift, Label: "Receiver cone height", Dim: DimLength, Min: 0.01, Max: calc.MaxTankSize,
+		Help: "Height of the receiver's conical bottom."},
+	{ID: FieldReceiverSlope, Pane: PaneLift, Label: "Receiver side slope", Dim: DimNumber, Min: 0, Max: calc.MaxSideSlope,
+		Help: "Receiving pit: horizontal run per unit rise of its sides."},
+	{ID: FieldReceiverFloor, Pane: PaneLift, Label: "Receiver floor", Dim: DimLength, Min: -100, Max: 100,
+		Help: "Receiver's floor above the source tank's floor; negative when it stands lower."},
+	{ID: FieldReceiverLevel, Pane: PaneLift, Label: "Receiver level", Dim: DimLength, Min: 0, Max: calc.MaxTankSize, Default: "0 m",
+		Help: "Liquid already in the receiver, above its own floor, at the start."},
 
 	// Liquid & site.
 	{ID: FieldLiquid, Pane: PaneLiquid, Label: "Liquid", Dim: DimNumber, Default: "water",
@@ -296,6 +327,14 @@ func tankPresetChoices(c *presets.Catalogue) []Choice {
 	}
 	for _, t := range c.Tanks() {
 		out = append(out, Choice{ID: t.ID, Label: t.Name, Note: t.Note})
+	}
+	return out
+}
+
+func receiverShapeChoices(*presets.Catalogue) []Choice {
+	out := []Choice{{ID: "none", Label: "none (free outlet or open drain)"}}
+	for _, s := range presets.TankShapes() {
+		out = append(out, Choice{ID: s, Label: strings.ReplaceAll(s, "-", " ")})
 	}
 	return out
 }

@@ -17,6 +17,8 @@ var contractIDs = []FieldID{
 	"outlet.submerged", "liquid", "temp", "altitude", "baro", "density", "viscosity", "vapor",
 	"tank.preset", "tank.shape", "tank.diameter", "tank.length", "tank.width", "tank.height", "tank.cone",
 	"tank.slope", "tank.level", "tank.target", "priming.method", "pump.stroke", "tol.height",
+	"receiver.shape", "receiver.diameter", "receiver.length", "receiver.width", "receiver.height",
+	"receiver.cone-height", "receiver.side-slope", "receiver.floor", "receiver.level",
 }
 
 func TestFieldTable(t *testing.T) {

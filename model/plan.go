@@ -51,6 +51,22 @@ type ReceiverSpec struct {
 	Level string
 }
 
+// receiverFromFields reads the receiver fields of a job; nil when the
+// receiving vessel is "none" or not set.
+func receiverFromFields(v map[FieldID]string) *ReceiverSpec {
+	shape := strings.ToLower(strings.TrimSpace(v[FieldReceiverShape]))
+	if shape == "" || shape == "none" {
+		return nil
+	}
+	r := &ReceiverSpec{Shape: shape, Sizes: map[string]string{}, Floor: v[FieldReceiverFloor], Level: v[FieldReceiverLevel]}
+	for _, name := range []string{"diameter", "length", "width", "height", "cone-height", "side-slope"} {
+		if t := strings.TrimSpace(v[ReceiverField(name)]); t != "" {
+			r.Sizes[name] = t
+		}
+	}
+	return r
+}
+
 // ReceiverField is the FieldID under which Compute reports a problem with
 // the receiver's size or position name ("receiver.diameter",
 // "receiver.floor", …). These are not screen fields.
@@ -114,6 +130,9 @@ func Compute(j Job, cat *presets.Catalogue) Plan {
 // pure and fast (a steady solve, a drain plan and their band: well under a
 // millisecond), so the screen calls it on every keystroke.
 func ComputeInputs(in Inputs, cat *presets.Catalogue) Plan {
+	if in.Receiver == nil {
+		in.Receiver = receiverFromFields(in.Values)
+	}
 	c := computer{in: in, cat: cat, p: Plan{FieldErrors: map[FieldID]error{}}}
 	c.run()
 	return c.p
@@ -422,6 +441,9 @@ func (c *computer) receiver() {
 	read := func(name, text string, d Dim, lo, hi float64, def float64) float64 {
 		id := ReceiverField(name)
 		label := "Receiver " + strings.ReplaceAll(name, "-", " ")
+		if f, ok := FieldByID(id); ok {
+			label = f.Label
+		}
 		if strings.TrimSpace(text) == "" {
 			if !math.IsNaN(def) {
 				return def

@@ -164,3 +164,34 @@ func TestTankPresets(t *testing.T) {
 		}
 	}
 }
+
+// A receiving vessel typed into the job's fields makes the drain a
+// transfer: the volume that leaves the source lands in the receiver
+// (volume balance; 2 m × 1.5 m plan area, analytic).
+func TestComputeTransferFields(t *testing.T) {
+	j := DemoJob()
+	for id, v := range map[FieldID]string{
+		FieldReceiverShape: "rectangular", FieldReceiverLength: "2 m", FieldReceiverWidth: "1.5 m",
+		FieldReceiverHeight: "1 m", FieldReceiverFloor: "-1.6 m",
+	} {
+		if err := j.Set(id, v); err != nil {
+			t.Fatalf("%s: %v", id, err)
+		}
+	}
+	p := Compute(j, presets.Builtin())
+	if p.Err != nil || p.Receiver == nil || p.Drain == nil {
+		t.Fatalf("transfer: %v (receiver %v)", p.Err, p.Receiver)
+	}
+	if math.Abs(float64(p.Drain.ReceiverLevel)*3-float64(p.Drain.Volume)) > 1e-6 {
+		t.Errorf("receiver level %v for %v moved", p.Drain.ReceiverLevel, p.Drain.Volume)
+	}
+	if p.Drain.StopReason != calc.StopReceiverFull {
+		t.Errorf("a 3 m³ receiver under a 40 m² bund should fill: stop %q", p.Drain.StopReason)
+	}
+	// A receiver without its sizes names the missing field.
+	j.Inputs[FieldReceiverWidth] = ""
+	p = Compute(j, presets.Builtin())
+	if _, ok := p.FieldErrors[FieldReceiverWidth]; !ok {
+		t.Errorf("missing receiver width: errors %v", p.FieldErrors)
+	}
+}

@@ -335,6 +335,27 @@ func fieldUsed(j *model.Job, id model.FieldID) bool {
 		return tank && has("side-slope")
 	case model.FieldPumpStroke:
 		return strings.TrimSpace(j.Inputs[model.FieldPriming]) == string(model.PrimeHandPump)
+	case model.FieldReceiverShape:
+		return tank // a transfer needs the source tank described
+	case model.FieldReceiverDiameter, model.FieldReceiverLength, model.FieldReceiverWidth, model.FieldReceiverHeight,
+		model.FieldReceiverCone, model.FieldReceiverSlope, model.FieldReceiverFloor, model.FieldReceiverLevel:
+		rshape := strings.ToLower(strings.TrimSpace(j.Inputs[model.FieldReceiverShape]))
+		if !tank || rshape == "" || rshape == "none" {
+			return false
+		}
+		switch id {
+		case model.FieldReceiverFloor, model.FieldReceiverLevel:
+			return true
+		case model.FieldReceiverHeight:
+			return rshape != "horizontal-cylinder" && rshape != "sphere"
+		}
+		name := strings.TrimPrefix(string(id), "receiver.")
+		for _, s := range presets.ShapeSizes(rshape) {
+			if s == name {
+				return true
+			}
+		}
+		return false
 	}
 	return true
 }
