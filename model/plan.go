@@ -441,14 +441,15 @@ func (c *computer) receiver() {
 	read := func(name, text string, d Dim, lo, hi float64, def float64) float64 {
 		id := ReceiverField(name)
 		label := "Receiver " + strings.ReplaceAll(name, "-", " ")
+		accept := Format(d, lo, sys) + " to " + Format(d, hi, sys)
 		if f, ok := FieldByID(id); ok {
-			label = f.Label
+			label, accept = f.Label, f.RangeText(sys)
 		}
 		if strings.TrimSpace(text) == "" {
 			if !math.IsNaN(def) {
 				return def
 			}
-			c.fail(id, &FieldError{ID: id, Label: label, Detail: "nothing entered", Accept: Format(d, lo, sys) + " to " + Format(d, hi, sys), Err: ErrNotSet})
+			c.fail(id, &FieldError{ID: id, Label: label, Detail: "nothing entered", Accept: accept, Err: ErrNotSet})
 			ok = false
 			return 0
 		}
@@ -458,7 +459,7 @@ func (c *computer) receiver() {
 		}
 		if err != nil {
 			c.fail(id, &FieldError{ID: id, Label: label, Text: text, Detail: "cannot use " + strings.TrimSpace(text) + ": " + err.Error(),
-				Accept: Format(d, lo, sys) + " to " + Format(d, hi, sys), Err: err})
+				Accept: accept, Err: err})
 			ok = false
 		}
 		return v
