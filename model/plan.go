@@ -443,7 +443,7 @@ func (c *computer) receiver() {
 		label := "Receiver " + strings.ReplaceAll(name, "-", " ")
 		accept := Format(d, lo, sys) + " to " + Format(d, hi, sys)
 		if f, ok := FieldByID(id); ok {
-			label, accept = f.Label, f.RangeText(sys)
+			label, accept, lo, hi = f.Label, f.RangeText(sys), f.Min, f.Max
 		}
 		if strings.TrimSpace(text) == "" {
 			if !math.IsNaN(def) {
