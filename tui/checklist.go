@@ -191,13 +191,13 @@ func (v *ChecklistView) closeInput() {
 	v.input.Reset()
 }
 
-func (v *ChecklistView) openInput(m ckMode, value, placeholder string) tea.Cmd {
+func (v *ChecklistView) openInput(m ckMode, value, hint string) tea.Cmd {
 	v.mode = m
 	v.errText = ""
 	v.input.Reset()
 	v.input.SetValue(value)
 	v.input.CursorEnd()
-	v.input.Placeholder = placeholder
+	v.input.Placeholder = hint
 	return v.input.Focus()
 }
 

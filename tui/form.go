@@ -593,7 +593,7 @@ func inputWindow(v string, pos, w int) (string, int) {
 
 // inputCell draws a typed field's text, exactly w cells: the text as typed
 // (the part around the cursor when it is longer than the cell), or the
-// placeholder in muted text. The text input widget keeps the editing; the
+// default or "auto" hint in muted text. The text input widget keeps the editing; the
 // drawing is ours, with the fixed escape sequences of Styles.fast, as it is
 // redone on every keystroke. The terminal's own cursor marks the place.
 func (f *FormPane) inputCell(ff *formField, focused bool, w int) string {
