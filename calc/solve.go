@@ -249,14 +249,22 @@ func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 		return V, 1 / (x * x), re
 	}
 
-	// Transitional band: Illinois regula falsi on V in [2000/c, 4000/c].
+	// Transitional band: Illinois regula falsi on V. Colebrook–White lies
+	// above the shifted Churchill curve in the band (they meet at 4000), so
+	// the turbulent root is a lower bound, as the laminar root is an upper
+	// one; each bound is checked and replaced by the band's end if it fails.
+	vTurb := V
 	lo, hi := transitionShift(rr)
 	phi := func(v float64) float64 {
 		return v*v*(A+transitionFriction(c*v, rr, lo, hi)*B) - twoGH
 	}
-	v0, v1 := ReLaminarMax/c, math.Min(ReTurbulentMin/c, vLam)
+	v0, v1 := math.Max(ReLaminarMax/c, vTurb), math.Min(ReTurbulentMin/c, vLam)
 	p0, p1 := phi(v0), phi(v1)
-	if p1 < 0 { // guard: fall back to the band's end
+	if p0 > 0 {
+		v0 = ReLaminarMax / c
+		p0 = phi(v0)
+	}
+	if p1 < 0 {
 		v1 = ReTurbulentMin / c
 		p1 = phi(v1)
 	}
@@ -265,7 +273,7 @@ func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 	for i := 0; i < 200 && p0 != p1; i++ {
 		V = (v0*p1 - v1*p0) / (p1 - p0)
 		p := phi(V)
-		if p == 0 || math.Abs(v1-v0) <= 1e-13*V {
+		if p == 0 || math.Abs(v1-v0) <= 1e-11*V || math.Abs(p) <= 1e-12*twoGH {
 			break
 		}
 		if (p > 0) == (p1 > 0) {

@@ -419,3 +419,30 @@ func BenchmarkSteadyCase(b *testing.B) {
 		sinkResult, _ = Solve(s)
 	}
 }
+
+// In the transitional band the bracketed solution still satisfies the
+// energy equation (analytic identity) to 1e-10 relative.
+func TestSolveTransitionalEnergyBalance(t *testing.T) {
+	for _, h := range []Length{0.6, 1, 1.5, 2} {
+		s := demoCase()
+		s.Fluid.Viscosity = 0.004
+		s.Hose.Diameter = 0.013
+		s.Geometry.Outlet = -h
+		r, err := Solve(s)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if r.Regime != Transitional {
+			continue
+		}
+		V, D, L := float64(r.Velocity), float64(s.Hose.Diameter), float64(s.Hose.Length)
+		got := V * V / (2 * StandardGravity) * (1 + s.Hose.KMinor() + r.FrictionFactor*L/D)
+		if !relClose(got, float64(h), 1e-10) {
+			t.Errorf("head %v: energy balance gives %.12g m", h, got)
+		}
+		f, _ := FrictionFactor(r.Reynolds, float64(s.Hose.Roughness)/D)
+		if !relClose(f, r.FrictionFactor, 1e-12) {
+			t.Errorf("head %v: f %g, FrictionFactor at the solved Re %g", h, r.FrictionFactor, f)
+		}
+	}
+}
