@@ -216,3 +216,39 @@ func TestCalcTankPreset(t *testing.T) {
 		t.Errorf("unknown preset: exit %d %q", code, stderr)
 	}
 }
+
+// FuzzCalcArgs feeds the calc command arbitrary flag lists: it never
+// panics, exits 0 or 2 (1 only for a file it cannot read), prints no NaN or
+// Inf, and a refusal is one line on stderr.
+func FuzzCalcArgs(f *testing.F) {
+	f.Add("--hose-id 25mm --hose-length 12m --lift 1.5m --drop 2.5m --json")
+	f.Add("--hose-id 1in --hose-length 40ft --lift 5ft --drop 8ft --units us --tank sphere --tank-diameter 2m --level 1.5m --curve")
+	f.Add("--hose-id 3/4in --hose-length 5m --lift 9m --drop 1m --liquid gasoline --temp 30C --altitude 2500m")
+	f.Add("--hose-id 25mm --hose-length 6m --lift 0.3m --drop 1.2m --tank vertical-cylinder --tank-diameter 1.1m --level 0.9m --receiver sphere --receiver-diameter 1m --receiver-floor -1.5m")
+	t0 := f.TempDir()
+	f.Fuzz(func(t *testing.T, line string) {
+		args := append([]string{"calc"}, strings.Fields(line)...)
+		for _, a := range args {
+			if strings.Contains(a, "tank-table") || strings.Contains(a, "report") {
+				return // no file access from the fuzzer
+			}
+		}
+		t.Setenv("DRAWDOWN_HOME", t0)
+		t.Setenv("XDG_CONFIG_HOME", t0)
+		var out, errb bytes.Buffer
+		code := Run(args, &out, &errb)
+		switch code {
+		case 0:
+			if s := out.String(); strings.Contains(s, "NaN") || strings.Contains(s, "+Inf") || strings.Contains(s, "-Inf") {
+				t.Fatalf("non-finite output for %q:\n%s", line, s)
+			}
+		case 2:
+			if e := strings.TrimSpace(errb.String()); e == "" || strings.Contains(e, "\n") {
+				t.Fatalf("refusal for %q is not one line: %q", line, e)
+			}
+		case 1:
+		default:
+			t.Fatalf("exit %d for %q", code, line)
+		}
+	})
+}
