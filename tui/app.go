@@ -1134,7 +1134,7 @@ func planToResult(p model.Plan) ResultData {
 		Strokes:       p.PumpStrokes,
 	}
 	d.HasBand = d.FlowHigh > d.FlowLow && d.FlowLow > 0
-	d.Why = whyText(r)
+	d.Why = model.VerdictReason(r)
 	if dp := p.Drain; dp != nil {
 		d.HasDrain = true
 		d.Time = float64(dp.Time)
@@ -1152,25 +1152,6 @@ func planToResult(p model.Plan) ResultData {
 			"most left: float a board over the intake (common practice)"})
 	}
 	return d
-}
-
-// whyText is the short reason beside WILL NOT RUN or NEAR LIMIT.
-func whyText(r calc.Result) string {
-	switch {
-	case r.Verdict == calc.RunsNearLimit:
-		return "crest above the working limit: gas gathers, expect to re-prime"
-	case r.Verdict != calc.WillNotRun:
-		return ""
-	}
-	switch r.Why {
-	case calc.WarnNoDrop:
-		return "outlet is not below the liquid surface"
-	case calc.WarnCannotRun:
-		return "crest too high: the liquid boils at the crest"
-	case calc.WarnIntakeShallow:
-		return "the intake is above the liquid surface"
-	}
-	return "see the warnings"
 }
 
 // warnLines words the warnings for the pane (the deciding one is already in

@@ -23,7 +23,7 @@ func writeText(w io.Writer, p model.Plan, o calcOptions) {
 	case calc.RunsNearLimit:
 		verdict = "RUNS, NEAR THE CREST LIMIT"
 	case calc.WillNotRun:
-		verdict = "WILL NOT RUN — " + whyText(r.Why)
+		verdict = "WILL NOT RUN — " + model.VerdictReason(r)
 	}
 	fmt.Fprintf(w, "Siphon: %s\n", verdict)
 	row := func(label, text string) { fmt.Fprintf(w, "  %-10s %s\n", label, text) }
@@ -61,7 +61,7 @@ func writeText(w io.Writer, p model.Plan, o calcOptions) {
 	if d := p.Drain; d != nil {
 		fmt.Fprintf(w, "Drain (%s)\n", strings.ReplaceAll(p.Tank.Shape(), "-", " "))
 		row("Time", fmt.Sprintf("%s (range %s to %s)", model.FormatDuration(float64(d.Time)), model.FormatDuration(float64(p.TimeLow)), model.FormatDuration(float64(p.TimeHigh))))
-		row("Stops at", fmt.Sprintf("%s above the floor: %s", f(model.DimLength, float64(d.StopLevel)), stopText(d.StopReason)))
+		row("Stops at", fmt.Sprintf("%s above the floor: %s", f(model.DimLength, float64(d.StopLevel)), d.StopReason.Text()))
 		row("Moved", fmt.Sprintf("%s; left in the tank %s", f(model.DimVolume, float64(d.Volume)), f(model.DimVolume, float64(d.Residual))))
 		if p.Receiver != nil {
 			row("Receiver", fmt.Sprintf("level %s above its floor at the stop (brim %s)", f(model.DimLength, float64(d.ReceiverLevel)),
@@ -102,32 +102,4 @@ func speed(v float64, sys model.System) string {
 		return strconv.FormatFloat(v/0.3048, 'f', 2, 64) + " ft/s"
 	}
 	return strconv.FormatFloat(v, 'f', 2, 64) + " m/s"
-}
-
-func whyText(c calc.WarnCode) string {
-	switch c {
-	case calc.WarnNoDrop:
-		return "the outlet is not below the liquid surface"
-	case calc.WarnCannotRun:
-		return "the crest is too high; the liquid would boil there"
-	case calc.WarnIntakeShallow:
-		return "the intake is out of the liquid"
-	}
-	return c.String()
-}
-
-func stopText(r calc.StopReason) string {
-	switch r {
-	case calc.StopTarget:
-		return "target level reached"
-	case calc.StopIntake:
-		return "intake about to draw air (intake plus the submergence it needs)"
-	case calc.StopCrest:
-		return "crest limit: the lift has grown until the liquid would boil at the crest"
-	case calc.StopEqual:
-		return "levels equal: the flow tapers to nothing"
-	case calc.StopReceiverFull:
-		return "receiving vessel full"
-	}
-	return string(r)
 }
