@@ -35,7 +35,7 @@ func (r StopReason) Text() string {
 	case StopTarget:
 		return "the target level is reached"
 	case StopIntake:
-		return "the intake uncovers (level at intake + required submergence; below it the intake draws air)"
+		return "the intake draws air: the level is down to intake + the submergence needed against vortices"
 	case StopCrest:
 		return "the crest pressure falls to the vapour pressure as the lift grows; the column breaks at the crest"
 	case StopEqual:
