@@ -790,6 +790,7 @@ func (p *planner) run() (DrainPlan, error) {
 			return stopNow(StopCrest)
 		case WarnIntakeShallow:
 			return stopNow(StopIntake)
+		default: // WarnNoDrop: the levels are already equal or reversed
 		}
 		return stopNow(StopEqual)
 	}

@@ -275,7 +275,7 @@ func waterRegion1Density(T, p float64) float64 {
 	c16 := c8 * c8
 	c32 := c16 * c16
 	c29 := c16 * c8 * c4 * c
-	bt[41-41], bt[41-40], bt[41-39], bt[41-38] = c32*c8*c, c32*c8, c32*c4*c2*c, c32*c4*c2
+	bt[0], bt[41-40], bt[41-39], bt[41-38] = c32*c8*c, c32*c8, c32*c4*c2*c, c32*c4*c2
 	bt[41-31], bt[41-29] = c29*c2, c29
 	bt[41-11], bt[41-9], bt[41-8], bt[41-7] = c8*c2*c, c8*c, c8, c4*c2*c
 	bt[41-6], bt[41-5], bt[41-4], bt[41-3] = c4*c2, c4*c, c4, c2*c

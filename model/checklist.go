@@ -915,6 +915,7 @@ func methodUnsuited(m PrimingMethod, h Hazards) string {
 		if h.Flammable || h.Combustible {
 			return "a fuel (it adds water to the job)"
 		}
+	default: // the other methods suit every liquid
 	}
 	return ""
 }

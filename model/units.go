@@ -756,8 +756,9 @@ func precision(d Dim, u unit) (decimals, sig int) {
 			return 1, 0
 		}
 		return 0, 0
+	default: // DimNumber
 	}
-	return 0, 4 // DimNumber
+	return 0, 4
 }
 
 // Format writes si (in SI units) as a value and unit in sys, rounded for the

@@ -19,6 +19,7 @@ func VerdictReason(r calc.Result) string {
 		return "crest too high: the liquid boils at the crest"
 	case calc.WarnIntakeShallow:
 		return "the intake is above the liquid surface"
+	default: // the other codes never decide a verdict
 	}
 	return "see the warnings"
 }

@@ -92,15 +92,6 @@ func DefaultKeyMap() KeyMap {
 	return k
 }
 
-// keyHelp adapts a list of binding groups to help.KeyMap.
-type keyHelp struct {
-	short []key.Binding
-	full  [][]key.Binding
-}
-
-func (h keyHelp) ShortHelp() []key.Binding  { return h.short }
-func (h keyHelp) FullHelp() [][]key.Binding { return h.full }
-
 // shortHelp is the one-line help for the present state. Only keys that do
 // something now are listed.
 func (k KeyMap) shortHelp(editing, picker, form bool) []key.Binding {

@@ -175,9 +175,6 @@ func (u drawUnits) length(si float64) string {
 func (u drawUnits) flow(si float64) string {
 	return model.Format(model.DimFlow, drawFinite(si), u.sys)
 }
-func (u drawUnits) diameter(si float64) string {
-	return model.Format(model.DimDiameter, drawFinite(si), u.sys)
-}
 
 // drawFinite maps NaN and ±Inf to 0 so that nothing non-finite reaches a
 // frame.

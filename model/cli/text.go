@@ -24,6 +24,7 @@ func writeText(w io.Writer, p model.Plan, o calcOptions) {
 		verdict = "RUNS, NEAR THE CREST LIMIT"
 	case calc.WillNotRun:
 		verdict = "WILL NOT RUN — " + model.VerdictReason(r)
+	default: // calc.Runs: the verdict word as it is
 	}
 	fmt.Fprintf(w, "Siphon: %s\n", verdict)
 	row := func(label, text string) { fmt.Fprintf(w, "  %-10s %s\n", label, text) }
