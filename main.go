@@ -6,8 +6,10 @@
 //	drawdown presets         the built-in catalogue
 //	drawdown report JOB      the job record
 //
-// main only dispatches: the screen is package tui, the commands are package
-// model/cli.
+// The command line lives in this package, one file per command (cmd_*.go);
+// each turns its flags into model inputs and lays out what model and its
+// presentation layer say. The screen is package tui. Neither decides or words
+// anything the other could word differently.
 package main
 
 import (
@@ -20,7 +22,6 @@ import (
 
 	tea "charm.land/bubbletea/v2"
 
-	"drawdown/model/cli"
 	"drawdown/tui"
 )
 
@@ -28,17 +29,28 @@ func main() {
 	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
 }
 
+// Exit statuses of every command.
+const (
+	ExitOK    = 0
+	ExitError = 1 // a file could not be read or written
+	ExitUsage = 2 // bad input: a flag or its value
+)
+
 func run(args []string, stdout, stderr io.Writer) int {
 	if len(args) > 0 {
 		switch args[0] {
-		case "calc", "presets", "report":
-			return cli.Run(args, stdout, stderr)
+		case "calc":
+			return runCalc(args[1:], stdout, stderr)
+		case "presets":
+			return runPresets(args[1:], stdout, stderr)
+		case "report":
+			return runReport(args[1:], stdout, stderr)
 		case "-h", "--help", "help":
 			fmt.Fprint(stdout, usage)
-			return 0
+			return ExitOK
 		}
 		fmt.Fprintf(stderr, "drawdown: unknown command %q\n%s", args[0], usage)
-		return 2
+		return ExitUsage
 	}
 	if t := os.Getenv("TERM"); t == "dumb" || t == "" && !isTerminal(os.Stdout) {
 		fmt.Fprint(stderr, dumbMessage)
@@ -47,11 +59,16 @@ func run(args []string, stdout, stderr io.Writer) int {
 	return runScreen(stderr)
 }
 
-const usage = `usage:
+const usage = `drawdown — plan, run and record a siphon drain
+
+usage:
   drawdown                 open the planning screen (last job, or the demo job)
   drawdown calc [flags]    compute one case without the screen; --json for JSON
-  drawdown presets         list the built-in liquids, hoses, fittings and tanks
-  drawdown report JOB      write the job record
+  drawdown presets         list the built-in liquids, hoses, fittings and tanks with sources
+  drawdown report JOB      write the job record (Markdown) and its readings CSV
+
+drawdown plans and records; it does not authorise a discharge or an entry. Local codes,
+permits and licensed practice govern.
 `
 
 const dumbMessage = `drawdown: this terminal cannot move the cursor (TERM=dumb), and the

@@ -1,4 +1,4 @@
-package cli
+package main
 
 import (
 	"bytes"
@@ -59,7 +59,7 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprintln(stderr, "drawdown report: "+oneLine(err.Error()))
 		return ExitError
 	}
-	cat := Catalogue(stderr)
+	cat := loadCatalogue(stderr)
 	in := model.ReportInput{Job: j, Plan: model.Compute(j, cat), Now: time.Now()}
 	var md, csv bytes.Buffer
 	if err := model.WriteReport(&md, in); err != nil {

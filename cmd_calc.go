@@ -1,4 +1,4 @@
-package cli
+package main
 
 import (
 	"encoding/json"
@@ -312,7 +312,7 @@ func runCalc(args []string, stdout, stderr io.Writer) int {
 		calcUsage(stdout)
 		return ExitOK
 	}
-	cat := Catalogue(stderr)
+	cat := loadCatalogue(stderr)
 	in, err := buildInputs(vals, o, cat)
 	if err != nil {
 		fmt.Fprintln(stderr, "drawdown calc: "+err.Error())

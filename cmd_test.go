@@ -1,4 +1,4 @@
-package cli
+package main
 
 import (
 	"bytes"
@@ -12,19 +12,19 @@ import (
 	"drawdown/model"
 )
 
-func run(t *testing.T, args ...string) (string, string, int) {
+func runCmd(t *testing.T, args ...string) (string, string, int) {
 	t.Helper()
 	t.Setenv("DRAWDOWN_HOME", t.TempDir())
 	t.Setenv("XDG_CONFIG_HOME", t.TempDir())
 	var out, errb bytes.Buffer
-	code := Run(args, &out, &errb)
+	code := run(args, &out, &errb)
 	return out.String(), errb.String(), code
 }
 
 // The issue's "done when" case: every design §4 key is present with a real,
 // finite value.
 func TestCalcJSONKeys(t *testing.T) {
-	out, stderr, code := run(t, "calc", "--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--json")
+	out, stderr, code := runCmd(t, "calc", "--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--json")
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, stderr)
 	}
@@ -59,7 +59,7 @@ func TestCalcJSONKeys(t *testing.T) {
 }
 
 func TestCalcDrainJSON(t *testing.T) {
-	out, stderr, code := run(t, "calc", "--hose-id", "1in", "--hose-length", "8m", "--lift", "0.4m", "--drop", "1.8m",
+	out, stderr, code := runCmd(t, "calc", "--hose-id", "1in", "--hose-length", "8m", "--lift", "0.4m", "--drop", "1.8m",
 		"--tank", "vertical-cylinder", "--tank-diameter", "1.2m", "--level", "1.1m", "--json")
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, stderr)
@@ -103,7 +103,7 @@ func TestCalcBadInput(t *testing.T) {
 		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--tank", "sphere"}, "--level"},
 	}
 	for _, c := range cases {
-		_, stderr, code := run(t, append([]string{"calc"}, c.args...)...)
+		_, stderr, code := runCmd(t, append([]string{"calc"}, c.args...)...)
 		if code != 2 {
 			t.Errorf("%v: exit %d, want 2", c.args, code)
 		}
@@ -114,7 +114,7 @@ func TestCalcBadInput(t *testing.T) {
 }
 
 func TestCalcTextUS(t *testing.T) {
-	out, stderr, code := run(t, "calc", "--hose-id", "1in", "--hose-length", "40ft", "--lift", "5ft", "--drop", "8ft", "--units", "us")
+	out, stderr, code := runCmd(t, "calc", "--hose-id", "1in", "--hose-length", "40ft", "--lift", "5ft", "--drop", "8ft", "--units", "us")
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, stderr)
 	}
@@ -142,7 +142,7 @@ func TestReportCommand(t *testing.T) {
 	}
 	out := t.TempDir()
 	var so, se bytes.Buffer
-	if code := Run([]string{"report", "bund-b2", "--out", out}, &so, &se); code != 0 {
+	if code := run([]string{"report", "bund-b2", "--out", out}, &so, &se); code != 0 {
 		t.Fatalf("exit %d: %s", code, se.String())
 	}
 	md, err := os.ReadFile(filepath.Join(out, "bund-b2-record.md"))
@@ -159,7 +159,7 @@ func TestReportCommand(t *testing.T) {
 	}
 	so.Reset()
 	se.Reset()
-	if code := Run([]string{"report", "no-such-job"}, &so, &se); code != 2 || !strings.Contains(se.String(), "no-such-job") {
+	if code := run([]string{"report", "no-such-job"}, &so, &se); code != 2 || !strings.Contains(se.String(), "no-such-job") {
 		t.Errorf("missing job: exit %d, %q", code, se.String())
 	}
 }
@@ -175,7 +175,7 @@ func TestCalcTransfer(t *testing.T) {
 		height string
 		reason string
 	}{{"1m", ""}, {"0.4m", "receiver_full"}} {
-		out, stderr, code := run(t, append(base, "--receiver-height", c.height)...)
+		out, stderr, code := runCmd(t, append(base, "--receiver-height", c.height)...)
 		if code != 0 {
 			t.Fatalf("exit %d: %s", code, stderr)
 		}
@@ -196,14 +196,14 @@ func TestCalcTransfer(t *testing.T) {
 			t.Errorf("receiver %s: stop %q, want %q", c.height, m.Drain.Reason, c.reason)
 		}
 	}
-	_, stderr, code := run(t, append(base[:len(base)-1], "--receiver-floor", "x")...)
+	_, stderr, code := runCmd(t, append(base[:len(base)-1], "--receiver-floor", "x")...)
 	if code != 2 || !strings.Contains(stderr, "--receiver-") {
 		t.Errorf("bad receiver: exit %d %q", code, stderr)
 	}
 }
 
 func TestCalcTankPreset(t *testing.T) {
-	out, stderr, code := run(t, "calc", "--hose-id", "25mm", "--hose-length", "8m", "--lift", "0.4m", "--drop", "1.5m",
+	out, stderr, code := runCmd(t, "calc", "--hose-id", "25mm", "--hose-length", "8m", "--lift", "0.4m", "--drop", "1.5m",
 		"--tank-preset", "tote-1000", "--level", "0.8m", "--json")
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, stderr)
@@ -211,7 +211,7 @@ func TestCalcTankPreset(t *testing.T) {
 	if !strings.Contains(out, `"drain"`) {
 		t.Errorf("no drain plan from a catalogue tank:\n%s", out)
 	}
-	if _, stderr, code := run(t, "calc", "--hose-id", "25mm", "--hose-length", "8m", "--lift", "0.4m", "--drop", "1.5m",
+	if _, stderr, code := runCmd(t, "calc", "--hose-id", "25mm", "--hose-length", "8m", "--lift", "0.4m", "--drop", "1.5m",
 		"--tank-preset", "bathtub", "--level", "0.8m"); code != 2 || !strings.Contains(stderr, "--tank-preset") {
 		t.Errorf("unknown preset: exit %d %q", code, stderr)
 	}
@@ -236,7 +236,7 @@ func FuzzCalcArgs(f *testing.F) {
 		t.Setenv("DRAWDOWN_HOME", t0)
 		t.Setenv("XDG_CONFIG_HOME", t0)
 		var out, errb bytes.Buffer
-		code := Run(args, &out, &errb)
+		code := run(args, &out, &errb)
 		switch code {
 		case 0:
 			if s := out.String(); strings.Contains(s, "NaN") || strings.Contains(s, "+Inf") || strings.Contains(s, "-Inf") {
