@@ -22,7 +22,7 @@ func TestDumbTerminal(t *testing.T) {
 	}
 }
 
-// TestDispatch: the command names go to model/cli; an unknown one is a
+// TestDispatch: the command names go to their commands; an unknown one is a
 // usage error (exit 2, as design §4 has for bad input).
 func TestDispatch(t *testing.T) {
 	var out, errb bytes.Buffer

@@ -7,7 +7,7 @@
 // (job.go, store.go), the checklist, the readings and the job record.
 //
 // model imports calc and presets and the standard library. It must not import
-// tui or anything that draws a screen; model/cli (the non-UI commands) sits
+// tui or anything that draws a screen; the command line (package main) sits
 // on top of it. Persistence works on io.Reader and io.Writer; the file helpers
 // in store.go write atomically and never overwrite a file they cannot read.
 package model
