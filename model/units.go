@@ -84,6 +84,9 @@ const (
 	// DimTime is a duration: s, min, h, d; bare numbers are minutes. Parse
 	// returns seconds.
 	DimTime
+	// DimVelocity is a mean flow velocity: m/s (SI), ft/s (US). Parse
+	// returns m/s.
+	DimVelocity
 	// DimNumber is a plain number without a unit (a loss coefficient K, a
 	// count of hoses).
 	DimNumber
@@ -92,7 +95,7 @@ const (
 
 var dimNames = [...]string{
 	"length", "diameter", "roughness", "pressure", "temperature", "density",
-	"viscosity", "flow rate", "volume", "time", "number",
+	"viscosity", "flow rate", "volume", "time", "velocity", "number",
 }
 
 // String names the dimension in plain words ("length", "flow rate").
@@ -202,6 +205,10 @@ var unitTable = [dimCount][]unit{
 		{name: "h", scale: 3600, alias: []string{"hr", "hrs", "hour", "hours"}},
 		{name: "d", scale: 86400, alias: []string{"day", "days"}},
 	},
+	DimVelocity: {
+		{name: "m/s", scale: 1, alias: []string{"mps"}},
+		{name: "ft/s", scale: metrePerFoot, alias: []string{"fps", "ft/sec"}},
+	},
 	DimNumber: nil,
 }
 
@@ -218,6 +225,7 @@ var defaultUnits = [dimCount][2]string{
 	DimFlow:        {"L/min", "gal/min"},
 	DimVolume:      {"L", "gal"},
 	DimTime:        {"min", "min"},
+	DimVelocity:    {"m/s", "ft/s"},
 	DimNumber:      {"", ""},
 }
 
@@ -756,6 +764,11 @@ func precision(d Dim, u unit) (decimals, sig int) {
 			return 1, 0
 		}
 		return 0, 0
+	case DimVelocity:
+		if u.name == "ft/s" {
+			return 1, 0 // 0.1 ft/s ≈ 3 cm/s
+		}
+		return 2, 0
 	default: // DimNumber
 	}
 	return 0, 4

@@ -19,6 +19,7 @@ import (
 
 	"drawdown/calc"
 	"drawdown/model"
+	"drawdown/model/present"
 	"drawdown/presets"
 )
 
@@ -187,7 +188,7 @@ func TestScreen(t *testing.T) {
 // valid result stays on screen, marked stale.
 func TestStaleResult(t *testing.T) {
 	m := newTestModel(t, 80, 24)
-	before := m.result.Data()
+	before := m.result.Sheet()
 	// Every prefix of "1 mm" after the old text is erased is invalid, so the
 	// last valid plan is the one for "38" (bare: 38 mm).
 	m = enterField(t, m, model.FieldHoseID, "1 mm")
@@ -199,9 +200,9 @@ func TestStaleResult(t *testing.T) {
 	if !strings.Contains(got, "STALE") {
 		t.Errorf("result not marked stale:\n%s", got)
 	}
-	after := m.result.Data()
-	if after.Flow != before.Flow || !after.Stale {
-		t.Errorf("last valid result not kept: flow %v → %v, stale %v", before.Flow, after.Flow, after.Stale)
+	after := m.result.Sheet()
+	if after.Flow != before.Flow || !m.result.Stale() {
+		t.Errorf("last valid result not kept: flow %v → %v, stale %v", before.Flow, after.Flow, m.result.Stale())
 	}
 	if m.job.Inputs[model.FieldHoseID] != "1 mm" {
 		t.Errorf("typed text lost: %q", m.job.Inputs[model.FieldHoseID])
@@ -210,8 +211,8 @@ func TestStaleResult(t *testing.T) {
 	// ctrl+r puts back the last valid text.
 	m = selectField(t, m, model.FieldHoseID)
 	m = press(t, m, "enter", "ctrl+r")
-	if m.stale || m.job.Inputs[model.FieldHoseID] != "38" {
-		t.Errorf("ctrl+r: stale %v, text %q", m.stale, m.job.Inputs[model.FieldHoseID])
+	if m.st.stale || m.job.Inputs[model.FieldHoseID] != "38" {
+		t.Errorf("ctrl+r: stale %v, text %q", m.st.stale, m.job.Inputs[model.FieldHoseID])
 	}
 }
 
@@ -262,15 +263,15 @@ func TestTypedScenario(t *testing.T) {
 	if !p.OK() || p.Drain == nil {
 		t.Fatalf("reference plan failed: %v", p.Err)
 	}
-	if m.stale || !m.hasPlan {
-		t.Fatalf("screen plan stale: %v", m.firstError())
+	if m.st.stale || !m.st.hasPlan {
+		t.Fatalf("screen plan stale: %v", m.st.problem)
 	}
 	got := checkScreen(t, m)
 	r := p.Result
 	for _, s := range []string{
 		model.Format(model.DimFlow, float64(r.Flow), model.SI),
-		speedText(model.SI, float64(r.Velocity)),
-		model.FormatDuration(float64(p.Drain.Time)),
+		model.Format(model.DimVelocity, float64(r.Velocity), model.SI),
+		present.Duration(float64(p.Drain.Time)),
 		model.Format(model.DimLength, float64(r.WorkingCrestHeight), model.SI),
 		model.Format(model.DimLength, float64(r.MaxCrestHeight), model.SI),
 	} {
@@ -278,9 +279,8 @@ func TestTypedScenario(t *testing.T) {
 			t.Errorf("screen lacks %q:\n%s", s, got)
 		}
 	}
-	d := m.result.Data()
-	if d.Flow != float64(r.Flow) || d.Time != float64(p.Drain.Time) {
-		t.Errorf("shown flow %g, time %g; Compute gives %g, %g", d.Flow, d.Time, float64(r.Flow), float64(p.Drain.Time))
+	if sh := present.Build(p, model.SI, p.Hazards); m.st.sheet.Flow != sh.Flow || m.st.sheet.Drain.Time != sh.Drain.Time {
+		t.Errorf("shown flow %s, time %s; Compute gives %s, %s", m.st.sheet.Flow, m.st.sheet.Drain.Time, sh.Flow, sh.Drain.Time)
 	}
 	// Analytic: H = V²/(2g)·(1 + ΣK + f·L/D) (Darcy–Weisbach, design §3).
 	s := p.Siphon

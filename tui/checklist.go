@@ -7,7 +7,6 @@ import (
 	"charm.land/bubbles/v2/key"
 	"charm.land/bubbles/v2/textinput"
 	tea "charm.land/bubbletea/v2"
-	"charm.land/lipgloss/v2"
 
 	"drawdown/model"
 )
@@ -37,34 +36,6 @@ type ChecklistStepMsg struct {
 	ID string
 }
 
-// ChecklistKeys are the Checklist pane's keys. The root may remap them
-// (SetKeys) where they clash with its own navigate-mode letters.
-type ChecklistKeys struct {
-	Up, Down   key.Binding
-	Done       key.Binding // d or enter
-	Skip       key.Binding // s: asks for a reason
-	NotApplies key.Binding // x: not applicable
-	Reopen     key.Binding // backspace: back to "to do"
-	Note       key.Binding // n: add or change the note
-	Submit     key.Binding // enter while typing
-	Cancel     key.Binding // esc while typing
-}
-
-// DefaultChecklistKeys returns the pane's default keys.
-func DefaultChecklistKeys() ChecklistKeys {
-	return ChecklistKeys{
-		Up:         key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "prev step")),
-		Down:       key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "next step")),
-		Done:       key.NewBinding(key.WithKeys("d", "enter"), key.WithHelp("d/enter", "done")),
-		Skip:       key.NewBinding(key.WithKeys("s"), key.WithHelp("s", "skip (reason)")),
-		NotApplies: key.NewBinding(key.WithKeys("x"), key.WithHelp("x", "not applicable")),
-		Reopen:     key.NewBinding(key.WithKeys("backspace"), key.WithHelp("⌫", "back to to-do")),
-		Note:       key.NewBinding(key.WithKeys("n"), key.WithHelp("n", "note")),
-		Submit:     key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "save")),
-		Cancel:     key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "cancel")),
-	}
-}
-
 // ckMode is what the pane's input line is doing.
 type ckMode int
 
@@ -86,12 +57,12 @@ type ChecklistView struct {
 	input   textinput.Model
 	errText string // shown under the input, e.g. a missing reason
 	keys    ChecklistKeys
-	styles  DrawStyles
+	styles  Styles
 	focused bool
 }
 
 // NewChecklistView returns an empty Checklist pane.
-func NewChecklistView(st DrawStyles) ChecklistView {
+func NewChecklistView(st Styles, km KeyMap) ChecklistView {
 	ti := textinput.New()
 	ti.Prompt = "› "
 	ti.CharLimit = 300
@@ -99,7 +70,7 @@ func NewChecklistView(st DrawStyles) ChecklistView {
 	ts.Cursor.Blink = false // a blinking cursor streams bytes over SSH
 	ti.SetStyles(ts)
 	ti.SetVirtualCursor(false) // the root places the terminal's own cursor (CursorPos)
-	return ChecklistView{input: ti, keys: DefaultChecklistKeys(), styles: st.prepared()}
+	return ChecklistView{input: ti, keys: km.Checklist, styles: st}
 }
 
 // SetSize sets the pane's size in cells; View fills exactly w×h.
@@ -109,10 +80,7 @@ func (v *ChecklistView) SetSize(w, h int) {
 }
 
 // SetStyles replaces the styles.
-func (v *ChecklistView) SetStyles(st DrawStyles) { v.styles = st.prepared() }
-
-// SetKeys replaces the pane's keys.
-func (v *ChecklistView) SetKeys(k ChecklistKeys) { v.keys = k }
+func (v *ChecklistView) SetStyles(st Styles) { v.styles = st }
 
 // SetChecklist gives the checklist to show (a copy of the job's). The
 // selection stays on the same step ID when it still exists, else goes to
@@ -301,13 +269,20 @@ func (v ChecklistView) ShortHelp() []key.Binding {
 	return []key.Binding{v.keys.Done, v.keys.Skip, v.keys.Note, v.keys.NotApplies, v.keys.Reopen, v.keys.Up, v.keys.Down}
 }
 
-// FullHelp lists all the pane's keys.
-func (v ChecklistView) FullHelp() [][]key.Binding {
-	return [][]key.Binding{
-		{v.keys.Up, v.keys.Down, v.keys.Done, v.keys.Skip},
-		{v.keys.NotApplies, v.keys.Reopen, v.keys.Note, v.keys.Submit, v.keys.Cancel},
-	}
+// Claims takes the pane's own keys, and every key while typing.
+func (v *ChecklistView) Claims(msg tea.KeyPressMsg) bool {
+	return v.Typing() || key.Matches(msg, v.ShortHelp()...)
 }
+
+// Key handles a key with the pane focused.
+func (v *ChecklistView) Key(msg tea.KeyPressMsg) (tea.Cmd, *FieldEdit) {
+	var cmd tea.Cmd
+	*v, cmd = v.Update(msg)
+	return cmd, nil
+}
+
+// Show gives the pane the job's checklist.
+func (v *ChecklistView) Show(st *screenState) { v.SetChecklist(st.job.Checklist) }
 
 // ckSymbol is the state's mark in the list: never colour alone.
 func ckSymbol(s model.StepState) (string, drawClass) {
@@ -332,7 +307,7 @@ func ckWrap(s string, w int) []string {
 	for _, para := range strings.Split(s, "\n") {
 		line := ""
 		for _, word := range strings.Fields(para) {
-			for drawWidth(word) > w { // a word longer than the line
+			for cellWidth(word) > w { // a word longer than the line
 				if line != "" {
 					out = append(out, line)
 					line = ""
@@ -346,7 +321,7 @@ func ckWrap(s string, w int) []string {
 			case word == "":
 			case line == "":
 				line = word
-			case drawWidth(line)+1+drawWidth(word) <= w:
+			case cellWidth(line)+1+cellWidth(word) <= w:
 				line += " " + word
 			default:
 				out = append(out, line)
@@ -416,7 +391,7 @@ func (v ChecklistView) View() string {
 			label = "Note for this step:"
 		}
 		iv := v.input.View()
-		input = append(input, drawPlain(label, clsTitle), drawLine{{text: iv, raw: true, width: lipgloss.Width(iv)}})
+		input = append(input, drawPlain(label, clsTitle), drawLine{{text: iv, raw: true, width: cellWidth(iv)}})
 		if v.errText != "" {
 			input = append(input, drawPlain(v.errText, clsDanger))
 		}
@@ -495,7 +470,7 @@ func (v ChecklistView) View() string {
 		}
 		switch {
 		case i == v.cur && v.focused:
-			list = append(list, drawLine{{text: drawClip(mark+sym+" "+text, listW), cls: clsSelected}}.fit(listW))
+			list = append(list, drawLine{{text: clip(mark+sym+" "+text, listW), cls: clsSelected}}.fit(listW))
 			// keep the reversed bar across the whole width
 			list[len(list)-1][len(list[len(list)-1])-1].cls = clsSelected
 		case s.State == model.StateNotApplicable:
@@ -568,10 +543,10 @@ func (v *ChecklistView) detailLines(s model.Step, w, maxH int) []drawLine {
 		// Keep the box whole: cut its body, never its frame.
 		body = body[:min(len(body), max(maxH-2, 1))]
 		t := "┌─ ! Caution "
-		t += strings.Repeat("─", max(w-1-drawWidth(t), 0)) + "┐"
+		t += strings.Repeat("─", max(w-1-cellWidth(t), 0)) + "┐"
 		box = append(box, drawPlain(t, clsBox))
 		for _, l := range body {
-			pad := strings.Repeat(" ", max(inner-drawWidth(l), 0))
+			pad := strings.Repeat(" ", max(inner-cellWidth(l), 0))
 			box = append(box, drawLine{{text: "│ ", cls: clsBox}, {text: l + pad}, {text: " │", cls: clsBox}})
 		}
 		box = append(box, drawPlain("└"+strings.Repeat("─", max(w-2, 0))+"┘", clsBox))

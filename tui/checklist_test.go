@@ -91,7 +91,7 @@ func TestChecklistView(t *testing.T) {
 	for _, c := range cases {
 		for _, s := range paneSizes {
 			t.Run(c.name+"/"+s.name, func(t *testing.T) {
-				v := NewChecklistView(PlainDrawStyles())
+				v := NewChecklistView(NewStyles(true), DefaultKeyMap())
 				v.SetSize(s.w, s.h)
 				v.SetChecklist(c.cl(t))
 				v.Focus()
@@ -124,7 +124,7 @@ func ckPress(v ChecklistView, keys ...string) (ChecklistView, []tea.Msg) {
 
 func TestChecklistKeys(t *testing.T) {
 	cl := ckDemo()
-	v := NewChecklistView(PlainDrawStyles())
+	v := NewChecklistView(NewStyles(true), DefaultKeyMap())
 	v.SetSize(78, 10)
 	v.SetChecklist(cl)
 
@@ -236,7 +236,7 @@ func TestChecklistCautionBox(t *testing.T) {
 		t.Skip("no step with a caution in the demo checklist")
 	}
 	for _, s := range paneSizes[:5] {
-		v := NewChecklistView(PlainDrawStyles())
+		v := NewChecklistView(NewStyles(true), DefaultKeyMap())
 		v.SetSize(s.w, s.h)
 		v.SetChecklist(cl)
 		v.SetCurrent(cl.Steps[i].ID)
@@ -264,7 +264,7 @@ func TestChecklistNeverBreaks(t *testing.T) {
 			}
 		}
 		w, h := rng.IntN(130)-2, rng.IntN(45)-2
-		v := NewChecklistView(PlainDrawStyles())
+		v := NewChecklistView(NewStyles(true), DefaultKeyMap())
 		v.SetSize(w, h)
 		v.SetChecklist(cl)
 		v.Focus()
@@ -281,7 +281,7 @@ func TestChecklistNeverBreaks(t *testing.T) {
 // The Checklist frame is built in View (it holds a live text input): one
 // View of a 31-step list at 44×21.
 func BenchmarkChecklistView(b *testing.B) {
-	v := NewChecklistView(NewDrawStyles(NewStyles(true)))
+	v := NewChecklistView(NewStyles(true), DefaultKeyMap())
 	v.SetSize(44, 21)
 	v.SetChecklist(ckDemo())
 	v.Focus()
@@ -294,7 +294,7 @@ func BenchmarkChecklistView(b *testing.B) {
 // While a reason is typed the terminal's own cursor sits after the typed
 // text on the input line (the root adds the pane's origin); otherwise none.
 func TestChecklistCursorPos(t *testing.T) {
-	v := NewChecklistView(PlainDrawStyles())
+	v := NewChecklistView(NewStyles(true), DefaultKeyMap())
 	v.SetSize(78, 10)
 	v.SetChecklist(ckFixed())
 	v.Focus()

@@ -8,25 +8,25 @@ import (
 
 	"charm.land/bubbles/v2/key"
 	tea "charm.land/bubbletea/v2"
-	"charm.land/lipgloss/v2"
 
 	"drawdown/calc"
 	"drawdown/model"
+	"drawdown/model/present"
 )
 
-// CurvePoint is one sample of a drain plan: time from the start (s), source
+// curvePoint is one sample of a drain plan: time from the start (s), source
 // level (m, on the tank datum) and flow of all hoses together (m³/s).
-type CurvePoint struct {
+type curvePoint struct {
 	T, Level, Flow float64
 }
 
-// DrainCurve is what the Drain curve pane plots, computed elsewhere (the
+// drainCurve is what the Drain curve pane plots, computed elsewhere (the
 // drain plan of model.Compute) and only formatted here.
-type DrainCurve struct {
-	Points     []CurvePoint // in time order
+type drainCurve struct {
+	Points     []curvePoint // in time order
 	StopTime   float64      // s
 	StopLevel  float64      // m
-	StopReason string       // "target", "intake", "crest" or "equal" (as in the JSON output)
+	StopReason calc.StopReason
 	HasTarget  bool
 	Target     float64 // planned stop level, m
 	// HasGasLevel: below GasLevel (m) the lift exceeds the working crest
@@ -41,17 +41,17 @@ type DrainCurve struct {
 // has no keys of its own.
 type CurveView struct {
 	w, h    int
-	curve   DrainCurve
+	curve   drainCurve
 	has     bool
 	units   drawUnits
-	styles  DrawStyles
+	styles  Styles
 	focused bool
 	frame   string
 }
 
 // NewCurveView returns an empty Drain curve pane in the given unit system.
-func NewCurveView(st DrawStyles, sys model.System) CurveView {
-	v := CurveView{styles: st.prepared(), units: newDrawUnits(sys)}
+func NewCurveView(st Styles, sys model.System) CurveView {
+	v := CurveView{styles: st, units: newDrawUnits(sys)}
 	v.redraw()
 	return v
 }
@@ -60,15 +60,15 @@ func NewCurveView(st DrawStyles, sys model.System) CurveView {
 func (v *CurveView) SetSize(w, h int) { v.w, v.h = max(w, 0), max(h, 0); v.redraw() }
 
 // SetStyles replaces the styles.
-func (v *CurveView) SetStyles(st DrawStyles) { v.styles = st.prepared(); v.redraw() }
+func (v *CurveView) SetStyles(st Styles) { v.styles = st; v.redraw() }
 
 // SetUnits switches the axes to another unit system.
 func (v *CurveView) SetUnits(sys model.System) { v.units = newDrawUnits(sys); v.redraw() }
 
-// SetCurve gives the drain plan to plot. Points that are not finite or go
+// setCurve gives the drain plan to plot. Points that are not finite or go
 // back in time are dropped; negative flows are shown as zero.
-func (v *CurveView) SetCurve(c DrainCurve) {
-	pts := make([]CurvePoint, 0, len(c.Points))
+func (v *CurveView) setCurve(c drainCurve) {
+	pts := make([]curvePoint, 0, len(c.Points))
 	last := math.Inf(-1)
 	for _, p := range c.Points {
 		if !cvFinite3(p.T, p.Level, p.Flow) || p.T < last || p.T < 0 {
@@ -79,8 +79,8 @@ func (v *CurveView) SetCurve(c DrainCurve) {
 		last = p.T
 	}
 	c.Points = pts
-	c.StopTime, c.StopLevel, c.Target = drawFinite(c.StopTime), drawFinite(c.StopLevel), drawFinite(c.Target)
-	c.GasLevel = drawFinite(c.GasLevel)
+	c.StopTime, c.StopLevel, c.Target = finite(c.StopTime), finite(c.StopLevel), finite(c.Target)
+	c.GasLevel = finite(c.GasLevel)
 	if n := len(pts); n > 0 && c.StopTime <= 0 {
 		c.StopTime, c.StopLevel = pts[n-1].T, pts[n-1].Level
 	}
@@ -88,8 +88,8 @@ func (v *CurveView) SetCurve(c DrainCurve) {
 	v.redraw()
 }
 
-// ClearCurve shows the "no drain plan" message.
-func (v *CurveView) ClearCurve() { v.has = false; v.curve = DrainCurve{}; v.redraw() }
+// clearCurve shows the "no drain plan" message.
+func (v *CurveView) clearCurve() { v.has = false; v.curve = drainCurve{}; v.redraw() }
 
 func cvFinite3(a, b, c float64) bool {
 	return !math.IsNaN(a+b+c) && !math.IsInf(a+b+c, 0)
@@ -101,17 +101,32 @@ func (v *CurveView) Focus() { v.focused = true }
 // Blur removes the focus.
 func (v *CurveView) Blur() { v.focused = false }
 
-// Focused reports whether the pane has the focus.
-func (v CurveView) Focused() bool { return v.focused }
-
-// Update does nothing: the curve only follows the plan.
-func (v CurveView) Update(tea.Msg) (CurveView, tea.Cmd) { return v, nil }
-
 // ShortHelp lists no keys.
-func (v CurveView) ShortHelp() []key.Binding { return nil }
+func (v *CurveView) ShortHelp() []key.Binding { return nil }
 
-// FullHelp lists no keys.
-func (v CurveView) FullHelp() [][]key.Binding { return nil }
+// Claims takes no keys.
+func (v *CurveView) Claims(tea.KeyPressMsg) bool { return false }
+
+// Key does nothing: the curve only follows the plan.
+func (v *CurveView) Key(tea.KeyPressMsg) (tea.Cmd, *FieldEdit) { return nil, nil }
+
+// Typing is false: the pane has no text input.
+func (v *CurveView) Typing() bool { return false }
+
+// CursorPos is nil: the pane has no text input.
+func (v *CurveView) CursorPos() *tea.Cursor { return nil }
+
+// Show plots the last valid plan's drain in the job's unit system.
+func (v *CurveView) Show(st *screenState) {
+	if v.units.sys != st.job.Units {
+		v.units = newDrawUnits(st.job.Units)
+	}
+	if c, ok := curveOf(st.plan); st.hasPlan && ok {
+		v.setCurve(c)
+		return
+	}
+	v.clearCurve()
+}
 
 // View returns the frame drawn at the last change: exactly w×h cells.
 func (v CurveView) View() string { return v.frame }
@@ -161,9 +176,9 @@ func (v *CurveView) stopText(short bool) string {
 	c := v.curve
 	t := model.Format(model.DimTime, c.StopTime, v.units.sys)
 	if short {
-		return "■ stop " + t + ": " + stopReasonText(c.StopReason)
+		return "■ stop " + t + ": " + present.StopShort(c.StopReason)
 	}
-	return "■ stops after " + t + " at " + v.units.length(c.StopLevel) + ": " + stopReasonText(c.StopReason)
+	return "■ stops after " + t + " at " + v.units.length(c.StopLevel) + ": " + present.StopShort(c.StopReason)
 }
 
 func (v *CurveView) redraw() {
@@ -174,21 +189,21 @@ func (v *CurveView) redraw() {
 	}
 	c := v.curve
 	if !v.has || len(c.Points) == 0 {
-		v.frame = drawFit([]string{drawClip("No drain plan: set a tank in the Tank pane.", w)}, w, h)
+		v.frame = fitBlock([]string{clip("No drain plan: set a tank in the Tank pane.", w)}, w, h)
 		return
 	}
 	if len(c.Points) < 2 || c.StopTime <= 0 || c.Points[len(c.Points)-1].T <= 0 {
-		msg := "No drain: it stops at once at " + v.units.length(c.StopLevel) + " (" + stopReasonText(c.StopReason) + ")."
-		v.frame = drawFit([]string{v.styles.paintRun(clsWarn, drawClip("! "+msg, w))}, w, h)
+		msg := "No drain: it stops at once at " + v.units.length(c.StopLevel) + " (" + present.StopShort(c.StopReason) + ")."
+		v.frame = fitBlock([]string{v.styles.class[clsWarn].Render(clip("! "+msg, w))}, w, h)
 		return
 	}
 	if w < 24 || h < 6 {
 		lines := []string{
-			drawClip(v.stopText(true), w),
-			drawClip("level "+v.units.length(c.Points[0].Level)+" → "+v.units.length(c.StopLevel), w),
-			drawClip("flow "+v.units.flow(c.Points[0].Flow)+" → "+v.units.flow(c.Points[len(c.Points)-1].Flow), w),
+			clip(v.stopText(true), w),
+			clip("level "+v.units.length(c.Points[0].Level)+" → "+v.units.length(c.StopLevel), w),
+			clip("flow "+v.units.flow(c.Points[0].Flow)+" → "+v.units.flow(c.Points[len(c.Points)-1].Flow), w),
 		}
-		v.frame = drawFit(lines, w, h)
+		v.frame = fitBlock(lines, w, h)
 		return
 	}
 	v.frame = v.plot(w, h)
@@ -267,13 +282,13 @@ func (v *CurveView) plot(w, h int) string {
 	}
 	yw := 0
 	for _, t := range append(yt, ft...) {
-		yw = max(yw, lipgloss.Width(t.text))
+		yw = max(yw, cellWidth(t.text))
 	}
 	yw += 2 // " ┤"
 	px := yw
 	pw := w - px - 1
 	if pw < 8 {
-		return drawFit([]string{drawClip(v.stopText(true), w)}, w, h)
+		return fitBlock([]string{clip(v.stopText(true), w)}, w, h)
 	}
 
 	// Time axis.
@@ -294,17 +309,17 @@ func (v *CurveView) plot(w, h int) string {
 
 	// Title.
 	title := "Level and flow against time · " + v.stopText(false)
-	if lipgloss.Width(title) > w {
+	if cellWidth(title) > w {
 		title = v.stopText(true)
 	}
-	if lipgloss.Width(title) > w {
-		title = "■ stop " + model.Format(model.DimTime, c.StopTime, u.sys) + ": " + c.StopReason
+	if cellWidth(title) > w {
+		title = "■ stop " + model.Format(model.DimTime, c.StopTime, u.sys) + ": " + present.StopShort(c.StopReason)
 	}
-	cv.text(0, 0, drawClip(title, w), clsTitle)
+	cv.text(0, 0, clip(title, w), clsTitle)
 
 	// Axis lines and labels.
 	for _, t := range yt {
-		lbl := strings.Repeat(" ", yw-2-lipgloss.Width(t.text)) + t.text
+		lbl := strings.Repeat(" ", yw-2-cellWidth(t.text)) + t.text
 		cv.text(0, t.row, lbl, clsMuted)
 		cv.set(px-1, t.row, '┤', clsMuted)
 	}
@@ -314,7 +329,7 @@ func (v *CurveView) plot(w, h int) string {
 		}
 	}
 	for _, t := range ft {
-		lbl := strings.Repeat(" ", yw-2-lipgloss.Width(t.text)) + t.text
+		lbl := strings.Repeat(" ", yw-2-cellWidth(t.text)) + t.text
 		cv.text(0, t.row, lbl, clsMuted)
 	}
 	if flowH > 0 {
@@ -331,11 +346,11 @@ func (v *CurveView) plot(w, h int) string {
 		col := px + colOf(tv*tper)/2
 		cv.set(col, axisRow, '┴', clsMuted)
 		lbl := cvNumText(tv, tstep)
-		x := col - lipgloss.Width(lbl)/2
+		x := col - cellWidth(lbl)/2
 		if k == 0 {
 			lbl, x = lbl+" "+tname, col // the unit goes with the first label: "0 min"
 		}
-		if x > lastEnd+1 && x+lipgloss.Width(lbl) <= w {
+		if x > lastEnd+1 && x+cellWidth(lbl) <= w {
 			lastEnd = cv.text(x, axisRow+1, lbl, clsMuted) - 1
 		}
 	}
@@ -408,7 +423,7 @@ func (v *CurveView) plot(w, h int) string {
 			x1++
 		}
 		for _, t := range nm.say {
-			if drawWidth(t) <= x1-x0 {
+			if cellWidth(t) <= x1-x0 {
 				cv.text(x0, nm.row, t, clsMuted)
 				break
 			}
@@ -448,7 +463,7 @@ func cvFlowDecimals(v float64) int {
 
 // interpLevel is the level at time t by straight lines between samples,
 // starting the search at index j.
-func cvInterpLevel(pts []CurvePoint, j int, t float64) float64 {
+func cvInterpLevel(pts []curvePoint, j int, t float64) float64 {
 	if t <= pts[0].T {
 		return pts[0].Level
 	}
@@ -464,7 +479,7 @@ func cvInterpLevel(pts []CurvePoint, j int, t float64) float64 {
 }
 
 // interpFlow is the flow at time t by straight lines between samples.
-func cvInterpFlow(pts []CurvePoint, t float64) float64 {
+func cvInterpFlow(pts []curvePoint, t float64) float64 {
 	i := sort.Search(len(pts), func(i int) bool { return pts[i].T >= t })
 	switch {
 	case i == 0:
@@ -480,25 +495,28 @@ func cvInterpFlow(pts []CurvePoint, t float64) float64 {
 	return a.Flow + f*(b.Flow-a.Flow)
 }
 
-// CurveFromPlan converts a calc drain plan for SetCurve. target is the
-// planned stop level in metres (hasTarget false when none was set).
-func CurveFromPlan(p *calc.DrainPlan, target float64, hasTarget bool) DrainCurve {
-	if p == nil {
-		return DrainCurve{}
+// curveOf reads the plot from a plan's drain: the curve, the stop, the
+// target and the level below which gas gathers at the crest; false without
+// a drain plan.
+func curveOf(pl model.Plan) (drainCurve, bool) {
+	p := pl.Drain
+	if p == nil || len(p.Curve) == 0 {
+		return drainCurve{}, false
 	}
-	c := DrainCurve{
-		Points:     make([]CurvePoint, len(p.Curve)),
+	c := drainCurve{
+		Points:     make([]curvePoint, len(p.Curve)),
 		StopTime:   float64(p.Time),
 		StopLevel:  float64(p.StopLevel),
-		StopReason: string(p.StopReason),
-		HasTarget:  hasTarget,
-		Target:     target,
+		StopReason: p.StopReason,
 		// Below this level the lift exceeds the working crest height.
 		HasGasLevel: p.WorkingLimitFound,
 		GasLevel:    float64(p.WorkingLimitLevel),
 	}
-	for i, q := range p.Curve {
-		c.Points[i] = CurvePoint{T: float64(q.Time), Level: float64(q.Level), Flow: float64(q.Flow)}
+	if t := float64(pl.DrainIn.Target); t > 1e-6 {
+		c.HasTarget, c.Target = true, t
 	}
-	return c
+	for i, q := range p.Curve {
+		c.Points[i] = curvePoint{T: float64(q.Time), Level: float64(q.Level), Flow: float64(q.Flow)}
+	}
+	return c, true
 }

@@ -8,7 +8,9 @@ import (
 
 	"github.com/charmbracelet/x/ansi"
 
+	"drawdown/calc"
 	"drawdown/model"
+	"drawdown/model/present"
 	"drawdown/presets"
 )
 
@@ -16,15 +18,15 @@ import (
 // siphon whose flow goes as the square root of the head (fixed friction
 // factor): dh/dt = −k√(h−ho)/A, so h(t) = ho + (√(h0−ho) − k·t/(2A))²
 // (analytic solution, the Torricelli form). It stops at hStop.
-func cvTorricelli(h0, ho, hStop, area, k float64, n int) DrainCurve {
+func cvTorricelli(h0, ho, hStop, area, k float64, n int) drainCurve {
 	tStop := 2 * area / k * (math.Sqrt(h0-ho) - math.Sqrt(hStop-ho))
-	pts := make([]CurvePoint, n)
+	pts := make([]curvePoint, n)
 	for i := range pts {
 		t := tStop * float64(i) / float64(n-1)
 		r := math.Sqrt(h0-ho) - k*t/(2*area)
-		pts[i] = CurvePoint{T: t, Level: ho + r*r, Flow: k * r}
+		pts[i] = curvePoint{T: t, Level: ho + r*r, Flow: k * r}
 	}
-	return DrainCurve{Points: pts, StopTime: tStop, StopLevel: pts[n-1].Level}
+	return drainCurve{Points: pts, StopTime: tStop, StopLevel: pts[n-1].Level}
 }
 
 func TestCurveView(t *testing.T) {
@@ -48,7 +50,7 @@ func TestCurveView(t *testing.T) {
 	short.StopReason = "crest"
 	cases := []struct {
 		name string
-		c    DrainCurve
+		c    drainCurve
 		set  bool
 		sys  model.System
 	}{
@@ -57,16 +59,16 @@ func TestCurveView(t *testing.T) {
 		{"gas_level", gas, true, model.SI},
 		{"equal_hours", equal, true, model.SI},
 		{"short_seconds", short, true, model.SI},
-		{"empty", DrainCurve{}, false, model.SI},
-		{"one_point", DrainCurve{Points: []CurvePoint{{0, 1.2, 0}}, StopLevel: 1.2, StopReason: "intake"}, true, model.SI},
+		{"empty", drainCurve{}, false, model.SI},
+		{"one_point", drainCurve{Points: []curvePoint{{0, 1.2, 0}}, StopLevel: 1.2, StopReason: "intake"}, true, model.SI},
 	}
 	for _, c := range cases {
 		for _, s := range paneSizes {
 			t.Run(c.name+"/"+s.name, func(t *testing.T) {
-				v := NewCurveView(PlainDrawStyles(), c.sys)
+				v := NewCurveView(NewStyles(true), c.sys)
 				v.SetSize(s.w, s.h)
 				if c.set {
-					v.SetCurve(c.c)
+					v.setCurve(c.c)
 				}
 				paneGolden(t, v.View(), s.w, s.h)
 				if testing.Verbose() && s.w > 20 {
@@ -78,14 +80,14 @@ func TestCurveView(t *testing.T) {
 }
 
 func TestCurveViewMessages(t *testing.T) {
-	v := NewCurveView(PlainDrawStyles(), model.SI)
+	v := NewCurveView(NewStyles(true), model.SI)
 	v.SetSize(78, 10)
 	if got := ansi.Strip(v.View()); !strings.Contains(got, "No drain plan: set a tank in the Tank pane") {
 		t.Errorf("empty curve: %q", got)
 	}
 	c := cvTorricelli(2.0, -0.6, 0.35, 2.54, 0.00143, 60)
 	c.StopReason = "intake"
-	v.SetCurve(c)
+	v.setCurve(c)
 	got := ansi.Strip(v.View())
 	for _, want := range []string{"intake draws air", "■", "min", "m ┤"} {
 		if !strings.Contains(got, want) {
@@ -107,17 +109,17 @@ func TestCurveViewNeverBreaks(t *testing.T) {
 	}
 	for i := 0; i < 2000; i++ {
 		n := rng.IntN(12)
-		c := DrainCurve{StopTime: pick(1e5), StopLevel: pick(5), StopReason: []string{"", "target", "intake", "crest", "equal", "odd"}[rng.IntN(6)],
+		c := drainCurve{StopTime: pick(1e5), StopLevel: pick(5), StopReason: []calc.StopReason{"", "target", "intake", "crest", "equal", "odd"}[rng.IntN(6)],
 			HasTarget: rng.IntN(2) == 0, Target: pick(5), HasGasLevel: rng.IntN(2) == 0, GasLevel: pick(5)}
 		tt := 0.0
 		for j := 0; j < n; j++ {
 			tt += pick(1e4)
-			c.Points = append(c.Points, CurvePoint{T: tt, Level: pick(5), Flow: pick(0.05) - 0.01})
+			c.Points = append(c.Points, curvePoint{T: tt, Level: pick(5), Flow: pick(0.05) - 0.01})
 		}
 		w, h := rng.IntN(130)-2, rng.IntN(45)-2
-		v := NewCurveView(PlainDrawStyles(), model.System(rng.IntN(2)))
+		v := NewCurveView(NewStyles(true), model.System(rng.IntN(2)))
 		v.SetSize(w, h)
-		v.SetCurve(c)
+		v.setCurve(c)
 		paneCheckFrame(t, ansi.Strip(v.View()), max(w, 0), max(h, 0))
 		if t.Failed() {
 			t.Fatalf("curve %+v at %d×%d", c, w, h)
@@ -133,41 +135,42 @@ func BenchmarkCurveViewSetCurveView(b *testing.B) {
 		w, h int
 	}{{"44x21", 44, 21}, {"120x17", 120, 17}} {
 		b.Run(s.name, func(b *testing.B) {
-			v := NewCurveView(NewDrawStyles(NewStyles(true)), model.SI)
+			v := NewCurveView(NewStyles(true), model.SI)
 			v.SetSize(s.w, s.h)
 			c := cvTorricelli(2.0, -0.6, 0.35, 2.54, 0.00143, 200)
 			c.StopReason = "intake"
 			b.ReportAllocs()
 			for b.Loop() {
-				v.SetCurve(c)
+				v.setCurve(c)
 				paneSink = v.View()
 			}
 		})
 	}
 }
 
-// The demo job's drain plan through CurveFromPlan: the title states the
-// plan's own stop time and reason (formatting only; the drain itself is
-// checked in calc against its analytic cases).
-func TestCurveFromPlanDemo(t *testing.T) {
+// The demo job's drain plan through the shipped path (curveOf, as Show
+// calls it): the title states the plan's own stop time and reason
+// (formatting only; the drain itself is checked in calc against its
+// analytic cases). A plan without a drain gives no curve.
+func TestCurveOfDemo(t *testing.T) {
 	p := model.Compute(model.DemoJob(), presets.Builtin())
 	if p.Drain == nil {
-		t.Skip("the demo job has no drain plan")
+		t.Fatal("the demo job has no drain plan")
 	}
-	c := CurveFromPlan(p.Drain, float64(p.DrainIn.Target), p.DrainIn.Target > 0)
-	if len(c.Points) != len(p.Drain.Curve) || c.StopReason != string(p.Drain.StopReason) {
+	c, ok := curveOf(p)
+	if !ok || len(c.Points) != len(p.Drain.Curve) || c.StopReason != p.Drain.StopReason {
 		t.Fatalf("curve %d points, reason %q", len(c.Points), c.StopReason)
 	}
-	v := NewCurveView(PlainDrawStyles(), model.SI)
+	v := NewCurveView(NewStyles(true), model.SI)
 	v.SetSize(118, 22)
-	v.SetCurve(c)
+	v.setCurve(c)
 	got := ansi.Strip(v.View())
 	paneCheckFrame(t, got, 118, 22)
 	want := "stops after " + model.Format(model.DimTime, float64(p.Drain.Time), model.SI)
-	if !strings.Contains(got, want) || !strings.Contains(got, stopReasonText(c.StopReason)) {
+	if !strings.Contains(got, want) || !strings.Contains(got, present.StopShort(c.StopReason)) {
 		t.Errorf("title lacks %q / reason:\n%s", want, got)
 	}
-	if CurveFromPlan(nil, 0, false).Points != nil {
-		t.Error("nil plan gave points")
+	if _, ok := curveOf(model.Plan{}); ok {
+		t.Error("a plan without a drain gave a curve")
 	}
 }

@@ -1,10 +1,8 @@
 package tui
 
 import (
-	"errors"
 	"strconv"
 	"strings"
-	"unicode/utf8"
 
 	"charm.land/bubbles/v2/key"
 	"charm.land/bubbles/v2/textinput"
@@ -12,6 +10,7 @@ import (
 	"github.com/charmbracelet/x/ansi"
 
 	"drawdown/model"
+	"drawdown/model/present"
 	"drawdown/presets"
 )
 
@@ -176,7 +175,7 @@ func (f *FormPane) SetJob(j *model.Job, errs map[model.FieldID]error) {
 		}
 		ff.errText = ""
 		if err := errs[ff.spec.ID]; err != nil && ff.used {
-			ff.errText = fieldMessage(ff.spec, err)
+			ff.errText = present.FieldProblem(ff.spec, err)
 		}
 		if !ff.described || ff.descRaw != ff.raw || ff.descSys != f.sys {
 			ff.shown = ff.describe(f.sys)
@@ -191,20 +190,6 @@ func (f *FormPane) SetJob(j *model.Job, errs map[model.FieldID]error) {
 	}
 	// The rows are drawn when the form is on screen (the root calls
 	// renderRows for the visible form), not for all four on each keystroke.
-}
-
-// fieldMessage is the text under an invalid field: the model's field error
-// already names the field and the accepted range.
-func fieldMessage(spec model.FieldSpec, err error) string {
-	var fe *model.FieldError
-	if errors.As(err, &fe) {
-		return fe.Error()
-	}
-	msg := err.Error()
-	if !strings.HasPrefix(strings.ToLower(msg), strings.ToLower(spec.Label)) {
-		msg = spec.Label + ": " + msg
-	}
-	return msg
 }
 
 // describe is the value as read, shown beside the raw text.
@@ -552,7 +537,7 @@ func (f *FormPane) pickerKey(km tea.KeyPressMsg) *FieldEdit {
 
 // CursorPos is the real terminal cursor for the field being typed in,
 // relative to the pane's top-left corner, or nil.
-func (f FormPane) CursorPos() *tea.Cursor {
+func (f *FormPane) CursorPos() *tea.Cursor {
 	if !f.editing || len(f.fields) == 0 {
 		return nil
 	}
@@ -822,99 +807,29 @@ func (f FormPane) View() string {
 	return fitBlock(out, f.w, f.h)
 }
 
-// ShortHelp and FullHelp list the form's keys for the help widget.
-func (f FormPane) ShortHelp() []key.Binding {
-	return f.keys.shortHelp(f.editing, f.SelectedIsPicker(), true)
-}
+// ShortHelp lists the form's keys that work now.
+func (f *FormPane) ShortHelp() []key.Binding { return f.keys.formHelp(f.editing, f.SelectedIsPicker()) }
 
-// FullHelp lists all keys.
-func (f FormPane) FullHelp() [][]key.Binding { return f.keys.fullHelp() }
+// Focus shows the selection marker; Blur hides it (a form on screen while
+// another pane has the focus).
+func (f *FormPane) Focus() { f.SetActive(true) }
 
-// Text helpers shared by the panes in this file set.
+// Blur hides the selection marker.
+func (f *FormPane) Blur() { f.SetActive(false) }
 
-// padRight pads s with spaces to w cells (s must be plain text).
-func padRight(s string, w int) string {
-	if n := w - cellWidth(s); n > 0 {
-		return s + strings.Repeat(" ", n)
-	}
-	return s
-}
+// Typing reports whether keys go into the selected field's text.
+func (f *FormPane) Typing() bool { return f.editing && !f.SelectedIsPicker() }
 
-// wrapText wraps plain text to w cells, at most n lines (the last one cut
-// with "…" when more would follow).
-func wrapText(s string, w, n int) []string {
-	if w <= 0 || n <= 0 {
-		return nil
-	}
-	lines := strings.Split(ansi.Wordwrap(s, w, " "), "\n")
-	var out []string
-	for _, l := range lines {
-		out = append(out, strings.Split(ansi.Hardwrap(l, w, true), "\n")...)
-	}
-	if len(out) > n {
-		out = out[:n]
-		out[n-1] = ansi.Truncate(out[n-1], w-1, "") + "…"
-	}
-	return out
-}
+// Claims takes every key while typing; the root sends navigate-mode keys on
+// after its own commands.
+func (f *FormPane) Claims(tea.KeyPressMsg) bool { return f.Typing() }
 
-// cellWidth is the width of a styled line in cells. Lines on this screen
-// are made of single-width characters and SGR escapes, for which counting
-// runes outside the escapes is exact and much cheaper than grapheme
-// segmentation; anything else (wide or combining characters, other escapes)
-// goes to ansi.StringWidth.
-func cellWidth(s string) int {
-	n := 0
-	for i := 0; i < len(s); {
-		c := s[i]
-		switch {
-		case c == 0x1b:
-			if i+1 >= len(s) || s[i+1] != '[' {
-				return ansi.StringWidth(s)
-			}
-			j := i + 2
-			for j < len(s) && (s[j] < 0x40 || s[j] > 0x7e) {
-				j++
-			}
-			i = j + 1
-		case c < 0x20 || c == 0x7f:
-			return ansi.StringWidth(s)
-		case c < 0x80:
-			n++
-			i++
-		default:
-			r, size := utf8.DecodeRuneInString(s[i:])
-			if r < 0x300 || (r >= 0x2000 && r < 0x2e80 && !(r >= 0x200b && r <= 0x200f) && !(r >= 0x20d0 && r <= 0x20ff)) {
-				n++
-				i += size
-				continue
-			}
-			return ansi.StringWidth(s)
-		}
-	}
-	return n
-}
+// Key handles a key for the selected field (Update).
+func (f *FormPane) Key(msg tea.KeyPressMsg) (tea.Cmd, *FieldEdit) { return f.Update(msg) }
 
-// fitBlock pads or cuts styled lines to exactly w cells and h lines.
-func fitBlock(lines []string, w, h int) string {
-	if w <= 0 || h <= 0 {
-		return ""
-	}
-	out := make([]string, h)
-	for i := range out {
-		s := ""
-		if i < len(lines) {
-			s = lines[i]
-		}
-		sw := cellWidth(s)
-		if sw > w {
-			s = ansi.Truncate(s, w, "…")
-			sw = cellWidth(s)
-		}
-		if sw < w {
-			s += strings.Repeat(" ", w-sw)
-		}
-		out[i] = s
-	}
-	return strings.Join(out, "\n")
+// Show refreshes the rows from the job and the plan's field problems, and
+// draws them.
+func (f *FormPane) Show(st *screenState) {
+	f.SetJob(st.job, st.errs)
+	f.renderRows()
 }

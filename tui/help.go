@@ -11,9 +11,7 @@ import (
 // behaviour), how the two modes work, and the standing cautions.
 
 var helpIntro = []string{
-	"NAVIGATE: letters and digits are commands. TYPING: keys go into the field;",
-	"enter or esc when done. Units: 25mm 1in 3/4 in 40ft 15C 59F 98.2kPa 29.6inHg.",
-	"Every change is computed and saved at once.",
+	"Units as typed: 25mm 1in 3/4 in 40ft 15C 59F 98.2kPa 29.6inHg. Saved at once.",
 }
 
 var helpCautions = []string{
@@ -27,7 +25,7 @@ func (m *Model) fullHelpView(w, h int) string {
 	st := m.styles
 	lines := []string{st.fast.PaneTitle.Render("All keys") + st.fast.Muted.Render("  (esc or ? to close)")}
 	cols := m.keys.fullHelp()
-	titles := []string{"In a form", "Panes", "Anywhere"}
+	titles := fullHelpTitles
 	// Columns side by side when they fit, else one under another.
 	var blocks [][]string
 	var widths []int
@@ -36,7 +34,7 @@ func (m *Model) fullHelpView(w, h int) string {
 		b := helpColumn(st, titles[i], col)
 		cw := 0
 		for _, l := range b {
-			cw = max(cw, ansiWidth(l))
+			cw = max(cw, cellWidth(l))
 		}
 		blocks = append(blocks, b)
 		widths = append(widths, cw+2)
@@ -54,7 +52,7 @@ func (m *Model) fullHelpView(w, h int) string {
 				if r < len(b) {
 					cell = b[r]
 				}
-				sb.WriteString(cell + strings.Repeat(" ", max(widths[i]-ansiWidth(cell), 0)))
+				sb.WriteString(cell + strings.Repeat(" ", max(widths[i]-cellWidth(cell), 0)))
 			}
 			lines = append(lines, sb.String())
 		}
@@ -63,24 +61,23 @@ func (m *Model) fullHelpView(w, h int) string {
 			lines = append(lines, b...)
 		}
 	}
-	lines = append(lines, "")
+	for _, v := range m.keys.viewHelp() {
+		lines = append(lines, viewHelpLine(st, v.name, v.keys, w))
+	}
 	for _, l := range helpIntro {
 		lines = append(lines, st.fast.Value.Render(l))
 	}
-	lines = append(lines, "")
 	for _, l := range helpCautions {
 		lines = append(lines, st.fast.Warning.Render(l))
 	}
 	return fitBlock(lines, w, h)
 }
 
-func ansiWidth(s string) int { return ansi.StringWidth(s) }
-
 func helpColumn(st Styles, title string, bs []key.Binding) []string {
 	out := []string{st.fast.Title.Render(title)}
 	kw := 0
 	for _, b := range bs {
-		kw = max(kw, ansiWidth(b.Help().Key))
+		kw = max(kw, cellWidth(b.Help().Key))
 	}
 	for _, b := range bs {
 		if !b.Enabled() {
@@ -129,4 +126,15 @@ func shortHelpLine(st Styles, bs []key.Binding, w int) string {
 		b.WriteString(strings.Repeat(" ", w-used))
 	}
 	return b.String()
+}
+
+// viewHelpLine is one view's own keys on one line: "Checklist: d/enter done ·
+// s skip (reason) · …", cut to w cells.
+func viewHelpLine(st Styles, name string, bs []key.Binding, w int) string {
+	var parts []string
+	for _, b := range bs {
+		h := b.Help()
+		parts = append(parts, st.fast.HelpKey.Render(h.Key)+" "+st.fast.HelpDesc.Render(h.Desc))
+	}
+	return clip(st.fast.Title.Render(name+": ")+strings.Join(parts, st.fast.HelpSep.Render(" · ")), w)
 }

@@ -1,16 +1,22 @@
 package tui
 
-import "charm.land/bubbles/v2/key"
+import (
+	"strconv"
 
-// KeyMap is every key the screens answer to, with its help text. The help
-// line and the full help screen are generated from it, so help cannot drift
-// from behaviour. Keys are chosen for gloves: single letters and digits in
-// navigate mode; a few ctrl keys that also work while typing in a field.
+	"charm.land/bubbles/v2/key"
+)
+
+// KeyMap is every key the screen answers to, with its help text: the
+// root's, the forms', and each view's own (Checklist, What-if, Log, the job
+// list). The help line and the full help screen are generated from it, so
+// help cannot drift from behaviour. Keys are chosen for gloves: single
+// letters and digits in navigate mode; a few ctrl keys that also work while
+// typing in a field.
 //
 // Focus model: in a form the selected field is either being edited (typing
 // goes into it) or not (navigate mode: letters are commands). Esc leaves a
-// field; Enter, or simply typing a digit-free letter command, acts in
-// navigate mode. The top bar always says which mode is on.
+// field; Enter starts typing in navigate mode. The top bar always says which
+// mode is on.
 type KeyMap struct {
 	// Anywhere, also while typing.
 	NextField key.Binding
@@ -41,14 +47,46 @@ type KeyMap struct {
 	Open     key.Binding // o
 	PrevPane key.Binding // [
 	NextPane key.Binding // ]
-	Panes    key.Binding // 1-9 (help entry only)
+	Panes    key.Binding // the pane keys as one help entry
+	// PaneKeys select the panes, in the order of paneTable.
+	PaneKeys []key.Binding
 
 	// Log pane.
 	AddReading  key.Binding // r: type a level reading
 	WriteRecord key.Binding // w: write the job record and readings CSV
-	PaneKeys    [9]key.Binding
-	PaneNames   [9]string
+	ScrollUp    key.Binding // ↑: older entries
+	ScrollDown  key.Binding // ↓: newer entries
+
+	Checklist ChecklistKeys
+	WhatIf    WhatIfKeys
+	Jobs      JobListKeys
 }
+
+// ChecklistKeys are the Checklist pane's keys.
+type ChecklistKeys struct {
+	Up, Down   key.Binding
+	Done       key.Binding // d or enter
+	Skip       key.Binding // s: asks for a reason
+	NotApplies key.Binding // x: not applicable
+	Reopen     key.Binding // backspace: back to "to do"
+	Note       key.Binding // n: add or change the note
+	Submit     key.Binding // enter while typing
+	Cancel     key.Binding // esc while typing
+}
+
+// WhatIfKeys are the What-if pane's keys.
+type WhatIfKeys struct {
+	Up, Down, Left, Right, Adopt key.Binding
+}
+
+// JobListKeys are the keys of the open-job overlay.
+type JobListKeys struct {
+	Open, Demo, Back key.Binding
+}
+
+// paneKeyNames are the keys that select panes, in tab order: the digits,
+// then 0. A table with more panes than keys leaves the rest to [ and ].
+var paneKeyNames = []string{"1", "2", "3", "4", "5", "6", "7", "8", "9", "0"}
 
 // DefaultKeyMap returns the key map drawdown ships with.
 func DefaultKeyMap() KeyMap {
@@ -79,42 +117,118 @@ func DefaultKeyMap() KeyMap {
 		Open:     key.NewBinding(key.WithKeys("o"), key.WithHelp("o", "open a job")),
 		PrevPane: key.NewBinding(key.WithKeys("["), key.WithHelp("[", "prev pane")),
 		NextPane: key.NewBinding(key.WithKeys("]"), key.WithHelp("]", "next pane")),
-		Panes:    key.NewBinding(key.WithKeys("1", "2", "3", "4", "5", "6", "7", "8", "9"), key.WithHelp("1-9", "pane")),
+
+		AddReading:  key.NewBinding(key.WithKeys("r"), key.WithHelp("r", "level reading")),
+		WriteRecord: key.NewBinding(key.WithKeys("w"), key.WithHelp("w", "job record")),
+		ScrollUp:    key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "older")),
+		ScrollDown:  key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "newer")),
+
+		Checklist: ChecklistKeys{
+			Up:         key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "prev step")),
+			Down:       key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "next step")),
+			Done:       key.NewBinding(key.WithKeys("d", "enter"), key.WithHelp("d/enter", "done")),
+			Skip:       key.NewBinding(key.WithKeys("s"), key.WithHelp("s", "skip (reason)")),
+			NotApplies: key.NewBinding(key.WithKeys("x"), key.WithHelp("x", "not applicable")),
+			Reopen:     key.NewBinding(key.WithKeys("backspace"), key.WithHelp("⌫", "back to to-do")),
+			Note:       key.NewBinding(key.WithKeys("n"), key.WithHelp("n", "note")),
+			Submit:     key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "save")),
+			Cancel:     key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "cancel")),
+		},
+		WhatIf: WhatIfKeys{
+			Up:    key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "shorter hose")),
+			Down:  key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "longer hose")),
+			Left:  key.NewBinding(key.WithKeys("left", "h"), key.WithHelp("←/h", "smaller bore")),
+			Right: key.NewBinding(key.WithKeys("right", "l"), key.WithHelp("→/l", "larger bore")),
+			Adopt: key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "use this hose")),
+		},
+		Jobs: JobListKeys{
+			Open: key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "open")),
+			Demo: key.NewBinding(key.WithKeys("d"), key.WithHelp("d", "new demo job")),
+			Back: key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "back")),
+		},
 	}
-	k.AddReading = key.NewBinding(key.WithKeys("r"), key.WithHelp("r", "level reading (in 9)"))
-	k.WriteRecord = key.NewBinding(key.WithKeys("w"), key.WithHelp("w", "job record (in 9)"))
-	k.PaneNames = [9]string{"Hose", "Lift & outlet", "Liquid & site", "Tank", "Side view",
-		"Drain curve", "What-if", "Checklist", "Log"}
-	for i := range k.PaneKeys {
-		d := string(rune('1' + i))
-		k.PaneKeys[i] = key.NewBinding(key.WithKeys(d), key.WithHelp(d, k.PaneNames[i]))
+	n := min(int(paneCount), len(paneKeyNames))
+	k.PaneKeys = make([]key.Binding, n)
+	for i := range n {
+		d := paneKeyNames[i]
+		k.PaneKeys[i] = key.NewBinding(key.WithKeys(d), key.WithHelp(d, paneTable[i].name))
 	}
+	k.Panes = key.NewBinding(key.WithKeys(paneKeyNames[:n]...),
+		key.WithHelp(paneKeyNames[0]+"-"+paneKeyNames[n-1], "pane"))
 	return k
 }
 
-// shortHelp is the one-line help for the present state. Only keys that do
-// something now are listed.
-func (k KeyMap) shortHelp(editing, picker, form bool) []key.Binding {
-	// Most needed first: the line is cut at the right on a narrow screen.
+// formHelp is the one-line help in a form. Only keys that do something now
+// are listed, most needed first: the line is cut at the right on a narrow
+// screen.
+func (k KeyMap) formHelp(editing, picker bool) []key.Binding {
 	switch {
 	case picker:
 		return []key.Binding{k.Next, k.Prev, k.UpDown, k.Panes, k.Help, k.QuitNav, k.Units}
 	case editing:
 		return []key.Binding{k.Done, k.Leave, k.NextField, k.Quit, k.UnitsAny, k.Restore}
-	case form:
-		return []key.Binding{k.Edit, k.UpDown, k.Panes, k.Help, k.QuitNav, k.Units, k.Open}
 	}
-	return []key.Binding{k.Panes, k.Help, k.QuitNav, k.Units, k.Open, k.Save}
+	return []key.Binding{k.Edit, k.UpDown, k.Panes, k.Help, k.QuitNav, k.Units, k.Open}
+}
+
+// navHelp is the root's navigate-mode commands for the help line of a view,
+// without those whose key the view's own keys take (in the Checklist, s is
+// "skip", not "save").
+func (k KeyMap) navHelp(own []key.Binding) []key.Binding {
+	taken := map[string]bool{}
+	for _, b := range own {
+		for _, s := range b.Keys() {
+			taken[s] = true
+		}
+	}
+	var out []key.Binding
+	for _, b := range []key.Binding{k.Panes, k.Help, k.QuitNav, k.Units, k.Open, k.Save} {
+		free := true
+		for _, s := range b.Keys() {
+			free = free && !taken[s]
+		}
+		if free {
+			out = append(out, b)
+		}
+	}
+	return out
 }
 
 // fullHelp is the full help screen, in columns.
 func (k KeyMap) fullHelp() [][]key.Binding {
 	panes := make([]key.Binding, 0, len(k.PaneKeys)+2)
-	panes = append(panes, k.PaneKeys[:]...)
+	panes = append(panes, k.PaneKeys...)
 	panes = append(panes, k.PrevPane, k.NextPane)
 	return [][]key.Binding{
 		{k.NextField, k.PrevField, k.Up, k.Down, k.Edit, k.Leave, k.Prev, k.Next, k.Toggle, k.Restore},
 		panes,
-		{k.QuitNav, k.Units, k.Save, k.Open, k.Help, k.Quit, k.SaveNow, k.UnitsAny, k.AddReading, k.WriteRecord},
+		{k.QuitNav, k.Units, k.Save, k.Open, k.Help, k.Quit, k.SaveNow, k.UnitsAny},
 	}
+}
+
+// fullHelpTitles head the columns of fullHelp.
+var fullHelpTitles = []string{"In a form", "Panes", "Anywhere"}
+
+// viewKeys are one view's own keys for the full help screen.
+type viewKeys struct {
+	name string
+	keys []key.Binding
+}
+
+// viewHelp lists the keys each view answers besides the root's.
+func (k KeyMap) viewHelp() []viewKeys {
+	c, w := k.Checklist, k.WhatIf
+	return []viewKeys{
+		{paneTable[PaneChecklist].name, []key.Binding{c.Done, c.Skip, c.NotApplies, c.Note, c.Reopen}},
+		{paneTable[PaneWhatIf].name, []key.Binding{w.Up, w.Down, w.Left, w.Right, w.Adopt}},
+		{paneTable[PaneLog].name, []key.Binding{k.AddReading, k.WriteRecord, k.ScrollUp, k.ScrollDown}},
+	}
+}
+
+// paneKeyName is the key that selects pane p ("" past the pane keys).
+func (k KeyMap) paneKeyName(p PaneID) string {
+	if int(p) < len(k.PaneKeys) {
+		return k.PaneKeys[p].Help().Key
+	}
+	return strconv.Itoa(int(p) + 1)
 }

@@ -76,7 +76,29 @@ func (l *LogPane) ReadingTaken() {
 }
 
 // Typing reports whether keys go into the reading input.
-func (l LogPane) Typing() bool { return l.typing }
+func (l *LogPane) Typing() bool { return l.typing }
+
+// Focus and Blur: the pane's keys work only while it has the focus, which
+// the root decides; nothing changes in the pane itself.
+func (l *LogPane) Focus() {}
+
+// Blur is Focus's pair.
+func (l *LogPane) Blur() {}
+
+// Claims takes the pane's own keys, and every key while typing a reading.
+func (l *LogPane) Claims(msg tea.KeyPressMsg) bool {
+	return l.typing || key.Matches(msg, l.ShortHelp()...)
+}
+
+// Key handles a key with the pane focused.
+func (l *LogPane) Key(msg tea.KeyPressMsg) (tea.Cmd, *FieldEdit) {
+	var cmd tea.Cmd
+	*l, cmd = l.Update(msg)
+	return cmd, nil
+}
+
+// Show gives the pane the job's log.
+func (l *LogPane) Show(st *screenState) { l.SetEntries(st.job.Log) }
 
 // Update scrolls with up/down, opens the reading input with r, and asks for
 // the record with w.
@@ -112,11 +134,11 @@ func (l LogPane) Update(msg tea.Msg) (LogPane, tea.Cmd) {
 		return l, l.input.Focus()
 	case key.Matches(km, l.keys.WriteRecord):
 		return l, func() tea.Msg { return RecordWriteMsg{} }
-	case key.Matches(km, l.keys.Up):
+	case key.Matches(km, l.keys.ScrollUp):
 		if l.scroll < len(l.entries)-1 {
 			l.scroll++
 		}
-	case key.Matches(km, l.keys.Down):
+	case key.Matches(km, l.keys.ScrollDown):
 		if l.scroll > 0 {
 			l.scroll--
 		}
@@ -139,7 +161,7 @@ func (l LogPane) footLines() []string {
 
 // CursorPos is the terminal cursor in the reading input, relative to the
 // pane's top-left corner, or nil when not typing.
-func (l LogPane) CursorPos() *tea.Cursor {
+func (l *LogPane) CursorPos() *tea.Cursor {
 	if !l.typing || l.w <= 0 || l.h <= 0 {
 		return nil
 	}
@@ -207,5 +229,5 @@ func (l LogPane) ShortHelp() []key.Binding {
 	if l.typing {
 		return []key.Binding{l.keys.Done, l.keys.Leave}
 	}
-	return []key.Binding{l.keys.AddReading, l.keys.WriteRecord, l.keys.Up, l.keys.Down}
+	return []key.Binding{l.keys.AddReading, l.keys.WriteRecord, l.keys.ScrollUp, l.keys.ScrollDown}
 }

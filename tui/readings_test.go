@@ -106,8 +106,7 @@ func TestCloseOut(t *testing.T) {
 // Choosing a catalogue tank in the Tank pane fills its shape and sizes.
 func TestTankPresetPicker(t *testing.T) {
 	m := newTestModel(t, 80, 24)
-	next, _ := m.applyEdit(FieldEdit{ID: model.FieldTankPreset, Text: "drum-208"}, nil)
-	m = next.(*Model)
+	m.applyEdit(FieldEdit{ID: model.FieldTankPreset, Text: "drum-208"})
 	tp, _ := m.cat.Tank("drum-208")
 	if m.job.Inputs[model.FieldTankShape] != tp.Shape || m.job.Inputs[model.FieldTankDiameter] == "" {
 		t.Errorf("preset not applied: %v", m.job.Inputs)

@@ -1,81 +1,28 @@
 package tui
 
 import (
-	"math"
-
-	"charm.land/lipgloss/v2"
-	"strconv"
 	"strings"
 
-	"drawdown/calc"
-	"drawdown/model"
+	"charm.land/lipgloss/v2"
+
+	"drawdown/model/present"
 )
-
-// ResultData is what the Result pane shows, taken from the last good plan
-// of model.Compute (see planToResult in app.go). All values are SI and
-// finite; the pane only formats them.
-type ResultData struct {
-	Valid bool // a plan exists at all
-
-	// Stale: the inputs have an error; the figures are from the last valid
-	// inputs. StaleField names the first invalid field.
-	Stale      bool
-	StaleField string
-
-	Verdict calc.Verdict
-	Why     string // short reason for WILL NOT RUN / NEAR LIMIT
-
-	Flow, FlowLow, FlowHigh float64 // m³/s, all hoses
-	HasBand                 bool
-	Hoses                   int
-	Velocity                float64 // m/s
-	Regime                  string
-	Reynolds                float64
-	Friction                float64 // Darcy f
-	Head                    float64 // driving head, m
-	CrestPressure           float64 // absolute, while flowing, Pa
-	// Notes are the assumptions the plan made (model.Plan.Notes), shown
-	// when the pane has room.
-	Notes []string
-
-	HasDrain           bool
-	Time               float64 // s to the stop
-	TimeLow, TimeHigh  float64 // s
-	StopReason         string  // target, intake, crest, equal
-	StopLevel          float64 // m above the floor
-	Residual           float64 // m³ left in the tank
-	Volume             float64 // m³ moved
-	CrestLimitLevel    float64 // m; level at which the crest limit is reached
-	HasCrestLimitLevel bool
-
-	Lift                                 float64 // m, crest above the surface
-	MaxCrest, FlowingLimit, WorkingLimit float64 // m above the surface
-	Margin                               float64 // working limit − lift, m
-
-	PrimingVolume float64 // m³
-	Strokes       int     // hand-pump strokes, 0 when no stroke volume
-	Warnings      []WarnLine
-	// Hazards are short words for the liquid's hazards ("flammable",
-	// "inspect before release"); the caution line points to the Checklist.
-	Hazards []string
-}
-
-// WarnLine is one warning as the Result pane shows it.
-type WarnLine struct {
-	Status Status
-	Text   string
-}
 
 // ResultPane shows the answer first: the verdict as a word and a symbol,
 // then flow, velocity and regime, time to the stop and why, the crest
-// against its three limits with the margin, warnings and priming.
+// against its three limits with the margin, warnings and priming. Every
+// word and figure comes from the plan's present.Sheet; the pane only lays
+// them out.
 type ResultPane struct {
-	data   ResultData
-	sys    model.System
-	w, h   int
-	styles Styles
-	lines  []string // rendered on every change
-	frame  string   // the framed pane, rendered on every change; View returns it
+	sheet present.Sheet
+	// stale: the inputs have an error; the sheet is the last valid one.
+	// problem names the first invalid field.
+	stale   bool
+	problem string
+	w, h    int
+	styles  Styles
+	lines   []string // rendered on every change
+	frame   string   // the framed pane, rendered on every change; View returns it
 }
 
 // NewResultPane returns an empty Result pane.
@@ -87,136 +34,107 @@ func (r *ResultPane) SetSize(w, h int) { r.w, r.h = max(w, 0), max(h, 0); r.rend
 // SetStyles replaces the styles.
 func (r *ResultPane) SetStyles(st Styles) { r.styles = st; r.render() }
 
-// SetData gives the pane a new result in the unit system sys.
-func (r *ResultPane) SetData(d ResultData, sys model.System) {
-	r.data, r.sys = d, sys
+// SetSheet gives the pane the sheet of the last valid plan; stale marks it
+// as kept while problem (the first invalid field) blocks a new one.
+func (r *ResultPane) SetSheet(s present.Sheet, stale bool, problem string) {
+	r.sheet, r.stale, r.problem = s, stale, problem
 	r.render()
 }
 
-// Data returns what the pane shows (for tests).
-func (r ResultPane) Data() ResultData { return r.data }
+// Sheet returns what the pane shows (for tests).
+func (r ResultPane) Sheet() present.Sheet { return r.sheet }
 
-// verdictText is the verdict as a word with its symbol and status.
-func verdictText(v calc.Verdict) (string, Status) {
-	switch v {
-	case calc.Runs:
-		return "RUNS", StatusOK
-	case calc.RunsNearLimit:
-		return "RUNS — NEAR LIMIT", StatusWarn
-	case calc.WillNotRun:
-		return "WILL NOT RUN", StatusBad
-	}
-	return "UNKNOWN", StatusWarn
-}
+// Stale reports whether the pane shows the last valid plan while an input
+// is invalid.
+func (r ResultPane) Stale() bool { return r.stale }
 
 func (r *ResultPane) render() {
 	r.lines = r.content()
 	r.frame = r.framed()
 }
 
+// labelW is the width of the label column.
+const labelW = 9
+
 func (r *ResultPane) content() []string {
 	st := r.styles
-	d := r.data
+	s := r.sheet
 	iw := max(r.w-4, 8) // inside the border and one space each side
-	f := func(dim model.Dim, v float64) string { return model.Format(dim, finite(v), r.sys) }
 	var ls []string
-	add := func(s string) { ls = append(ls, s) }
+	add := func(line string) { ls = append(ls, line) }
 	row := func(label, value string) {
-		add(st.fast.Muted.Render(padRight(label, 9)) + st.fast.Value.Render(value))
+		add(st.fast.Muted.Render(padRight(label, labelW)) + st.fast.Value.Render(value))
 	}
-	if !d.Valid {
+	if !s.Valid {
 		add(st.fast.Warning.Render("? NO RESULT YET"))
-		for _, l := range wrapText("Fix the field marked ✗ on the left: "+d.StaleField, iw, 3) {
+		for _, l := range wrapText("Fix the field marked ✗ on the left: "+r.problem, iw, 3) {
 			add(st.fast.Warning.Render(l))
 		}
 		return ls
 	}
-	word, status := verdictText(d.Verdict)
-	if d.Stale {
+	v := s.Verdict
+	word := v.Word
+	if r.stale {
 		word += " (last valid)"
 	}
-	add(st.fastStyle(status).Render(status.Symbol() + " " + word))
-	if d.Why != "" && d.Verdict != calc.Runs {
-		for _, l := range wrapText(d.Why, iw-2, 2) {
-			add(st.fastStyle(status).Render("  " + l))
+	vp := st.fastStyle(v.Status)
+	add(vp.Render(v.Status.Symbol() + " " + word))
+	if v.Reason != "" {
+		for _, l := range wrapText(v.Reason, iw-2, 2) {
+			add(vp.Render("  " + l))
 		}
 	}
-	if d.Verdict != calc.WillNotRun {
-		flow := f(model.DimFlow, d.Flow)
-		if d.Hoses > 1 {
-			flow += " (" + strconv.Itoa(d.Hoses) + " hoses)"
+	if s.Runs {
+		add(st.fast.Muted.Render(padRight("Flow", labelW)) + st.fast.Big.Render(s.Flow))
+		if s.FlowRange != "" {
+			row("  range", s.FlowRange)
 		}
-		add(st.fast.Muted.Render(padRight("Flow", 9)) + st.fast.Big.Render(flow))
-		if d.HasBand {
-			row("  range", rangeText(f(model.DimFlow, d.FlowLow), f(model.DimFlow, d.FlowHigh)))
-		}
-		row("Speed", speedText(r.sys, d.Velocity)+", "+d.Regime)
+		row("Speed", s.Speed)
 	}
-	if d.HasDrain && d.Verdict != calc.WillNotRun {
-		if d.Time < 0.5 {
+	if d := s.Drain; d != nil {
+		if d.AtOnce {
 			row("Stops", "at once: nothing to drain")
 		} else {
-			row("Stops in", model.FormatDuration(d.Time))
+			row("Stops in", d.Time)
 		}
-		if d.TimeHigh > 0 && d.TimeLow > 0 && math.Abs(d.TimeHigh-d.TimeLow) > 1 {
-			row("  range", rangeText(model.FormatDuration(d.TimeLow), model.FormatDuration(d.TimeHigh)))
+		if d.TimeRange != "" {
+			row("  range", d.TimeRange)
 		}
-		row("", stopReasonText(d.StopReason))
-		row("", "at "+f(model.DimLength, d.StopLevel)+", "+f(model.DimVolume, d.Residual)+" left")
+		row("", d.StopShort)
+		row("", "at "+d.StopLevel+", "+d.Residual+" left")
 	}
-	row("Crest", "lift "+f(model.DimLength, d.Lift))
-	lim := func(label string, v float64) {
-		add(st.fast.Muted.Render("  "+padRight(label, 17)) + st.fast.Value.Render(f(model.DimLength, v)))
+	c := s.Crest
+	row("Crest", "lift "+c.Lift)
+	lim := func(label, value string) {
+		add(st.fast.Muted.Render("  "+padRight(label, 17)) + st.fast.Value.Render(value))
 	}
-	lim("limit, no flow", d.MaxCrest)
-	if d.Verdict != calc.WillNotRun || d.FlowingLimit > 0 {
-		lim("limit, this flow", d.FlowingLimit)
+	lim("limit, no flow", c.NoFlow)
+	if c.ShowThisFlow {
+		lim("limit, this flow", c.ThisFlow)
 	}
-	lim("working limit", d.WorkingLimit)
-	mst := StatusOK
-	if d.Margin < 0 {
-		mst = StatusBad
-		if d.Lift <= d.FlowingLimit {
-			mst = StatusWarn
+	lim("working limit", c.Working)
+	add(st.fast.Muted.Render("  "+padRight("margin", 17)) + st.fastStyle(c.Status).Render(c.Margin+" "+c.Status.Symbol()))
+	row("Prime", s.Prime)
+	if s.HazardLine != "" {
+		r.line(&ls, present.Line{Status: present.Warn, Short: s.HazardLine}, iw, 3)
+	}
+	for _, w := range s.Warnings {
+		if w.Decides {
+			continue
 		}
+		r.line(&ls, w.Line, iw, 2)
 	}
-	sign := "+"
-	if d.Margin < 0 {
-		sign = "−"
-	}
-	add(st.fast.Muted.Render("  "+padRight("margin", 17)) +
-		st.fastStyle(mst).Render(sign+f(model.DimLength, math.Abs(d.Margin))+" "+mst.Symbol()))
-	prime := f(model.DimVolume, d.PrimingVolume)
-	if d.Strokes > 0 {
-		prime += ", " + strconv.Itoa(d.Strokes) + " strokes"
-	}
-	row("Prime", prime)
-	if len(d.Hazards) > 0 {
-		text := "! " + strings.Join(d.Hazards, ", ") + ": see the Checklist (8). Local codes and permits govern."
-		for i, l := range wrapText(text, iw-2, 3) {
-			if i > 0 {
-				l = "  " + l
-			}
-			add(st.fast.Warning.Render(l))
-		}
-	}
-	for _, w := range d.Warnings {
-		for i, l := range wrapText(w.Status.Symbol()+" "+w.Text, iw, 2) {
-			if i > 0 {
-				l = "  " + l
-			}
-			add(st.fastStyle(w.Status).Render(l))
-		}
+	for _, h := range s.Hints {
+		r.line(&ls, h, iw, 2)
 	}
 	// On a taller pane: the working figures and the assumptions.
-	if room := r.h - 2 - len(ls); room >= 4 && d.Verdict != calc.WillNotRun {
+	if room := r.h - 2 - len(ls); room >= 4 && s.Runs {
 		extra := []string{"",
-			st.fast.Muted.Render(padRight("Details", 9)) + st.fast.Value.Render("head "+f(model.DimLength, d.Head)),
-			st.fast.Muted.Render(padRight("", 9)) + st.fast.Value.Render("Re "+strconv.FormatFloat(finite(d.Reynolds), 'f', 0, 64)+
-				", f "+strconv.FormatFloat(finite(d.Friction), 'f', 4, 64)),
-			st.fast.Muted.Render(padRight("", 9)) + st.fast.Value.Render("crest "+f(model.DimPressure, d.CrestPressure)+" abs"),
+			st.fast.Muted.Render(padRight("Details", labelW)) + st.fast.Value.Render("head "+s.Head),
+			st.fast.Muted.Render(padRight("", labelW)) + st.fast.Value.Render("Re "+s.Reynolds+", f "+s.Friction),
+			st.fast.Muted.Render(padRight("", labelW)) + st.fast.Value.Render("crest "+s.CrestPressure),
 		}
-		for _, n := range d.Notes {
+		for _, n := range s.Notes {
 			for i, l := range wrapText(n, iw-2, 2) {
 				p := "· "
 				if i > 0 {
@@ -228,6 +146,17 @@ func (r *ResultPane) content() []string {
 		ls = append(ls, extra[:min(len(extra), room)]...)
 	}
 	return ls
+}
+
+// line adds one worded finding, its symbol first, wrapped to n lines.
+func (r *ResultPane) line(ls *[]string, l present.Line, iw, n int) {
+	p := r.styles.fastStyle(l.Status)
+	for i, t := range wrapText(l.Status.Symbol()+" "+l.Short, iw, n) {
+		if i > 0 {
+			t = "  " + t
+		}
+		*ls = append(*ls, p.Render(t))
+	}
 }
 
 // View returns the framed pane, exactly w×h cells.
@@ -247,11 +176,11 @@ func (r ResultPane) framed() string {
 	out = append(out, mute.Render(b.TopLeft+b.Top)+title+mute.Render(strings.Repeat(b.Top, rest)+b.TopRight))
 	left, right := mute.Render(b.Left), mute.Render(b.Right)
 	body := prefixAll(r.lines, " ")
-	if r.data.Stale && r.data.Valid && r.h-2 >= 4 {
+	if r.stale && r.sheet.Valid && r.h-2 >= 4 {
 		// The stale notice sits at the foot of the pane, so that the
 		// figures above it do not move when a field turns invalid.
 		foot := []string{" " + r.styles.fast.Stale.Render(" ! STALE: fix the ✗ field "),
-			" " + r.styles.fast.Warning.Render(ansiCut("✗ "+r.data.StaleField, r.w-4))}
+			" " + r.styles.fast.Warning.Render(clip("✗ "+r.problem, r.w-4))}
 		n := r.h - 2 - len(foot)
 		if len(body) > n {
 			body = body[:n]
@@ -275,63 +204,4 @@ func prefixAll(ls []string, p string) []string {
 		out[i] = p + l
 	}
 	return out
-}
-
-func finite(v float64) float64 {
-	if math.IsNaN(v) || math.IsInf(v, 0) {
-		return 0
-	}
-	return v
-}
-
-func rangeText(lo, hi string) string {
-	if lo == hi {
-		return lo
-	}
-	// Share the unit when both ends are one number and the same unit
-	// ("60.4–100 L/min", but "22 min – 1 h 36 min").
-	li, hi2 := strings.IndexByte(lo, ' '), strings.IndexByte(hi, ' ')
-	if li > 0 && hi2 > 0 && lo[li:] == hi[hi2:] && strings.Count(lo, " ") == 1 {
-		return lo[:li] + "–" + hi
-	}
-	return lo + " – " + hi
-}
-
-func trimNum(v float64, dec int) string {
-	return strconv.FormatFloat(finite(v), 'f', dec, 64)
-}
-
-// speedText shows a velocity in m/s or ft/s (velocity is not a model Dim;
-// 1 ft = 0.3048 m exactly, NIST SP 811 B.8).
-func speedText(sys model.System, v float64) string {
-	if sys == model.US {
-		return trimNum(v/0.3048, 1) + " ft/s"
-	}
-	return trimNum(v, 2) + " m/s"
-}
-
-// stopReasonText says why the drain stops.
-func stopReasonText(r string) string {
-	switch r {
-	case "target":
-		return "target level reached"
-	case "intake":
-		return "intake draws air"
-	case "crest":
-		return "crest limit reached"
-	case "equal":
-		return "levels equal, flow tapers off"
-	case "receiver_full":
-		return "receiver full"
-	case "":
-		return "end of plan"
-	}
-	return r
-}
-
-func ansiCut(s string, w int) string {
-	if len([]rune(s)) <= w {
-		return s
-	}
-	return string([]rune(s)[:max(w-1, 0)]) + "…"
 }

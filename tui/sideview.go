@@ -7,428 +7,17 @@ import (
 
 	"charm.land/bubbles/v2/key"
 	tea "charm.land/bubbletea/v2"
-	"charm.land/lipgloss/v2"
-	"github.com/charmbracelet/x/ansi"
 
+	"drawdown/calc"
 	"drawdown/model"
+	"drawdown/model/present"
 )
 
-// This file holds the Side view pane and the small drawing kit shared by the
-// drawn panes (Side view, Drain curve, What-if, Checklist): DrawStyles, the
-// unit helper drawUnits, a rune canvas and line fitting. Names carry a
-// "draw"/"sv" prefix so they cannot clash with the rest of package tui.
-
-// DrawStyles are the styles the drawn panes use, named for meaning. Build
-// them once (PlainDrawStyles, or NewDrawStyles from the screen's Styles) and
-// pass them in with SetStyles; a View never builds a style. Every meaning
-// also has a word or symbol, so the panes read the same with NO_COLOR.
-type DrawStyles struct {
-	Title    lipgloss.Style // first line of a pane
-	Text     lipgloss.Style // ordinary text and outlines
-	Muted    lipgloss.Style // scale notes, axes, n/a steps
-	Liquid   lipgloss.Style // liquid surfaces and bodies
-	Hose     lipgloss.Style // the hose route
-	Limit    lipgloss.Style // crest-limit lines, target lines
-	OK       lipgloss.Style // "✓" states
-	Warn     lipgloss.Style // "!" states
-	Danger   lipgloss.Style // "✗" states
-	Selected lipgloss.Style // the cursor (reversed: legible without colour)
-	Current  lipgloss.Style // the present choice (bold)
-	Box      lipgloss.Style // the caution box frame
-
-	paint *drawPaint // escape codes per class, made once by prepared()
-}
-
-// drawPaint holds, for each class, the escape codes its style puts before
-// and after a run of text, so that drawing a frame costs string appends
-// rather than a lipgloss render per run (measured: a render per run made a
-// Side view frame take about 0.4 ms).
-type drawPaint struct {
-	pre, post [clsCount]string
-	ok        [clsCount]bool // false: fall back to Style.Render
-}
-
-// prepared returns the styles with their escape codes worked out.
-func (s DrawStyles) prepared() DrawStyles {
-	if s.paint != nil {
-		return s
-	}
-	p := &drawPaint{}
-	for c := drawClass(0); c < clsCount; c++ {
-		r := s.style(c).Render("X")
-		i := strings.IndexByte(r, 'X')
-		if i >= 0 && strings.Count(r, "X") == 1 && ansi.Strip(r) == "X" {
-			p.pre[c], p.post[c], p.ok[c] = r[:i], r[i+1:], true
-		}
-	}
-	s.paint = p
-	return s
-}
-
-// paintRun styles one run of single-line text in class c.
-func (s *DrawStyles) paintRun(c drawClass, text string) string {
-	if text == "" {
-		return ""
-	}
-	if s.paint != nil && s.paint.ok[c] {
-		return s.paint.pre[c] + text + s.paint.post[c]
-	}
-	return s.style(c).Render(text)
-}
-
-// PlainDrawStyles uses no colour at all: bold, faint and reverse only. The
-// golden tests use it, and it is what NO_COLOR looks like.
-func PlainDrawStyles() DrawStyles {
-	p := lipgloss.NewStyle()
-	return DrawStyles{
-		Title: p.Bold(true), Text: p, Muted: p.Faint(true), Liquid: p, Hose: p.Bold(true),
-		Limit: p, OK: p.Bold(true), Warn: p.Bold(true), Danger: p.Bold(true),
-		Selected: p.Reverse(true), Current: p.Bold(true), Box: p,
-	}
-}
-
-// NewDrawStyles derives the drawn panes' styles from the screen's Styles.
-func NewDrawStyles(s Styles) DrawStyles {
-	return DrawStyles{
-		Title: s.PaneTitle, Text: s.Value, Muted: s.Muted, Liquid: s.Unit, Hose: s.Big,
-		Limit: s.Warning.Bold(false), OK: s.OK, Warn: s.Warning, Danger: s.Danger,
-		Selected: s.LabelFocused, Current: s.Big, Box: s.Warning.Bold(false),
-	}
-}
-
-// drawClass tags a canvas cell with the meaning its style comes from.
-type drawClass uint8
-
-const (
-	clsText drawClass = iota
-	clsMuted
-	clsLiquid
-	clsHose
-	clsLimit
-	clsOK
-	clsWarn
-	clsDanger
-	clsTitle
-	clsSelected
-	clsBox
-	clsCount // number of classes
-)
-
-func (s *DrawStyles) style(c drawClass) lipgloss.Style {
-	switch c {
-	case clsMuted:
-		return s.Muted
-	case clsLiquid:
-		return s.Liquid
-	case clsHose:
-		return s.Hose
-	case clsLimit:
-		return s.Limit
-	case clsOK:
-		return s.OK
-	case clsWarn:
-		return s.Warn
-	case clsDanger:
-		return s.Danger
-	case clsTitle:
-		return s.Title
-	case clsSelected:
-		return s.Selected
-	case clsBox:
-		return s.Box
-	case clsText, clsCount:
-	}
-	return s.Text
-}
-
-// drawUnits formats SI values in the job's unit system (model.Format) and
-// knows the display unit of lengths and flows for axes and scales.
-type drawUnits struct {
-	sys      model.System
-	lenName  string  // "m" or "ft"
-	lenPer   float64 // metres per display length unit
-	flowName string  // "L/min" or "gal/min"
-	flowPer  float64 // m³/s per display flow unit
-	diamName string  // "mm" or "in"
-	diamPer  float64
-}
-
-func newDrawUnits(sys model.System) drawUnits {
-	per := func(d model.Dim) (string, float64) {
-		name := model.DefaultUnit(d, sys)
-		v, err := model.Parse(d, "1 "+name, sys)
-		if err != nil || !(v > 0) {
-			return name, 1
-		}
-		return name, v
-	}
-	u := drawUnits{sys: sys}
-	u.lenName, u.lenPer = per(model.DimLength)
-	u.flowName, u.flowPer = per(model.DimFlow)
-	u.diamName, u.diamPer = per(model.DimDiameter)
-	return u
-}
-
-func (u drawUnits) length(si float64) string {
-	return model.Format(model.DimLength, drawFinite(si), u.sys)
-}
-func (u drawUnits) flow(si float64) string {
-	return model.Format(model.DimFlow, drawFinite(si), u.sys)
-}
-
-// drawFinite maps NaN and ±Inf to 0 so that nothing non-finite reaches a
-// frame.
-func drawFinite(v float64) float64 {
-	if math.IsNaN(v) || math.IsInf(v, 0) {
-		return 0
-	}
-	return v
-}
-
-// drawCell is one character cell of a canvas.
-type drawCell struct {
-	r   rune
-	cls drawClass
-}
-
-// drawCanvas is a w×h grid of single-width runes, each tagged with a class.
-// Writes outside the grid are dropped, so drawing code never needs bounds
-// checks and never panics.
-type drawCanvas struct {
-	w, h  int
-	cells []drawCell
-}
-
-func newDrawCanvas(w, h int) *drawCanvas {
-	w, h = max(w, 0), max(h, 0)
-	c := &drawCanvas{w: w, h: h, cells: make([]drawCell, w*h)}
-	for i := range c.cells {
-		c.cells[i].r = ' '
-	}
-	return c
-}
-
-func (c *drawCanvas) set(x, y int, r rune, cls drawClass) {
-	if x < 0 || y < 0 || x >= c.w || y >= c.h {
-		return
-	}
-	c.cells[y*c.w+x] = drawCell{r, cls}
-}
-
-func (c *drawCanvas) get(x, y int) rune {
-	if x < 0 || y < 0 || x >= c.w || y >= c.h {
-		return 0
-	}
-	return c.cells[y*c.w+x].r
-}
-
-// text writes s from (x, y), clipped at the right edge; it returns the
-// column after the last rune written.
-func (c *drawCanvas) text(x, y int, s string, cls drawClass) int {
-	for _, r := range s {
-		c.set(x, y, r, cls)
-		x++
-	}
-	return x
-}
-
-func (c *drawCanvas) hline(x0, x1, y int, r rune, cls drawClass) {
-	if x0 > x1 {
-		x0, x1 = x1, x0
-	}
-	for x := x0; x <= x1; x++ {
-		c.set(x, y, r, cls)
-	}
-}
-
-func (c *drawCanvas) vline(x, y0, y1 int, r rune, cls drawClass) {
-	if y0 > y1 {
-		y0, y1 = y1, y0
-	}
-	for y := y0; y <= y1; y++ {
-		c.set(x, y, r, cls)
-	}
-}
-
-// render turns the canvas into h lines of exactly w cells, styling each run
-// of equal class once. It writes straight into one builder: no string per
-// run.
-func (c *drawCanvas) render(st *DrawStyles) string {
-	var b strings.Builder
-	b.Grow(c.w*c.h*3 + c.h*16)
-	for y := 0; y < c.h; y++ {
-		if y > 0 {
-			b.WriteByte('\n')
-		}
-		row := c.cells[y*c.w : (y+1)*c.w]
-		for i := 0; i < len(row); {
-			cls := row[i].cls
-			j := i
-			blank := true
-			for j < len(row) && row[j].cls == cls {
-				if row[j].r != ' ' {
-					blank = false
-				}
-				j++
-			}
-			paint := cls != clsText && (cls == clsSelected || !blank)
-			fast := st.paint != nil && st.paint.ok[cls]
-			switch {
-			case !paint:
-				for _, cell := range row[i:j] {
-					b.WriteRune(cell.r)
-				}
-			case fast:
-				b.WriteString(st.paint.pre[cls])
-				for _, cell := range row[i:j] {
-					b.WriteRune(cell.r)
-				}
-				b.WriteString(st.paint.post[cls])
-			default:
-				rs := make([]rune, 0, j-i)
-				for _, cell := range row[i:j] {
-					rs = append(rs, cell.r)
-				}
-				b.WriteString(st.style(cls).Render(string(rs)))
-			}
-			i = j
-		}
-	}
-	return b.String()
-}
-
-// drawWidth is the cell width of plain text. Text of narrow runes only
-// (every glyph the drawn panes use: Latin, punctuation, arrows, box
-// drawing, braille, geometric shapes) is counted rune by rune; anything
-// else (escape codes, wide scripts) goes to lipgloss.Width. The fast path
-// matters: grapheme segmentation made the Checklist frame cost 0.7 ms.
-func drawWidth(s string) int {
-	n := 0
-	for _, r := range s {
-		if r < 0x20 || r >= 0x1100 && (r < 0x2000 || r >= 0x2e80) {
-			return lipgloss.Width(s)
-		}
-		n++
-	}
-	return n
-}
-
-// drawClip cuts plain text to w cells with an ellipsis.
-func drawClip(s string, w int) string {
-	if w <= 0 {
-		return ""
-	}
-	n := drawWidth(s)
-	if n <= w {
-		return s
-	}
-	if n == len([]rune(s)) { // narrow runes only
-		r := []rune(s)
-		return string(r[:w-1]) + "…"
-	}
-	return ansi.Truncate(s, w, "…")
-}
-
-// drawFit pads or cuts styled lines to exactly w cells and h lines.
-func drawFit(lines []string, w, h int) string {
-	if w <= 0 || h <= 0 {
-		return ""
-	}
-	out := make([]string, h)
-	for i := range out {
-		s := ""
-		if i < len(lines) {
-			s = lines[i]
-		}
-		if lipgloss.Width(s) > w {
-			s = ansi.Truncate(s, w, "…")
-		}
-		if pad := w - lipgloss.Width(s); pad > 0 {
-			s += strings.Repeat(" ", pad)
-		}
-		out[i] = s
-	}
-	return strings.Join(out, "\n")
-}
-
-// drawSeg is a run of one-line text in one class. A raw segment is already
-// styled (a text input's view) and carries its width.
-type drawSeg struct {
-	text  string
-	cls   drawClass
-	raw   bool
-	width int
-}
-
-// drawLine is one line of segments.
-type drawLine []drawSeg
-
-func drawPlain(text string, cls drawClass) drawLine { return drawLine{{text: text, cls: cls}} }
-
-// fit clips the line to w cells (an ellipsis marks the cut) and pads it
-// with spaces to exactly w.
-func (l drawLine) fit(w int) drawLine {
-	out := make(drawLine, 0, len(l)+1)
-	x := 0
-	for _, sg := range l {
-		if x >= w {
-			break
-		}
-		sw := sg.width
-		if !sg.raw {
-			sw = drawWidth(sg.text)
-		}
-		if x+sw > w {
-			if sg.raw {
-				sg.text = ansi.Truncate(sg.text, w-x, "…")
-			} else {
-				sg.text = drawClip(sg.text, w-x)
-			}
-			sw = w - x
-		}
-		sg.width = sw
-		out = append(out, sg)
-		x += sw
-	}
-	if x < w {
-		out = append(out, drawSeg{text: strings.Repeat(" ", w-x), width: w - x})
-	}
-	return out
-}
-
-// drawLines renders lines into exactly w×h cells.
-func (s *DrawStyles) drawLines(lines []drawLine, w, h int) string {
-	if w <= 0 || h <= 0 {
-		return ""
-	}
-	var b strings.Builder
-	for i := 0; i < h; i++ {
-		if i > 0 {
-			b.WriteByte('\n')
-		}
-		var l drawLine
-		if i < len(lines) {
-			l = lines[i]
-		}
-		for _, sg := range l.fit(w) {
-			switch {
-			case sg.raw:
-				b.WriteString(sg.text)
-			case sg.cls == clsText || sg.cls != clsSelected && strings.TrimSpace(sg.text) == "":
-				b.WriteString(sg.text)
-			default:
-				b.WriteString(s.paintRun(sg.cls, sg.text))
-			}
-		}
-	}
-	return b.String()
-}
-
-// SideGeometry is what the Side view draws: plain heights in metres on one
-// vertical datum, computed elsewhere (model.Compute) and only formatted here.
-// With a tank the datum is the tank floor (elevation 0). Without one the
-// labels count from the source surface (Level), whatever datum is used.
-type SideGeometry struct {
+// sideGeometry is the Side view's picture in metres on one vertical datum,
+// read from the plan's typed heights when the pane is shown (geometryOf),
+// with the plan's one crest status. With a tank the datum is the tank floor
+// (elevation 0); without one the labels count from the source surface.
+type sideGeometry struct {
 	Tank       bool    // a tank with known sizes; false for a pit, pond or sump
 	Shape      string  // tank shape in words for the caption, e.g. "vertical cylinder"
 	TankHeight float64 // wall height, m
@@ -445,21 +34,46 @@ type SideGeometry struct {
 	HasTarget bool
 	Target    float64 // level at which the drain is planned to stop, m
 
-	// Crest limits as heights above the source surface (lifts), m; zero or
-	// less when not known. Working keeps the gas-release allowance;
-	// Theoretical is (p_atm − p_v)/(ρg) at zero flow.
+	// Crest limits as heights above the source surface (lifts), m. Working
+	// keeps the gas-release allowance; Theoretical is (p_atm − p_v)/(ρg) at
+	// zero flow.
 	WorkingLimit, TheoreticalLimit float64
-	// FlowingLimit is the crest limit at the present flow (lift), m; zero
-	// when not known. A crest above it will not run; it is stated in words
-	// (no line is drawn: it lies just under the theoretical limit).
-	FlowingLimit float64
+
+	// CrestSays and CrestStatus are the plan's crest status (present.Crest),
+	// the same every view shows.
+	CrestStatus present.Status
+	CrestSays   []string
+}
+
+// geometryOf reads the side view's picture from a valid plan and its sheet.
+func geometryOf(p model.Plan, s present.Sheet) sideGeometry {
+	g := p.Siphon.Geometry
+	r := p.Result
+	sg := sideGeometry{
+		Level: float64(g.Surface), Intake: float64(g.Intake), Crest: float64(g.Crest), Outlet: float64(g.Outlet),
+		OutletSubmerged:  g.OutletSubmerged,
+		WorkingLimit:     float64(r.WorkingCrestHeight),
+		TheoreticalLimit: float64(r.MaxCrestHeight),
+		CrestStatus:      s.Crest.Status,
+		CrestSays:        s.Crest.Says,
+	}
+	if t := p.Tank; t != nil {
+		sg.Tank = true
+		sg.Shape = strings.ReplaceAll(t.Shape(), "-", " ")
+		sg.TankHeight = float64(t.Height())
+		sg.TankWidth = float64(calc.TankWidth(t, t.Height()))
+		if tg := float64(p.DrainIn.Target); tg > 1e-6 {
+			sg.HasTarget, sg.Target = true, tg
+		}
+	}
+	return sg.sanitize()
 }
 
 // sanitize replaces non-finite numbers with 0 and negative sizes with 0.
-func (g SideGeometry) sanitize() SideGeometry {
+func (g sideGeometry) sanitize() sideGeometry {
 	for _, p := range []*float64{&g.TankHeight, &g.TankWidth, &g.Level, &g.Intake, &g.Crest,
-		&g.Outlet, &g.Target, &g.WorkingLimit, &g.TheoreticalLimit, &g.FlowingLimit} {
-		*p = drawFinite(*p)
+		&g.Outlet, &g.Target, &g.WorkingLimit, &g.TheoreticalLimit} {
+		*p = finite(*p)
 	}
 	g.TankHeight = max(g.TankHeight, 0)
 	g.TankWidth = max(g.TankWidth, 0)
@@ -469,17 +83,6 @@ func (g SideGeometry) sanitize() SideGeometry {
 	return g
 }
 
-// crest status, decided when the geometry is set (not in View).
-type svCrest int
-
-const (
-	svCrestUnknown     svCrest = iota // no limits given
-	svCrestWithin                     // at or below the working limit
-	svCrestOverWorking                // above working, below theoretical
-	svCrestOverFlowing                // above the limit at the present flow
-	svCrestOverTheory                 // above the zero-flow theoretical limit
-)
-
 // SideView draws the siphon to scale from its heights: tank (or source pit)
 // with its level, the intake, the up-leg, the crest, the down-leg to a free
 // outlet or into a receiver, and the working and theoretical crest-limit
@@ -488,19 +91,18 @@ const (
 // are squeezed when the pane is too narrow. It has no keys of its own.
 type SideView struct {
 	w, h    int
-	geo     SideGeometry
+	geo     sideGeometry
 	has     bool
-	crest   svCrest
 	noDrop  bool
 	units   drawUnits
-	styles  DrawStyles
+	styles  Styles
 	focused bool
 	frame   string // rendered on every change; View returns it
 }
 
 // NewSideView returns an empty Side view in the given unit system.
-func NewSideView(st DrawStyles, sys model.System) SideView {
-	v := SideView{styles: st.prepared(), units: newDrawUnits(sys)}
+func NewSideView(st Styles, sys model.System) SideView {
+	v := SideView{styles: st, units: newDrawUnits(sys)}
 	v.redraw()
 	return v
 }
@@ -509,35 +111,18 @@ func NewSideView(st DrawStyles, sys model.System) SideView {
 func (v *SideView) SetSize(w, h int) { v.w, v.h = max(w, 0), max(h, 0); v.redraw() }
 
 // SetStyles replaces the styles (after a background-colour change).
-func (v *SideView) SetStyles(st DrawStyles) { v.styles = st.prepared(); v.redraw() }
+func (v *SideView) SetStyles(st Styles) { v.styles = st; v.redraw() }
 
 // SetUnits switches the labels to another unit system.
 func (v *SideView) SetUnits(sys model.System) { v.units = newDrawUnits(sys); v.redraw() }
 
-// SetGeometry gives the heights to draw.
-func (v *SideView) SetGeometry(g SideGeometry) {
+// setGeometry gives the picture to draw.
+func (v *SideView) setGeometry(g sideGeometry) {
 	v.geo = g.sanitize()
 	v.has = true
-	g = v.geo
-	v.noDrop = g.Outlet >= g.Level
-	lift := g.Crest - g.Level
-	switch {
-	case g.TheoreticalLimit > 0 && lift > g.TheoreticalLimit:
-		v.crest = svCrestOverTheory
-	case g.FlowingLimit > 0 && lift > g.FlowingLimit:
-		v.crest = svCrestOverFlowing
-	case g.WorkingLimit > 0 && lift > g.WorkingLimit:
-		v.crest = svCrestOverWorking
-	case g.WorkingLimit > 0:
-		v.crest = svCrestWithin
-	default:
-		v.crest = svCrestUnknown
-	}
+	v.noDrop = v.geo.Outlet >= v.geo.Level
 	v.redraw()
 }
-
-// ClearGeometry shows the "nothing to draw" message.
-func (v *SideView) ClearGeometry() { v.has = false; v.redraw() }
 
 // Focus marks the pane focused; Blur unfocuses it.
 func (v *SideView) Focus() { v.focused = true }
@@ -545,17 +130,33 @@ func (v *SideView) Focus() { v.focused = true }
 // Blur removes the focus.
 func (v *SideView) Blur() { v.focused = false }
 
-// Focused reports whether the pane has the focus.
-func (v SideView) Focused() bool { return v.focused }
-
-// Update does nothing: the Side view only follows the inputs.
-func (v SideView) Update(tea.Msg) (SideView, tea.Cmd) { return v, nil }
-
 // ShortHelp lists no keys: the Side view has none.
-func (v SideView) ShortHelp() []key.Binding { return nil }
+func (v *SideView) ShortHelp() []key.Binding { return nil }
 
-// FullHelp lists no keys.
-func (v SideView) FullHelp() [][]key.Binding { return nil }
+// Claims takes no keys.
+func (v *SideView) Claims(tea.KeyPressMsg) bool { return false }
+
+// Key does nothing: the Side view only follows the inputs.
+func (v *SideView) Key(tea.KeyPressMsg) (tea.Cmd, *FieldEdit) { return nil, nil }
+
+// Typing is false: the pane has no text input.
+func (v *SideView) Typing() bool { return false }
+
+// CursorPos is nil: the pane has no text input.
+func (v *SideView) CursorPos() *tea.Cursor { return nil }
+
+// Show draws the last valid plan in the job's unit system.
+func (v *SideView) Show(st *screenState) {
+	if v.units.sys != st.job.Units {
+		v.units = newDrawUnits(st.job.Units)
+	}
+	if !st.hasPlan {
+		v.has = false
+		v.redraw()
+		return
+	}
+	v.setGeometry(geometryOf(st.plan, st.sheet))
+}
 
 // View returns the frame drawn at the last change: exactly w×h cells.
 func (v SideView) View() string { return v.frame }
@@ -588,11 +189,11 @@ func (v *SideView) redraw() {
 		return
 	}
 	if !v.has {
-		v.frame = drawFit([]string{drawClip("Side view: nothing to draw yet — set the lift and drop in Lift & outlet.", w)}, w, h)
+		v.frame = fitBlock([]string{clip("Side view: nothing to draw yet — set the lift and drop in Lift & outlet.", w)}, w, h)
 		return
 	}
 	if w < 24 || h < 7 {
-		v.frame = drawFit(v.summaryLines(w), w, h)
+		v.frame = fitBlock(v.summaryLines(w), w, h)
 		return
 	}
 	v.frame = v.drawing(w, h)
@@ -610,29 +211,26 @@ func (v *SideView) statusText(w int) (string, drawClass) {
 	case v.noDrop:
 		cls = clsDanger
 		say = []string{"✗ outlet not below the level: no drop, no flow", "✗ outlet not below level: no flow", "✗ no drop"}
-	case v.crest == svCrestOverTheory:
-		cls = clsDanger
-		say = []string{"✗ crest " + u.length(lift-g.TheoreticalLimit) + " above the theoretical limit: will not run",
-			"✗ crest above limit: will not run", "✗ crest above limit"}
-	case v.crest == svCrestOverFlowing:
-		cls = clsDanger
-		say = []string{"✗ crest " + u.length(lift-g.FlowingLimit) + " above the limit at this flow: will not run",
-			"✗ crest above limit: will not run", "✗ crest above limit"}
-	case v.crest == svCrestOverWorking:
-		cls = clsWarn
-		say = []string{"! crest " + u.length(lift-g.WorkingLimit) + " over the working limit: gas will gather, may break",
-			"! crest " + u.length(lift-g.WorkingLimit) + " over working limit", "! over working limit"}
-	case v.crest == svCrestWithin:
-		cls = clsOK
-		say = []string{"✓ lift " + u.length(lift) + " within working limit " + u.length(g.WorkingLimit) + " · drop " + u.length(g.Level-g.Outlet),
-			"✓ lift " + u.length(lift) + " of " + u.length(g.WorkingLimit) + " · drop " + u.length(g.Level-g.Outlet),
-			"✓ lift " + u.length(lift) + " of " + u.length(g.WorkingLimit)}
+	case len(g.CrestSays) > 0:
+		cls = statusClass(g.CrestStatus)
+		sym := g.CrestStatus.Symbol() + " "
+		for _, t := range g.CrestSays {
+			say = append(say, sym+t)
+		}
+		if g.CrestStatus == present.OK {
+			// The drop goes with a lift within its limit, where it fits.
+			var withDrop []string
+			for _, t := range say[:len(say)-1] {
+				withDrop = append(withDrop, t+" · drop "+u.length(g.Level-g.Outlet))
+			}
+			say = append(withDrop, say...)
+		}
 	default:
 		cls = clsText
 		say = []string{"lift " + u.length(lift) + " · drop " + u.length(g.Level-g.Outlet)}
 	}
 	for _, t := range say {
-		if drawWidth(t) <= w {
+		if cellWidth(t) <= w {
 			return t, cls
 		}
 	}
@@ -643,8 +241,8 @@ func (v *SideView) statusText(w int) (string, drawClass) {
 func (v *SideView) summaryLines(w int) []string {
 	g := v.geo
 	st, cls := v.statusText(w)
-	lines := []string{v.styles.paintRun(cls, drawClip(st, w))}
-	add := func(s string) { lines = append(lines, drawClip(s, w)) }
+	lines := []string{v.styles.class[cls].Render(clip(st, w))}
+	add := func(s string) { lines = append(lines, clip(s, w)) }
 	add("crest " + v.elev(g.Crest))
 	add("level " + v.elev(g.Level))
 	add("outlet " + v.elev(g.Outlet))
@@ -722,11 +320,11 @@ func (v *SideView) drawing(w, h int) string {
 		"Side view · " + scale,
 	} {
 		caption = cand
-		if drawWidth(cand) <= w {
+		if cellWidth(cand) <= w {
 			break
 		}
 	}
-	c.text(0, 0, drawClip(caption, w), clsTitle)
+	c.text(0, 0, clip(caption, w), clsTitle)
 
 	// Horizontal layout: cell aspect 2:1, so a column is dz/2 metres.
 	dx := dz / 2
@@ -849,12 +447,12 @@ func (v *SideView) drawing(w, h int) string {
 	c.set(ux, intakeRow, '▲', clsHose) // the open end: liquid goes in
 	crestCls := clsText
 	crestText := "crest " + v.elev(g.Crest)
-	switch v.crest {
-	case svCrestOverTheory, svCrestOverFlowing:
+	switch g.CrestStatus {
+	case present.Bad:
 		crestCls, crestText = clsDanger, "✗ "+crestText+" OVER LIMIT"
-	case svCrestOverWorking:
+	case present.Warn:
 		crestCls, crestText = clsWarn, "! "+crestText+" over working"
-	case svCrestUnknown, svCrestWithin:
+	case present.OK, present.Info:
 	}
 	labels = append(labels, svLabel{crestRow, crestText, crestCls, 0})
 	labels = append(labels, svLabel{intakeRow, "intake " + v.elev(g.Intake), clsText, 3})
@@ -882,7 +480,7 @@ func (v *SideView) drawing(w, h int) string {
 	// status line always states the working limit).
 	if (g.WorkingLimit > 0 && !showW) || (g.TheoreticalLimit > 0 && !showT) {
 		note := " · crest limits above, off scale ↑"
-		if x := drawWidth(caption); x+drawWidth(note) <= w {
+		if x := cellWidth(caption); x+cellWidth(note) <= w {
 			c.text(x, 0, note, clsMuted)
 		}
 	}
@@ -908,7 +506,7 @@ func (v *SideView) drawing(w, h int) string {
 			if room <= 1 {
 				break
 			}
-			x = c.text(x, r, drawClip(l.text, room), l.cls)
+			x = c.text(x, r, clip(l.text, room), l.cls)
 		}
 		// A dotted leader from the drawing to the label keeps the eye on
 		// the row.
@@ -918,6 +516,6 @@ func (v *SideView) drawing(w, h int) string {
 	}
 
 	st, cls := v.statusText(w)
-	c.text(0, h-1, drawClip(st, w), cls)
+	c.text(0, h-1, clip(st, w), cls)
 	return c.render(&v.styles)
 }

@@ -8,10 +8,13 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+	"time"
 
 	"github.com/charmbracelet/x/ansi"
 
 	"drawdown/model"
+	"drawdown/model/present"
+	"drawdown/presets"
 )
 
 // update rewrites golden files: go test ./tui/ -update. Shared by every test
@@ -87,50 +90,70 @@ var paneSizes = []struct {
 	{"1x1", 1, 1},
 }
 
-// svDemo is an invented case: a 2.4 m tall rain-water tank 1.8 m across,
-// drained over its rim to a drain 0.6 m below the floor. The limits are
-// round figures of the right size for cold water near sea level (about
-// 10.3 m theoretical, from memory), not computed here.
-func svDemo() SideGeometry {
-	return SideGeometry{
-		Tank: true, Shape: "vertical cylinder", TankHeight: 2.4, TankWidth: 1.8,
-		Level: 2.0, Intake: 0.1, Crest: 2.7, Outlet: -0.6,
-		HasTarget: true, Target: 0.35,
-		WorkingLimit: 7.0, TheoreticalLimit: 10.2,
+// svJob is an invented case: a 2.4 m tall rain-water tank 1.8 m across
+// holding 2.0 m, drained by a 25 mm hose over a crest 0.7 m above the
+// surface to a drain 0.6 m below the floor, stopping at 0.35 m. edit changes
+// it for a case.
+func svJob(edit func(j *model.Job)) model.Job {
+	j := model.NewJob("side view test", model.SI, time.Time{})
+	j.Inputs = map[model.FieldID]string{
+		model.FieldHoseID: "25 mm", model.FieldHoseLength: "8 m", model.FieldLift: "0.7 m", model.FieldDrop: "2.6 m",
+		model.FieldTemp: "10 °C", model.FieldTankShape: "vertical-cylinder", model.FieldTankDiameter: "1.8 m",
+		model.FieldTankHeight: "2.4 m", model.FieldTankLevel: "2.0 m", model.FieldIntakeHeight: "0.1 m",
+		model.FieldTankTarget: "0.35 m",
 	}
+	if edit != nil {
+		edit(&j)
+	}
+	return j
+}
+
+// svGeometry is the side view's picture of a job, through the shipped path:
+// model.Compute, present.Build, geometryOf.
+func svGeometry(t testing.TB, j model.Job) sideGeometry {
+	t.Helper()
+	p := model.Compute(j, presets.Builtin())
+	if !p.OK() {
+		t.Fatalf("case does not compute: %v", p.Err)
+	}
+	return geometryOf(p, present.Build(p, j.Units, p.Hazards))
 }
 
 func TestSideView(t *testing.T) {
+	set := func(id model.FieldID, v string) func(*model.Job) {
+		return func(j *model.Job) { j.Inputs[id] = v }
+	}
 	cases := []struct {
 		name string
-		geo  SideGeometry
+		geo  sideGeometry
 		sys  model.System
 	}{
-		{"tank", svDemo(), model.SI},
-		{"tank_us", svDemo(), model.US},
-		{"over_working", func() SideGeometry {
-			g := svDemo()
-			g.Crest, g.WorkingLimit, g.TheoreticalLimit = 8.0, 5.5, 7.9
-			return g
-		}(), model.SI},
-		{"receiver", func() SideGeometry {
-			g := svDemo()
-			g.OutletSubmerged, g.Outlet, g.WorkingLimit, g.TheoreticalLimit = true, 0.8, 3.0, 4.0
-			return g
-		}(), model.SI},
-		{"over_flowing", func() SideGeometry {
-			g := svDemo()
-			g.Crest, g.WorkingLimit, g.FlowingLimit, g.TheoreticalLimit = 6.4, 3.3, 4.2, 4.5 // a warm volatile liquid: invented limits
-			return g
-		}(), model.US},
-		{"pit_no_drop", SideGeometry{Level: 0, Intake: -0.5, Crest: 1.2, Outlet: 0.3, WorkingLimit: 6, TheoreticalLimit: 9.5}, model.SI},
+		{"tank", svGeometry(t, svJob(nil)), model.SI},
+		{"tank_us", svGeometry(t, svJob(func(j *model.Job) { j.Units = model.US })), model.US},
+		// 7.5 m of lift: above the working limit of cold water at sea level
+		// (about 6.5 m here), below the limit at this flow.
+		{"over_working", svGeometry(t, svJob(set(model.FieldLift, "7.5 m"))), model.SI},
+		{"receiver", svGeometry(t, svJob(func(j *model.Job) {
+			j.Inputs[model.FieldOutletSubmerged] = "yes"
+			j.Inputs[model.FieldDrop] = "0.8 m"
+		})), model.SI},
+		// 10.5 m of lift: above (p_atm − p_v)/(ρg) ≈ 10.2 m for water at
+		// 10 °C and 101.3 kPa: it will not run.
+		{"over_flowing", svGeometry(t, svJob(func(j *model.Job) {
+			j.Inputs[model.FieldLift] = "10.5 m"
+			j.Units = model.US
+		})), model.US},
+		// A pit without a tank whose outlet stands above the surface (as a
+		// raised receiving surface leaves it): no drop.
+		{"pit_no_drop", sideGeometry{Level: 0, Intake: -0.5, Crest: 1.2, Outlet: 0.3, WorkingLimit: 6, TheoreticalLimit: 9.5,
+			CrestStatus: present.OK, CrestSays: []string{"lift 1.20 m within the working limit 6.00 m"}}, model.SI},
 	}
 	for _, c := range cases {
 		for _, s := range paneSizes {
 			t.Run(c.name+"/"+s.name, func(t *testing.T) {
-				v := NewSideView(PlainDrawStyles(), c.sys)
+				v := NewSideView(NewStyles(true), c.sys)
 				v.SetSize(s.w, s.h)
-				v.SetGeometry(c.geo)
+				v.setGeometry(c.geo)
 				paneGolden(t, v.View(), s.w, s.h)
 				if testing.Verbose() && s.w > 20 {
 					t.Logf("\n%s", ansi.Strip(v.View()))
@@ -142,11 +165,10 @@ func TestSideView(t *testing.T) {
 
 // Over-limit crest must be said in words, not colour alone.
 func TestSideViewOverLimitInWords(t *testing.T) {
-	g := svDemo()
-	g.Crest = g.Level + 11 // above the 10.2 m theoretical limit
-	v := NewSideView(PlainDrawStyles(), model.SI)
+	g := svGeometry(t, svJob(func(j *model.Job) { j.Inputs[model.FieldLift] = "11 m" })) // above the 10.2 m theoretical limit
+	v := NewSideView(NewStyles(true), model.SI)
 	v.SetSize(78, 10)
-	v.SetGeometry(g)
+	v.setGeometry(g)
 	if got := ansi.Strip(v.View()); !strings.Contains(got, "will not run") || !strings.Contains(got, "✗") {
 		t.Errorf("over-limit crest not stated in words:\n%s", got)
 	}
@@ -164,16 +186,17 @@ func TestSideViewNeverBreaks(t *testing.T) {
 		return rng.Float64()*20 - 8
 	}
 	for i := 0; i < 3000; i++ {
-		g := SideGeometry{
+		g := sideGeometry{
 			Tank: rng.IntN(2) == 0, TankHeight: pick(), TankWidth: pick(),
 			Level: pick(), Intake: pick(), Crest: pick(), Outlet: pick(),
 			OutletSubmerged: rng.IntN(2) == 0, HasTarget: rng.IntN(2) == 0, Target: pick(),
-			WorkingLimit: pick(), TheoreticalLimit: pick(), FlowingLimit: pick(),
+			WorkingLimit: pick(), TheoreticalLimit: pick(),
+			CrestStatus: present.Status(rng.IntN(4)), CrestSays: []string{"crest status"},
 		}
 		w, h := rng.IntN(130)-2, rng.IntN(45)-2
-		v := NewSideView(PlainDrawStyles(), model.System(rng.IntN(2)))
+		v := NewSideView(NewStyles(true), model.System(rng.IntN(2)))
 		v.SetSize(w, h)
-		v.SetGeometry(g)
+		v.setGeometry(g)
 		paneCheckFrame(t, ansi.Strip(v.View()), max(w, 0), max(h, 0))
 		if t.Failed() {
 			t.Fatalf("geometry %+v at %d×%d", g, w, h)
@@ -185,22 +208,22 @@ func TestSideViewNeverBreaks(t *testing.T) {
 // plain frame (status is carried by words and symbols, not by colour).
 func TestDrawnPanesSameTextInColour(t *testing.T) {
 	for _, dark := range []bool{true, false} {
-		col := NewDrawStyles(NewStyles(dark))
-		plain := PlainDrawStyles()
-		frames := func(st DrawStyles) []string {
+		col := NewStyles(dark)
+		plain := NewStyles(true)
+		frames := func(st Styles) []string {
 			sv := NewSideView(st, model.SI)
 			sv.SetSize(78, 10)
-			sv.SetGeometry(svDemo())
+			sv.setGeometry(svGeometry(t, svJob(nil)))
 			cv := NewCurveView(st, model.SI)
 			cv.SetSize(78, 10)
 			c := cvTorricelli(2.0, -0.6, 0.35, 2.54, 0.00143, 60)
 			c.StopReason = "intake"
-			cv.SetCurve(c)
-			wv := NewWhatIfView(st, model.SI)
+			cv.setCurve(c)
+			wv := NewWhatIfView(st, model.SI, DefaultKeyMap())
 			wv.SetSize(78, 10)
 			wv.SetTable(wiDemo())
 			wv.Focus()
-			ck := NewChecklistView(st)
+			ck := NewChecklistView(st, DefaultKeyMap())
 			ck.SetSize(78, 10)
 			ck.SetChecklist(ckFixed())
 			ck.Focus()
@@ -225,13 +248,13 @@ func BenchmarkSideViewSetGeometryView(b *testing.B) {
 		w, h int
 	}{{"44x21", 44, 21}, {"28x20", 28, 20}, {"118x22", 118, 22}} {
 		b.Run(s.name, func(b *testing.B) {
-			v := NewSideView(NewDrawStyles(NewStyles(true)), model.SI)
+			v := NewSideView(NewStyles(true), model.SI)
 			v.SetSize(s.w, s.h)
-			g := svDemo()
+			g := svGeometry(b, svJob(nil))
 			b.ReportAllocs()
 			for i := 0; b.Loop(); i++ {
 				g.Crest = 2.7 + float64(i%7)*0.01
-				v.SetGeometry(g)
+				v.setGeometry(g)
 				paneSink = v.View()
 			}
 		})

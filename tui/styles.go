@@ -5,13 +5,17 @@ import (
 	"strings"
 
 	"charm.land/lipgloss/v2"
+
+	"drawdown/model/present"
 )
 
-// Styles holds every style the screens use, named for meaning. Colours come
-// only from the 16 basic ANSI colours, so a 16-colour terminal shows exactly
-// what was meant and each colour follows the terminal's own palette. Every
-// status also carries a word or symbol, and focus is shown by inverse (reverse) display
-// and a marker, so the screen still reads under NO_COLOR.
+// Styles is the one style sheet of the screen: every style, named for
+// meaning, for the text panes and (as drawing classes) for the drawn ones.
+// Colours come only from the 16 basic ANSI colours, so a 16-colour terminal
+// shows exactly what was meant and each colour follows the terminal's own
+// palette. Every status also carries a word or symbol, and focus is shown by
+// inverse (reverse) display and a marker, so the screen still reads under
+// NO_COLOR.
 //
 // Build it with NewStyles; rebuild it when a tea.BackgroundColorMsg tells
 // whether the background is dark. Views never call lipgloss.NewStyle.
@@ -26,25 +30,28 @@ type Styles struct {
 	Border    lipgloss.Style // the frame around the Result pane
 
 	Label        lipgloss.Style // field label, blurred
-	LabelFocused lipgloss.Style // field label with the focus
+	LabelFocused lipgloss.Style // field label with the focus; a selected cell
 	Input        lipgloss.Style // raw text as typed
 	InputFocused lipgloss.Style // raw text in the focused field
 	Value        lipgloss.Style // a computed value
-	Big          lipgloss.Style // the leading number (flow)
-	Unit         lipgloss.Style // a converted value beside an input
+	Big          lipgloss.Style // the leading number (flow); the hose in a drawing
+	Unit         lipgloss.Style // a converted value beside an input; liquid in a drawing
 	Muted        lipgloss.Style // secondary text
 
 	OK      lipgloss.Style // runs
 	Warning lipgloss.Style // near a limit; stale result
 	Danger  lipgloss.Style // will not run; invalid field
+	Limit   lipgloss.Style // crest-limit and target lines; the caution box frame
 
 	HelpKey  lipgloss.Style
 	HelpDesc lipgloss.Style
 	HelpSep  lipgloss.Style
 
 	// fast holds the same styles as fixed escape sequences (see paint), for
-	// the text drawn on every keystroke.
-	fast fastStyles
+	// the text drawn on every keystroke; class the paint of each drawing
+	// class.
+	fast  fastStyles
+	class [clsCount]paint
 }
 
 // paint is a style reduced to the escape sequences before and after a
@@ -98,19 +105,60 @@ func newFastStyles(s Styles) fastStyles {
 	}
 }
 
-// fastStyle is Style as a paint.
-func (s Styles) fastStyle(st Status) paint {
+// classStyle is the style of a drawing class.
+func (s Styles) classStyle(c drawClass) lipgloss.Style {
+	switch c {
+	case clsMuted:
+		return s.Muted
+	case clsLiquid:
+		return s.Unit
+	case clsHose:
+		return s.Big
+	case clsLimit, clsBox:
+		return s.Limit
+	case clsOK:
+		return s.OK
+	case clsWarn:
+		return s.Warning
+	case clsDanger:
+		return s.Danger
+	case clsTitle:
+		return s.PaneTitle
+	case clsSelected:
+		return s.LabelFocused
+	case clsText, clsCount:
+	}
+	return s.Value
+}
+
+// fastStyle is the paint for a status.
+func (s Styles) fastStyle(st present.Status) paint {
 	switch st {
-	case StatusOK:
+	case present.OK:
 		return s.fast.OK
-	case StatusWarn:
+	case present.Warn:
 		return s.fast.Warning
-	case StatusBad:
+	case present.Bad:
 		return s.fast.Danger
-	case StatusInfo:
+	case present.Info:
 		return s.fast.Muted
 	}
 	return s.fast.Value
+}
+
+// statusClass is the drawing class for a status.
+func statusClass(st present.Status) drawClass {
+	switch st {
+	case present.OK:
+		return clsOK
+	case present.Warn:
+		return clsWarn
+	case present.Bad:
+		return clsDanger
+	case present.Info:
+		return clsMuted
+	}
+	return clsText
 }
 
 // NewStyles builds the styles for a dark or a light background.
@@ -146,57 +194,16 @@ func NewStyles(isDark bool) Styles {
 	s.OK = lipgloss.NewStyle().Foreground(ok).Bold(true)
 	s.Warning = lipgloss.NewStyle().Foreground(warn).Bold(true)
 	s.Danger = lipgloss.NewStyle().Foreground(danger).Bold(true)
+	s.Limit = lipgloss.NewStyle().Foreground(warn)
 
 	s.HelpKey = lipgloss.NewStyle().Foreground(accent).Bold(true)
 	s.HelpDesc = lipgloss.NewStyle().Foreground(text)
 	s.HelpSep = lipgloss.NewStyle().Foreground(muted)
 	s.fast = newFastStyles(s)
+	for c := drawClass(0); c < clsCount; c++ {
+		s.class[c] = newPaint(s.classStyle(c))
+	}
 	return s
-}
-
-// Status is a traffic state that is always shown as a word or symbol plus a
-// colour, never by colour alone.
-type Status int
-
-const (
-	// StatusOK: runs, done, fine.
-	StatusOK Status = iota
-	// StatusWarn: near a limit, stale, needs attention.
-	StatusWarn
-	// StatusBad: will not run, invalid.
-	StatusBad
-	// StatusInfo: neutral.
-	StatusInfo
-)
-
-// Symbol is the character that carries the status without colour.
-func (st Status) Symbol() string {
-	switch st {
-	case StatusOK:
-		return "✓"
-	case StatusWarn:
-		return "!"
-	case StatusBad:
-		return "✗"
-	case StatusInfo:
-		return "·"
-	}
-	return "?"
-}
-
-// Style picks the style for a status.
-func (s Styles) Style(st Status) lipgloss.Style {
-	switch st {
-	case StatusOK:
-		return s.OK
-	case StatusWarn:
-		return s.Warning
-	case StatusBad:
-		return s.Danger
-	case StatusInfo:
-		return s.Muted
-	}
-	return s.Value
 }
 
 // cursorColor is the colour of the real terminal cursor in a text field.

@@ -7,10 +7,10 @@ import (
 
 	"charm.land/bubbles/v2/key"
 	tea "charm.land/bubbletea/v2"
-	"charm.land/lipgloss/v2"
 
 	"drawdown/calc"
 	"drawdown/model"
+	"drawdown/model/present"
 )
 
 // WhatIfCell is one alternative's outcome, computed elsewhere.
@@ -52,21 +52,6 @@ type WhatIfAdoptMsg struct {
 	Hoses            int
 }
 
-// whatIfKeys are the What-if pane's own keys.
-type whatIfKeys struct {
-	Up, Down, Left, Right, Adopt key.Binding
-}
-
-func newWhatIfKeys() whatIfKeys {
-	return whatIfKeys{
-		Up:    key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "shorter hose")),
-		Down:  key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "longer hose")),
-		Left:  key.NewBinding(key.WithKeys("left", "h"), key.WithHelp("←/h", "smaller bore")),
-		Right: key.NewBinding(key.WithKeys("right", "l"), key.WithHelp("→/l", "larger bore")),
-		Adopt: key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "use this hose")),
-	}
-}
-
 // WhatIfView is the What-if pane: a table of flow and time to the stop
 // against hose length and inside diameter around the present choice, with
 // the present cell marked "●", cells that will not run marked "✗ no run",
@@ -78,16 +63,16 @@ type WhatIfView struct {
 	has      bool
 	r, c     int // selection; r == len(Lengths) is the parallel row
 	units    drawUnits
-	styles   DrawStyles
-	keys     whatIfKeys
+	styles   Styles
+	keys     WhatIfKeys
 	focused  bool
 	frame    string
 	selValid bool
 }
 
 // NewWhatIfView returns an empty What-if pane in the given unit system.
-func NewWhatIfView(st DrawStyles, sys model.System) WhatIfView {
-	v := WhatIfView{styles: st.prepared(), units: newDrawUnits(sys), keys: newWhatIfKeys()}
+func NewWhatIfView(st Styles, sys model.System, km KeyMap) WhatIfView {
+	v := WhatIfView{styles: st, units: newDrawUnits(sys), keys: km.WhatIf}
 	v.redraw()
 	return v
 }
@@ -96,7 +81,7 @@ func NewWhatIfView(st DrawStyles, sys model.System) WhatIfView {
 func (v *WhatIfView) SetSize(w, h int) { v.w, v.h = max(w, 0), max(h, 0); v.redraw() }
 
 // SetStyles replaces the styles.
-func (v *WhatIfView) SetStyles(st DrawStyles) { v.styles = st.prepared(); v.redraw() }
+func (v *WhatIfView) SetStyles(st Styles) { v.styles = st; v.redraw() }
 
 // SetUnits switches the table to another unit system.
 func (v *WhatIfView) SetUnits(sys model.System) { v.units = newDrawUnits(sys); v.redraw() }
@@ -201,14 +186,36 @@ func (v WhatIfView) ShortHelp() []key.Binding {
 }
 
 // FullHelp lists the pane's keys for the help screen.
-func (v WhatIfView) FullHelp() [][]key.Binding { return [][]key.Binding{v.ShortHelp()} }
+// Claims takes the pane's own keys (arrows and enter).
+func (v *WhatIfView) Claims(msg tea.KeyPressMsg) bool { return key.Matches(msg, v.ShortHelp()...) }
+
+// Key handles a key with the pane focused.
+func (v *WhatIfView) Key(msg tea.KeyPressMsg) (tea.Cmd, *FieldEdit) {
+	var cmd tea.Cmd
+	*v, cmd = v.Update(msg)
+	return cmd, nil
+}
+
+// Typing is false: the pane has no text input.
+func (v *WhatIfView) Typing() bool { return false }
+
+// CursorPos is nil: the pane has no text input.
+func (v *WhatIfView) CursorPos() *tea.Cursor { return nil }
+
+// Show follows the job's unit system; the grid itself comes from the root's
+// background computation (SetTable).
+func (v *WhatIfView) Show(st *screenState) {
+	if v.units.sys != st.job.Units {
+		v.SetUnits(st.job.Units)
+	}
+}
 
 // View returns the frame drawn at the last change: exactly w×h cells.
 func (v WhatIfView) View() string { return v.frame }
 
 // hmm formats a duration in seconds as h:mm.
 func wiHMM(s float64) string {
-	s = drawFinite(s)
+	s = finite(s)
 	if s <= 0 {
 		return "0:00"
 	}
@@ -234,7 +241,7 @@ func (v *WhatIfView) cellText(c WhatIfCell) (flow, tm string, cls drawClass) {
 	if !c.Runs {
 		return "✗ no", "run", clsDanger
 	}
-	flow, _ = model.FormatParts(model.DimFlow, drawFinite(c.Flow), v.units.sys)
+	flow, _ = model.FormatParts(model.DimFlow, finite(c.Flow), v.units.sys)
 	if v.t.HasTime {
 		tm = wiHMM(c.Time)
 		if c.Time <= 0 {
@@ -256,7 +263,7 @@ func (v *WhatIfView) redraw() {
 		return
 	}
 	if !v.has {
-		v.frame = drawFit([]string{drawClip("What-if: nothing to compare yet — set the hose and the lift.", w)}, w, h)
+		v.frame = fitBlock([]string{clip("What-if: nothing to compare yet — set the hose and the lift.", w)}, w, h)
 		return
 	}
 	v.frame = v.table(w, h)
@@ -278,10 +285,10 @@ func (v *WhatIfView) table(w, h int) string {
 
 	// Texts and widths.
 	lenLbl := make([]string, nr)
-	labelW := max(lipgloss.Width("length"), lipgloss.Width("hoses"))
+	labelW := max(cellWidth("length"), cellWidth("hoses"))
 	for i, l := range t.Lengths {
 		lenLbl[i] = u.length(l)
-		labelW = max(labelW, lipgloss.Width(lenLbl[i]))
+		labelW = max(labelW, cellWidth(lenLbl[i]))
 	}
 	labelW += 3 // row marker "▸ " before, one space after
 	format := func(c WhatIfCell) wiCell {
@@ -294,8 +301,8 @@ func (v *WhatIfView) table(w, h int) string {
 		cells[r] = make([]wiCell, nc)
 		for c := range cells[r] {
 			cells[r][c] = format(t.Cells[r][c])
-			flowW = max(flowW, lipgloss.Width(cells[r][c].flow))
-			timeW = max(timeW, lipgloss.Width(cells[r][c].tm))
+			flowW = max(flowW, cellWidth(cells[r][c].flow))
+			timeW = max(timeW, cellWidth(cells[r][c].tm))
 		}
 	}
 	par := make([]wiCell, len(t.Parallel))
@@ -303,31 +310,31 @@ func (v *WhatIfView) table(w, h int) string {
 	for i, p := range t.Parallel {
 		par[i] = format(p.Cell)
 		par[i].flow = "×" + strconv.Itoa(p.Hoses) + " " + par[i].flow
-		parFlowW = max(parFlowW, lipgloss.Width(par[i].flow))
-		timeW = max(timeW, lipgloss.Width(par[i].tm))
+		parFlowW = max(parFlowW, cellWidth(par[i].flow))
+		timeW = max(timeW, cellWidth(par[i].tm))
 	}
 	diaLbl := make([]string, nc)
 	diaW := 0
 	for i, d := range t.Diameters {
 		diaLbl[i] = v.diaText(d)
-		diaW = max(diaW, lipgloss.Width(diaLbl[i]))
+		diaW = max(diaW, cellWidth(diaLbl[i]))
 	}
 
 	// A cell is a two-character marker ("▸" selected, "●" present), its
 	// text and a one-cell gap. One line per row ("●60.5  1:06") when the
 	// columns fit, else two lines (flow over time) when the height
 	// allows.
-	cellWidth := func(fw, lines int) int {
+	cellSize := func(fw, lines int) int {
 		if lines == 2 || !t.HasTime {
 			return 2 + max(fw, timeW, diaW) + 1
 		}
 		return 2 + max(fw+1+timeW, diaW) + 1
 	}
 	lines := 1
-	if labelW+nc*cellWidth(flowW, 1) > w && t.HasTime && 2*nr+5 <= h {
+	if labelW+nc*cellSize(flowW, 1) > w && t.HasTime && 2*nr+5 <= h {
 		lines = 2
 	}
-	cellW, parW := cellWidth(flowW, lines), cellWidth(parFlowW, lines)
+	cellW, parW := cellSize(flowW, lines), cellSize(parFlowW, lines)
 	visC := max(min(nc, (w-labelW)/cellW), 1)
 	visP := max(min(len(par), (w-labelW)/parW), 1)
 	rowsRoom := h - 3 // title, header, footer
@@ -356,13 +363,13 @@ func (v *WhatIfView) table(w, h int) string {
 		title += " and time to stop h:mm"
 	}
 	title += " · ● now"
-	if lipgloss.Width(title) > w {
+	if cellWidth(title) > w {
 		title = "What-if · " + u.flowName
 		if t.HasTime {
 			title += ", h:mm"
 		}
 	}
-	cv.text(0, 0, drawClip(title, w), clsTitle)
+	cv.text(0, 0, clip(title, w), clsTitle)
 
 	// Header: diameters across, the selected column marked "▾".
 	cv.text(0, 1, "length", clsMuted)
@@ -390,7 +397,7 @@ func (v *WhatIfView) table(w, h int) string {
 		first, second := string(mark)+ct.flow, "  "+ct.tm
 		if lines == 1 && t.HasTime {
 			if ct.runs || ct.tm == "" {
-				first += strings.Repeat(" ", max(cw-3-lipgloss.Width(first)-lipgloss.Width(ct.tm)+1, 1)) + ct.tm
+				first += strings.Repeat(" ", max(cw-3-cellWidth(first)-cellWidth(ct.tm)+1, 1)) + ct.tm
 			} else {
 				first = string(mark) + "✗ no run"
 			}
@@ -399,12 +406,12 @@ func (v *WhatIfView) table(w, h int) string {
 		if sel && v.focused {
 			// Reversed colours over the whole cell, with the ▸ marker:
 			// legible without colour.
-			pad := func(s string) string { return s + strings.Repeat(" ", max(cw-1-lipgloss.Width(s), 0)) }
+			pad := func(s string) string { return s + strings.Repeat(" ", max(cw-1-cellWidth(s), 0)) }
 			first, second, cls = pad(first), pad(second), clsSelected
 		}
-		cv.text(x, y, drawClip(first, cw-1), cls)
+		cv.text(x, y, clip(first, cw-1), cls)
 		if lines == 2 {
-			cv.text(x, y+1, drawClip(second, cw-1), cls)
+			cv.text(x, y+1, clip(second, cw-1), cls)
 		}
 	}
 	y := 2
@@ -450,14 +457,14 @@ func (v *WhatIfView) table(w, h int) string {
 		case !c.Runs:
 			f += " (✗ will not run)"
 		case t.HasTime && c.Time <= 0:
-			f += " (stops at once: " + stopReasonText(c.StopReason) + ")"
+			f += " (stops at once: " + present.StopShort(calc.StopReason(c.StopReason)) + ")"
 		case t.HasTime && c.StopReason != "":
-			f += " (stops: " + stopReasonText(c.StopReason) + ")"
+			f += " (stops: " + present.StopShort(calc.StopReason(c.StopReason)) + ")"
 		}
 		if !v.focused {
 			f = "select this pane to pick a hose"
 		}
-		cv.text(0, h-1, drawClip(f, w), clsMuted)
+		cv.text(0, h-1, clip(f, w), clsMuted)
 	}
 	return cv.render(&v.styles)
 }
@@ -477,7 +484,7 @@ func (v *WhatIfView) selectedCell() WhatIfCell {
 // diaText is a bore as the table shows it: "25 mm" (nominal bores without
 // a trailing ".0"), "1.50 in".
 func (v *WhatIfView) diaText(d float64) string {
-	num, unit := model.FormatParts(model.DimDiameter, drawFinite(d), v.units.sys)
+	num, unit := model.FormatParts(model.DimDiameter, finite(d), v.units.sys)
 	return strings.TrimSuffix(num, ".0") + " " + unit
 }
 
@@ -528,38 +535,4 @@ func WhatIfFromGrid(g calc.WhatIfGrid, length, diameter float64, hoses int, hasT
 	}
 	t.Row, t.Col = nearest(g.Lengths, length), nearest(g.Diameters, diameter)
 	return t
-}
-
-// WhatIfReadyMsg carries a What-if table computed by WhatIfCmd. Seq is the
-// tag given to WhatIfCmd: a reply whose tag is not the latest is stale and
-// should be dropped.
-type WhatIfReadyMsg struct {
-	Seq   int
-	Table WhatIfTable
-	Err   error
-}
-
-// WhatIfCmd computes the what-if grid around the plan's hose (seven
-// lengths × five standard bores from calc.AroundChoice, and 1 … 4 hoses in
-// parallel) as a command, since it is one drain plan per cell. It captures
-// copies of the values it needs, never the live model. It returns nil when
-// the plan has no valid result.
-func WhatIfCmd(p model.Plan, seq int) tea.Cmd {
-	if !p.OK() {
-		return nil
-	}
-	hasTank := p.Tank != nil
-	in := p.DrainIn
-	if !hasTank {
-		in = calc.DrainInput{Siphon: p.Siphon}
-	}
-	h, hoses := p.Siphon.Hose, p.Siphon.Hoses
-	return func() tea.Msg {
-		lengths, diams := calc.AroundChoice(h.Length, h.Diameter)
-		g, err := calc.WhatIf(in, lengths, diams)
-		if err != nil {
-			return WhatIfReadyMsg{Seq: seq, Err: err}
-		}
-		return WhatIfReadyMsg{Seq: seq, Table: WhatIfFromGrid(g, float64(h.Length), float64(h.Diameter), hoses, hasTank)}
-	}
 }

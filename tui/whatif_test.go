@@ -12,7 +12,6 @@ import (
 
 	"drawdown/calc"
 	"drawdown/model"
-	"drawdown/presets"
 )
 
 // wiDemo builds an invented 7×5 table around 12 m of 25 mm hose. Flows use
@@ -88,7 +87,7 @@ func TestWhatIfView(t *testing.T) {
 	for _, c := range cases {
 		for _, s := range paneSizes {
 			t.Run(c.name+"/"+s.name, func(t *testing.T) {
-				v := NewWhatIfView(PlainDrawStyles(), c.sys)
+				v := NewWhatIfView(NewStyles(true), c.sys, DefaultKeyMap())
 				v.SetSize(s.w, s.h)
 				if c.set {
 					v.SetTable(c.tab)
@@ -112,7 +111,7 @@ func TestWhatIfView(t *testing.T) {
 // and carries its length, diameter and hose count.
 func TestWhatIfAdopt(t *testing.T) {
 	tab := wiDemo()
-	v := NewWhatIfView(PlainDrawStyles(), model.SI)
+	v := NewWhatIfView(NewStyles(true), model.SI, DefaultKeyMap())
 	v.SetSize(78, 10)
 	v.SetTable(tab)
 
@@ -160,7 +159,7 @@ func TestWhatIfAdopt(t *testing.T) {
 }
 
 func TestWhatIfMarks(t *testing.T) {
-	v := NewWhatIfView(PlainDrawStyles(), model.SI)
+	v := NewWhatIfView(NewStyles(true), model.SI, DefaultKeyMap())
 	v.SetSize(78, 12)
 	v.SetTable(wiDemo())
 	v.Focus()
@@ -203,7 +202,7 @@ func TestWhatIfNeverBreaks(t *testing.T) {
 		}
 		tab.Row, tab.Col, tab.Hoses, tab.HasTime = rng.IntN(10)-1, rng.IntN(8)-1, rng.IntN(4), rng.IntN(2) == 0
 		w, h := rng.IntN(130)-2, rng.IntN(45)-2
-		v := NewWhatIfView(PlainDrawStyles(), model.System(rng.IntN(2)))
+		v := NewWhatIfView(NewStyles(true), model.System(rng.IntN(2)), DefaultKeyMap())
 		v.SetSize(w, h)
 		v.SetTable(tab)
 		v.Focus()
@@ -245,7 +244,7 @@ func TestWhatIfFromGrid(t *testing.T) {
 	if len(tab.Parallel) != 2 || tab.Parallel[1].Hoses != 2 {
 		t.Errorf("parallel row: %+v", tab.Parallel)
 	}
-	v := NewWhatIfView(PlainDrawStyles(), model.SI)
+	v := NewWhatIfView(NewStyles(true), model.SI, DefaultKeyMap())
 	v.SetSize(78, 12)
 	v.SetTable(tab)
 	got := ansi.Strip(v.View())
@@ -258,7 +257,7 @@ func TestWhatIfFromGrid(t *testing.T) {
 
 // A new 7×5 table and its frame.
 func BenchmarkWhatIfSetTableView(b *testing.B) {
-	v := NewWhatIfView(NewDrawStyles(NewStyles(true)), model.SI)
+	v := NewWhatIfView(NewStyles(true), model.SI, DefaultKeyMap())
 	v.SetSize(120, 17)
 	v.Focus()
 	tab := wiDemo()
@@ -269,24 +268,19 @@ func BenchmarkWhatIfSetTableView(b *testing.B) {
 	}
 }
 
-// The demo job's what-if grid: 7 lengths × 5 bores around its hose, the
-// present cell in the middle, and the present cell's flow equal to the
-// plan's own flow (the same calc solve on the same inputs; a consistency
-// check, the physics is checked in calc against its sources).
+// The demo job's what-if grid, computed the way the screen does it (the
+// root's command when the pane comes on screen): 7 lengths × 5 bores around
+// its hose, the present cell in the middle, and the present cell's flow
+// equal to the plan's own flow (the same calc solve on the same inputs; a
+// consistency check, the physics is checked in calc against its sources).
 func TestWhatIfCmdDemo(t *testing.T) {
-	p := model.Compute(model.DemoJob(), presets.Builtin())
-	if !p.OK() {
-		t.Fatalf("demo plan: %v", p.Err)
+	m := newTestModel(t, 80, 24)
+	p := m.st.plan
+	m = press(t, m, "7")
+	tab := m.whatif.t
+	if !m.whatif.has {
+		t.Fatal("no grid after the pane came on screen")
 	}
-	cmd := WhatIfCmd(p, 7)
-	if cmd == nil {
-		t.Fatal("no command for a valid plan")
-	}
-	msg, ok := cmd().(WhatIfReadyMsg)
-	if !ok || msg.Err != nil || msg.Seq != 7 {
-		t.Fatalf("reply %+v", msg)
-	}
-	tab := msg.Table
 	if len(tab.Lengths) != 7 || len(tab.Diameters) != 5 || len(tab.Parallel) != calc.WhatIfHoseCounts {
 		t.Fatalf("grid %d×%d, %d parallel", len(tab.Lengths), len(tab.Diameters), len(tab.Parallel))
 	}
@@ -300,25 +294,21 @@ func TestWhatIfCmdDemo(t *testing.T) {
 	if tab.HasTime != (p.Tank != nil) {
 		t.Errorf("HasTime %v with tank %v", tab.HasTime, p.Tank != nil)
 	}
-	v := NewWhatIfView(PlainDrawStyles(), model.SI)
-	v.SetSize(44, 21)
-	v.SetTable(tab)
-	v.Focus()
-	paneCheckFrame(t, ansi.Strip(v.View()), 44, 21)
-	if testing.Verbose() {
-		t.Logf("\n%s", ansi.Strip(v.View()))
-	}
-	if WhatIfCmd(model.Plan{Err: errors.New("bad input")}, 8) != nil {
-		t.Error("a command for a plan without a result")
+	paneCheckFrame(t, ansi.Strip(m.whatif.View()), 44, 21)
+	// The grid is asked for once per plan, not once per key.
+	if m.whatIfCmd() != nil {
+		t.Error("a second grid for the same plan")
 	}
 }
 
 // The grid is a command because it costs one drain plan per cell.
 func BenchmarkWhatIfCmdDemo(b *testing.B) {
-	p := model.Compute(model.DemoJob(), presets.Builtin())
+	m := newTestModel(b, 80, 24)
+	m.focus = PaneWhatIf
 	b.ReportAllocs()
-	for i := 0; b.Loop(); i++ {
-		paneSink2 = WhatIfCmd(p, i)()
+	for b.Loop() {
+		m.whatIfGen = 0
+		paneSink2 = m.whatIfCmd()()
 	}
 }
 

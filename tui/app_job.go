@@ -1,0 +1,351 @@
+package tui
+
+import (
+	"errors"
+	"strconv"
+	"strings"
+	"time"
+
+	tea "charm.land/bubbletea/v2"
+
+	"drawdown/calc"
+	"drawdown/model"
+	"drawdown/model/present"
+	"drawdown/presets"
+)
+
+// Changes to the job. Each one changes m.job, recomputes the plan when an
+// input changed, touches the state the panes show, logs what the technician
+// chose and returns the save.
+
+// applyEdit stores a field's new text, recomputes and saves.
+func (m *Model) applyEdit(e FieldEdit) tea.Cmd {
+	_ = m.job.Set(e.ID, e.Text) // the error comes back with the plan's field errors
+	if e.ID == model.FieldTankPreset {
+		if t, ok := m.cat.Tank(e.Text); ok {
+			if prev := m.job.TankSizesText(); prev != "" {
+				// Keep what was typed before the catalogue replaced it.
+				m.job.AddLog(m.now(), "tank before the catalogue choice: "+prev)
+			}
+			m.job.ApplyTankPreset(t)
+			m.flash = "tank set from the catalogue: " + t.Name + "; now set the liquid level"
+		}
+	}
+	m.recompute()
+	if e.ID == model.FieldLiquid || e.ID == model.FieldPriming {
+		m.rebuildChecklist(e.ID)
+		m.recompute() // the sheet's hazard words follow the checklist
+	}
+	return m.save()
+}
+
+// restoreField puts back the field's text from the last valid plan's job
+// when the field is invalid (ctrl+r).
+func (m *Model) restoreField() tea.Cmd {
+	id := m.forms[m.focus].Selected().ID
+	if m.st.errs[id] == nil {
+		m.flash = "nothing to undo: the field is valid"
+		return nil
+	}
+	old, ok := m.lastGood[id]
+	if !ok {
+		m.flash = "no earlier valid text for this field"
+		return nil
+	}
+	return m.applyEdit(FieldEdit{ID: id, Text: old})
+}
+
+// rebuildChecklist adapts the checklist to a new liquid or priming method,
+// keeping every recorded mark (model.Checklist.Rebuild).
+func (m *Model) rebuildChecklist(changed model.FieldID) {
+	ctx := m.job.Checklist.Context
+	switch changed {
+	case model.FieldPriming:
+		pm, err := model.ParsePrimingMethod(m.job.Choice(model.FieldPriming))
+		if err != nil {
+			return
+		}
+		ctx.Method = pm
+	case model.FieldLiquid:
+		p := m.st.plan
+		if !p.Liquid.Valid() || m.st.stale {
+			return
+		}
+		h := model.HazardsFromPresets(p.Hazards, p.Liquid.Class)
+		// Site-confirmed flags stay: the crew set them for this water.
+		h.Environmental = h.Environmental || ctx.Hazards.Environmental
+		h.Biohazard = h.Biohazard || ctx.Hazards.Biohazard
+		ctx.Hazards = h
+		ctx.Liquid = p.Liquid.Name
+	}
+	ctx.Strokes = m.st.plan.PumpStrokes
+	m.job.Checklist = m.job.Checklist.Rebuild(ctx)
+	m.touch()
+}
+
+// recompute runs model.Compute, words the plan once (present.Build) and
+// hands both to the panes. It is the only place the plan changes.
+func (m *Model) recompute() {
+	p := model.Compute(m.job, m.cat)
+	m.st.errs = p.FieldErrors
+	if p.OK() {
+		m.st.plan, m.st.hasPlan, m.st.stale = p, true, false
+		m.st.sheet = present.Build(p, m.job.Units, m.checklistHazards(p))
+		m.st.problem = ""
+		if m.lastGood == nil {
+			m.lastGood = map[model.FieldID]string{}
+		}
+		clear(m.lastGood)
+		for k, v := range m.job.Inputs {
+			m.lastGood[k] = v
+		}
+		m.planGen++
+	} else {
+		m.st.stale = true
+		if len(m.st.errs) == 0 && p.Err != nil {
+			m.st.errs = map[model.FieldID]error{model.FieldHoseID: p.Err}
+		}
+		m.st.problem = present.FirstProblem(m.st.errs)
+		if !m.st.hasPlan {
+			m.st.sheet = present.Build(p, m.job.Units, 0)
+		}
+	}
+	m.touch()
+}
+
+// checklistHazards are the hazards the checklist is built for: the liquid's
+// at its temperature and those the crew recorded for the site.
+func (m *Model) checklistHazards(p model.Plan) presets.Hazards {
+	h := p.Hazards
+	c := m.job.Checklist.Context.Hazards
+	for _, x := range []struct {
+		on  bool
+		tag presets.Hazard
+	}{{c.Flammable, presets.Flammable}, {c.Combustible, presets.Combustible}, {c.Toxic, presets.Toxic},
+		{c.Biohazard, presets.Biohazard}, {c.Environmental, presets.Environmental}, {c.Hot, presets.Hot},
+		{c.FreezingRisk, presets.FreezingRisk}, {c.Volatile, presets.Volatile}} {
+		if x.on {
+			h = h.With(x.tag)
+		}
+	}
+	return h
+}
+
+func (m *Model) toggleUnits() tea.Cmd {
+	sys := model.US
+	if m.job.Units == model.US {
+		sys = model.SI
+	}
+	m.job.SetUnits(sys)
+	m.job.AddLog(m.now(), "units switched to "+sys.String())
+	m.recompute()
+	m.flash = "units: " + sysName(sys) + "; what you typed keeps its unit"
+	return m.save()
+}
+
+func sysName(s model.System) string {
+	if s == model.US {
+		return "US (ft, in, psi, °F, gal)"
+	}
+	return "SI (m, mm, kPa, °C, L)"
+}
+
+// adopt takes a What-if cell as the job's hose.
+func (m *Model) adopt(a WhatIfAdoptMsg) tea.Cmd {
+	sys := m.job.Units
+	l := model.Format(model.DimLength, a.Length, sys)
+	d := model.Format(model.DimDiameter, a.Diameter, sys)
+	n := strconv.Itoa(max(a.Hoses, 1))
+	_ = m.job.Set(model.FieldHoseLength, l)
+	_ = m.job.Set(model.FieldHoseID, d)
+	_ = m.job.Set(model.FieldHoseCount, n)
+	m.job.AddLog(m.now(), "what-if: hose changed to "+n+" × "+d+" bore, "+l+" long")
+	m.recompute()
+	m.flash = "now using " + n + " × " + d + ", " + l + " (see the Hose pane)"
+	return m.save()
+}
+
+// mark records a checklist step's state with the time, logs it and saves.
+func (m *Model) mark(c ChecklistMarkMsg) tea.Cmd {
+	now := m.now()
+	if err := m.job.Checklist.Mark(c.ID, c.State, c.Reason, "", now); err != nil {
+		m.flash = err.Error()
+		return nil
+	}
+	text := "checklist: " + c.ID + " " + c.State.Label()
+	if c.Reason != "" {
+		text += " (" + c.Reason + ")"
+	}
+	m.job.AddLog(now, text)
+	if pr := m.job.Checklist.Progress(); pr.Total > 0 && pr.Pending == 0 && m.job.Closed.IsZero() {
+		// Every step is done, skipped with a reason, or not applicable.
+		m.job.Closed = now
+		m.job.AddLog(now, "job closed out: every checklist step marked; press w in the Log pane for the record")
+		m.flash = "job closed out: write the record with w in the Log pane (9)"
+	} else if pr.Pending > 0 && !m.job.Closed.IsZero() {
+		m.job.Closed = time.Time{} // a step was put back to do: the job is open again
+		m.job.AddLog(now, "job reopened: a checklist step is to do again")
+	}
+	if c.Current != "" {
+		m.job.Resume.StepID = c.Current
+		m.job.Resume.Step = m.job.Checklist.Index(c.Current)
+	}
+	m.touch()
+	return m.save()
+}
+
+// note replaces a checklist step's note.
+func (m *Model) note(n ChecklistNoteMsg) tea.Cmd {
+	if err := m.job.Checklist.SetNote(n.ID, n.Note); err != nil {
+		m.flash = err.Error()
+		return nil
+	}
+	m.touch()
+	return m.save()
+}
+
+// addReading records a level reading typed in the Log pane, stamped with the
+// root's clock, and refits the readings against the plan.
+func (m *Model) addReading(msg ReadingAddMsg) tea.Cmd {
+	now := m.now()
+	sys := m.job.Units
+	r, err := model.NewReading(msg.Text, sys, now, "")
+	if err != nil {
+		m.log.ReadingError("✗ " + err.Error())
+		return nil
+	}
+	if top, ok := m.tankTop(); ok && r.Level > top {
+		m.log.ReadingError("✗ level reading " + model.Format(model.DimLength, r.Level, sys) +
+			" is above the tank (" + model.Format(model.DimLength, top, sys) + ")")
+		return nil
+	}
+	m.job.Readings = append(m.job.Readings, r)
+	m.job.AddLog(now, "level reading "+model.Format(model.DimLength, r.Level, sys))
+	m.log.ReadingTaken()
+	m.log.SetSummary(readingsSummary(&m.job, nil, nil, m.loc()))
+	m.touch()
+	return tea.Batch(m.save(), m.refit())
+}
+
+// tankTop is the source tank's height when the plan has a tank.
+func (m *Model) tankTop() (float64, bool) {
+	if !m.st.hasPlan || m.st.plan.Tank == nil {
+		return 0, false
+	}
+	return float64(m.st.plan.Tank.Height()), true
+}
+
+// refit fits the job's readings against the last valid plan, as a command.
+func (m *Model) refit() tea.Cmd {
+	m.fitSeq++
+	p := m.st.plan
+	if len(m.job.Readings) < 2 || !m.st.hasPlan || p.Drain == nil {
+		m.fit, m.fitErr = nil, nil
+		if len(m.job.Readings) > 0 && (!m.st.hasPlan || p.Drain == nil) {
+			m.fitErr = errors.New("no drain plan to compare with: describe the tank in pane 4")
+		}
+		m.log.SetSummary(readingsSummary(&m.job, nil, m.fitErr, m.loc()))
+		return nil
+	}
+	return fitCmd(m.job.Readings, p.DrainIn, p.Siphon.Hose.KMinor(), m.fitSeq)
+}
+
+// fitted takes the fit of the readings when it is the latest one asked for.
+func (m *Model) fitted(msg fitMsg) {
+	if msg.seq != m.fitSeq {
+		return
+	}
+	m.fit, m.fitErr = nil, msg.err
+	if msg.err == nil {
+		f := msg.fit
+		m.fit = &f
+	}
+	m.log.SetSummary(readingsSummary(&m.job, m.fit, m.fitErr, m.loc()))
+}
+
+func (m *Model) recordWritten(msg recordWrittenMsg) tea.Cmd {
+	if msg.err != nil {
+		m.flash = "✗ record not written: " + msg.err.Error()
+		return nil
+	}
+	m.flash = "record written: " + strings.Join(msg.paths, ", ")
+	m.job.AddLog(m.now(), "job record written: "+strings.Join(msg.paths, ", "))
+	m.touch()
+	return m.save()
+}
+
+// loaded replaces the job with one opened from the job list.
+func (m *Model) loaded(msg jobLoadedMsg) tea.Cmd {
+	if msg.err != nil {
+		m.jobs.err = msg.err
+		return nil
+	}
+	m.jobs.open = false
+	m.job = msg.job
+	if m.job.Inputs == nil {
+		m.job.Inputs = map[model.FieldID]string{}
+	}
+	m.path = msg.path
+	m.markedAs = ""
+	m.st = screenState{job: &m.job}
+	m.shown = [paneCount]uint64{}
+	checklist := NewChecklistView(m.styles, m.keys)
+	*m.checklist = checklist
+	m.checklist.SetChecklist(m.job.Checklist)
+	m.checklist.SetCurrent(m.job.Resume.StepID)
+	m.resume()
+	m.recompute()
+	m.resize(m.width, m.height)
+	m.focusPanes()
+	return m.save()
+}
+
+// whatIfMsg carries a What-if grid computed in the background.
+type whatIfMsg struct {
+	seq   uint64
+	table WhatIfTable
+	ok    bool
+	err   error
+}
+
+// whatIfCmd computes the What-if grid for the present plan when the pane is
+// on screen and the plan changed since the last grid. The sweep is a few
+// dozen drain plans (several milliseconds), so it runs as a command tagged
+// with a counter; it captures copies of what it needs, never the model.
+func (m *Model) whatIfCmd() tea.Cmd {
+	on := m.focus == PaneWhatIf || (m.lay.Wide && m.lowerPane() == PaneWhatIf)
+	if !on || m.whatIfGen == m.planGen || !m.st.hasPlan {
+		return nil
+	}
+	m.whatIfGen = m.planGen
+	m.whatIfSeq++
+	seq := m.whatIfSeq
+	p := m.st.plan
+	in := p.DrainIn
+	if p.Drain == nil {
+		in = calc.DrainInput{Siphon: p.Siphon}
+	}
+	hasTank := p.Drain != nil
+	h := p.Siphon.Hose
+	hoses := p.Siphon.Hoses
+	return func() tea.Msg {
+		ls, ds := calc.AroundChoice(h.Length, h.Diameter)
+		g, err := calc.WhatIf(in, ls, ds)
+		if err != nil {
+			return whatIfMsg{seq: seq, err: err}
+		}
+		return whatIfMsg{seq: seq, ok: true, table: WhatIfFromGrid(g, float64(h.Length), float64(h.Diameter), hoses, hasTank)}
+	}
+}
+
+// whatIfReady takes a grid when it is for the latest plan.
+func (m *Model) whatIfReady(msg whatIfMsg) {
+	if msg.seq != m.whatIfSeq {
+		return
+	}
+	if msg.err != nil || !msg.ok {
+		m.whatif.ClearTable()
+		return
+	}
+	m.whatif.SetTable(msg.table)
+}

@@ -1,0 +1,187 @@
+package tui
+
+import (
+	"charm.land/bubbles/v2/key"
+	tea "charm.land/bubbletea/v2"
+)
+
+// key routes a key press: keys that work everywhere, the overlays, the
+// focused pane's own keys, the root's single-letter commands, and last the
+// focused pane again (a form's navigate-mode keys).
+func (m *Model) key(msg tea.KeyPressMsg) tea.Cmd {
+	m.flash = ""
+	k := m.keys
+	switch {
+	case key.Matches(msg, k.Quit):
+		return m.quit()
+	case key.Matches(msg, k.SaveNow):
+		return m.save()
+	case key.Matches(msg, k.UnitsAny):
+		return m.toggleUnits()
+	}
+	if m.showHelp {
+		if key.Matches(msg, k.Help, k.Leave, k.QuitNav) || msg.String() == "enter" {
+			m.showHelp = false
+		}
+		return nil
+	}
+	if m.jobs.open {
+		return m.jobKey(msg)
+	}
+	p := m.panes[m.focus]
+	if m.focus.isForm() {
+		return m.formKey(msg)
+	}
+	if p.Claims(msg) {
+		cmd, _ := p.Key(msg)
+		return cmd
+	}
+	if cmd, ok := m.command(msg); ok {
+		return cmd
+	}
+	cmd, _ := p.Key(msg)
+	if msg.Text != "" && !key.Matches(msg, k.Up, k.Down) {
+		m.flash = "“" + msg.Text + "” does nothing here. Keys: 1–4 forms, 5–9 views, ? all keys"
+	}
+	return cmd
+}
+
+// command runs the root's navigate-mode commands (single letters and the
+// pane keys); ok is false when the key is not one of them.
+func (m *Model) command(msg tea.KeyPressMsg) (tea.Cmd, bool) {
+	k := m.keys
+	switch {
+	case key.Matches(msg, k.QuitNav):
+		return m.quit(), true
+	case key.Matches(msg, k.Help):
+		m.showHelp = true
+		return nil, true
+	case key.Matches(msg, k.Units):
+		return m.toggleUnits(), true
+	case key.Matches(msg, k.Save):
+		m.flash = "saving now (every change is saved anyway)"
+		return m.save(), true
+	case key.Matches(msg, k.Open):
+		m.jobs.open = true
+		m.jobs.loading = true
+		return listJobsCmd(m.dir), true
+	case key.Matches(msg, k.NextPane):
+		return m.setFocus((m.focus + 1) % paneCount), true
+	case key.Matches(msg, k.PrevPane):
+		return m.setFocus((m.focus + paneCount - 1) % paneCount), true
+	}
+	for i, b := range k.PaneKeys {
+		if key.Matches(msg, b) {
+			return m.setFocus(PaneID(i)), true
+		}
+	}
+	return nil, false
+}
+
+// formKey handles a key in a form pane: field moves that run on into the
+// next form, typing, pickers, and the root's commands in navigate mode.
+func (m *Model) formKey(msg tea.KeyPressMsg) tea.Cmd {
+	k := m.keys
+	f := m.forms[m.focus]
+	switch {
+	case key.Matches(msg, k.NextField):
+		m.move(+1, true)
+		return m.saveResume()
+	case key.Matches(msg, k.PrevField):
+		m.move(-1, true)
+		return m.saveResume()
+	case key.Matches(msg, k.Leave):
+		if f.Editing() {
+			f.StopEditing()
+		} else {
+			m.flash = "navigate mode: press enter to type in the marked field"
+		}
+		return nil
+	}
+	picker := f.SelectedIsPicker()
+	if !picker && f.Editing() {
+		switch {
+		case msg.String() == "up":
+			m.move(-1, false)
+			return m.saveResume()
+		case msg.String() == "down":
+			m.move(+1, false)
+			return m.saveResume()
+		case key.Matches(msg, k.Edit):
+			f.StopEditing()
+			return nil
+		case key.Matches(msg, k.Restore):
+			return m.restoreField()
+		}
+		cmd, edit := f.Key(msg)
+		if edit != nil {
+			return tea.Batch(cmd, m.applyEdit(*edit))
+		}
+		return cmd
+	}
+	if cmd, ok := m.command(msg); ok {
+		return cmd
+	}
+	switch {
+	case key.Matches(msg, k.Up):
+		m.move(-1, false)
+		return m.saveResume()
+	case key.Matches(msg, k.Down):
+		m.move(+1, false)
+		return m.saveResume()
+	case !picker && key.Matches(msg, k.Edit):
+		f.StartEditing()
+		return nil
+	}
+	if picker {
+		if _, edit := f.Key(msg); edit != nil {
+			return m.applyEdit(*edit)
+		}
+		return nil
+	}
+	if msg.Text != "" {
+		m.flash = "not typing: press enter first to type in “" + f.Selected().Label + "”"
+	}
+	return nil
+}
+
+// move selects the next (+1) or previous (−1) field; with cross it runs on
+// into the next or previous form at either end (tab and shift-tab), else it
+// stops at the ends (↑/↓).
+func (m *Model) move(d int, cross bool) {
+	f := m.forms[m.focus]
+	editing := f.Editing()
+	if f.Move(d) || !cross {
+		return
+	}
+	f.StopEditing()
+	next := (int(m.focus) + d + formCount) % formCount
+	m.focus = PaneID(next)
+	m.focusPanes()
+	nf := m.forms[next]
+	if d > 0 {
+		nf.First()
+	} else {
+		nf.Last()
+	}
+	if editing {
+		nf.StartEditing()
+	}
+}
+
+// setFocus selects a pane.
+func (m *Model) setFocus(p PaneID) tea.Cmd {
+	if m.focus.isForm() {
+		m.forms[m.focus].StopEditing()
+	}
+	m.focus = p
+	if paneTable[p].lower {
+		m.lower = p
+	}
+	m.focusPanes()
+	var fit tea.Cmd
+	if p == PaneLog {
+		fit = m.refit() // the plan may have changed since the last fit
+	}
+	return tea.Batch(m.saveResume(), fit)
+}

@@ -1,0 +1,226 @@
+package tui
+
+import (
+	"strconv"
+	"strings"
+
+	"charm.land/bubbles/v2/key"
+	tea "charm.land/bubbletea/v2"
+)
+
+// Composing the screen: the layout for the terminal size, and View, which
+// only assembles what the panes drew in Update.
+
+// resize lays the panes out for a w×h terminal.
+func (m *Model) resize(w, h int) {
+	m.width, m.height = w, h
+	m.lay = newLayout(w, h)
+	l := m.lay
+	if l.TooSmall {
+		return
+	}
+	for _, f := range m.forms {
+		f.SetSize(l.Main.W, l.Main.H)
+	}
+	m.result.SetSize(l.Result.W, l.Result.H)
+	for i, p := range m.panes {
+		switch {
+		case PaneID(i).isForm():
+		case l.Wide && PaneID(i) == PaneSide:
+			p.SetSize(l.Side.W, l.Side.H)
+		case l.Wide:
+			p.SetSize(l.Lower.W, l.Lower.H)
+		default:
+			p.SetSize(l.Main.W, l.Main.H)
+		}
+	}
+	m.jobs.w, m.jobs.h = l.Main.W, l.Main.H
+	m.st.gen++ // every pane on screen draws again at its new size
+}
+
+// View draws the screen. It only formats what Update computed.
+func (m *Model) View() tea.View {
+	v := tea.NewView("")
+	v.AltScreen = true
+	v.WindowTitle = "drawdown"
+	if m.quitting {
+		return v
+	}
+	l := m.lay
+	if l.TooSmall {
+		v.SetContent(tooSmall(m.width, m.height))
+		return v
+	}
+	rows := make([]string, 0, l.H)
+	rows = append(rows, m.headerView(), m.tabsView())
+	if m.showHelp {
+		rows = append(rows, strings.Split(m.fullHelpView(l.W, l.H-3), "\n")...)
+	} else {
+		main := m.mainView()
+		res := m.result.View()
+		if l.Wide {
+			rows = append(rows, joinColumns(main, res, m.side.View())...)
+			rows = append(rows, strings.Split(m.panes[m.lowerPane()].View(), "\n")...)
+		} else {
+			rows = append(rows, joinColumns(main, res)...)
+		}
+	}
+	rows = append(rows, m.helpLine())
+	v.SetContent(strings.Join(rows, "\n"))
+	if c := m.cursor(); c != nil {
+		v.Cursor = c
+	}
+	return v
+}
+
+// mainView is the left block: the job list overlay, the focused pane, or on
+// a wide screen the last form.
+func (m *Model) mainView() string {
+	if m.jobs.open {
+		return m.jobs.View()
+	}
+	if m.lay.Wide && !m.focus.isForm() {
+		return m.forms[m.form].View()
+	}
+	return m.panes[m.focus].View()
+}
+
+// cursor is the real terminal cursor in the input being typed in.
+func (m *Model) cursor() *tea.Cursor {
+	if m.showHelp || m.jobs.open {
+		return nil
+	}
+	c := m.panes[m.focus].CursorPos()
+	if c == nil {
+		return nil
+	}
+	at := m.lay.Main
+	if m.lay.Wide && !m.focus.isForm() {
+		at = m.lay.Lower
+	}
+	c.X += at.X
+	c.Y += at.Y
+	c.Blink = false
+	return c
+}
+
+// typing reports whether keys go into a text input (letters are text).
+func (m *Model) typing() bool {
+	if m.jobs.open || m.showHelp {
+		return false
+	}
+	return m.panes[m.focus].Typing()
+}
+
+// headerView is the top line: program, job, units, save state and mode.
+func (m *Model) headerView() string {
+	st := m.styles
+	mode := st.fast.Mode.Render(" NAVIGATE ")
+	if m.typing() {
+		mode = st.fast.Mode.Render(" TYPING ")
+	}
+	var save string
+	switch {
+	case m.noSave:
+		save = st.fast.Warning.Render("! not saving")
+	case m.saveErr != nil:
+		save = st.fast.Danger.Render("✗ NOT SAVED")
+	case !m.lastSaved.IsZero():
+		// Kept while the next save runs (a few milliseconds): a mark that
+		// flickers on every keystroke costs bytes and says nothing.
+		save = st.fast.OK.Render("✓ saved")
+	default:
+		save = st.fast.Muted.Render("· unchanged")
+	}
+	right := st.fast.Title.Render(m.job.Units.String()) + "  " + save + " " + mode
+	left := st.fast.Title.Render("drawdown") + st.fast.Muted.Render(" · ")
+	room := m.lay.W - cellWidth(left) - cellWidth(right) - 1
+	name := m.job.Name
+	if name == "" {
+		name = "(unnamed job)"
+	}
+	left += st.fast.Value.Render(clip(name, max(room, 0)))
+	gap := max(m.lay.W-cellWidth(left)-cellWidth(right), 0)
+	return fitBlock([]string{left + strings.Repeat(" ", gap) + right}, m.lay.W, 1)
+}
+
+// tabsView is the pane selector: key and name, the selected one in inverse
+// (reverse) display and brackets (legible without colour).
+func (m *Model) tabsView() string {
+	st := m.styles
+	var b strings.Builder
+	for i := PaneID(0); i < paneCount; i++ {
+		if i == PaneSide {
+			b.WriteString(st.fast.Muted.Render("│"))
+		}
+		name := paneTable[i].name
+		if m.lay.W < 110 {
+			name = paneTable[i].short
+		}
+		label := m.keys.PaneKeys[i].Help().Key + " " + name
+		switch {
+		case i == m.focus:
+			b.WriteString(st.fast.TabActive.Render("[" + label + "]"))
+		case m.lay.Wide && i == m.lower:
+			b.WriteString(st.fast.Tab.Render("(" + label + ")"))
+		default:
+			b.WriteString(st.fast.Tab.Render(" " + label + " "))
+		}
+	}
+	return fitBlock([]string{b.String()}, m.lay.W, 1)
+}
+
+// helpLine is the one-line help for the present state, or a one-shot hint.
+func (m *Model) helpLine() string {
+	if m.flash != "" {
+		return fitBlock([]string{m.styles.fast.Warning.Render("! " + m.flash)}, m.lay.W, 1)
+	}
+	if m.saveErr != nil {
+		return fitBlock([]string{m.styles.fast.Danger.Render("✗ not saved: " + m.saveErr.Error())}, m.lay.W, 1)
+	}
+	var b []key.Binding
+	switch {
+	case m.showHelp:
+		b = []key.Binding{m.keys.CloseHelp}
+	case m.jobs.open:
+		b = m.jobs.ShortHelp()
+	default:
+		p := m.panes[m.focus]
+		b = p.ShortHelp()
+		if !p.Typing() && !m.focus.isForm() {
+			b = append(b, m.keys.navHelp(b)...)
+		}
+	}
+	return shortHelpLine(m.styles, b, m.lay.W)
+}
+
+// joinColumns puts blocks of equal height side by side, line by line.
+func joinColumns(blocks ...string) []string {
+	split := make([][]string, len(blocks))
+	n := 0
+	for i, b := range blocks {
+		split[i] = strings.Split(b, "\n")
+		n = max(n, len(split[i]))
+	}
+	out := make([]string, n)
+	for r := 0; r < n; r++ {
+		var sb strings.Builder
+		for _, s := range split {
+			if r < len(s) {
+				sb.WriteString(s[r])
+			}
+		}
+		out[r] = sb.String()
+	}
+	return out
+}
+
+// tooSmall is the whole screen when the terminal is below 80×24.
+func tooSmall(w, h int) string {
+	if w <= 0 || h <= 0 {
+		return ""
+	}
+	msg := "Terminal too small: need at least " + strconv.Itoa(MinWidth) + "×" + strconv.Itoa(MinHeight) +
+		", now " + strconv.Itoa(w) + "×" + strconv.Itoa(h) + ". Enlarge the window, or use drawdown calc. ctrl+c quits."
+	return fitBlock(wrapText(msg, w, h), w, h)
+}
