@@ -230,3 +230,44 @@ func TestFieldChoices(t *testing.T) {
 		t.Error("Validate on a picker accepted")
 	}
 }
+
+// TestAppliesOneRule: a field that does not apply to the job is never
+// blamed by Compute, however wrong its text, and the same field applies and
+// is blamed once the job needs it. The defect this guards against: the
+// form hid a field ("not used here") while Compute reported its error.
+func TestAppliesOneRule(t *testing.T) {
+	cases := []struct {
+		name   string
+		field  FieldID
+		edit   map[FieldID]string // makes the field apply
+		bad    string
+		applie bool
+	}{
+		{"stroke without a hand pump", FieldPumpStroke, map[FieldID]string{FieldPriming: string(PrimeSubmerge)}, "abc", false},
+		{"stroke with a hand pump", FieldPumpStroke, map[FieldID]string{FieldPriming: string(PrimeHandPump)}, "abc", true},
+		{"intake depth with a tank", FieldIntakeDepth, nil, "-3 m", false},
+		{"tank width of a cylinder", FieldTankWidth, map[FieldID]string{FieldTankShape: "vertical-cylinder", FieldTankDiameter: "2 m"}, "0 m", false},
+		{"tank depth of a horizontal cylinder", FieldTankHeight, map[FieldID]string{FieldTankShape: "horizontal-cylinder",
+			FieldTankDiameter: "2 m", FieldTankLength: "3 m", FieldTankLevel: "1 m"}, "0.1 m", false},
+		{"receiver size without a receiver", FieldReceiverDiameter, nil, "zzz", false},
+		{"tank width of a box", FieldTankWidth, nil, "0 m", true},
+	}
+	cat := presets.Builtin()
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			j := DemoJob()
+			for id, v := range c.edit {
+				j.Inputs[id] = v
+			}
+			j.Inputs[c.field] = c.bad
+			if got := Applies(j.Inputs, c.field); got != c.applie {
+				t.Fatalf("Applies = %v, want %v", got, c.applie)
+			}
+			p := Compute(j, cat)
+			_, blamed := p.FieldErrors[c.field]
+			if blamed != c.applie {
+				t.Errorf("blamed %v (errors %v), want %v", blamed, p.FieldErrors, c.applie)
+			}
+		})
+	}
+}

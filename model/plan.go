@@ -166,9 +166,12 @@ func (c *computer) fail(id FieldID, err error) {
 }
 
 // num reads a numeric field; ok is false (and the error recorded) when it is
-// missing or invalid. Optional fields that are empty return ok false with no
-// error.
+// missing or invalid. Optional fields that are empty, and fields that do not
+// apply to the job (Applies), return ok false with no error.
 func (c *computer) num(id FieldID) (float64, bool) {
+	if !Applies(c.in.Values, id) {
+		return 0, false
+	}
 	f, _ := FieldByID(id)
 	t := c.text(id)
 	if t == "" && f.Optional {

@@ -169,7 +169,7 @@ func (f *FormPane) SetJob(j *model.Job, errs map[model.FieldID]error) {
 	for i := range f.fields {
 		ff := &f.fields[i]
 		ff.raw = j.Inputs[ff.spec.ID]
-		ff.used = fieldUsed(j, ff.spec.ID)
+		ff.used = model.Applies(j.Inputs, ff.spec.ID)
 		if !ff.spec.IsPicker() && ff.input.Value() != ff.raw {
 			ff.input.SetValue(ff.raw)
 		}
@@ -285,64 +285,6 @@ func multiAdd(raw, id string, n int) string {
 		ids = append(ids, id)
 	}
 	return strings.Join(ids, ",")
-}
-
-// fieldUsed reports whether a field applies to the job as it stands: the
-// intake is a depth without a tank and a height with one; a tank's sizes
-// depend on its shape; the stroke volume matters for hand-pump priming.
-func fieldUsed(j *model.Job, id model.FieldID) bool {
-	shape := strings.ToLower(strings.TrimSpace(j.Inputs[model.FieldTankShape]))
-	tank := shape != "" && shape != "none"
-	has := func(size string) bool {
-		for _, s := range presets.ShapeSizes(shape) {
-			if s == size {
-				return true
-			}
-		}
-		return false
-	}
-	switch id {
-	case model.FieldIntakeDepth:
-		return !tank
-	case model.FieldIntakeHeight:
-		return tank
-	case model.FieldTankHeight, model.FieldTankLevel, model.FieldTankTarget:
-		return tank
-	case model.FieldTankDiameter:
-		return tank && has("diameter")
-	case model.FieldTankLength:
-		return tank && has("length")
-	case model.FieldTankWidth:
-		return tank && has("width")
-	case model.FieldTankCone:
-		return tank && has("cone-height")
-	case model.FieldTankSlope:
-		return tank && has("side-slope")
-	case model.FieldPumpStroke:
-		return strings.TrimSpace(j.Inputs[model.FieldPriming]) == string(model.PrimeHandPump)
-	case model.FieldReceiverShape:
-		return tank // a transfer needs the source tank described
-	case model.FieldReceiverDiameter, model.FieldReceiverLength, model.FieldReceiverWidth, model.FieldReceiverHeight,
-		model.FieldReceiverCone, model.FieldReceiverSlope, model.FieldReceiverFloor, model.FieldReceiverLevel:
-		rshape := strings.ToLower(strings.TrimSpace(j.Inputs[model.FieldReceiverShape]))
-		if !tank || rshape == "" || rshape == "none" {
-			return false
-		}
-		switch id {
-		case model.FieldReceiverFloor, model.FieldReceiverLevel:
-			return true
-		case model.FieldReceiverHeight:
-			return rshape != "horizontal-cylinder" && rshape != "sphere"
-		}
-		name := strings.TrimPrefix(string(id), "receiver.")
-		for _, s := range presets.ShapeSizes(rshape) {
-			if s == name {
-				return true
-			}
-		}
-		return false
-	}
-	return true
 }
 
 // Focused field and mode.
