@@ -10,6 +10,7 @@ import (
 	"time"
 
 	"drawdown/model"
+	"drawdown/model/record"
 )
 
 // runReport writes the job record: `drawdown report JOB [--out DIR]`. JOB
@@ -60,9 +61,9 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		return ExitError
 	}
 	cat := loadCatalogue(stderr)
-	in := model.ReportInput{Job: j, Plan: model.Compute(j, cat), Now: time.Now()}
+	in := record.Input{Job: j, Plan: model.Compute(j, cat), Now: time.Now()}
 	var md, csv bytes.Buffer
-	if err := model.WriteReport(&md, in); err != nil {
+	if err := record.Write(&md, in); err != nil {
 		fmt.Fprintln(stderr, "drawdown report: "+err.Error())
 		return ExitError
 	}
@@ -70,7 +71,7 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		stdout.Write(md.Bytes())
 		return ExitOK
 	}
-	if err := model.WriteReadingsCSV(&csv, in); err != nil {
+	if err := record.WriteCSV(&csv, in); err != nil {
 		fmt.Fprintln(stderr, "drawdown report: "+err.Error())
 		return ExitError
 	}

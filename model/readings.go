@@ -288,7 +288,7 @@ func FitReadings(readings []Reading, sim Simulator, opt FitOptions) (Fit, error)
 	// reading).
 	last := rs[len(rs)-1]
 	if c, err := sim(f.ExtraK, last.Level); err == nil && len(c.Times) > 0 {
-		f.Finish = last.At.Add(secondsDuration(c.End()))
+		f.Finish = last.At.Add(DurationOf(c.End()))
 		f.StopLevel = c.Levels[len(c.Levels)-1]
 		f.Stop = c.Stop
 		f.Stopped = c.End() <= 0 || last.Level-f.StopLevel <= stoppedFall
@@ -297,7 +297,7 @@ func FitReadings(readings []Reading, sim Simulator, opt FitOptions) (Fit, error)
 	}
 	if f.Stopped {
 		if c, err := sim(f.ExtraK, rs[0].Level); err == nil && len(c.Times) > 0 {
-			if end := rs[0].At.Add(secondsDuration(c.End())); end.Before(f.Finish) {
+			if end := rs[0].At.Add(DurationOf(c.End())); end.Before(f.Finish) {
 				f.Finish = end
 			}
 			if c.Stop != "" {
@@ -456,9 +456,9 @@ func goldenMin(f func(float64) float64, a, b, tol float64) (float64, float64) {
 // taken as "stopped" (below what a tape or rod resolves; our choice).
 const stoppedFall = 0.002
 
-// secondsDuration converts seconds to a Duration, saturating instead of
+// DurationOf converts seconds to a Duration, saturating instead of
 // overflowing (a drain of centuries is still a finite answer).
-func secondsDuration(s float64) time.Duration {
+func DurationOf(s float64) time.Duration {
 	const maxS = float64(math.MaxInt64/int64(time.Second)) - 1
 	switch {
 	case math.IsNaN(s) || s <= 0:

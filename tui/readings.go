@@ -11,6 +11,7 @@ import (
 
 	"drawdown/calc"
 	"drawdown/model"
+	"drawdown/model/record"
 )
 
 // Field readings and the job record, from the Log pane (issue: readings
@@ -50,12 +51,12 @@ func fitCmd(readings []model.Reading, in calc.DrainInput, sumK float64, seq uint
 // file (or in the current folder when the job is not saved), atomically.
 func recordCmd(j model.Job, p model.Plan, jobPath string, now time.Time) tea.Cmd {
 	return func() tea.Msg {
-		in := model.ReportInput{Job: j, Plan: p, Now: now}
+		in := record.Input{Job: j, Plan: p, Now: now}
 		var md, csv strings.Builder
-		if err := model.WriteReport(&md, in); err != nil {
+		if err := record.Write(&md, in); err != nil {
 			return recordWrittenMsg{err: err}
 		}
-		if err := model.WriteReadingsCSV(&csv, in); err != nil {
+		if err := record.WriteCSV(&csv, in); err != nil {
 			return recordWrittenMsg{err: err}
 		}
 		dir, base := ".", model.JobFileName(j.Name)

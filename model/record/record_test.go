@@ -1,4 +1,4 @@
-package model
+package record
 
 import (
 	"bytes"
@@ -12,6 +12,7 @@ import (
 	"testing"
 	"time"
 
+	"drawdown/model"
 	"drawdown/presets"
 )
 
@@ -28,44 +29,44 @@ var reportZone = time.FixedZone("GMT", 0)
 // through: checklist marked, the siphon started, level readings taken off
 // the plan with an extra loss of ΔK = 4 (a partly blinded strainer), and a
 // stop.
-func demoRecordJob(t *testing.T) (Job, Plan) {
+func demoRecordJob(t *testing.T) (model.Job, model.Plan) {
 	t.Helper()
-	j := DemoJob()
+	j := model.DemoJob()
 	cat := presets.Builtin()
-	p := Compute(j, cat)
+	p := model.Compute(j, cat)
 	if p.Err != nil || p.Drain == nil {
 		t.Fatalf("demo plan: %v", p.Err)
 	}
 	start := time.Date(2026, time.March, 14, 8, 10, 0, 0, time.UTC)
 	at := start.Add(-40 * time.Minute)
 	for i, s := range j.Checklist.Steps {
-		if s.Section == SectionRun {
+		if s.Section == model.SectionRun {
 			break
 		}
 		var err error
 		switch s.ID {
 		case "hazard.electrical":
-			err = j.Checklist.Mark(s.ID, StateNotApplicable, "no electrical equipment in or near the bund", "", at)
+			err = j.Checklist.Mark(s.ID, model.StateNotApplicable, "no electrical equipment in or near the bund", "", at)
 		case "setup.outlet-protection":
-			err = j.Checklist.Mark(s.ID, StateSkipped, "ditch bank already lined with riprap", "photo 14", at)
+			err = j.Checklist.Mark(s.ID, model.StateSkipped, "ditch bank already lined with riprap", "photo 14", at)
 		case "setup.inspect-before":
-			err = j.Checklist.Mark(s.ID, StateDone, "", "no sheen, no odour, clear; 07:58 AM", at)
+			err = j.Checklist.Mark(s.ID, model.StateDone, "", "no sheen, no odour, clear; 07:58 AM", at)
 		case "hazard.discharge":
-			err = j.Checklist.Mark(s.ID, StateDone, "", "site stormwater plan §4.2 (invented)", at)
+			err = j.Checklist.Mark(s.ID, model.StateDone, "", "site stormwater plan §4.2 (invented)", at)
 		default:
-			err = j.Checklist.Mark(s.ID, StateDone, "", "", at)
+			err = j.Checklist.Mark(s.ID, model.StateDone, "", "", at)
 		}
 		if err != nil {
 			t.Fatal(err)
 		}
 		at = at.Add(time.Duration(i%3+1) * time.Minute)
 	}
-	if err := j.Checklist.Mark("run.start", StateDone, "", "steady stream at the ditch", start); err != nil {
+	if err := j.Checklist.Mark("run.start", model.StateDone, "", "steady stream at the ditch", start); err != nil {
 		t.Fatal(err)
 	}
 	j.Started = start
 
-	sim := DrainSimulator(p.DrainIn)
+	sim := model.DrainSimulator(p.DrainIn)
 	truth, err := sim(4, float64(p.Siphon.Geometry.Surface))
 	if err != nil {
 		t.Fatal(err)
@@ -82,13 +83,13 @@ func demoRecordJob(t *testing.T) (Job, Plan) {
 		if k == 3 {
 			note = "water still clear"
 		}
-		j.Readings = append(j.Readings, Reading{At: start.Add(time.Duration(s) * time.Second), Level: lv, Note: note})
+		j.Readings = append(j.Readings, model.Reading{At: start.Add(time.Duration(s) * time.Second), Level: lv, Note: note})
 	}
 	stop := start.Add(62 * time.Minute)
-	if err := j.Checklist.Mark("stop.record", StateDone, "", "level 0.240 m", stop); err != nil {
+	if err := j.Checklist.Mark("stop.record", model.StateDone, "", "level 0.240 m", stop); err != nil {
 		t.Fatal(err)
 	}
-	if err := j.Checklist.Mark("closeout.signoff", StateDone, "", "A. Marsh; T. Okoro", stop.Add(20*time.Minute)); err != nil {
+	if err := j.Checklist.Mark("closeout.signoff", model.StateDone, "", "A. Marsh; T. Okoro", stop.Add(20*time.Minute)); err != nil {
 		t.Fatal(err)
 	}
 	j.AddLog(start.Add(-5*time.Minute), "Sheen check before release: none seen (A. Marsh)")
@@ -100,40 +101,40 @@ func TestReportGolden(t *testing.T) {
 	now := time.Date(2026, time.March, 14, 11, 0, 0, 0, reportZone)
 	cases := []struct {
 		name string
-		in   func(t *testing.T) ReportInput
+		in   func(t *testing.T) Input
 	}{
-		{"demo-si", func(t *testing.T) ReportInput {
+		{"demo-si", func(t *testing.T) Input {
 			j, p := demoRecordJob(t)
-			return ReportInput{Job: j, Plan: p, Now: now, Cautions: []string{"Demo job: invented names and figures."}}
+			return Input{Job: j, Plan: p, Now: now, Cautions: []string{"Demo job: invented names and figures."}}
 		}},
-		{"demo-us-no-readings", func(t *testing.T) ReportInput {
-			j := DemoJob()
-			j.SetUnits(US)
-			j.Checklist = j.Checklist.Rebuild(ChecklistContext{Liquid: "rainwater from an oil bund",
-				Hazards: Hazards{Environmental: true}, Method: PrimeHandPump, Discharge: DischargeStorm, Strokes: 46})
-			p := Compute(j, presets.Builtin())
-			return ReportInput{Job: j, Plan: p, Now: time.Date(2026, time.March, 14, 6, 0, 0, 0, time.FixedZone("EST", -5*3600))}
+		{"demo-us-no-readings", func(t *testing.T) Input {
+			j := model.DemoJob()
+			j.SetUnits(model.US)
+			j.Checklist = j.Checklist.Rebuild(model.ChecklistContext{Liquid: "rainwater from an oil bund",
+				Hazards: model.Hazards{Environmental: true}, Method: model.PrimeHandPump, Discharge: model.DischargeStorm, Strokes: 46})
+			p := model.Compute(j, presets.Builtin())
+			return Input{Job: j, Plan: p, Now: time.Date(2026, time.March, 14, 6, 0, 0, 0, time.FixedZone("EST", -5*3600))}
 		}},
-		{"bad-inputs", func(t *testing.T) ReportInput {
-			j := NewJob("Vault 7 | meter pit", SI, time.Date(2026, time.March, 2, 9, 0, 0, 0, time.UTC))
-			_ = j.Set(FieldHoseID, "0x10")
-			_ = j.Set(FieldHoseLength, "8 m")
-			_ = j.Set(FieldLiquid, "water")
+		{"bad-inputs", func(t *testing.T) Input {
+			j := model.NewJob("Vault 7 | meter pit", model.SI, time.Date(2026, time.March, 2, 9, 0, 0, 0, time.UTC))
+			_ = j.Set(model.FieldHoseID, "0x10")
+			_ = j.Set(model.FieldHoseLength, "8 m")
+			_ = j.Set(model.FieldLiquid, "water")
 			j.Notes = "# not a heading\nsecond line"
-			j.Checklist = BuildChecklist(ChecklistContext{Liquid: "groundwater", ConfinedSpace: true, Method: PrimeVacuum, Discharge: DischargeSewer})
-			j.Readings = []Reading{{At: time.Date(2026, time.March, 2, 9, 30, 0, 0, time.UTC), Level: 0.8}}
-			p := Compute(j, presets.Builtin())
-			return ReportInput{Job: j, Plan: p, Now: time.Date(2026, time.March, 2, 10, 0, 0, 0, time.UTC)}
+			j.Checklist = model.BuildChecklist(model.ChecklistContext{Liquid: "groundwater", ConfinedSpace: true, Method: model.PrimeVacuum, Discharge: model.DischargeSewer})
+			j.Readings = []model.Reading{{At: time.Date(2026, time.March, 2, 9, 30, 0, 0, time.UTC), Level: 0.8}}
+			p := model.Compute(j, presets.Builtin())
+			return Input{Job: j, Plan: p, Now: time.Date(2026, time.March, 2, 10, 0, 0, 0, time.UTC)}
 		}},
 	}
 	for _, tc := range cases {
 		t.Run(tc.name, func(t *testing.T) {
 			in := tc.in(t)
 			var md, cv bytes.Buffer
-			if err := WriteReport(&md, in); err != nil {
+			if err := Write(&md, in); err != nil {
 				t.Fatal(err)
 			}
-			if err := WriteReadingsCSV(&cv, in); err != nil {
+			if err := WriteCSV(&cv, in); err != nil {
 				t.Fatal(err)
 			}
 			checkGolden(t, filepath.Join("testdata", "report", tc.name+".md"), md.Bytes())
@@ -146,17 +147,17 @@ func TestReportGolden(t *testing.T) {
 // checkRecord checks what every record must hold whatever the figures
 // (field-practice §5.1–§5.2: entries stand alone with units, local time and
 // zone; the record does not authorise).
-func checkRecord(t *testing.T, in ReportInput, md string) {
+func checkRecord(t *testing.T, in Input, md string) {
 	t.Helper()
 	for _, bad := range []string{"NaN", "+Inf", "-Inf"} {
 		if strings.Contains(md, bad) {
 			t.Errorf("record contains %q", bad)
 		}
 	}
-	if !strings.Contains(md, recordDisclaimer) {
+	if !strings.Contains(md, presets.RecordDisclaimer) {
 		t.Error("closing line missing")
 	}
-	if !strings.HasSuffix(strings.TrimSpace(md), recordDisclaimer) {
+	if !strings.HasSuffix(strings.TrimSpace(md), presets.RecordDisclaimer) {
 		t.Error("the disclaimer is not the last line")
 	}
 	for _, s := range in.Job.Checklist.Steps {
@@ -225,7 +226,7 @@ func firstDiff(want, got string) string {
 func TestReadingsCSV(t *testing.T) {
 	j, p := demoRecordJob(t)
 	var b bytes.Buffer
-	if err := WriteReadingsCSV(&b, ReportInput{Job: j, Plan: p, Now: time.Date(2026, 3, 14, 12, 0, 0, 0, reportZone)}); err != nil {
+	if err := WriteCSV(&b, Input{Job: j, Plan: p, Now: time.Date(2026, 3, 14, 12, 0, 0, 0, reportZone)}); err != nil {
 		t.Fatal(err)
 	}
 	rows, err := csv.NewReader(&b).ReadAll()
@@ -262,7 +263,7 @@ func TestReadingsCSV(t *testing.T) {
 // TestFitOnPlannedDrain.
 func TestReportFitOnDemo(t *testing.T) {
 	j, p := demoRecordJob(t)
-	f, err := ReportInput{Job: j, Plan: p}.fit()
+	f, err := Input{Job: j, Plan: p}.fit()
 	if err != nil || f == nil {
 		t.Fatalf("fit: %v", err)
 	}
@@ -284,10 +285,10 @@ func (w *failWriter) Write(p []byte) (int, error) {
 
 func TestReportWriteError(t *testing.T) {
 	j, p := demoRecordJob(t)
-	if err := WriteReport(&failWriter{}, ReportInput{Job: j, Plan: p, Now: time.Unix(0, 0)}); err == nil {
+	if err := Write(&failWriter{}, Input{Job: j, Plan: p, Now: time.Unix(0, 0)}); err == nil {
 		t.Error("write error not reported")
 	}
-	if err := WriteReadingsCSV(&failWriter{}, ReportInput{Job: j, Plan: p, Now: time.Unix(0, 0)}); err == nil {
+	if err := WriteCSV(&failWriter{}, Input{Job: j, Plan: p, Now: time.Unix(0, 0)}); err == nil {
 		t.Error("CSV write error not reported")
 	}
 }
@@ -295,8 +296,8 @@ func TestReportWriteError(t *testing.T) {
 // A zero input writes a record that says what is missing, without a verdict.
 func TestReportZeroInput(t *testing.T) {
 	var b bytes.Buffer
-	in := ReportInput{Job: Job{Readings: []Reading{{At: time.Unix(1e9, 0), Level: 1}, {At: time.Unix(1e9+600, 0), Level: 0.9}}}}
-	if err := WriteReport(&b, in); err != nil {
+	in := Input{Job: model.Job{Readings: []model.Reading{{At: time.Unix(1e9, 0), Level: 1}, {At: time.Unix(1e9+600, 0), Level: 0.9}}}}
+	if err := Write(&b, in); err != nil {
 		t.Fatal(err)
 	}
 	md := b.String()
@@ -304,7 +305,7 @@ func TestReportZeroInput(t *testing.T) {
 		t.Errorf("zero plan record:\n%s", md)
 	}
 	checkRecord(t, in, md)
-	if err := WriteReadingsCSV(&b, in); err != nil {
+	if err := WriteCSV(&b, in); err != nil {
 		t.Fatal(err)
 	}
 }
@@ -314,7 +315,7 @@ func TestFmtDuration(t *testing.T) {
 		s    float64
 		want string
 	}{{0, "0 s"}, {45, "45 s"}, {600, "10 min"}, {7800, "2 h 10 min"}, {7200, "2 h"}, {3 * 86400, "3 d"}, {-1, "—"}} {
-		if got := FormatDuration(tc.s); got != tc.want {
+		if got := model.FormatDuration(tc.s); got != tc.want {
 			t.Errorf("FormatDuration(%g) = %q, want %q", tc.s, got, tc.want)
 		}
 	}

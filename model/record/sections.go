@@ -1,0 +1,225 @@
+package record
+
+import (
+	"drawdown/calc"
+	"drawdown/model"
+	"drawdown/model/present"
+	"drawdown/presets"
+	"fmt"
+	"strconv"
+	"strings"
+)
+
+func (rw *recWriter) inputs(j model.Job, p model.Plan) {
+	rw.line("## Inputs")
+	rw.line("")
+	rw.line("| Field | As typed | Value used |")
+	rw.line("| --- | --- | --- |")
+	n := 0
+	for _, f := range model.Fields() {
+		text := j.Text(f.ID)
+		if strings.TrimSpace(text) == "" {
+			continue
+		}
+		n++
+		used := ""
+		switch {
+		case p.FieldErrors[f.ID] != nil:
+			used = "not usable: " + p.FieldErrors[f.ID].Error()
+		case f.IsPicker():
+			used = text
+		default:
+			v, err := f.Validate(text, j.Units)
+			if err != nil {
+				used = "not usable: " + err.Error()
+			} else {
+				used = rw.f(f.Dim, v)
+			}
+		}
+		rw.row(f.Label, text, used)
+	}
+	if n == 0 {
+		rw.row("(nothing typed)", "", "")
+	}
+	rw.line("")
+	if len(p.Notes) > 0 {
+		rw.line("Assumed by the tool:")
+		rw.line("")
+		for _, s := range p.Notes {
+			rw.line("- " + mdText(s))
+		}
+		rw.line("")
+	}
+}
+
+func (rw *recWriter) plan(p model.Plan) {
+	rw.line("## Plan")
+	rw.line("")
+	if p.Err != nil {
+		rw.line("No plan could be computed: " + mdText(p.Err.Error()) + ".")
+		rw.line("")
+		return
+	}
+	if !planComputed(p) {
+		rw.line("No plan was given with this record.")
+		rw.line("")
+		return
+	}
+	r := p.Result
+	rw.line("| Item | Value |")
+	rw.line("| --- | --- |")
+	v := present.VerdictOf(r)
+	verdict := v.Word
+	if v.Reason != "" {
+		verdict += ": " + v.Reason
+	}
+	rw.row("Verdict", verdict)
+	baro := " (standard atmosphere at the site altitude)"
+	if p.FromBaro {
+		baro = " (barometer reading)"
+	}
+	rw.row("Barometric pressure", rw.f(model.DimPressure, float64(p.AtmPressure))+baro)
+	if r.Verdict != calc.WillNotRun {
+		flow := rw.f(model.DimFlow, float64(r.Flow))
+		if p.FlowLow > 0 && p.FlowHigh > 0 {
+			flow += " (range " + rw.f(model.DimFlow, float64(p.FlowLow)) + " to " + rw.f(model.DimFlow, float64(p.FlowHigh)) + ")"
+		}
+		rw.row("Flow at the start", flow)
+		rw.row("Flow regime", r.Regime.String())
+	}
+	rw.row("Driving head (drop)", rw.f(model.DimLength, float64(r.Head)))
+	rw.row("Working crest height above the surface", rw.f(model.DimLength, float64(r.WorkingCrestHeight)))
+	rw.row("Crest margin (working height less lift)", rw.f(model.DimLength, float64(r.CrestMargin)))
+	rw.row("Hose volume to prime", rw.f(model.DimVolume, float64(r.PrimingVolume)))
+	if p.PumpStrokes > 0 {
+		rw.row("Hand-pump strokes to prime", strconv.Itoa(p.PumpStrokes))
+	}
+	if d := p.Drain; d != nil {
+		tm := present.Duration(float64(d.Time))
+		if p.TimeLow > 0 && p.TimeHigh > 0 {
+			tm += " (range " + present.Duration(float64(p.TimeLow)) + " to " + present.Duration(float64(p.TimeHigh)) + ")"
+		}
+		rw.row("Start level", rw.f(model.DimLength, float64(p.Siphon.Geometry.Surface)))
+		rw.row("Time to the stop", tm)
+		rw.row("Stop level", rw.f(model.DimLength, float64(d.StopLevel)))
+		rw.row("Stop reason", present.StopLong(d.StopReason))
+		rw.row("Volume to move", rw.f(model.DimVolume, float64(d.Volume)))
+		rw.row("Volume left in the source", rw.f(model.DimVolume, float64(d.Residual)))
+	}
+	rw.line("")
+}
+
+// planComputed tells a Plan from Compute (which always sets at least one
+// hose) from a zero Plan.
+func planComputed(p model.Plan) bool { return p.Err == nil && p.Siphon.Hoses >= 1 }
+
+func (rw *recWriter) warnings(p model.Plan) {
+	rw.line("## Warnings")
+	rw.line("")
+	var ws []present.Warning
+	if planComputed(p) {
+		ws = present.WarningsOf(p.Result, present.Figures{Sys: rw.sys})
+	}
+	if len(ws) == 0 {
+		rw.line("None from the plan.")
+	}
+	for _, w := range ws {
+		rw.line("- " + w.Status.Symbol() + " " + mdText(w.Long))
+	}
+	rw.line("")
+}
+
+func (rw *recWriter) checklist(c model.Checklist) {
+	rw.line("## Checklist")
+	rw.line("")
+	if len(c.Steps) == 0 {
+		rw.line("No checklist was built for this job.")
+		rw.line("")
+		return
+	}
+	pr := c.Progress()
+	rw.line(fmt.Sprintf("%d of %d steps marked: %d done, %d skipped, %d not applicable, %d still to do.",
+		pr.Marked(), pr.Total, pr.Done, pr.Skipped, pr.NotApplicable, pr.Pending))
+	rw.line("")
+	for _, sec := range model.Sections() {
+		first := true
+		for i, s := range c.Steps {
+			if s.Section != sec {
+				continue
+			}
+			if first {
+				rw.line("### " + sec.Title())
+				rw.line("")
+				rw.line("| # | Step | State | Time | Reason / note |")
+				rw.line("| --- | --- | --- | --- | --- |")
+				first = false
+			}
+			rw.row(strconv.Itoa(i+1), s.Text, stateWord(s.State), rw.clock(s.At), reasonNote(s))
+		}
+		if !first {
+			rw.line("")
+		}
+	}
+	if len(c.Dropped) > 0 {
+		rw.line("### Steps marked earlier that no longer apply")
+		rw.line("")
+		rw.line("(The liquid or method changed after these were marked.)")
+		rw.line("")
+		rw.line("| Step | State | Time | Reason / note |")
+		rw.line("| --- | --- | --- | --- |")
+		for _, s := range c.Dropped {
+			rw.row(s.Text, stateWord(s.State), rw.clock(s.At), reasonNote(s))
+		}
+		rw.line("")
+	}
+}
+
+func stateWord(s model.StepState) string {
+	if s == "" {
+		return model.StatePending.Label()
+	}
+	return s.Label()
+}
+
+func reasonNote(s model.Step) string {
+	var parts []string
+	if s.Reason != "" {
+		parts = append(parts, "reason: "+s.Reason)
+	}
+	if s.Note != "" {
+		parts = append(parts, "note: "+s.Note)
+	}
+	return strings.Join(parts, "; ")
+}
+
+func (rw *recWriter) cautions(r Input, p model.Plan) {
+	rw.line("## Cautions shown")
+	rw.line("")
+	seen := map[string]bool{}
+	add := func(text, rule string) {
+		text = strings.TrimSpace(text)
+		if text == "" || seen[text] {
+			return
+		}
+		seen[text] = true
+		if rule != "" && rule != "common practice" {
+			text += " (" + rule + ")"
+		}
+		rw.line("- " + mdText(text))
+	}
+	if planComputed(p) {
+		for _, c := range present.Cautions(p) {
+			add(c, "")
+		}
+	} else {
+		add(presets.NeverByMouth, "")
+	}
+	for _, c := range r.Cautions {
+		add(c, "")
+	}
+	for _, s := range r.Job.Checklist.Steps {
+		add(s.Caution, s.Rule)
+	}
+	add(presets.DeferLocal, "")
+	rw.line("")
+}
