@@ -14,7 +14,6 @@ import (
 	"drawdown/presets"
 )
 
-
 // Input is everything a record is written from.
 type Input struct {
 	Job  model.Job
