@@ -1,8 +1,9 @@
 package model
 
 import (
-	"drawdown/presets"
 	"strings"
+
+	"drawdown/presets"
 )
 
 // Applies reports whether field id bears on a job whose inputs are values:

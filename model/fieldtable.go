@@ -1,9 +1,10 @@
 package model
 
 import (
+	"strings"
+
 	"drawdown/calc"
 	"drawdown/presets"
-	"strings"
 )
 
 const (

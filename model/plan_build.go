@@ -4,11 +4,12 @@ package model
 // tank and a receiving vessel, and the drain plan.
 
 import (
-	"drawdown/calc"
-	"drawdown/presets"
 	"errors"
 	"math"
 	"strings"
+
+	"drawdown/calc"
+	"drawdown/presets"
 )
 
 // fittings sums the chosen fittings' K by where they sit, or takes the ΣK

@@ -1,9 +1,10 @@
 package model
 
 import (
-	"drawdown/calc"
 	"errors"
 	"strings"
+
+	"drawdown/calc"
 )
 
 // fieldFor maps a calc error to the field a technician must change.

@@ -1,12 +1,13 @@
 package record
 
 import (
-	"drawdown/model"
 	"encoding/csv"
 	"io"
 	"math"
 	"strconv"
 	"time"
+
+	"drawdown/model"
 )
 
 // WriteCSV writes the job's level readings and the planned curve as

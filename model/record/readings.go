@@ -1,13 +1,14 @@
 package record
 
 import (
-	"drawdown/calc"
-	"drawdown/model"
-	"drawdown/model/present"
 	"fmt"
 	"strconv"
 	"strings"
 	"time"
+
+	"drawdown/calc"
+	"drawdown/model"
+	"drawdown/model/present"
 )
 
 func (rw *recWriter) readings(j model.Job, p model.Plan, start time.Time, fit *model.Fit, fitErr error) {

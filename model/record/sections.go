@@ -1,13 +1,14 @@
 package record
 
 import (
+	"fmt"
+	"strconv"
+	"strings"
+
 	"drawdown/calc"
 	"drawdown/model"
 	"drawdown/model/present"
 	"drawdown/presets"
-	"fmt"
-	"strconv"
-	"strings"
 )
 
 func (rw *recWriter) inputs(j model.Job, p model.Plan) {
