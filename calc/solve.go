@@ -45,8 +45,9 @@ const (
 //
 // where the 1 is the velocity head leaving a free outlet (or the exit loss
 // K = 1 into a receiving surface), ΣK = K_entrance + K_up-leg + K_down-leg,
-// and f = FrictionFactor(ρVD/μ, ε/D). N identical hoses in parallel share H;
-// the total flow is N·V·πD²/4. The equation is solved for V by fixed-point
+// and f = friction(ρVD/μ, ε/D) (see friction.go: Hagen–Poiseuille,
+// Colebrook–White, and a shifted Churchill curve between). N identical hoses
+// in parallel share H; the total flow is N·V·πD²/4. The equation is solved for V by fixed-point
 // branch: closed form when laminar, Newton's method on 1/√f when turbulent,
 // bracketing in the transition (see solveVelocity); the result satisfies the
 // energy equation to about 1e-12 relative.
@@ -209,7 +210,8 @@ func Solve(s Siphon) (Result, error) {
 //   - otherwise the root lies in 2000 < Re < 4000 and is bracketed there;
 //     the Illinois variant of regula falsi finds it.
 //
-// It returns V, the Darcy f and Re.
+// It returns V, the Darcy f and Re; f is friction at that Re, the same
+// function the friction checks test.
 func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 	twoGH := 2 * StandardGravity * H
 	A := 1 + k
@@ -220,7 +222,7 @@ func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 	bl := 64 * B / c
 	V = 2 * twoGH / (bl + math.Sqrt(bl*bl+4*A*twoGH))
 	if re = c * V; re <= ReLaminarMax {
-		return V, 64 / re, re
+		return V, friction(re, rr, 0), re
 	}
 	// Above Re 2000 the transitional f exceeds 64/Re, so the laminar root
 	// is an upper bound for the transitional one.
@@ -240,13 +242,16 @@ func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 		if x <= 0 {
 			x = 1e-3
 		}
-		if math.Abs(d) <= 1e-14*x {
+		// Newton converges quadratically: after a step of 1e-7·x the
+		// error left is of order 1e-14·x, and friction() below confirms
+		// x against Colebrook–White itself.
+		if math.Abs(d) <= 1e-7*x {
 			break
 		}
 	}
 	V = math.Sqrt(twoGH / (A + B/(x*x)))
 	if re = c * V; re >= ReTurbulentMin {
-		return V, 1 / (x * x), re
+		return V, friction(re, rr, x), re
 	}
 
 	// Transitional band: Illinois regula falsi on V. Colebrook–White lies
@@ -291,6 +296,7 @@ func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 		}
 	}
 	re = c * V
+	// friction(re, rr, 0) in this band, with the shift already computed
 	return V, transitionFriction(re, rr, lo, hi), re
 }
 

@@ -3,6 +3,8 @@ package calc
 import (
 	"math"
 	"testing"
+
+	"drawdown/calc/testkit"
 )
 
 // TestAroundChoice: neighbouring standard hose bores (13 … 150 mm, common
@@ -73,7 +75,7 @@ func TestWhatIfProperties(t *testing.T) {
 	}
 	// the centre cell is the plan itself
 	p, _ := PlanDrain(in)
-	if c := g.Cells[3][2]; !tkNear(float64(c.Time), float64(p.Time), 1e-7) || c.StopReason != p.StopReason {
+	if c := g.Cells[3][2]; !testkit.Within(float64(c.Time), float64(p.Time), 1e-7) || c.StopReason != p.StopReason {
 		t.Errorf("centre cell %+v, plan %g s %s", c, p.Time, p.StopReason)
 	}
 	// without a tank: flow only
@@ -82,7 +84,7 @@ func TestWhatIfProperties(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if c := g2.Cells[3][2]; c.Time != 0 || !tkNear(float64(c.Flow), float64(p.StartFlow), 1e-12) {
+	if c := g2.Cells[3][2]; c.Time != 0 || !testkit.Within(float64(c.Flow), float64(p.StartFlow), 1e-12) {
 		t.Errorf("flow-only centre cell %+v", c)
 	}
 	// an invalid alternative is marked, not fatal: an up-leg longer than the hose
