@@ -198,7 +198,7 @@ type planner struct {
 
 func (p *planner) init(in *DrainInput, points int) error {
 	if in.Tank == nil {
-		return &RangeError{Quantity: "source tank", Err: ErrNoTank, Unit: "", Min: math.Inf(-1), Max: math.Inf(1),
+		return &RangeError{What: QuantitySourceTank, Quantity: "source tank", Err: ErrNoTank, Unit: "", Min: math.Inf(-1), Max: math.Inf(1),
 			Note: "a drain plan needs the tank's shape and size"}
 	}
 	p.s = in.Siphon
@@ -206,11 +206,11 @@ func (p *planner) init(in *DrainInput, points int) error {
 	p.eps = float64(EqualHead)
 	top := float64(in.Tank.Height())
 	g := in.Siphon.Geometry
-	if err := checkPositive("start level", float64(g.Surface), top, "m"); err != nil {
+	if err := checkPositive(QuantityStartLevel, "start level", float64(g.Surface), top, "m"); err != nil {
 		return err
 	}
 	p.h0 = float64(g.Surface)
-	if err := checkRange("intake height", float64(g.Intake), 0, p.h0, "m"); err != nil {
+	if err := checkRange(QuantityIntake, "intake height", float64(g.Intake), 0, p.h0, "m"); err != nil {
 		if re, ok := err.(*RangeError); ok && g.Intake > g.Surface {
 			re.Err = ErrGeometry
 			re.Note = "the intake must be below the start level"
@@ -218,11 +218,11 @@ func (p *planner) init(in *DrainInput, points int) error {
 		return err
 	}
 	if in.Target != 0 {
-		if err := checkRange("target level", float64(in.Target), 0, p.h0, "m"); err != nil {
+		if err := checkRange(QuantityTarget, "target level", float64(in.Target), 0, p.h0, "m"); err != nil {
 			return err
 		}
 		if in.Target >= g.Surface {
-			return &RangeError{Quantity: "target level", Value: float64(in.Target), Min: 0, Max: p.h0, Unit: "m",
+			return &RangeError{What: QuantityTarget, Quantity: "target level", Value: float64(in.Target), Min: 0, Max: p.h0, Unit: "m",
 				Err: ErrOutOfRange, Note: "the target must be below the start level"}
 		}
 		p.target = float64(in.Target)
@@ -235,7 +235,7 @@ func (p *planner) init(in *DrainInput, points int) error {
 	case points < 0: // internal: no curve
 		p.points = 0
 	default:
-		if err := checkRange("curve points", float64(points), 2, MaxCurvePoints, ""); err != nil {
+		if err := checkRange(QuantityCurvePoints, "curve points", float64(points), 2, MaxCurvePoints, ""); err != nil {
 			return err
 		}
 		p.points = points
@@ -246,13 +246,13 @@ func (p *planner) init(in *DrainInput, points int) error {
 	p.vs0 = float64(in.Tank.Volume(g.Surface))
 	if r := in.Receiver; r != nil {
 		if r.Tank == nil {
-			return &RangeError{Quantity: "receiving tank", Err: ErrNoTank, Min: math.Inf(-1), Max: math.Inf(1),
+			return &RangeError{What: QuantityReceiverTank, Quantity: "receiving tank", Err: ErrNoTank, Min: math.Inf(-1), Max: math.Inf(1),
 				Note: "a transfer needs the receiver's shape and size"}
 		}
-		if err := checkRange("receiver floor elevation", float64(r.Floor), -MaxElevation, MaxElevation, "m"); err != nil {
+		if err := checkRange(QuantityReceiverFloor, "receiver floor elevation", float64(r.Floor), -MaxElevation, MaxElevation, "m"); err != nil {
 			return err
 		}
-		if err := checkRange("receiver level", float64(r.Level), 0, float64(r.Tank.Height()), "m"); err != nil {
+		if err := checkRange(QuantityReceiverLevel, "receiver level", float64(r.Level), 0, float64(r.Tank.Height()), "m"); err != nil {
 			return err
 		}
 		p.hasRcv = true

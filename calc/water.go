@@ -80,7 +80,7 @@ var region4N = [10]float64{
 // Formulation 1997 for the Thermodynamic Properties of Water and Steam,
 // http://www.iapws.org/relguide/IF97-Rev.html (URL from memory).
 func WaterSaturationPressure(T Temperature) (Pressure, error) {
-	if err := checkRange("water temperature", float64(T), waterMinTemperature, waterCriticalTemperature, "K"); err != nil {
+	if err := checkRange(QuantityTemperature, "water temperature", float64(T), waterMinTemperature, waterCriticalTemperature, "K"); err != nil {
 		return 0, err
 	}
 	return Pressure(waterSatPressure(float64(T))), nil
@@ -343,10 +343,10 @@ func waterMu(T, rho float64) float64 {
 //
 // Water does not allocate unless it returns an error.
 func Water(T Temperature, p Pressure) (Fluid, error) {
-	if err := checkRange("water temperature", float64(T), waterMinTemperature, waterToolMaxTemperature, "K"); err != nil {
+	if err := checkRange(QuantityTemperature, "water temperature", float64(T), waterMinTemperature, waterToolMaxTemperature, "K"); err != nil {
 		return Fluid{}, err
 	}
-	if err := checkPositive("absolute pressure", float64(p), waterRegion1MaxPressure, "Pa"); err != nil {
+	if err := checkPositive(QuantityAtmPressure, "absolute pressure", float64(p), waterRegion1MaxPressure, "Pa"); err != nil {
 		return Fluid{}, err
 	}
 	t, pp := float64(T), float64(p)
@@ -367,14 +367,14 @@ func Water(T Temperature, p Pressure) (Fluid, error) {
 func waterBoilingError(T, p, pv float64) error {
 	if p < waterMinSaturationPressure {
 		return &RangeError{
-			Quantity: "absolute pressure", Value: p, Min: pv, Max: waterRegion1MaxPressure, Unit: "Pa",
+			What: QuantityAtmPressure, Quantity: "absolute pressure", Value: p, Min: pv, Max: waterRegion1MaxPressure, Unit: "Pa",
 			Err:  ErrBoiling,
 			Note: "water at " + waterNum(T) + " K boils below its vapour pressure " + waterNum(pv) + " Pa",
 		}
 	}
 	ts := math.Min(waterSatTemperature(p), T)
 	return &RangeError{
-		Quantity: "water temperature", Value: T, Min: waterMinTemperature, Max: ts, Unit: "K",
+		What: QuantityTemperature, Quantity: "water temperature", Value: T, Min: waterMinTemperature, Max: ts, Unit: "K",
 		Err:  ErrBoiling,
 		Note: "water boils at " + waterNum(ts) + " K under " + waterNum(p) + " Pa",
 	}

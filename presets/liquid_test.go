@@ -561,3 +561,47 @@ func TestLiquidComparable(t *testing.T) {
 		}
 	}
 }
+
+// TestRangeErrorsNameTheirQuantity: every *calc.RangeError presets builds
+// carries a typed What (never calc.QuantityUnknown), so no caller needs to
+// read its message; errors.Is finds the sentinel. Source: calc's error
+// contract (calc/errors.go; issue 10).
+func TestRangeErrorsNameTheirQuantity(t *testing.T) {
+	c := Builtin()
+	d, _ := c.Liquid("diesel")
+	w, _ := c.Liquid("water")
+	g, _ := c.Liquid("gasoline")
+	nan := math.NaN()
+	cases := []struct {
+		name string
+		err  error
+		what calc.Quantity
+		is   error
+	}{
+		{"diesel too cold", second(d.Fluid(calc.Celsius(-30), 101325)), calc.QuantityTemperature, calc.ErrOutOfRange},
+		{"diesel T NaN", second(d.Fluid(calc.Temperature(nan), 101325)), calc.QuantityTemperature, calc.ErrNotFinite},
+		{"pressure zero", second(d.Fluid(calc.Celsius(20), 0)), calc.QuantityAtmPressure, calc.ErrOutOfRange},
+		{"pressure NaN", second(d.Fluid(calc.Celsius(20), calc.Pressure(nan))), calc.QuantityAtmPressure, calc.ErrNotFinite},
+		{"water boils", second(w.Fluid(calc.Celsius(100), 101325)), calc.QuantityTemperature, calc.ErrBoiling},
+		{"gasoline boils", second(g.Fluid(calc.Celsius(40), 101325)), calc.QuantityTemperature, calc.ErrBoiling},
+		{"barb ratio", second(BarbK(1.2)), calc.QuantityBarbRatio, calc.ErrOutOfRange},
+		{"barb ratio NaN", second(BarbK(nan)), calc.QuantityBarbRatio, calc.ErrNotFinite},
+		{"salinity", second(Seawater(-1)), calc.QuantitySalinity, calc.ErrOutOfRange},
+		{"salinity Inf", second(Seawater(math.Inf(1))), calc.QuantitySalinity, calc.ErrNotFinite},
+		{"Reid vapour pressure", second(Gasoline(200)), calc.QuantityReidVaporPressure, calc.ErrOutOfRange},
+		{"Reid vapour pressure NaN", second(Gasoline(nan)), calc.QuantityReidVaporPressure, calc.ErrNotFinite},
+	}
+	for _, c := range cases {
+		var re *calc.RangeError
+		if !errors.As(c.err, &re) {
+			t.Errorf("%s: %v is not a *calc.RangeError", c.name, c.err)
+			continue
+		}
+		if re.What == calc.QuantityUnknown || re.What != c.what || !errors.Is(c.err, c.is) {
+			t.Errorf("%s: What %v, want %v; errors.Is(%v) %v", c.name, re.What, c.what, c.is, errors.Is(c.err, c.is))
+		}
+	}
+}
+
+// second returns the error of a (value, error) pair.
+func second[T any](_ T, err error) error { return err }
