@@ -66,7 +66,7 @@ const (
 // NASA-TM-X-74335, https://ntrs.nasa.gov/citations/19770009539; equation
 // numbers as given by a secondary reading of the document.
 func StandardAtmosphere(z Length) (Pressure, error) {
-	if err := checkRange("altitude", float64(z), float64(MinSiteAltitude), float64(MaxSiteAltitude), "m"); err != nil {
+	if err := checkRange(QuantityAltitude, "altitude", float64(z), float64(MinSiteAltitude), float64(MaxSiteAltitude), "m"); err != nil {
 		return 0, err
 	}
 	zz := float64(z)

@@ -4,6 +4,8 @@ import (
 	"errors"
 	"math"
 	"testing"
+
+	"drawdown/calc/testkit"
 )
 
 // Sources; tags as in shared/reference/water-and-atmosphere.md (see
@@ -104,9 +106,8 @@ func TestStandardAtmosphereFormula(t *testing.T) {
 		if err != nil {
 			t.Fatalf("%s: unexpected error %v (%s)", tc.name, err, tc.source)
 		}
-		if !waterClose(float64(got), tc.want, tc.tol, false) {
-			t.Errorf("%s: p = %.4f Pa, want %.4f ±%g Pa (%s)", tc.name, float64(got), tc.want, tc.tol, tc.source)
-		}
+		// tol is absolute, in Pa: over |want| for the one rule
+		testkit.Close(t, tc.name+": p (Pa)", float64(got), tc.want, tc.tol/tc.want, tc.source)
 	}
 }
 

@@ -76,7 +76,7 @@ func bandCases(s Siphon, tol Tolerance) (slow, fast Siphon, dz float64, err erro
 	if dz == 0 {
 		dz = float64(DefaultHeightTolerance)
 	}
-	if err = checkRange("height tolerance", dz, 0, 10, "m"); err != nil {
+	if err = checkRange(QuantityHeightTolerance, "height tolerance", dz, 0, 10, "m"); err != nil {
 		return
 	}
 	eLo, eHi := float64(tol.RoughnessLow), float64(tol.RoughnessHigh)
@@ -88,10 +88,10 @@ func bandCases(s Siphon, tol Tolerance) (slow, fast Siphon, dz float64, err erro
 		}
 	}
 	maxE := MaxRelativeRoughness * float64(s.Hose.Diameter)
-	if err = checkRange("roughness, low end", eLo, 0, maxE, "m"); err != nil {
+	if err = checkRange(QuantityRoughnessRange, "roughness, low end", eLo, 0, maxE, "m"); err != nil {
 		return
 	}
-	if err = checkRange("roughness, high end", eHi, eLo, math.Inf(1), "m"); err != nil {
+	if err = checkRange(QuantityRoughnessRange, "roughness, high end", eHi, eLo, math.Inf(1), "m"); err != nil {
 		return
 	}
 	eHi = math.Min(eHi, maxE*0.999)
@@ -100,10 +100,10 @@ func bandCases(s Siphon, tol Tolerance) (slow, fast Siphon, dz float64, err erro
 	if kLo == 0 && kHi == 0 {
 		kLo, kHi = k, KFactorHigh*k
 	}
-	if err = checkRange("fittings ΣK, low end", kLo, 0, MaxK, ""); err != nil {
+	if err = checkRange(QuantityKRange, "fittings ΣK, low end", kLo, 0, MaxK, ""); err != nil {
 		return
 	}
-	if err = checkRange("fittings ΣK, high end", kHi, kLo, 3*MaxK, ""); err != nil {
+	if err = checkRange(QuantityKRange, "fittings ΣK, high end", kHi, kLo, 3*MaxK, ""); err != nil {
 		return
 	}
 	scaleK := func(h *Hose, target float64) {

@@ -4,6 +4,8 @@ import (
 	"errors"
 	"math"
 	"testing"
+
+	"drawdown/calc/testkit"
 )
 
 // TestFlowBandBrackets: the slow and fast cases bracket the nominal flow, and
@@ -30,7 +32,7 @@ func TestFlowBandBrackets(t *testing.T) {
 	slow.Hose.KEntrance *= 1.5
 	slow.Hose.KDownLeg *= 1.5
 	rs, _ := Solve(slow)
-	if !tkNear(float64(lo), float64(rs.Flow), 1e-12) {
+	if !testkit.Within(float64(lo), float64(rs.Flow), 1e-12) {
 		t.Errorf("low flow %g, slow case by hand %g", lo, rs.Flow)
 	}
 	// A tighter tolerance gives a narrower band.

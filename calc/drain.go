@@ -3,55 +3,7 @@ package calc
 import (
 	"errors"
 	"math"
-	"strconv"
 )
-
-// StopReason says why a drain plan ends. The strings are stable codes used in
-// the JSON output (drain.stop_reason) and in job records.
-type StopReason string
-
-// Stop reasons.
-const (
-	// StopTarget: the source level reached the target level.
-	StopTarget StopReason = "target"
-	// StopIntake: the level reached intake + required submergence; below it
-	// the intake draws air (vortices) and the siphon breaks.
-	StopIntake StopReason = "intake"
-	// StopCrest: as the level fell the lift grew until the flowing crest
-	// pressure reached the vapour pressure; the column breaks at the crest.
-	StopCrest StopReason = "crest"
-	// StopEqual: the levels came within EqualHead of each other (the source
-	// surface and the outlet, or the receiving surface); the flow tapers to
-	// nothing.
-	StopEqual StopReason = "equal"
-	// StopReceiverFull: a transfer filled the receiving vessel to its brim.
-	StopReceiverFull StopReason = "receiver_full"
-)
-
-// Text is a short plain description of the stop for records and the command
-// line's human-readable output.
-func (r StopReason) Text() string {
-	switch r {
-	case StopTarget:
-		return "the target level is reached"
-	case StopIntake:
-		return "the intake draws air: the level is down to intake + the submergence needed against vortices"
-	case StopCrest:
-		return "the crest pressure falls to the vapour pressure as the lift grows; the column breaks at the crest"
-	case StopEqual:
-		return "the levels come within " + strconv.FormatFloat(float64(EqualHead)*100, 'g', 3, 64) + " cm of each other; the flow tapers to nothing"
-	case StopReceiverFull:
-		return "the receiving vessel is full"
-	}
-	return string(r)
-}
-
-// EqualHead is the head at which a drain is reported as having reached
-// "levels equal". The flow falls to zero as the head does, so the last
-// centimetre would take very long (for laminar flow, for ever); 1 cm is
-// well inside the error of heights taped in the field (see
-// DefaultHeightTolerance). Our choice; the plan reports it in EqualHead.
-const EqualHead Length = 0.01
 
 // Curve sizes.
 const (
@@ -219,123 +171,8 @@ func PlanDrain(in DrainInput) (DrainPlan, error) {
 	return p.run()
 }
 
-// fixedLoss replaces Solve with a constant-coefficient orifice law,
-// Q = C·a·√(2gH), for checks against the closed forms (tests only).
-type fixedLoss struct {
-	c, area, g float64
-}
-
-// tableMax is the most heads at which Solve is sampled.
-const tableMax = 24
-
-// flowTable holds Solve's results at heads H_j spaced evenly in ln H:
-// u_j = √H_j, φ_j = Q_j/u_j, S_j and the flowing crest limit C_j.
-type flowTable struct {
-	n     int
-	u     [tableMax]float64
-	phi   [tableMax]float64
-	sub   [tableMax]float64
-	crest [tableMax]float64
-	// inv[j][i] is 1/∏(u_{j+i} − u_{j+k}), k ≠ i: Lagrange denominators of
-	// the stencil starting at j.
-	inv [tableMax][4]float64
-}
-
-// prepare computes the Lagrange denominators once the samples are in.
-func (t *flowTable) prepare() {
-	for j := 0; j+3 < t.n; j++ {
-		for i := 0; i < 4; i++ {
-			d := 1.0
-			for k := 0; k < 4; k++ {
-				if k != i {
-					d *= t.u[j+i] - t.u[j+k]
-				}
-			}
-			t.inv[j][i] = 1 / d
-		}
-	}
-}
-
-// at returns Q, S and the flowing crest limit at head H. With u = √H it
-// interpolates φ = Q/u, S and C by the cubic through the four nearest samples
-// in u (Lagrange form); φ is nearly constant for fixed losses and linear in u
-// for laminar flow, so Q = u·φ(u) keeps the √H behaviour near equal levels
-// exactly. Outside the sampled heads the end cubic is extended (the plan never
-// asks far outside).
-func (t *flowTable) at(H float64) (q, s, c float64) {
-	u := math.Sqrt(max(H, 0))
-	n := t.n
-	if n == 1 {
-		return u * t.phi[0], t.sub[0], t.crest[0]
-	}
-	if n < 4 {
-		// linear between the two nearest samples
-		j := 0
-		if n == 3 && u > t.u[1] {
-			j = 1
-		}
-		w := (u - t.u[j]) / (t.u[j+1] - t.u[j])
-		return u * (t.phi[j] + w*(t.phi[j+1]-t.phi[j])), t.sub[j] + w*(t.sub[j+1]-t.sub[j]),
-			t.crest[j] + w*(t.crest[j+1]-t.crest[j])
-	}
-	// k: last sample with u_k ≤ u (binary search), stencil k−1 … k+2
-	lo, hi := 0, n-1
-	for hi-lo > 1 {
-		mid := (lo + hi) / 2
-		if t.u[mid] <= u {
-			lo = mid
-		} else {
-			hi = mid
-		}
-	}
-	j := lo - 1
-	if j < 0 {
-		j = 0
-	}
-	if j > n-4 {
-		j = n - 4
-	}
-	d0, d1, d2, d3 := u-t.u[j], u-t.u[j+1], u-t.u[j+2], u-t.u[j+3]
-	inv := &t.inv[j]
-	d01, d23 := d0*d1, d2*d3
-	l0 := d1 * d23 * inv[0]
-	l1 := d0 * d23 * inv[1]
-	l2 := d01 * d3 * inv[2]
-	l3 := d01 * d2 * inv[3]
-	q = u * (l0*t.phi[j] + l1*t.phi[j+1] + l2*t.phi[j+2] + l3*t.phi[j+3])
-	s = l0*t.sub[j] + l1*t.sub[j+1] + l2*t.sub[j+2] + l3*t.sub[j+3]
-	c = l0*t.crest[j] + l1*t.crest[j+1] + l2*t.crest[j+2] + l3*t.crest[j+3]
-	return max(q, 0), s, c
-}
-
-// xmap maps s ∈ [0, 1] to the path variable x (source level fallen, or volume
-// moved) either linearly or through w with x = x0 − w².
-type xmap struct {
-	sq         bool
-	x0, wa, wb float64
-	xe         float64
-}
-
-func newXmap(x0 float64, haveX0 bool, xe float64) xmap {
-	if haveX0 && x0 >= xe && x0 > 0 {
-		return xmap{sq: true, x0: x0, wa: math.Sqrt(x0), wb: math.Sqrt(math.Max(x0-xe, 0)), xe: xe}
-	}
-	return xmap{xe: xe}
-}
-
-// at returns x(s) and dx/ds.
-func (m xmap) at(s float64) (x, dxds float64) {
-	if !m.sq {
-		return s * m.xe, m.xe
-	}
-	w := m.wa + s*(m.wb-m.wa)
-	x = m.x0 - w*w
-	if s >= 1 {
-		x = m.xe
-	}
-	return x, 2 * w * (m.wa - m.wb)
-}
-
+// planner holds one drain plan's fixed data: the start siphon, the tanks,
+// the path limits and the flow table sampled from Solve.
 type planner struct {
 	s        Siphon // at the start
 	src, rcv Tank
@@ -361,7 +198,7 @@ type planner struct {
 
 func (p *planner) init(in *DrainInput, points int) error {
 	if in.Tank == nil {
-		return &RangeError{Quantity: "source tank", Err: ErrNoTank, Unit: "", Min: math.Inf(-1), Max: math.Inf(1),
+		return &RangeError{What: QuantitySourceTank, Quantity: "source tank", Err: ErrNoTank, Unit: "", Min: math.Inf(-1), Max: math.Inf(1),
 			Note: "a drain plan needs the tank's shape and size"}
 	}
 	p.s = in.Siphon
@@ -369,11 +206,11 @@ func (p *planner) init(in *DrainInput, points int) error {
 	p.eps = float64(EqualHead)
 	top := float64(in.Tank.Height())
 	g := in.Siphon.Geometry
-	if err := checkPositive("start level", float64(g.Surface), top, "m"); err != nil {
+	if err := checkPositive(QuantityStartLevel, "start level", float64(g.Surface), top, "m"); err != nil {
 		return err
 	}
 	p.h0 = float64(g.Surface)
-	if err := checkRange("intake height", float64(g.Intake), 0, p.h0, "m"); err != nil {
+	if err := checkRange(QuantityIntake, "intake height", float64(g.Intake), 0, p.h0, "m"); err != nil {
 		if re, ok := err.(*RangeError); ok && g.Intake > g.Surface {
 			re.Err = ErrGeometry
 			re.Note = "the intake must be below the start level"
@@ -381,11 +218,11 @@ func (p *planner) init(in *DrainInput, points int) error {
 		return err
 	}
 	if in.Target != 0 {
-		if err := checkRange("target level", float64(in.Target), 0, p.h0, "m"); err != nil {
+		if err := checkRange(QuantityTarget, "target level", float64(in.Target), 0, p.h0, "m"); err != nil {
 			return err
 		}
 		if in.Target >= g.Surface {
-			return &RangeError{Quantity: "target level", Value: float64(in.Target), Min: 0, Max: p.h0, Unit: "m",
+			return &RangeError{What: QuantityTarget, Quantity: "target level", Value: float64(in.Target), Min: 0, Max: p.h0, Unit: "m",
 				Err: ErrOutOfRange, Note: "the target must be below the start level"}
 		}
 		p.target = float64(in.Target)
@@ -398,7 +235,7 @@ func (p *planner) init(in *DrainInput, points int) error {
 	case points < 0: // internal: no curve
 		p.points = 0
 	default:
-		if err := checkRange("curve points", float64(points), 2, MaxCurvePoints, ""); err != nil {
+		if err := checkRange(QuantityCurvePoints, "curve points", float64(points), 2, MaxCurvePoints, ""); err != nil {
 			return err
 		}
 		p.points = points
@@ -409,13 +246,13 @@ func (p *planner) init(in *DrainInput, points int) error {
 	p.vs0 = float64(in.Tank.Volume(g.Surface))
 	if r := in.Receiver; r != nil {
 		if r.Tank == nil {
-			return &RangeError{Quantity: "receiving tank", Err: ErrNoTank, Min: math.Inf(-1), Max: math.Inf(1),
+			return &RangeError{What: QuantityReceiverTank, Quantity: "receiving tank", Err: ErrNoTank, Min: math.Inf(-1), Max: math.Inf(1),
 				Note: "a transfer needs the receiver's shape and size"}
 		}
-		if err := checkRange("receiver floor elevation", float64(r.Floor), -MaxElevation, MaxElevation, "m"); err != nil {
+		if err := checkRange(QuantityReceiverFloor, "receiver floor elevation", float64(r.Floor), -MaxElevation, MaxElevation, "m"); err != nil {
 			return err
 		}
-		if err := checkRange("receiver level", float64(r.Level), 0, float64(r.Tank.Height()), "m"); err != nil {
+		if err := checkRange(QuantityReceiverLevel, "receiver level", float64(r.Level), 0, float64(r.Tank.Height()), "m"); err != nil {
 			return err
 		}
 		p.hasRcv = true
@@ -502,267 +339,8 @@ func (p *planner) solveAt(x float64) (Result, error) {
 	return Solve(p.realSiphon(x))
 }
 
-// sample runs Solve for head H in a stand-in geometry with the smallest lift
-// of the plan and the real up-leg, and returns Q, S and the flowing crest
-// limit. ok is false if even that geometry will not run.
-func (p *planner) sample(H float64) (q, sub, crest float64, ok bool, err error) {
-	if p.fixed != nil {
-		return p.fixed.c * p.fixed.area * math.Sqrt(2*p.fixed.g*H), 0, 1e6, true, nil
-	}
-	s := p.s
-	lift := math.Max(math.Min(p.crest-p.h0, 0), -500)
-	s.Geometry.Surface = Length(H / 2)
-	s.Geometry.Outlet = Length(-H / 2)
-	s.Geometry.Crest = Length(H/2 + lift)
-	s.Geometry.Intake = s.Geometry.Crest
-	s.Geometry.OutletSubmerged = true
-	s.Hose.UpLegLength = Length(p.lUp)
-	r, err := Solve(s)
-	if err != nil {
-		return 0, 0, 0, false, err
-	}
-	if r.Verdict == WillNotRun {
-		return 0, float64(r.RequiredSubmergence), float64(r.FlowingCrestLimit), false, nil
-	}
-	return float64(r.Flow), float64(r.RequiredSubmergence), float64(r.FlowingCrestLimit), true, nil
-}
-
-// build fills the flow table for heads in [hLo, hHi].
-func (p *planner) build(hLo, hHi float64) error {
-	t := &p.tab
-	zr := math.Log(hHi / hLo)
-	n := int(math.Ceil(zr/0.3)) + 5
-	if zr < 1e-9 {
-		n = 1
-	} else if n > tableMax {
-		n = tableMax
-	} else if n < 6 {
-		n = 6
-	}
-	if p.fixed != nil && n > 4 {
-		n = 4
-	}
-	t.n = n
-	dz := 0.0
-	if n > 1 {
-		dz = zr / float64(n-1)
-	}
-	for j := 0; j < n; j++ {
-		H := hLo * math.Exp(float64(j)*dz)
-		if j == n-1 {
-			H = hHi
-		}
-		q, s, c, ok, err := p.sample(H)
-		if err != nil {
-			return err
-		}
-		if !ok || !(q > 0) {
-			// Only reachable when the crest fails at zero lift: stand in a
-			// tiny flow and a crest limit below any lift so that the crest
-			// event fires here.
-			q = 1e-300
-			c = math.Min(c, -1e3)
-		}
-		t.u[j] = math.Sqrt(H)
-		t.phi[j] = q / t.u[j]
-		t.sub[j] = s
-		t.crest[j] = c
-	}
-	t.prepare()
-	return nil
-}
-
-type event int
-
-const (
-	evIntake event = iota
-	evCrest
-	evWorking
-)
-
-// g is the event function for ev at x: positive while the drain goes on.
-func (p *planner) g(ev event, x float64) float64 {
-	hs, _, _, H := p.state(x)
-	if H <= 0 {
-		return -1
-	}
-	_, s, c := p.tab.at(H)
-	switch ev {
-	case evIntake:
-		return hs - p.intake - s
-	case evCrest:
-		return c - (p.crest - hs)
-	default:
-		return c - p.allowance - (p.crest - hs)
-	}
-}
-
-// gHead is H(x) − target for root finding on the geometry alone.
-func (p *planner) gHead(x, target float64) float64 {
-	_, _, _, H := p.state(x)
-	return H - target
-}
-
-// brent finds a root of f in [a, b] with f(a) > 0 ≥ f(b) (Brent 1973, ch. 4,
-// "zero"), to |b − a| ≤ tol. It returns the end that is still positive when
-// keepPos is set, else the best estimate.
-func brent(f func(float64) float64, a, b, fa, fb, tol float64, keepPos bool) float64 {
-	c, fc := a, fa
-	d := b - a
-	e := d
-	pos := a
-	for i := 0; i < 200; i++ {
-		if (fb > 0) == (fc > 0) {
-			c, fc = a, fa
-			d = b - a
-			e = d
-		}
-		if math.Abs(fc) < math.Abs(fb) {
-			a, b, c = b, c, b
-			fa, fb, fc = fb, fc, fb
-		}
-		if fb >= 0 {
-			pos = b
-		} else if fc >= 0 {
-			pos = c
-		}
-		tol1 := 2*1e-16*math.Abs(b) + tol/2
-		m := (c - b) / 2
-		if math.Abs(m) <= tol1 || fb == 0 {
-			break
-		}
-		if math.Abs(e) >= tol1 && math.Abs(fa) > math.Abs(fb) {
-			s := fb / fa
-			var pp, q float64
-			if a == c {
-				pp = 2 * m * s
-				q = 1 - s
-			} else {
-				qq := fa / fc
-				r := fb / fc
-				pp = s * (2*m*qq*(qq-r) - (b-a)*(r-1))
-				q = (qq - 1) * (r - 1) * (s - 1)
-			}
-			if pp > 0 {
-				q = -q
-			} else {
-				pp = -pp
-			}
-			if 2*pp < math.Min(3*m*q-math.Abs(tol1*q), math.Abs(e*q)) {
-				e = d
-				d = pp / q
-			} else {
-				d = m
-				e = d
-			}
-		} else {
-			d = m
-			e = d
-		}
-		a, fa = b, fb
-		if math.Abs(d) > tol1 {
-			b += d
-		} else if m > 0 {
-			b += tol1
-		} else {
-			b -= tol1
-		}
-		fb = f(b)
-	}
-	if keepPos {
-		if fb >= 0 {
-			return b
-		}
-		return pos
-	}
-	return b
-}
-
-// scanRoots scans the intake, crest and working-limit events over the map m
-// at n+1 points and returns, for each, the first x at which it turns
-// non-positive (located by Brent's method) and whether it did.
-func (p *planner) scanRoots(m xmap, n int, tol float64) (roots [3]float64, found [3]bool) {
-	evs := [3]event{evIntake, evCrest, evWorking}
-	var prevX [3]float64
-	var prevG [3]float64
-	open := 0
-	for k := 0; k <= n; k++ {
-		x, _ := m.at(float64(k) / float64(n))
-		hs, _, _, H := p.state(x)
-		var g [3]float64
-		if H <= 0 {
-			g = [3]float64{-1, -1, -1}
-		} else {
-			_, sub, c := p.tab.at(H)
-			g = [3]float64{hs - p.intake - sub, c - (p.crest - hs), c - p.allowance - (p.crest - hs)}
-		}
-		open = 0
-		for e := range evs {
-			if found[e] {
-				continue
-			}
-			switch {
-			case g[e] > 0:
-				open++
-			case k == 0:
-				roots[e], found[e] = 0, true
-			default:
-				ev := evs[e]
-				f := func(x float64) float64 { return p.g(ev, x) }
-				roots[e], found[e] = brent(f, prevX[e], x, prevG[e], g[e], tol, true), true
-			}
-			prevX[e], prevG[e] = x, g[e]
-		}
-		if open == 0 {
-			break
-		}
-	}
-	return roots, found
-}
-
-// x limits (path variable) for the geometric stops.
-func (p *planner) geoLimits() (xBottom, xTarget, xFull, xEqual, x0 float64, haveX0 bool) {
-	inf := math.Inf(1)
-	xTarget, xFull, xEqual = inf, inf, inf
-	if !p.hasRcv {
-		xBottom = p.h0 - p.intake
-		if p.target >= 0 {
-			xTarget = p.h0 - p.target
-		}
-		x0 = p.h0 - p.hoseEnd
-		xEqual = x0 - p.eps
-		return xBottom, xTarget, xFull, xEqual, x0, true
-	}
-	xBottom = p.vs0 - float64(p.src.Volume(Length(p.intake)))
-	if p.target >= 0 {
-		xTarget = p.vs0 - float64(p.src.Volume(Length(p.target)))
-	}
-	xFull = p.vrCap - p.vr0
-	lim := math.Min(xBottom, xFull)
-	tol := 1e-13 * math.Max(p.vs0, 1e-9)
-	_, _, _, H0 := p.state(0)
-	_, _, _, Hl := p.state(lim)
-	if Hl <= 0 && H0 > 0 {
-		x0 = brent(func(x float64) float64 { return p.gHead(x, 0) }, 0, lim, H0, Hl, tol, false)
-		haveX0 = true
-	}
-	if Hl <= p.eps && H0 > p.eps {
-		xEqual = brent(func(x float64) float64 { return p.gHead(x, p.eps) }, 0, lim, H0-p.eps, Hl-p.eps, tol, true)
-	} else if H0 <= p.eps {
-		xEqual = 0
-	}
-	return xBottom, xTarget, xFull, xEqual, x0, haveX0
-}
-
-// levelTol is the path tolerance that corresponds to about 1e-9 m of level.
-func (p *planner) xTol(x float64) float64 {
-	if !p.hasRcv {
-		return 1e-10 * math.Max(1, p.h0)
-	}
-	hs, _, _, _ := p.state(x)
-	return 1e-10 * math.Max(float64(p.src.Area(Length(hs))), 1e-6)
-}
-
+// run plans the drain: the stops known at the start, then the flow table,
+// the events on it, the first stop and the time integral.
 func (p *planner) run() (DrainPlan, error) {
 	var plan DrainPlan
 	plan.EqualHead = Length(p.eps)
@@ -782,23 +360,8 @@ func (p *planner) run() (DrainPlan, error) {
 		}
 		return plan, nil
 	}
-	if start.Verdict == WillNotRun {
-		switch start.Why {
-		case WarnCannotRun:
-			plan.CrestLimitLevel, plan.CrestLimitFound = Length(p.h0), true
-			plan.WorkingLimitLevel, plan.WorkingLimitFound = Length(p.h0), true
-			return stopNow(StopCrest)
-		case WarnIntakeShallow:
-			return stopNow(StopIntake)
-		default: // WarnNoDrop: the levels are already equal or reversed
-		}
-		return stopNow(StopEqual)
-	}
-	if start.Verdict == RunsNearLimit {
-		plan.WorkingLimitLevel, plan.WorkingLimitFound = Length(p.h0), true
-	}
-	if start.Warnings.Has(WarnIntakeShallow) {
-		return stopNow(StopIntake)
+	if why, ok := p.stopAtStart(&plan); ok {
+		return stopNow(why)
 	}
 
 	xBottom, xTarget, xFull, xEqual, x0, haveX0 := p.geoLimits()
@@ -816,39 +379,21 @@ func (p *planner) run() (DrainPlan, error) {
 	}
 
 	// Events on the interpolated flow table.
-	scan := newXmap(x0, haveX0, xMax)
 	const scanN = 64
-	tolX := p.xTol(0)
-	roots, found := p.scanRoots(scan, scanN, tolX)
-	xIntake, okI := roots[0], found[0]
-	xCrest, okC := roots[1], found[1]
-	if okC {
-		hs, _, _, _ := p.state(xCrest)
-		plan.CrestLimitLevel, plan.CrestLimitFound = Length(hs), true
-	}
-	if !plan.WorkingLimitFound {
-		if xw, ok := roots[2], found[2]; ok {
-			hs, _, _, _ := p.state(xw)
-			plan.WorkingLimitLevel, plan.WorkingLimitFound = Length(hs), true
-		}
-	}
+	roots, found := p.scanRoots(newXmap(x0, haveX0, xMax), scanN, p.xTol(0))
+	p.reportLimits(&plan, roots, found)
 
 	xStop, why := xMax, StopEqual
-	if xBottom <= xStop && xBottom < xEqual {
-		xStop, why = xBottom, StopIntake
+	first := func(x float64, ok bool, r StopReason) {
+		if ok && x <= xStop {
+			xStop, why = x, r
+		}
 	}
-	if xFull <= xStop {
-		xStop, why = xFull, StopReceiverFull
-	}
-	if xTarget <= xStop {
-		xStop, why = xTarget, StopTarget
-	}
-	if okI && xIntake <= xStop {
-		xStop, why = xIntake, StopIntake
-	}
-	if okC && xCrest <= xStop {
-		xStop, why = xCrest, StopCrest
-	}
+	first(xBottom, xBottom < xEqual, StopIntake)
+	first(xFull, true, StopReceiverFull)
+	first(xTarget, true, StopTarget)
+	first(roots[evIntake], found[evIntake], StopIntake)
+	first(roots[evCrest], found[evCrest], StopCrest)
 	if why == StopCrest && p.fixed == nil {
 		var err error
 		if xStop, err = p.polishCrest(xStop, xMax); err != nil {
@@ -866,131 +411,40 @@ func (p *planner) run() (DrainPlan, error) {
 	return plan, nil
 }
 
-// polishCrest moves the crest stop found on the interpolant onto the point
-// where Solve's verdict flips in the real geometry, keeping the running side.
-func (p *planner) polishCrest(x, xMax float64) (float64, error) {
-	runs := func(x float64) (bool, error) {
-		r, err := p.solveAt(x)
-		return r.Verdict != WillNotRun, err
-	}
-	d0 := p.xTol(x) * 100
-	// a: running; step back until it is.
-	a, d := x, d0
-	okA, err := runs(a)
-	for i := 0; err == nil && !okA && a > 0 && i < 40; i++ {
-		a = math.Max(a-d, 0)
-		d *= 4
-		okA, err = runs(a)
-	}
-	if err != nil {
-		return x, err
-	}
-	if !okA {
-		return 0, nil
-	}
-	// b: not running; step forward until it is not.
-	b := a
-	d = d0
-	for i := 0; i < 60; i, d = i+1, d*4 {
-		b = math.Min(a+d, xMax)
-		okB, err := runs(b)
-		if err != nil {
-			return x, err
+// stopAtStart reports the stop of a siphon that does not drain at all from
+// the start level, and fills the crest and working limits known there.
+func (p *planner) stopAtStart(plan *DrainPlan) (StopReason, bool) {
+	start := p.start
+	if start.Verdict == WillNotRun {
+		switch start.Why {
+		case WarnCannotRun:
+			plan.CrestLimitLevel, plan.CrestLimitFound = Length(p.h0), true
+			plan.WorkingLimitLevel, plan.WorkingLimitFound = Length(p.h0), true
+			return StopCrest, true
+		case WarnIntakeShallow:
+			return StopIntake, true
+		default: // WarnNoDrop: the levels are already equal or reversed
 		}
-		if !okB {
-			break
-		}
-		a = b
-		if b >= xMax {
-			return b, nil
-		}
+		return StopEqual, true
 	}
-	for i := 0; i < 60 && b-a > 10*d0; i++ {
-		m := (a + b) / 2
-		ok, err := runs(m)
-		if err != nil {
-			return x, err
-		}
-		if ok {
-			a = m
-		} else {
-			b = m
-		}
+	if start.Verdict == RunsNearLimit {
+		plan.WorkingLimitLevel, plan.WorkingLimitFound = Length(p.h0), true
 	}
-	return a, nil
+	if start.Warnings.Has(WarnIntakeShallow) {
+		return StopIntake, true
+	}
+	return "", false
 }
 
-// Gauss–Lobatto 4-point rule on [−1, 1]: nodes ±1, ±1/√5, weights 1/6, 5/6;
-// exact for polynomials of degree ≤ 5 (Lobatto integration, Abramowitz &
-// Stegun, Handbook of Mathematical Functions, 25.4.32).
-const lobattoInner = 0.4472135954999579
-
-// quadIntervals is the number of quadrature intervals over the drain.
-const quadIntervals = 64
-
-// integrate fills the time, volume, stop values and the curve over [0, xe].
-//
-// The path parameter s ∈ [0, 1] is itself written as s = σ²(3 − 2σ), which
-// crowds the quadrature nodes at both ends: a full horizontal cylinder starts
-// with A ∝ √(D − h), an integrable kink that this smooths out. t(σ) is
-// integrated by the composite Gauss–Lobatto rule on quadIntervals equal steps
-// in σ; curve points, evenly spaced in σ, take t from the cubic Hermite
-// interpolant of t and dt/dσ at the step ends (error O(Δσ⁴)).
-func (p *planner) integrate(plan *DrainPlan, m xmap) {
-	// dt/dσ at σ
-	rate := func(sg float64) float64 {
-		x, dxds := m.at(sg * sg * (3 - 2*sg))
-		hs, _, _, H := p.state(x)
-		if H <= 0 {
-			return 0
-		}
-		q, _, _ := p.tab.at(H)
-		if !(q > 0) {
-			return 0
-		}
-		return 6 * sg * (1 - sg) * dxds * p.dvdx(hs) / q
+// reportLimits fills the levels at which the crest and working limits are
+// reached, from the event roots.
+func (p *planner) reportLimits(plan *DrainPlan, roots [3]float64, found [3]bool) {
+	if found[evCrest] {
+		hs, _, _, _ := p.state(roots[evCrest])
+		plan.CrestLimitLevel, plan.CrestLimitFound = Length(hs), true
 	}
-	var ts, fs [quadIntervals + 1]float64
-	ds := 1.0 / quadIntervals
-	fs[0] = rate(0)
-	for k := 0; k < quadIntervals; k++ {
-		mid := (float64(k) + 0.5) * ds
-		fb := rate(float64(k+1) * ds)
-		fi := rate(mid-lobattoInner*ds/2) + rate(mid+lobattoInner*ds/2)
-		ts[k+1] = ts[k] + ds/2*((fs[k]+fb)/6+fi*5/6)
-		fs[k+1] = fb
-	}
-	if nc := p.points; nc > 0 {
-		plan.Curve = make([]DrainPoint, nc)
-		for i := range plan.Curve {
-			sg := float64(i) / float64(nc-1)
-			k := int(sg * quadIntervals)
-			if k >= quadIntervals {
-				k = quadIntervals - 1
-			}
-			r := sg*quadIntervals - float64(k) // 0…1 within the step
-			r2, r3 := r*r, r*r*r
-			t := (2*r3-3*r2+1)*ts[k] + (r3-2*r2+r)*ds*fs[k] + (-2*r3+3*r2)*ts[k+1] + (r3-r2)*ds*fs[k+1]
-			t = max(ts[k], min(ts[k+1], t))
-			x, _ := m.at(sg * sg * (3 - 2*sg))
-			hs, hr, _, H := p.state(x)
-			q, _, _ := p.tab.at(max(H, 0))
-			plan.Curve[i] = DrainPoint{Time: Seconds(t), Level: Length(hs), Flow: FlowRate(q), ReceiverLevel: Length(hr)}
-		}
-	}
-	hs, hr, _, H := p.state(m.xe)
-	q, _, _ := p.tab.at(math.Max(H, 0))
-	plan.Time = Seconds(ts[quadIntervals])
-	plan.StopLevel = Length(hs)
-	plan.ReceiverLevel = Length(hr)
-	plan.Residual = p.src.Volume(Length(hs))
-	if p.hasRcv {
-		plan.Volume = Volume(m.xe)
-	} else {
-		plan.Volume = Volume(p.vs0 - float64(plan.Residual))
-	}
-	plan.EndFlow = FlowRate(q)
-	if n := len(plan.Curve); n > 0 {
-		plan.Curve[n-1].Time = plan.Time
+	if !plan.WorkingLimitFound && found[evWorking] {
+		hs, _, _, _ := p.state(roots[evWorking])
+		plan.WorkingLimitLevel, plan.WorkingLimitFound = Length(hs), true
 	}
 }

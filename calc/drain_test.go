@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"testing"
+
+	"drawdown/calc/testkit"
 )
 
 // drainWater is liquid water at 15 °C: ρ = 999.10 kg/m³ (IF97 Region 1),
@@ -85,7 +87,7 @@ func TestDrainClosedForms(t *testing.T) {
 			t.Errorf("%s: %v", c.name, err)
 			continue
 		}
-		if !tkNear(float64(plan.Time), c.want, c.tol) {
+		if !testkit.Within(float64(plan.Time), c.want, c.tol) {
 			t.Errorf("%s: time %.3f s, want %.3f s ±%g (%s)", c.name, plan.Time, c.want, c.tol, c.source)
 		}
 		if plan.StopReason != c.reason {
@@ -117,7 +119,7 @@ func TestDrainTorricelliExact(t *testing.T) {
 			h1 = eps
 		}
 		want := torricelliCylinder(A, a, 0.6, StandardGravity, c.h0-c.outlet, h1)
-		if !tkNear(float64(plan.Time), want, 1e-8) {
+		if !testkit.Within(float64(plan.Time), want, 1e-8) {
 			t.Errorf("%+v: %.9g s, closed form %.9g s", c, plan.Time, want)
 		}
 		// the curve follows the closed form too
@@ -145,10 +147,10 @@ func TestDrainSerwayFishTank(t *testing.T) {
 		t.Fatal(err)
 	}
 	exact := torricelliCylinder(0.25, 2e-4, 1, 9.8, 10, 9.5)
-	if !tkNear(float64(plan.Time), exact, 1e-8) {
+	if !testkit.Within(float64(plan.Time), exact, 1e-8) {
 		t.Errorf("time %.4f s, closed form %.4f s", plan.Time, exact)
 	}
-	if !tkNear(float64(plan.Time), 44.6, 0.015) {
+	if !testkit.Within(float64(plan.Time), 44.6, 0.015) {
 		t.Errorf("time %.2f s, textbook 44.6 s within 1.5 %%", plan.Time)
 	}
 	if plan.StopReason != StopIntake || plan.Residual > 1e-9 {
@@ -189,7 +191,7 @@ func TestTransferClosedForm(t *testing.T) {
 			H1 = (2 - 0.6*A2/A1) - (c.floor + 0.9)
 		}
 		want := 2 * (math.Sqrt(H0) - math.Sqrt(H1)) / (0.55 * circle(0.032) * math.Sqrt(2*StandardGravity) * (1/A1 + 1/A2))
-		if !tkNear(float64(plan.Time), want, 1e-7) {
+		if !testkit.Within(float64(plan.Time), want, 1e-7) {
 			t.Errorf("%s: %.6f s, closed form %.6f s", c.name, plan.Time, want)
 		}
 		if plan.StopReason != c.reason {
@@ -197,7 +199,7 @@ func TestTransferClosedForm(t *testing.T) {
 		}
 		// volume moved shows up in the receiver
 		got := float64(c.rcv.Volume(plan.ReceiverLevel) - c.rcv.Volume(Length(c.level)))
-		if !tkNear(got, float64(plan.Volume), 1e-9) {
+		if !testkit.Within(got, float64(plan.Volume), 1e-9) {
 			t.Errorf("%s: receiver gained %g, moved %g", c.name, got, plan.Volume)
 		}
 	}
@@ -381,7 +383,7 @@ func TestDrainMatchesBruteForce(t *testing.T) {
 			t.Errorf("%s: brute force: %v", c.name, err)
 			continue
 		}
-		if why != plan.StopReason || !tkNear(float64(plan.Time), tb, 1e-3) || math.Abs(float64(plan.StopLevel)-hb) > 1e-3 {
+		if why != plan.StopReason || !testkit.Within(float64(plan.Time), tb, 1e-3) || math.Abs(float64(plan.StopLevel)-hb) > 1e-3 {
 			t.Errorf("%s: plan %.4f s to %.5f m (%s); brute force %.4f s to %.5f m (%s)",
 				c.name, plan.Time, plan.StopLevel, plan.StopReason, tb, hb, why)
 		} else {
@@ -510,10 +512,10 @@ func TestDrainIntakeStopMatchesSolve(t *testing.T) {
 	if plan.CrestLimitFound {
 		t.Errorf("no crest limit expected with a 0.5 m lift, got %g", plan.CrestLimitLevel)
 	}
-	if !tkNear(float64(plan.EndFlow), float64(r.Flow), 1e-5) || plan.StartFlow != plan.Start.Flow {
+	if !testkit.Within(float64(plan.EndFlow), float64(r.Flow), 1e-5) || plan.StartFlow != plan.Start.Flow {
 		t.Errorf("end flow %g, Solve %g", plan.EndFlow, r.Flow)
 	}
-	if !tkNear(float64(plan.Volume+plan.Residual), float64(in.Tank.Volume(in.Siphon.Geometry.Surface)), 1e-12) {
+	if !testkit.Within(float64(plan.Volume+plan.Residual), float64(in.Tank.Volume(in.Siphon.Geometry.Surface)), 1e-12) {
 		t.Errorf("volume moved %g + residual %g ≠ start volume", plan.Volume, plan.Residual)
 	}
 }

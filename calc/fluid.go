@@ -20,11 +20,11 @@ const (
 
 // Validate reports the first property outside its accepted range.
 func (f Fluid) Validate() error {
-	if err := checkRange("liquid density", float64(f.Density), MinDensity, MaxDensity, "kg/m³"); err != nil {
+	if err := checkRange(QuantityDensity, "liquid density", float64(f.Density), MinDensity, MaxDensity, "kg/m³"); err != nil {
 		return err
 	}
-	if err := checkRange("liquid viscosity", float64(f.Viscosity), MinViscosity, MaxViscosity, "Pa·s"); err != nil {
+	if err := checkRange(QuantityViscosity, "liquid viscosity", float64(f.Viscosity), MinViscosity, MaxViscosity, "Pa·s"); err != nil {
 		return err
 	}
-	return checkRange("liquid vapour pressure", float64(f.VaporPressure), 0, MaxVaporPressure, "Pa")
+	return checkRange(QuantityVaporPressure, "liquid vapour pressure", float64(f.VaporPressure), 0, MaxVaporPressure, "Pa")
 }

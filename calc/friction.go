@@ -13,8 +13,10 @@ const (
 	ReTurbulentMin = 4000.0
 )
 
-// FrictionFactor returns the Darcy friction factor f for Reynolds number re
-// and relative roughness rr = ε/D.
+// friction returns the Darcy friction factor f for Reynolds number re > 0
+// and relative roughness rr = ε/D ≥ 0. Solve reports its friction factor
+// from this function at the solved Reynolds number, so the checks against
+// published Colebrook values test the shipped path.
 //
 // Laminar, re ≤ 2000 (Hagen–Poiseuille):
 //
@@ -42,22 +44,11 @@ const (
 // The result is continuous in Re across both bounds. Friction in this band is
 // physically uncertain (intermittent turbulence); the solver warns about it.
 //
-// Valid for 0 < re ≤ 1e9 and 0 ≤ rr ≤ 0.5. Outside, a *RangeError.
+// x0, if positive, is a starting guess for 1/√f in the turbulent branch
+// (Solve passes its own converged iterate, so one Newton step confirms it).
+// No validation: Solve's inputs bound re and rr (ε/D ≤ MaxRelativeRoughness).
 //
 // Special cases: rr = 0 is a hydraulically smooth hose.
-func FrictionFactor(re, rr float64) (float64, error) {
-	if err := checkPositive("Reynolds number", re, 1e9, ""); err != nil {
-		return 0, err
-	}
-	if err := checkRange("relative roughness ε/D", rr, 0, 0.5, ""); err != nil {
-		return 0, err
-	}
-	return friction(re, rr, 0), nil
-}
-
-// friction is FrictionFactor without validation. x0, if positive, is a
-// starting guess for 1/√f in the turbulent branch (the previous iterate of
-// the flow solver), which saves Newton steps.
 func friction(re, rr, x0 float64) float64 {
 	switch {
 	case re <= ReLaminarMax:
@@ -115,7 +106,7 @@ func colebrookX(re, rr, x0 float64) float64 {
 }
 
 // churchill is the Darcy form of Churchill's 1977 all-regime correlation
-// (see FrictionFactor).
+// (see friction).
 func churchill(re, rr float64) float64 {
 	a := -2.457 * math.Log(math.Exp(0.9*math.Log(7/re))+0.27*rr)
 	a2 := a * a

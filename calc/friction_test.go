@@ -1,21 +1,12 @@
 package calc
 
 import (
-	"errors"
-	"math"
 	"testing"
+
+	"drawdown/calc/testkit"
 )
 
-// relClose reports whether got is within tol of want: relative when want is
-// not zero, absolute otherwise.
-func relClose(got, want, tol float64) bool {
-	if want == 0 {
-		return math.Abs(got) <= tol
-	}
-	return math.Abs(got-want) <= tol*math.Abs(want)
-}
-
-func TestFrictionFactorColebrook(t *testing.T) {
+func TestFrictionColebrook(t *testing.T) {
 	// Colebrook–White values. Sources: the `fluids` library test point
 	// (Caleb Bell, fluids, commit 091070e9, Colebrook(1e5, 1e-4)) and the
 	// Colebrook grid computed at 40 digits by two methods (fixed point and the
@@ -46,38 +37,28 @@ func TestFrictionFactorColebrook(t *testing.T) {
 		{"Crane 7-1", 100600, 0, 0.0179, 0.005, "Crane TP-410M Example 7-1 (chart value, 3 significant figures)"},
 	}
 	for _, c := range cases {
-		got, err := FrictionFactor(c.re, c.rr)
-		if err != nil {
-			t.Fatalf("%s: %v", c.name, err)
-		}
-		if !relClose(got, c.want, c.tol) {
-			t.Errorf("%s: f = %.12g, want %.12g ±%g rel (%s)", c.name, got, c.want, c.tol, c.source)
-		}
+		testkit.Close(t, c.name+": f", friction(c.re, c.rr, 0), c.want, c.tol, c.source)
 	}
 }
 
-func TestFrictionFactorLaminar(t *testing.T) {
+func TestFrictionLaminar(t *testing.T) {
 	// Hagen–Poiseuille: f = 64/Re. fluids.friction_laminar check Re=128 →
 	// f = 0.5 (hydraulics.md §1.1).
 	for _, re := range []float64{1, 128, 500, 1999, 2000} {
-		got, err := FrictionFactor(re, 1e-3)
-		if err != nil {
-			t.Fatal(err)
-		}
-		if !relClose(got, 64/re, 1e-15) {
+		if got := friction(re, 1e-3, 0); !testkit.Within(got, 64/re, 1e-15) {
 			t.Errorf("Re %g: f = %g, want 64/Re = %g (Hagen–Poiseuille, analytic)", re, got, 64/re)
 		}
 	}
 }
 
-func TestFrictionFactorTransitionContinuous(t *testing.T) {
+func TestFrictionTransitionContinuous(t *testing.T) {
 	// Property: the documented transition meets 64/Re at 2000 and
 	// Colebrook–White at 4000, with no jump at either end.
 	for _, rr := range []float64{0, 1e-4, 1e-3, 1e-2, 5e-2} {
 		for _, edge := range []float64{ReLaminarMax, ReTurbulentMin} {
-			below, _ := FrictionFactor(edge*(1-1e-9), rr)
-			above, _ := FrictionFactor(edge*(1+1e-9), rr)
-			if !relClose(below, above, 1e-6) {
+			below := friction(edge*(1-1e-9), rr, 0)
+			above := friction(edge*(1+1e-9), rr, 0)
+			if !testkit.Within(below, above, 1e-6) {
 				t.Errorf("ε/D %g: jump at Re %g: %g vs %g", rr, edge, below, above)
 			}
 		}
@@ -86,23 +67,11 @@ func TestFrictionFactorTransitionContinuous(t *testing.T) {
 		// Churchill 0.03084 at Re 2300 and 0.04297 at 3000, smooth).
 		if rr == 0 {
 			for _, c := range []struct{ re, want float64 }{{2300, 0.03084}, {3000, 0.04297}} {
-				got, _ := FrictionFactor(c.re, 0)
-				if !relClose(got, c.want, 0.10) {
+				got := friction(c.re, 0, 0)
+				if !testkit.Within(got, c.want, 0.10) {
 					t.Errorf("Re %g: f = %g, Churchill %g", c.re, got, c.want)
 				}
 			}
-		}
-	}
-}
-
-func TestFrictionFactorBadInput(t *testing.T) {
-	for _, c := range []struct{ re, rr float64 }{
-		{0, 0}, {-5, 0}, {math.NaN(), 0}, {math.Inf(1), 0}, {1e5, -1e-3}, {1e5, math.NaN()}, {1e5, 0.6}, {2e9, 0},
-	} {
-		f, err := FrictionFactor(c.re, c.rr)
-		var re *RangeError
-		if !errors.As(err, &re) {
-			t.Errorf("FrictionFactor(%g, %g) = %g, %v; want *RangeError", c.re, c.rr, f, err)
 		}
 	}
 }

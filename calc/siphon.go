@@ -67,7 +67,7 @@ const (
 	NoFlow Regime = iota
 	// Laminar: Re ≤ 2000, f = 64/Re.
 	Laminar
-	// Transitional: 2000 < Re < 4000, blended (see FrictionFactor).
+	// Transitional: 2000 < Re < 4000, blended (see friction).
 	Transitional
 	// Turbulent: Re ≥ 4000, Colebrook–White.
 	Turbulent

@@ -45,8 +45,9 @@ const (
 //
 // where the 1 is the velocity head leaving a free outlet (or the exit loss
 // K = 1 into a receiving surface), ΣK = K_entrance + K_up-leg + K_down-leg,
-// and f = FrictionFactor(ρVD/μ, ε/D). N identical hoses in parallel share H;
-// the total flow is N·V·πD²/4. The equation is solved for V by fixed-point
+// and f = friction(ρVD/μ, ε/D) (see friction.go: Hagen–Poiseuille,
+// Colebrook–White, and a shifted Churchill curve between). N identical hoses
+// in parallel share H; the total flow is N·V·πD²/4. The equation is solved for V by fixed-point
 // branch: closed form when laminar, Newton's method on 1/√f when turbulent,
 // bracketing in the transition (see solveVelocity); the result satisfies the
 // energy equation to about 1e-12 relative.
@@ -209,7 +210,8 @@ func Solve(s Siphon) (Result, error) {
 //   - otherwise the root lies in 2000 < Re < 4000 and is bracketed there;
 //     the Illinois variant of regula falsi finds it.
 //
-// It returns V, the Darcy f and Re.
+// It returns V, the Darcy f and Re; f is friction at that Re, the same
+// function the friction checks test.
 func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 	twoGH := 2 * StandardGravity * H
 	A := 1 + k
@@ -220,7 +222,7 @@ func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 	bl := 64 * B / c
 	V = 2 * twoGH / (bl + math.Sqrt(bl*bl+4*A*twoGH))
 	if re = c * V; re <= ReLaminarMax {
-		return V, 64 / re, re
+		return V, friction(re, rr, 0), re
 	}
 	// Above Re 2000 the transitional f exceeds 64/Re, so the laminar root
 	// is an upper bound for the transitional one.
@@ -240,13 +242,16 @@ func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 		if x <= 0 {
 			x = 1e-3
 		}
-		if math.Abs(d) <= 1e-14*x {
+		// Newton converges quadratically: after a step of 1e-7·x the
+		// error left is of order 1e-14·x, and friction() below confirms
+		// x against Colebrook–White itself.
+		if math.Abs(d) <= 1e-7*x {
 			break
 		}
 	}
 	V = math.Sqrt(twoGH / (A + B/(x*x)))
 	if re = c * V; re >= ReTurbulentMin {
-		return V, 1 / (x * x), re
+		return V, friction(re, rr, x), re
 	}
 
 	// Transitional band: Illinois regula falsi on V. Colebrook–White lies
@@ -291,6 +296,7 @@ func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 		}
 	}
 	re = c * V
+	// friction(re, rr, 0) in this band, with the shift already computed
 	return V, transitionFriction(re, rr, lo, hi), re
 }
 
@@ -315,29 +321,29 @@ func validateSiphon(s *Siphon) error {
 	if err := s.Fluid.Validate(); err != nil {
 		return err
 	}
-	if err := checkRange("barometric pressure", float64(s.AtmPressure), MinAtmPressure, MaxAtmPressure, "Pa"); err != nil {
+	if err := checkRange(QuantityAtmPressure, "barometric pressure", float64(s.AtmPressure), MinAtmPressure, MaxAtmPressure, "Pa"); err != nil {
 		return err
 	}
 	if s.Fluid.VaporPressure >= s.AtmPressure {
-		return &RangeError{Quantity: "liquid vapour pressure", Value: float64(s.Fluid.VaporPressure),
+		return &RangeError{What: QuantityVaporPressure, Quantity: "liquid vapour pressure", Value: float64(s.Fluid.VaporPressure),
 			Min: 0, Max: float64(s.AtmPressure), Unit: "Pa", Err: ErrBoiling,
 			Note: "the liquid boils at this site's barometric pressure"}
 	}
 	h := s.Hose
-	if err := checkPositive("hose inside diameter", float64(h.Diameter), MaxDiameter, "m"); err != nil {
+	if err := checkPositive(QuantityHoseDiameter, "hose inside diameter", float64(h.Diameter), MaxDiameter, "m"); err != nil {
 		return err
 	}
-	if err := checkPositive("hose length", float64(h.Length), MaxHoseLength, "m"); err != nil {
+	if err := checkPositive(QuantityHoseLength, "hose length", float64(h.Length), MaxHoseLength, "m"); err != nil {
 		return err
 	}
-	if err := checkRange("hose roughness", float64(h.Roughness), 0, MaxRelativeRoughness*float64(h.Diameter), "m"); err != nil {
-		if re, ok := err.(*RangeError); ok && re.Err == ErrOutOfRange {
+	if err := checkRange(QuantityRoughness, "hose roughness", float64(h.Roughness), 0, MaxRelativeRoughness*float64(h.Diameter), "m"); err != nil {
+		if re, ok := err.(*RangeError); ok && re.Err == ErrOutOfRange && h.Roughness > 0 {
 			re.Err = ErrGeometry
 			re.Note = "roughness must be under a tenth of the inside diameter; the Moody chart ends at ε/D = 0.05"
 		}
 		return err
 	}
-	if err := checkRange("up-leg length", float64(h.UpLegLength), 0, float64(h.Length), "m"); err != nil {
+	if err := checkRange(QuantityUpLegLength, "up-leg length", float64(h.UpLegLength), 0, float64(h.Length), "m"); err != nil {
 		if re, ok := err.(*RangeError); ok && re.Err == ErrOutOfRange {
 			re.Err = ErrGeometry
 			re.Note = "the up-leg is part of the hose"
@@ -345,31 +351,35 @@ func validateSiphon(s *Siphon) error {
 		return err
 	}
 	for _, k := range [...]struct {
+		what Quantity
 		name string
 		v    float64
-	}{{"entrance loss coefficient", h.KEntrance}, {"up-leg fittings loss coefficient", h.KUpLeg}, {"down-leg fittings loss coefficient", h.KDownLeg}} {
-		if err := checkRange(k.name, k.v, 0, MaxK, ""); err != nil {
+	}{{QuantityKEntrance, "entrance loss coefficient", h.KEntrance}, {QuantityKUpLeg, "up-leg fittings loss coefficient", h.KUpLeg},
+		{QuantityKDownLeg, "down-leg fittings loss coefficient", h.KDownLeg}} {
+		if err := checkRange(k.what, k.name, k.v, 0, MaxK, ""); err != nil {
 			return err
 		}
 	}
-	if err := checkRange("number of hoses", float64(s.Hoses), 1, MaxHoses, ""); err != nil {
+	if err := checkRange(QuantityHoses, "number of hoses", float64(s.Hoses), 1, MaxHoses, ""); err != nil {
 		return err
 	}
 	g := s.Geometry
 	for _, z := range [...]struct {
+		what Quantity
 		name string
 		v    Length
-	}{{"source surface elevation", g.Surface}, {"intake elevation", g.Intake}, {"crest elevation", g.Crest}, {"outlet elevation", g.Outlet}} {
-		if err := checkRange(z.name, float64(z.v), -MaxElevation, MaxElevation, "m"); err != nil {
+	}{{QuantitySurface, "source surface elevation", g.Surface}, {QuantityIntake, "intake elevation", g.Intake},
+		{QuantityCrest, "crest elevation", g.Crest}, {QuantityOutlet, "outlet elevation", g.Outlet}} {
+		if err := checkRange(z.what, z.name, float64(z.v), -MaxElevation, MaxElevation, "m"); err != nil {
 			return err
 		}
 	}
 	if g.Crest < g.Intake {
-		return &RangeError{Quantity: "crest elevation", Value: float64(g.Crest), Min: float64(g.Intake), Max: MaxElevation,
+		return &RangeError{What: QuantityCrest, Quantity: "crest elevation", Value: float64(g.Crest), Min: float64(g.Intake), Max: MaxElevation,
 			Unit: "m", Err: ErrGeometry, Note: "the crest is the highest point of the hose, so not below the intake"}
 	}
 	if !g.OutletSubmerged && g.Crest < g.Outlet {
-		return &RangeError{Quantity: "crest elevation", Value: float64(g.Crest), Min: float64(g.Outlet), Max: MaxElevation,
+		return &RangeError{What: QuantityCrest, Quantity: "crest elevation", Value: float64(g.Crest), Min: float64(g.Outlet), Max: MaxElevation,
 			Unit: "m", Err: ErrGeometry, Note: "the crest is the highest point of the hose, so not below the outlet"}
 	}
 	return nil

@@ -5,18 +5,9 @@ import (
 	"math"
 	"strings"
 	"testing"
-)
 
-// tkNear compares relatively when want is not near zero, absolutely below 1e-12.
-func tkNear(got, want, tol float64) bool {
-	if math.IsNaN(got) || math.IsInf(got, 0) {
-		return false
-	}
-	if math.Abs(want) < 1e-12 {
-		return math.Abs(got-want) <= tol
-	}
-	return math.Abs(got-want) <= tol*math.Abs(want)
-}
+	"drawdown/calc/testkit"
+)
 
 // mustTank unwraps a constructor known to be valid.
 func mustTank(tk Tank, err error) Tank {
@@ -75,7 +66,7 @@ func TestTankVolumesClosedForm(t *testing.T) {
 	for _, c := range cases {
 		tk := mustTank(c.tank())
 		got := float64(tk.Volume(Length(c.h)))
-		if !tkNear(got, c.want, c.tol) {
+		if !testkit.Within(got, c.want, c.tol) {
 			t.Errorf("%s: V(%g) = %.12g, want %.12g (%s)", c.name, c.h, got, c.want, c.source)
 		}
 	}
@@ -117,7 +108,7 @@ func TestTankAreaIsVolumeDerivative(t *testing.T) {
 		}
 		s *= H / float64(n) / 3
 		full := float64(tk.Volume(Length(H)))
-		if !tkNear(s, full, 2e-5) {
+		if !testkit.Within(s, full, 2e-5) {
 			t.Errorf("%s: ∫A dh = %g, V(H) = %g", tk.Shape(), s, full)
 		}
 		if tk.Volume(0) != 0 || tk.Volume(-1) != 0 {
@@ -176,10 +167,10 @@ func TestTableReproducesLinearAndSmooth(t *testing.T) {
 	full := float64(sph.Volume(1.2))
 	for i := 0; i <= 97; i++ {
 		h := 2 * float64(i) / 97
-		if !tkNear(float64(tc.Volume(Length(h))), float64(cyl.Volume(Length(h))), 1e-12) {
+		if !testkit.Within(float64(tc.Volume(Length(h))), float64(cyl.Volume(Length(h))), 1e-12) {
 			t.Errorf("cylinder table at %g: %g vs %g", h, tc.Volume(Length(h)), cyl.Volume(Length(h)))
 		}
-		if !tkNear(float64(tc.Area(Length(h))), float64(cyl.Area(Length(h))), 1e-12) {
+		if !testkit.Within(float64(tc.Area(Length(h))), float64(cyl.Area(Length(h))), 1e-12) {
 			t.Errorf("cylinder table area at %g: %g", h, tc.Area(Length(h)))
 		}
 		hs := 1.2 * float64(i) / 97
@@ -208,7 +199,7 @@ func TestTableMonotone(t *testing.T) {
 		prev = v
 	}
 	for i, l := range lv {
-		if !tkNear(float64(tk.Volume(Length(l))), vv[i], 1e-12) {
+		if !testkit.Within(float64(tk.Volume(Length(l))), vv[i], 1e-12) {
 			t.Errorf("row %d not reproduced: %g", i+1, tk.Volume(Length(l)))
 		}
 	}
@@ -253,7 +244,7 @@ func TestTankWidth(t *testing.T) {
 		{mustTank(NewTable([]float64{0, 1}, []float64{0, math.Pi})), 0.5, 2},
 	}
 	for _, c := range cases {
-		if got := float64(TankWidth(c.tank, c.h)); !tkNear(got, c.want, 1e-12) {
+		if got := float64(TankWidth(c.tank, c.h)); !testkit.Within(got, c.want, 1e-12) {
 			t.Errorf("%s at %g: width %g, want %g", c.tank.Shape(), c.h, got, c.want)
 		}
 	}

@@ -32,21 +32,13 @@ const (
 	waterMinTemperature = 273.15 // K
 	// waterCriticalTemperature T_c = 647.096 K, upper bound of Region 4.
 	waterCriticalTemperature = 647.096 // K
-	// waterCriticalPressure p_c = 22.064 MPa, upper bound of Region 4.
-	waterCriticalPressure = 22.064e6 // Pa
 	// waterMinSaturationPressure is the lower pressure bound of Eq. 31,
 	// p_s(273.15 K) = 611.213 Pa (IF97, Region 4 range of validity).
 	waterMinSaturationPressure = 611.213 // Pa
-	// Region 1 range: 273.15 K ≤ T ≤ 623.15 K, p_s(T) ≤ p ≤ 100 MPa.
-	waterRegion1MaxTemperature = 623.15 // K
-	waterRegion1MaxPressure    = 100e6  // Pa
+	// Region 1 pressure bound: p ≤ 100 MPa.
+	waterRegion1MaxPressure = 100e6 // Pa
 	// Water() accepts liquid water from 0 °C to 100 °C.
 	waterToolMaxTemperature = 373.15 // K
-	// Viscosity: R12-08 covers the fluid from the melting curve to
-	// 1173.15 K; the density bound is a rectangle enclosing the liquid up
-	// to the highest pressures the release admits.
-	waterViscosityMaxTemperature = 1173.15 // K
-	waterViscosityMaxDensity     = 1250.0  // kg/m³
 )
 
 // waterGasConstant is the specific gas constant of water used by IF97,
@@ -88,7 +80,7 @@ var region4N = [10]float64{
 // Formulation 1997 for the Thermodynamic Properties of Water and Steam,
 // http://www.iapws.org/relguide/IF97-Rev.html (URL from memory).
 func WaterSaturationPressure(T Temperature) (Pressure, error) {
-	if err := checkRange("water temperature", float64(T), waterMinTemperature, waterCriticalTemperature, "K"); err != nil {
+	if err := checkRange(QuantityTemperature, "water temperature", float64(T), waterMinTemperature, waterCriticalTemperature, "K"); err != nil {
 		return 0, err
 	}
 	return Pressure(waterSatPressure(float64(T))), nil
@@ -107,9 +99,9 @@ func waterSatPressure(T float64) float64 {
 	return x * x * 1e6
 }
 
-// WaterSaturationTemperature returns the saturation (boiling) temperature of
-// pure water at pressure p, from the IAPWS-IF97 Region 4 backward equation,
-// [IF97] Eq. (31) with the coefficients of Table 34:
+// waterSatTemperature is the saturation (boiling) temperature of pure water
+// at pressure p, from the IAPWS-IF97 Region 4 backward equation, [IF97]
+// Eq. (31) with the coefficients of Table 34:
 //
 //	β = (p/p*)^(1/4),                     p* = 1 MPa
 //	E = β² + n3·β + n6
@@ -118,26 +110,10 @@ func waterSatPressure(T float64) float64 {
 //	D = 2G / (−F − √(F² − 4EG))
 //	T_s/T* = [ n10 + D − √((n10 + D)² − 4(n9 + n10·D)) ] / 2,  T* = 1 K
 //
-// p in Pa, T_s in K. Valid 611.213 Pa ≤ p ≤ 22.064 MPa. Eq. (31) is the exact
-// inverse of Eq. (30): both solve the same quadratic, [IF97] Eq. (29).
-// Checked against [IF97] Table 36. The tool uses it to report the
-// temperature at which water boils at a site's barometric pressure.
-//
-// Special cases:
-//
-//	p outside [611.213 Pa, 22.064 MPa], NaN or ±Inf: *RangeError ("pressure").
-//
-// Reference: IAPWS R7-97(2012), Revised Release on the IAPWS Industrial
-// Formulation 1997 for the Thermodynamic Properties of Water and Steam,
-// http://www.iapws.org/relguide/IF97-Rev.html (URL from memory).
-func WaterSaturationTemperature(p Pressure) (Temperature, error) {
-	if err := checkRange("pressure", float64(p), waterMinSaturationPressure, waterCriticalPressure, "Pa"); err != nil {
-		return 0, err
-	}
-	return Temperature(waterSatTemperature(float64(p))), nil
-}
-
-// waterSatTemperature is Eq. (31) without validation; p in Pa, result in K.
+// p in Pa, T_s in K, without validation; valid 611.213 Pa ≤ p ≤ 22.064 MPa.
+// Eq. (31) is the exact inverse of Eq. (30): both solve the same quadratic,
+// [IF97] Eq. (29). Checked against [IF97] Table 36. Water uses it to say up to
+// what temperature water stays liquid at a pressure (its ErrBoiling error).
 func waterSatTemperature(p float64) float64 {
 	n := &region4N
 	beta := math.Sqrt(math.Sqrt(p / 1e6))
@@ -200,10 +176,10 @@ const (
 	region1TStar = 1386.0  // K
 )
 
-// WaterDensity returns the density of liquid water at temperature T and
-// pressure p from IAPWS-IF97 Region 1 (compressed liquid). The basic
-// equation, [IF97] Eq. (7) with the coefficients of Table 2, is the
-// dimensionless Gibbs free energy
+// waterRegion1Density returns the density of liquid water at temperature T
+// (K) and pressure p (Pa, absolute) from IAPWS-IF97 Region 1 (compressed
+// liquid), without validation. The basic equation, [IF97] Eq. (7) with the
+// coefficients of Table 2, is the dimensionless Gibbs free energy
 //
 //	γ(π, τ) = g/(RT) = Σ nᵢ (7.1 − π)^Iᵢ (τ − 1.222)^Jᵢ,   i = 1…34
 //	π = p/p*, p* = 16.53 MPa;   τ = T*/T, T* = 1386 K
@@ -213,38 +189,9 @@ const (
 //	γ_π = Σ −nᵢ Iᵢ (7.1 − π)^(Iᵢ−1) (τ − 1.222)^Jᵢ
 //	v = (R·T/p)·π·γ_π,   ρ = 1/v
 //
-// with R = 461.526 J kg⁻¹ K⁻¹ (IF97 Eq. 1). T in K, p in Pa (absolute),
-// ρ in kg/m³. Valid 273.15 K ≤ T ≤ 623.15 K and p_s(T) ≤ p ≤ 100 MPa, where
-// p_s is WaterSaturationPressure. Checked against [IF97] Table 5.
+// with R = 461.526 J kg⁻¹ K⁻¹ (IF97 Eq. 1). Valid 273.15 K ≤ T ≤ 623.15 K and
+// p_s(T) ≤ p ≤ 100 MPa. Checked against [IF97] Table 5.
 //
-// Special cases:
-//
-//	T outside [273.15 K, 623.15 K], NaN or ±Inf: *RangeError ("water temperature").
-//	p ≤ 0, p > 100 MPa, NaN or ±Inf: *RangeError ("pressure").
-//	p < p_s(T): *RangeError ("pressure") wrapping ErrBoiling; the water
-//	    would boil, it is not liquid. Min holds p_s(T).
-//
-// Reference: IAPWS R7-97(2012), Revised Release on the IAPWS Industrial
-// Formulation 1997 for the Thermodynamic Properties of Water and Steam,
-// http://www.iapws.org/relguide/IF97-Rev.html (URL from memory).
-func WaterDensity(T Temperature, p Pressure) (Density, error) {
-	if err := checkRange("water temperature", float64(T), waterMinTemperature, waterRegion1MaxTemperature, "K"); err != nil {
-		return 0, err
-	}
-	if err := checkPositive("pressure", float64(p), waterRegion1MaxPressure, "Pa"); err != nil {
-		return 0, err
-	}
-	if ps := waterSatPressure(float64(T)); float64(p) < ps {
-		return 0, &RangeError{
-			Quantity: "pressure", Value: float64(p), Min: ps, Max: waterRegion1MaxPressure, Unit: "Pa",
-			Err:  ErrBoiling,
-			Note: "water at " + waterNum(float64(T)) + " K boils below its saturation pressure " + waterNum(ps) + " Pa",
-		}
-	}
-	return Density(waterRegion1Density(float64(T), float64(p))), nil
-}
-
-// waterRegion1Density evaluates ρ = 1/v from Eq. (7) without validation.
 // The integer powers that Table 2 needs are built by short multiplication
 // ladders (no math.Pow, no data-dependent branches, at most eight
 // multiplications deep) and stored where the term loop looks them up.
@@ -321,9 +268,9 @@ const (
 	waterMuStar    = 1e-6
 )
 
-// WaterViscosity returns the dynamic viscosity of water at temperature T and
-// density ρ from the IAPWS Formulation 2008 for the viscosity of ordinary
-// water substance, [R12] Eq. (10)–(12):
+// waterMu returns the dynamic viscosity of water at temperature T (K) and
+// density ρ (kg/m³), without validation, from the IAPWS Formulation 2008 for
+// the viscosity of ordinary water substance, [R12] Eq. (10)–(12):
 //
 //	μ/μ* = μ̄0(T̄) · μ̄1(T̄, ρ̄) · μ̄2(T̄, ρ̄)
 //	μ̄0 = 100·√T̄ / Σ_{i=0..3} Hᵢ/T̄ⁱ
@@ -338,34 +285,14 @@ const (
 // water at 0–100 °C lies far outside that region. R12-08 Table 4 gives its
 // check values with μ̄2 = 1, and this function reproduces them.
 //
-// T in K, ρ in kg/m³ (use WaterDensity; [R12] is defined with IAPWS-95
-// density, and IF97 density changes μ by less than 0.003 % at 0–100 °C and
-// 1 atm), μ in Pa·s. Accepted: 273.15 K ≤ T ≤ 1173.15 K and
-// 0 < ρ ≤ 1250 kg/m³, a rectangle enclosing the fluid states the release
-// covers (to 1173.15 K and, for the liquid, up to about 1 GPa). The caller
-// must pass a density that belongs to a fluid state at T; the function cannot
-// tell a stable liquid from an impossible pair inside the rectangle.
-//
-// Special cases:
-//
-//	T outside [273.15 K, 1173.15 K], NaN or ±Inf: *RangeError ("water temperature").
-//	ρ ≤ 0, ρ > 1250 kg/m³, NaN or ±Inf: *RangeError ("water density").
-//	Near the critical point the result omits μ̄2 (see above).
+// Result in Pa·s. [R12] is defined with IAPWS-95 density; with IF97 density
+// (as Water passes it) μ changes by less than 0.003 % at 0–100 °C and 1 atm.
+// The release covers the fluid to 1173.15 K and, for the liquid, up to about
+// 1 GPa; the caller must pass a density that belongs to a fluid state at T.
 //
 // Reference: IAPWS R12-08 (2008), Release on the IAPWS Formulation 2008 for
 // the Viscosity of Ordinary Water Substance, http://www.iapws.org/relguide/viscosity.htm;
 // Huber et al., J. Phys. Chem. Ref. Data 38 (2009) 101, doi:10.1063/1.3088050.
-func WaterViscosity(T Temperature, rho Density) (Viscosity, error) {
-	if err := checkRange("water temperature", float64(T), waterMinTemperature, waterViscosityMaxTemperature, "K"); err != nil {
-		return 0, err
-	}
-	if err := checkPositive("water density", float64(rho), waterViscosityMaxDensity, "kg/m³"); err != nil {
-		return 0, err
-	}
-	return Viscosity(waterMu(float64(T), float64(rho))), nil
-}
-
-// waterMu evaluates [R12] Eq. (10)–(12) with μ̄2 = 1, without validation.
 func waterMu(T, rho float64) float64 {
 	tr := T / waterMuTStar
 	dr := rho / waterMuRhoStar
@@ -395,9 +322,9 @@ func waterMu(T, rho float64) float64 {
 // Water returns the properties of liquid water at temperature T under the
 // absolute pressure p (the tool passes the site's barometric pressure):
 //
-//	Density        ρ   IAPWS-IF97 Region 1 (see WaterDensity)
-//	Viscosity      μ   IAPWS 2008 with μ̄2 = 1 (see WaterViscosity)
-//	VaporPressure  p_v IAPWS-IF97 Region 4, Eq. (30) (see WaterSaturationPressure)
+//	Density        ρ   IAPWS-IF97 Region 1, Eq. (7) (waterRegion1Density)
+//	Viscosity      μ   IAPWS 2008 with μ̄2 = 1 (waterMu)
+//	VaporPressure  p_v IAPWS-IF97 Region 4, Eq. (30) (WaterSaturationPressure)
 //
 // Accepted: water temperature 273.15 K to 373.15 K (0 to 100 °C) and
 // 0 < p ≤ 100 MPa, with the water not boiling: p ≥ p_v(T). Pure, air-free
@@ -416,10 +343,10 @@ func waterMu(T, rho float64) float64 {
 //
 // Water does not allocate unless it returns an error.
 func Water(T Temperature, p Pressure) (Fluid, error) {
-	if err := checkRange("water temperature", float64(T), waterMinTemperature, waterToolMaxTemperature, "K"); err != nil {
+	if err := checkRange(QuantityTemperature, "water temperature", float64(T), waterMinTemperature, waterToolMaxTemperature, "K"); err != nil {
 		return Fluid{}, err
 	}
-	if err := checkPositive("absolute pressure", float64(p), waterRegion1MaxPressure, "Pa"); err != nil {
+	if err := checkPositive(QuantityAtmPressure, "absolute pressure", float64(p), waterRegion1MaxPressure, "Pa"); err != nil {
 		return Fluid{}, err
 	}
 	t, pp := float64(T), float64(p)
@@ -440,14 +367,14 @@ func Water(T Temperature, p Pressure) (Fluid, error) {
 func waterBoilingError(T, p, pv float64) error {
 	if p < waterMinSaturationPressure {
 		return &RangeError{
-			Quantity: "absolute pressure", Value: p, Min: pv, Max: waterRegion1MaxPressure, Unit: "Pa",
+			What: QuantityAtmPressure, Quantity: "absolute pressure", Value: p, Min: pv, Max: waterRegion1MaxPressure, Unit: "Pa",
 			Err:  ErrBoiling,
 			Note: "water at " + waterNum(T) + " K boils below its vapour pressure " + waterNum(pv) + " Pa",
 		}
 	}
 	ts := math.Min(waterSatTemperature(p), T)
 	return &RangeError{
-		Quantity: "water temperature", Value: T, Min: waterMinTemperature, Max: ts, Unit: "K",
+		What: QuantityTemperature, Quantity: "water temperature", Value: T, Min: waterMinTemperature, Max: ts, Unit: "K",
 		Err:  ErrBoiling,
 		Note: "water boils at " + waterNum(ts) + " K under " + waterNum(p) + " Pa",
 	}

@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"testing"
+
+	"drawdown/calc/testkit"
 )
 
 // Sources of the check values below. The tags in brackets follow the
@@ -33,18 +35,14 @@ const (
 	srcCommonWtr    = "common practice: water boils below 100 °C at altitude"
 )
 
-// waterClose reports whether got is within tol of want: relative when rel is
-// true, absolute otherwise.
-func waterClose(got, want, tol float64, rel bool) bool {
-	if math.IsNaN(got) || math.IsInf(got, 0) {
-		return false
-	}
-	d := math.Abs(got - want)
-	if rel {
-		return d <= tol*math.Abs(want)
-	}
-	return d <= tol
-}
+// Water's own bounds that the tests walk: IF97 Region 1 ends at 623.15 K;
+// R12-08's viscosity covers the fluid to 1173.15 K and, for the liquid, up
+// to about 1 GPa, inside 1250 kg/m³.
+const (
+	waterRegion1MaxTemperature   = 623.15  // K
+	waterViscosityMaxTemperature = 1173.15 // K
+	waterViscosityMaxDensity     = 1250.0  // kg/m³
+)
 
 func TestWaterSaturationPressureIF97(t *testing.T) {
 	tests := []struct {
@@ -63,12 +61,12 @@ func TestWaterSaturationPressureIF97(t *testing.T) {
 		if err != nil {
 			t.Fatalf("%s: unexpected error %v (%s)", tc.name, err, tc.source)
 		}
-		if !waterClose(float64(got), float64(tc.want), tc.relTol, true) {
-			t.Errorf("%s: p_s = %.10g Pa, want %.10g Pa ±%g rel (%s)", tc.name, float64(got), float64(tc.want), tc.relTol, tc.source)
-		}
+		testkit.Close(t, tc.name+": p_s (Pa)", float64(got), float64(tc.want), tc.relTol, tc.source)
 	}
 }
 
+// TestWaterSaturationTemperatureIF97 checks Eq. (31), which Water uses to
+// name the boiling point in its ErrBoiling error.
 func TestWaterSaturationTemperatureIF97(t *testing.T) {
 	tests := []struct {
 		name   string
@@ -84,13 +82,8 @@ func TestWaterSaturationTemperatureIF97(t *testing.T) {
 		{"1 atm", 101325, 373.1243, 0.00005 / 373.1243, srcNoteSat},
 	}
 	for _, tc := range tests {
-		got, err := WaterSaturationTemperature(tc.p)
-		if err != nil {
-			t.Fatalf("%s: unexpected error %v (%s)", tc.name, err, tc.source)
-		}
-		if !waterClose(float64(got), float64(tc.want), tc.relTol, true) {
-			t.Errorf("%s: T_s = %.10g K, want %.10g K ±%g rel (%s)", tc.name, float64(got), float64(tc.want), tc.relTol, tc.source)
-		}
+		got := waterSatTemperature(float64(tc.p))
+		testkit.Close(t, tc.name+": T_s (K)", got, float64(tc.want), tc.relTol, tc.source)
 	}
 }
 
@@ -111,13 +104,13 @@ func TestWaterSaturationPressureFieldRange(t *testing.T) {
 		if err != nil {
 			t.Fatalf("%g °C: unexpected error %v", tc.celsius, err)
 		}
-		if !waterClose(float64(got), tc.kPa*1e3, 0.05, false) {
+		if !testkit.Within(float64(got), tc.kPa*1e3, 0.05/(tc.kPa*1e3)) {
 			t.Errorf("%g °C: p_s = %.4f Pa, want %.1f Pa ±0.05 Pa (%s)", tc.celsius, float64(got), tc.kPa*1e3, srcNoteSat)
 		}
 	}
 	// Lower end of Region 4: p_s(273.15 K) = 611.2127 Pa.
 	got, err := WaterSaturationPressure(273.15)
-	if err != nil || !waterClose(float64(got), 611.2127, 0.00005, false) {
+	if err != nil || !testkit.Within(float64(got), 611.2127, 0.00005/611.2127) {
 		t.Errorf("p_s(273.15 K) = %.6f Pa, %v; want 611.2127 Pa ±0.00005 (%s)", float64(got), err, srcNoteSat)
 	}
 }
@@ -133,13 +126,8 @@ func TestWaterSaturationRoundTrip(t *testing.T) {
 		if float64(p) < waterMinSaturationPressure {
 			continue // 273.15 K lies 0.0003 Pa below Eq. (31)'s stated lower bound
 		}
-		back, err := WaterSaturationTemperature(p)
-		if err != nil {
-			t.Fatalf("T_s(%g Pa): %v", float64(p), err)
-		}
-		if !waterClose(float64(back), T, 1e-12, true) {
-			t.Errorf("T_s(p_s(%g K)) = %.15g K (%s)", T, float64(back), "IF97 Eq. (29): Eq. (30) and (31) are mutual inverses")
-		}
+		back := waterSatTemperature(float64(p))
+		testkit.Close(t, fmt.Sprintf("T_s(p_s(%g K))", T), back, T, 1e-12, "IF97 Eq. (29): Eq. (30) and (31) are mutual inverses")
 	}
 }
 
@@ -171,13 +159,17 @@ func TestWaterDensityIF97Table5(t *testing.T) {
 		{"500 K, 3 MPa", 500, 3e6, 0.120241800e-2, 1e-8, srcIF97T5},
 	}
 	for _, tc := range tests {
-		rho, err := WaterDensity(tc.T, tc.p)
-		if err != nil {
-			t.Fatalf("%s: unexpected error %v (%s)", tc.name, err, tc.source)
+		// Eq. (7) as Water evaluates it; through Water itself where the
+		// state is inside Water's range (0–100 °C).
+		rho := waterRegion1Density(float64(tc.T), float64(tc.p))
+		if tc.T <= waterToolMaxTemperature {
+			f, err := Water(tc.T, tc.p)
+			if err != nil {
+				t.Fatalf("%s: unexpected error %v (%s)", tc.name, err, tc.source)
+			}
+			rho = float64(f.Density)
 		}
-		if v := 1 / float64(rho); !waterClose(v, tc.v, tc.relTol, true) {
-			t.Errorf("%s: v = %.10g m³/kg, want %.10g ±%g rel (%s)", tc.name, v, tc.v, tc.relTol, tc.source)
-		}
+		testkit.Close(t, tc.name+": v (m³/kg)", 1/rho, tc.v, tc.relTol, tc.source)
 	}
 }
 
@@ -197,7 +189,7 @@ func TestWaterRegion1PowerLadder(t *testing.T) {
 				gpi -= tm.N * float64(tm.I) * math.Pow(7.1-pi, float64(tm.I-1)) * math.Pow(tau-1.222, float64(tm.J))
 			}
 			want := 1 / (waterGasConstant * T / p * pi * gpi)
-			if got := waterRegion1Density(T, p); !waterClose(got, want, 1e-13, true) {
+			if got := waterRegion1Density(T, p); !testkit.Within(got, want, 1e-13) {
 				t.Errorf("ρ(%g K, %g Pa) = %.15g, plain sum gives %.15g (analytic)", T, p, got, want)
 			}
 		}
@@ -259,13 +251,15 @@ func TestWaterDensityOneAtmosphere(t *testing.T) {
 				t.Fatal(err)
 			}
 		}
-		got, err := WaterDensity(tc.T, p)
+		f, err := Water(tc.T, p)
 		if err != nil {
 			t.Fatalf("%s: unexpected error %v (%s)", tc.name, err, tc.source)
 		}
-		if !waterClose(float64(got), float64(tc.want), tc.tol, tc.rel) {
-			t.Errorf("%s: ρ = %.6f kg/m³, want %.6f (tol %g, relative %v) (%s)", tc.name, float64(got), float64(tc.want), tc.tol, tc.rel, tc.source)
+		tol := tc.tol
+		if !tc.rel {
+			tol /= float64(tc.want)
 		}
+		testkit.Close(t, tc.name+": ρ (kg/m³)", float64(f.Density), float64(tc.want), tol, tc.source)
 	}
 }
 
@@ -275,11 +269,11 @@ func TestWaterDensityOneAtmosphere(t *testing.T) {
 func TestWaterDensityMaximum(t *testing.T) {
 	const atm = 101325.0
 	rho := func(c float64) float64 {
-		d, err := WaterDensity(Celsius(c), atm)
+		f, err := Water(Celsius(c), atm)
 		if err != nil {
 			t.Fatalf("%g °C: %v", c, err)
 		}
-		return float64(d)
+		return float64(f.Density)
 	}
 	// Tenths of a degree, 4.0 °C to 99.9 °C (T_s(1 atm) = 99.974 °C).
 	for k := 40; k < 999; k++ {
@@ -320,13 +314,9 @@ func TestWaterViscosityR1208Table4(t *testing.T) {
 	// Appendix B: 1e-6 µPa·s absolute (published to 6 decimals).
 	const tol = 1e-6
 	for _, tc := range tests {
-		got, err := WaterViscosity(tc.T, tc.rho)
-		if err != nil {
-			t.Fatalf("%s: unexpected error %v (%s)", tc.name, err, srcR1208T4)
-		}
-		if g := float64(got) * 1e6; !waterClose(g, tc.muMicr, tol, false) {
-			t.Errorf("%s: μ = %.7f µPa·s, want %.6f ±%g (%s)", tc.name, g, tc.muMicr, tol, srcR1208T4)
-		}
+		// R12-08 with μ̄2 = 1, as Water evaluates it at its own density.
+		g := waterMu(float64(tc.T), float64(tc.rho)) * 1e6
+		testkit.Close(t, tc.name+": μ (µPa·s)", g, tc.muMicr, tol/tc.muMicr, srcR1208T4)
 	}
 }
 
@@ -336,9 +326,9 @@ func TestWaterViscosityR1208Table4(t *testing.T) {
 func TestWaterViscosityFiniteOverRange(t *testing.T) {
 	for T := waterMinTemperature; T <= waterViscosityMaxTemperature; T += 9 {
 		for _, rho := range []float64{1e-300, 1e-3, 1, 50, 322, 600, 900, 1000, 1100, 1250} {
-			mu, err := WaterViscosity(Temperature(T), Density(rho))
-			if err != nil || math.IsNaN(float64(mu)) || math.IsInf(float64(mu), 0) || mu <= 0 {
-				t.Errorf("WaterViscosity(%g K, %g kg/m³) = %v, %v; want finite and positive", T, rho, mu, err)
+			mu := waterMu(T, rho)
+			if math.IsNaN(mu) || math.IsInf(mu, 0) || mu <= 0 {
+				t.Errorf("waterMu(%g K, %g kg/m³) = %v; want finite and positive", T, rho, mu)
 			}
 		}
 	}
@@ -398,22 +388,25 @@ func TestWaterViscosityOneAtmosphere(t *testing.T) {
 				t.Fatal(err)
 			}
 		}
-		rho, err := WaterDensity(tc.T, p)
-		if err != nil {
-			t.Fatalf("%s: density: %v", tc.name, err)
+		var mu float64
+		if tc.T <= waterToolMaxTemperature {
+			f, err := Water(tc.T, p)
+			if err != nil {
+				t.Fatalf("%s: unexpected error %v (%s)", tc.name, err, tc.source)
+			}
+			mu = float64(f.Viscosity)
+		} else {
+			// above Water's range (Perry's 380 and 390 K rows): the same
+			// evaluators Water calls
+			mu = waterMu(float64(tc.T), waterRegion1Density(float64(tc.T), float64(p)))
 		}
-		got, err := WaterViscosity(tc.T, rho)
-		if err != nil {
-			t.Fatalf("%s: unexpected error %v (%s)", tc.name, err, tc.source)
-		}
-		if g := float64(got) * 1e6; !waterClose(g, tc.muMicr, tc.relTol, true) {
-			t.Errorf("%s: μ = %.4f µPa·s, want %.4f ±%g rel (%s)", tc.name, g, tc.muMicr, tc.relTol, tc.source)
-		}
+		testkit.Close(t, tc.name+": μ (µPa·s)", mu*1e6, tc.muMicr, tc.relTol, tc.source)
 	}
 }
 
-// TestWaterMatchesParts: Water is the three separate functions together.
-func TestWaterMatchesParts(t *testing.T) {
+// TestWaterPassesValidate: every Water result is a valid Fluid, with the
+// vapour pressure of Eq. (30).
+func TestWaterPassesValidate(t *testing.T) {
 	for _, c := range []float64{0, 4, 12.5, 20, 37, 60, 85, 99} {
 		for _, p := range []Pressure{70000, 101325, 250000} {
 			if c > 90 && p < 100000 {
@@ -424,11 +417,8 @@ func TestWaterMatchesParts(t *testing.T) {
 			if err != nil {
 				t.Fatalf("Water(%g °C, %g Pa): %v", c, float64(p), err)
 			}
-			rho, _ := WaterDensity(T, p)
-			mu, _ := WaterViscosity(T, rho)
-			pv, _ := WaterSaturationPressure(T)
-			if f.Density != rho || f.Viscosity != mu || f.VaporPressure != pv {
-				t.Errorf("Water(%g °C, %g Pa) = %+v, parts give %v %v %v", c, float64(p), f, rho, mu, pv)
+			if pv, _ := WaterSaturationPressure(T); f.VaporPressure != pv {
+				t.Errorf("Water(%g °C, %g Pa): p_v %v, Eq. (30) gives %v", c, float64(p), f.VaporPressure, pv)
 			}
 			if err := f.Validate(); err != nil {
 				t.Errorf("Water(%g °C, %g Pa) fails Fluid.Validate: %v", c, float64(p), err)
@@ -466,7 +456,7 @@ func TestWaterBoilsAtAltitude(t *testing.T) {
 	if !errors.As(err, &re) || re.Quantity != "water temperature" {
 		t.Fatalf("want *RangeError on water temperature, got %#v", err)
 	}
-	ts, _ := WaterSaturationTemperature(p)
+	ts := Temperature(waterSatTemperature(float64(p)))
 	if re.Max != float64(ts) || ts.Celsius() < 93 || ts.Celsius() > 94 {
 		t.Errorf("boiling point at 2000 m: Max = %g K, T_s = %v, want about 93.3 °C", re.Max, ts)
 	}
@@ -486,11 +476,6 @@ func TestWaterBoilsAtAltitude(t *testing.T) {
 	if !errors.Is(err, ErrBoiling) || !errors.As(err, &re) || re.Quantity != "absolute pressure" {
 		t.Errorf("Water(0 °C, 500 Pa) = %v, want ErrBoiling on absolute pressure", err)
 	}
-	// WaterDensity names the pressure and the saturation pressure.
-	_, err = WaterDensity(Celsius(100), StandardSeaLevelPressure)
-	if !errors.Is(err, ErrBoiling) || !errors.As(err, &re) || re.Quantity != "pressure" || re.Min < 101417 || re.Min > 101419 {
-		t.Errorf("WaterDensity(100 °C, 1 atm) = %v, want ErrBoiling with Min = p_s ≈ 101418 Pa", err)
-	}
 }
 
 func TestWaterInvalidInput(t *testing.T) {
@@ -505,22 +490,6 @@ func TestWaterInvalidInput(t *testing.T) {
 		{"p_s +Inf", func() (float64, error) { v, e := WaterSaturationPressure(Temperature(inf)); return float64(v), e }, "water temperature", ErrNotFinite},
 		{"p_s below 273.15 K", func() (float64, error) { v, e := WaterSaturationPressure(273.14); return float64(v), e }, "water temperature", ErrOutOfRange},
 		{"p_s above critical", func() (float64, error) { v, e := WaterSaturationPressure(647.1); return float64(v), e }, "water temperature", ErrOutOfRange},
-		{"T_s NaN", func() (float64, error) { v, e := WaterSaturationTemperature(Pressure(nan)); return float64(v), e }, "pressure", ErrNotFinite},
-		{"T_s low", func() (float64, error) { v, e := WaterSaturationTemperature(611); return float64(v), e }, "pressure", ErrOutOfRange},
-		{"T_s zero", func() (float64, error) { v, e := WaterSaturationTemperature(0); return float64(v), e }, "pressure", ErrOutOfRange},
-		{"T_s above critical", func() (float64, error) { v, e := WaterSaturationTemperature(22.1e6); return float64(v), e }, "pressure", ErrOutOfRange},
-		{"ρ T NaN", func() (float64, error) { v, e := WaterDensity(Temperature(nan), 1e5); return float64(v), e }, "water temperature", ErrNotFinite},
-		{"ρ T high", func() (float64, error) { v, e := WaterDensity(624, 50e6); return float64(v), e }, "water temperature", ErrOutOfRange},
-		{"ρ p −Inf", func() (float64, error) { v, e := WaterDensity(300, Pressure(-inf)); return float64(v), e }, "pressure", ErrNotFinite},
-		{"ρ p zero", func() (float64, error) { v, e := WaterDensity(300, 0); return float64(v), e }, "pressure", ErrOutOfRange},
-		{"ρ p negative", func() (float64, error) { v, e := WaterDensity(300, -1); return float64(v), e }, "pressure", ErrOutOfRange},
-		{"ρ p above 100 MPa", func() (float64, error) { v, e := WaterDensity(300, 100.1e6); return float64(v), e }, "pressure", ErrOutOfRange},
-		{"ρ boiling", func() (float64, error) { v, e := WaterDensity(300, 3000); return float64(v), e }, "pressure", ErrBoiling},
-		{"μ T low", func() (float64, error) { v, e := WaterViscosity(270, 1000); return float64(v), e }, "water temperature", ErrOutOfRange},
-		{"μ T high", func() (float64, error) { v, e := WaterViscosity(1200, 100); return float64(v), e }, "water temperature", ErrOutOfRange},
-		{"μ ρ NaN", func() (float64, error) { v, e := WaterViscosity(300, Density(nan)); return float64(v), e }, "water density", ErrNotFinite},
-		{"μ ρ zero", func() (float64, error) { v, e := WaterViscosity(300, 0); return float64(v), e }, "water density", ErrOutOfRange},
-		{"μ ρ high", func() (float64, error) { v, e := WaterViscosity(300, 1300); return float64(v), e }, "water density", ErrOutOfRange},
 		{"Water T NaN", func() (float64, error) { f, e := Water(Temperature(nan), 1e5); return float64(f.Density), e }, "water temperature", ErrNotFinite},
 		{"Water T −1 °C", func() (float64, error) { f, e := Water(Celsius(-1), 1e5); return float64(f.Density), e }, "water temperature", ErrOutOfRange},
 		{"Water T 101 °C", func() (float64, error) { f, e := Water(Celsius(101), 1e6); return float64(f.Density), e }, "water temperature", ErrOutOfRange},
@@ -604,15 +573,19 @@ func ExampleWater() {
 		fmt.Println(err)
 		return
 	}
-	boil, _ := WaterSaturationTemperature(site)
-	fmt.Printf("barometric pressure %.1f kPa, water boils at %.1f °C\n", float64(site)/1e3, boil.Celsius())
+	fmt.Printf("barometric pressure %.1f kPa\n", float64(site)/1e3)
 	fmt.Printf("water at 15 °C: density %.2f kg/m³, viscosity %.4f mPa·s, vapour pressure %.3f kPa\n",
 		float64(w.Density), float64(w.Viscosity)*1e3, float64(w.VaporPressure)/1e3)
 
+	// Water at 98 °C boils there; the error says up to what temperature it
+	// stays liquid.
 	_, err = Water(Celsius(98), site)
-	fmt.Println(errors.Is(err, ErrBoiling))
+	var re *RangeError
+	if errors.As(err, &re) && errors.Is(err, ErrBoiling) {
+		fmt.Printf("boils: liquid up to %.1f °C\n", Temperature(re.Max).Celsius())
+	}
 	// Output:
-	// barometric pressure 84.6 kPa, water boils at 95.0 °C
+	// barometric pressure 84.6 kPa
 	// water at 15 °C: density 999.09 kg/m³, viscosity 1.1376 mPa·s, vapour pressure 1.706 kPa
-	// true
+	// boils: liquid up to 95.0 °C
 }

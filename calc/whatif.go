@@ -108,10 +108,10 @@ func AroundChoice(length, diameter Length) (lengths, diameters []Length) {
 // its own Err and does not fail the grid.
 func WhatIf(in DrainInput, lengths, diameters []Length) (WhatIfGrid, error) {
 	var g WhatIfGrid
-	if err := checkRange("what-if hose lengths", float64(len(lengths)), 0, MaxWhatIfLengths, ""); err != nil {
+	if err := checkRange(QuantityWhatIf, "what-if hose lengths", float64(len(lengths)), 0, MaxWhatIfLengths, ""); err != nil {
 		return g, err
 	}
-	if err := checkRange("what-if hose diameters", float64(len(diameters)), 0, MaxWhatIfDiameters, ""); err != nil {
+	if err := checkRange(QuantityWhatIf, "what-if hose diameters", float64(len(diameters)), 0, MaxWhatIfDiameters, ""); err != nil {
 		return g, err
 	}
 	if _, err := whatIfCell(in); err != nil {

@@ -3,6 +3,8 @@ package calc
 import (
 	"math"
 	"testing"
+
+	"drawdown/calc/testkit"
 )
 
 // TestAroundChoice: neighbouring standard hose bores (13 … 150 mm, common
@@ -73,16 +75,23 @@ func TestWhatIfProperties(t *testing.T) {
 	}
 	// the centre cell is the plan itself
 	p, _ := PlanDrain(in)
-	if c := g.Cells[3][2]; !tkNear(float64(c.Time), float64(p.Time), 1e-7) || c.StopReason != p.StopReason {
+	if c := g.Cells[3][2]; !testkit.Within(float64(c.Time), float64(p.Time), 1e-7) || c.StopReason != p.StopReason {
 		t.Errorf("centre cell %+v, plan %g s %s", c, p.Time, p.StopReason)
 	}
-	// without a tank: flow only
+}
+
+// TestWhatIfFlowOnlyAndBadCells: without a tank the grid holds flows only;
+// an invalid alternative is marked on its cell, not fatal to the grid.
+func TestWhatIfFlowOnlyAndBadCells(t *testing.T) {
+	in := DrainInput{Tank: mustTank(NewVerticalCylinder(1.2, 1.5)), Siphon: baseSiphon(1.4, 0.05, 1.9, -2)}
+	ls, ds := AroundChoice(in.Siphon.Hose.Length, in.Siphon.Hose.Diameter)
+	p, _ := PlanDrain(in)
 	in.Tank = nil
 	g2, err := WhatIf(in, ls, ds)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if c := g2.Cells[3][2]; c.Time != 0 || !tkNear(float64(c.Flow), float64(p.StartFlow), 1e-12) {
+	if c := g2.Cells[3][2]; c.Time != 0 || !testkit.Within(float64(c.Flow), float64(p.StartFlow), 1e-12) {
 		t.Errorf("flow-only centre cell %+v", c)
 	}
 	// an invalid alternative is marked, not fatal: an up-leg longer than the hose

@@ -143,7 +143,7 @@ func BarbK(beta float64) (float64, error) {
 		if math.IsNaN(beta) || math.IsInf(beta, 0) {
 			e = calc.ErrNotFinite
 		}
-		return 0, &calc.RangeError{Quantity: "barb bore ratio", Value: beta, Min: 0, Max: 1, Unit: "", Err: e,
+		return 0, &calc.RangeError{What: calc.QuantityBarbRatio, Quantity: "barb bore ratio", Value: beta, Min: 0, Max: 1, Unit: "", Err: e,
 			Note: "insert bore over hose bore, more than zero"}
 	}
 	a := 1 - beta*beta

@@ -77,18 +77,18 @@ func (l Liquid) Fluid(T calc.Temperature, p calc.Pressure) (calc.Fluid, error) {
 	}
 	t := float64(T)
 	if math.IsNaN(t) || math.IsInf(t, 0) {
-		return calc.Fluid{}, &calc.RangeError{Quantity: l.quantity(), Value: t, Min: float64(l.Min), Max: float64(l.Max), Unit: "K", Err: calc.ErrNotFinite}
+		return calc.Fluid{}, &calc.RangeError{What: calc.QuantityTemperature, Quantity: l.quantity(), Value: t, Min: float64(l.Min), Max: float64(l.Max), Unit: "K", Err: calc.ErrNotFinite}
 	}
 	if T < l.Min || T > l.Max {
-		return calc.Fluid{}, &calc.RangeError{Quantity: l.quantity(), Value: t, Min: float64(l.Min), Max: float64(l.Max), Unit: "K", Err: calc.ErrOutOfRange,
+		return calc.Fluid{}, &calc.RangeError{What: calc.QuantityTemperature, Quantity: l.quantity(), Value: t, Min: float64(l.Min), Max: float64(l.Max), Unit: "K", Err: calc.ErrOutOfRange,
 			Note: "range of the " + l.ID + " property data"}
 	}
 	pp := float64(p)
 	if math.IsNaN(pp) || math.IsInf(pp, 0) {
-		return calc.Fluid{}, &calc.RangeError{Quantity: "absolute pressure", Value: pp, Min: 0, Max: maxPressure, Unit: "Pa", Err: calc.ErrNotFinite}
+		return calc.Fluid{}, &calc.RangeError{What: calc.QuantityAtmPressure, Quantity: "absolute pressure", Value: pp, Min: 0, Max: maxPressure, Unit: "Pa", Err: calc.ErrNotFinite}
 	}
 	if pp <= 0 || pp > maxPressure {
-		return calc.Fluid{}, &calc.RangeError{Quantity: "absolute pressure", Value: pp, Min: 0, Max: maxPressure, Unit: "Pa", Err: calc.ErrOutOfRange,
+		return calc.Fluid{}, &calc.RangeError{What: calc.QuantityAtmPressure, Quantity: "absolute pressure", Value: pp, Min: 0, Max: maxPressure, Unit: "Pa", Err: calc.ErrOutOfRange,
 			Note: "must be more than zero"}
 	}
 	f, err := l.model.eval(T, p)
@@ -103,7 +103,7 @@ func (l Liquid) Fluid(T calc.Temperature, p calc.Pressure) (calc.Fluid, error) {
 	}
 	if float64(f.VaporPressure) >= pp {
 		tb := l.boilingAt(pp)
-		return calc.Fluid{}, &calc.RangeError{Quantity: l.quantity(), Value: t, Min: float64(l.Min), Max: tb, Unit: "K", Err: calc.ErrBoiling,
+		return calc.Fluid{}, &calc.RangeError{What: calc.QuantityTemperature, Quantity: l.quantity(), Value: t, Min: float64(l.Min), Max: tb, Unit: "K", Err: calc.ErrBoiling,
 			Note: l.ID + " vapour pressure " + num(float64(f.VaporPressure)) + " Pa reaches the pressure " + num(pp) + " Pa"}
 	}
 	if err := f.Validate(); err != nil {

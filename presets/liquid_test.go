@@ -6,24 +6,8 @@ import (
 	"testing"
 
 	"drawdown/calc"
+	"drawdown/calc/testkit"
 )
-
-// close reports whether got is within tol of want: relative when want is
-// not zero, absolute otherwise.
-func closeTo(got, want, tol float64) bool {
-	if math.IsNaN(got) || math.IsInf(got, 0) {
-		return false
-	}
-	if want == 0 {
-		return math.Abs(got) <= tol
-	}
-	return math.Abs(got-want) <= tol*math.Abs(want)
-}
-
-// absClose reports |got − want| ≤ tol.
-func absClose(got, want, tol float64) bool {
-	return !math.IsNaN(got) && math.Abs(got-want) <= tol
-}
 
 // Sharqawy, Lienhard & Zubair (2010) seawater against check values computed
 // from the paper's equations with the paper coefficient set. Source: the
@@ -52,13 +36,13 @@ func TestSharqawyCheckValues(t *testing.T) {
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
 			s := c.s / 1000
-			if got := sharqawyDensity(c.tC, s); !absClose(got, c.rho, 0.00005) {
+			if got := sharqawyDensity(c.tC, s); !testkit.Within(got, c.rho, 0.00005/math.Abs(c.rho)) {
 				t.Errorf("density = %.5f, want %.4f (%s)", got, c.rho, c.source)
 			}
-			if got := sharqawyViscosity(c.tC, s) * 1e6; !absClose(got, c.mu, 0.005) {
+			if got := sharqawyViscosity(c.tC, s) * 1e6; !testkit.Within(got, c.mu, 0.005/math.Abs(c.mu)) {
 				t.Errorf("viscosity = %.4f µPa·s, want %.2f (%s)", got, c.mu, c.source)
 			}
-			if got := sharqawyVaporPressure(c.tC+273.15, c.s); !absClose(got, c.pvRao, 0.005) {
+			if got := sharqawyVaporPressure(c.tC+273.15, c.s); !testkit.Within(got, c.pvRao, 0.005/math.Abs(c.pvRao)) {
 				t.Errorf("vapour pressure = %.3f Pa, want %.2f (%s)", got, c.pvRao, c.source)
 			}
 		})
@@ -83,13 +67,13 @@ func TestSeawaterPreset(t *testing.T) {
 	// WaterTAP 25 °C, 35 g/kg: ρ 1023.5 (truncated), μ 9.588e-4, p_v 3111
 	// (Nayar 2016 relation; ours is the 2010 Raoult relation, 0.2 % lower,
 	// as the note says).
-	if !absClose(float64(f.Density), 1023.5, 0.1) {
+	if !testkit.Within(float64(f.Density), 1023.5, 0.1/1023.5) {
 		t.Errorf("density %v, want 1023.5 (WaterTAP regression)", f.Density)
 	}
-	if !closeTo(float64(f.Viscosity), 9.588e-4, 1e-4) {
+	if !testkit.Within(float64(f.Viscosity), 9.588e-4, 1e-4) {
 		t.Errorf("viscosity %v, want 9.588e-4 (WaterTAP regression)", f.Viscosity)
 	}
-	if !closeTo(float64(f.VaporPressure), 3111, 0.003) {
+	if !testkit.Within(float64(f.VaporPressure), 3111, 0.003) {
 		t.Errorf("vapour pressure %v, want 3111 within 0.3 %% (Nayar 2016 vs Sharqawy 2010 relation)", f.VaporPressure)
 	}
 	// TEOS-10 at S_A = 35.16504 g/kg, 25 °C: 1023.3436 kg/m³; 20 °C:
@@ -104,14 +88,14 @@ func TestSeawaterPreset(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if !closeTo(float64(f.Density), tc.rho, 1e-3) {
+		if !testkit.Within(float64(f.Density), tc.rho, 1e-3) {
 			t.Errorf("%g °C: density %v, TEOS-10 %v", tc.tC, f.Density, tc.rho)
 		}
 	}
 	// Freezing point of standard seawater: about -1.92 °C (UNESCO 1983
 	// formula; value from memory; TEOS-10 gives about -1.9 °C, also from
 	// memory).
-	if !absClose(sw.Cold.Celsius(), -1.92, 0.01) {
+	if !testkit.Within(sw.Cold.Celsius(), -1.92, 0.01/1.92) {
 		t.Errorf("seawater freezing %v °C, want -1.92", sw.Cold.Celsius())
 	}
 }
@@ -121,17 +105,17 @@ func TestSeawaterPreset(t *testing.T) {
 // gives A = 9.487160, B = 3.732265, ν60 = 14.447, ν20 = 79.19, ν0 = 299.0.
 func TestWaltherCheck(t *testing.T) {
 	w := fitWalther(313.15, 30, 373.15, 5.23)
-	if !absClose(w.A, 9.487160, 5e-7) || !absClose(w.B, 3.732265, 5e-7) {
+	if !testkit.Within(w.A, 9.487160, 5e-7/9.487160) || !testkit.Within(w.B, 3.732265, 5e-7/3.732265) {
 		t.Errorf("A, B = %.7f, %.7f; want 9.487160, 3.732265 (hydraulics note §8.4)", w.A, w.B)
 	}
 	for _, c := range []struct{ tC, nu, tol float64 }{{60, 14.447, 0.0005}, {20, 79.19, 0.005}, {0, 299.0, 0.05}, {40, 30, 1e-9}, {100, 5.23, 1e-9}} {
-		if got := w.nu(c.tC + 273.15); !absClose(got, c.nu, c.tol) {
+		if got := w.nu(c.tC + 273.15); !testkit.Within(got, c.nu, c.tol/math.Abs(c.nu)) {
 			t.Errorf("ν(%g °C) = %.4f, want %g (hydraulics note §8.4)", c.tC, got, c.nu)
 		}
 	}
 	// The inverse of Z is exact where the low-viscosity term matters.
 	for _, nu := range []float64{0.3, 0.8, 1.5, 3, 50} {
-		if got := waltherNu(waltherZ(nu)); !closeTo(got, nu, 1e-10) {
+		if got := waltherNu(waltherZ(nu)); !testkit.Within(got, nu, 1e-10) {
 			t.Errorf("waltherNu(waltherZ(%g)) = %g", nu, got)
 		}
 	}
@@ -156,7 +140,7 @@ func TestHydraulicOilGrades(t *testing.T) {
 				t.Fatal(err)
 			}
 			nu := float64(f.Viscosity) / float64(f.Density) * 1e6
-			if !closeTo(nu, p.nu, 1e-9) {
+			if !testkit.Within(nu, p.nu, 1e-9) {
 				t.Errorf("%s ν(%g °C) = %.4f, want %g (ISO 3448 / ASTM D2270)", g.id, p.tC, nu, p.nu)
 			}
 		}
@@ -198,7 +182,7 @@ func TestGlycols(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if !absClose(float64(f.Density), r.rho, 0.05) || !absClose(float64(f.Viscosity)*1e3, r.muM, 0.0005) {
+		if !testkit.Within(float64(f.Density), r.rho, 0.05/math.Abs(r.rho)) || !testkit.Within(float64(f.Viscosity)*1e3, r.muM, 0.0005/math.Abs(r.muM)) {
 			t.Errorf("%s %g °C: %v, %v; want %v kg/m³, %v mPa·s (hydraulics note §8.3)", r.id, r.tC, f.Density, f.Viscosity, r.rho, r.muM)
 		}
 	}
@@ -221,14 +205,14 @@ func TestGlycols(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if !closeTo(float64(f.Density), rho, 1e-3) || !closeTo(float64(f.Viscosity)*1e3, mu, 5e-3) {
+		if !testkit.Within(float64(f.Density), rho, 1e-3) || !testkit.Within(float64(f.Viscosity)*1e3, mu, 5e-3) {
 			t.Errorf("%s 20 °C: %v, %v mPa·s; Melinder rows give %.2f, %.4f", m.id, f.Density, float64(f.Viscosity)*1e3, rho, mu)
 		}
 	}
 	// Freezing points: Melinder by mass, interpolated (hydraulics note §8.3).
 	for id, tf := range map[string]float64{"eg30": -16.6, "eg50": -40.0, "pg30": -13.6, "pg50": -34.7} {
 		l, _ := c.Liquid(id)
-		if !absClose(l.Cold.Celsius(), tf, 1e-9) {
+		if !testkit.Within(l.Cold.Celsius(), tf, 1e-9) {
 			t.Errorf("%s freezing %v, want %v", id, l.Cold.Celsius(), tf)
 		}
 	}
@@ -239,10 +223,10 @@ func TestGlycols(t *testing.T) {
 // psi and S = 3 (constants from memory, as the note says).
 func TestGasolineVaporPressure(t *testing.T) {
 	pv := ap42Gasoline(10*psi/1000, 3)
-	if got := pv(fahrenheit(100)) / psi; !absClose(got, 10.6, 0.05) {
+	if got := pv(fahrenheit(100)) / psi; !testkit.Within(got, 10.6, 0.05/10.6) {
 		t.Errorf("TVP(100 °F) = %.3f psia, want 10.6", got)
 	}
-	if got := pv(fahrenheit(68)) / psi; !absClose(got, 6.0, 0.05) {
+	if got := pv(fahrenheit(68)) / psi; !testkit.Within(got, 6.0, 0.05/6.0) {
 		t.Errorf("TVP(68 °F) = %.3f psia, want 6.0", got)
 	}
 	// Conservative against a second, independent relation: RVP[kPa] =
@@ -294,10 +278,10 @@ func fahrenheit(f float64) float64 { return (f-32)/1.8 + 273.15 }
 // n-decane DIPPR 101 (Perry's Table 2-8 via `chemicals`): 9489 Pa at 100 °C
 // and 127 Pa at 20 °C (hydraulics note §8.5 [computed]).
 func TestDecaneProxy(t *testing.T) {
-	if got := decaneDIPPR.p(373.15); !closeTo(got, 9489, 5e-4) {
+	if got := decaneDIPPR.p(373.15); !testkit.Within(got, 9489, 5e-4) {
 		t.Errorf("p(100 °C) = %.1f, want 9489", got)
 	}
-	if got := decaneDIPPR.p(293.15); !closeTo(got, 127, 5e-3) {
+	if got := decaneDIPPR.p(293.15); !testkit.Within(got, 127, 5e-3) {
 		t.Errorf("p(20 °C) = %.2f, want 127", got)
 	}
 	// Independent data: Poling et al., Properties of Gases and Liquids 5th
@@ -306,7 +290,7 @@ func TestDecaneProxy(t *testing.T) {
 	// within 1 % in its range.
 	for _, T := range []float64{340, 373.15, 420} {
 		poling := math.Pow(10, 9.06853-1495.17/(T-79.292))
-		if got := decaneDIPPR.p(T); !closeTo(got, poling, 0.01) {
+		if got := decaneDIPPR.p(T); !testkit.Within(got, poling, 0.01) {
 			t.Errorf("p(%g K) = %.1f, Poling Antoine %.1f", T, got, poling)
 		}
 	}
@@ -362,7 +346,7 @@ func TestFuelSpecifications(t *testing.T) {
 		{"kerosene α vs n-decane", apiAlpha15(594.5418, 0, 800), decane, 0.10},
 		{"diesel α vs n-decane (diesel is heavier, expands less)", apiAlpha15(186.9696, 0.4862, 835), decane, 0.20},
 	} {
-		if !closeTo(a.got, a.want, a.tol) {
+		if !testkit.Within(a.got, a.want, a.tol) {
 			t.Errorf("%s: %.4g, want %.4g within %g", a.name, a.got, a.want, a.tol)
 		}
 	}
@@ -380,7 +364,7 @@ func TestWaterPresets(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if !absClose(float64(f.Density), 998.2061, 0.0005) || !closeTo(float64(f.Viscosity), 1001.597e-6, 5e-5) {
+		if !testkit.Within(float64(f.Density), 998.2061, 0.0005/998.2061) || !testkit.Within(float64(f.Viscosity), 1001.597e-6, 5e-5) {
 			t.Errorf("%s at 20 °C: %+v", id, f)
 		}
 	}
@@ -561,3 +545,47 @@ func TestLiquidComparable(t *testing.T) {
 		}
 	}
 }
+
+// TestRangeErrorsNameTheirQuantity: every *calc.RangeError presets builds
+// carries a typed What (never calc.QuantityUnknown), so no caller needs to
+// read its message; errors.Is finds the sentinel. Source: calc's error
+// contract (calc/errors.go; issue 10).
+func TestRangeErrorsNameTheirQuantity(t *testing.T) {
+	c := Builtin()
+	d, _ := c.Liquid("diesel")
+	w, _ := c.Liquid("water")
+	g, _ := c.Liquid("gasoline")
+	nan := math.NaN()
+	cases := []struct {
+		name string
+		err  error
+		what calc.Quantity
+		is   error
+	}{
+		{"diesel too cold", second(d.Fluid(calc.Celsius(-30), 101325)), calc.QuantityTemperature, calc.ErrOutOfRange},
+		{"diesel T NaN", second(d.Fluid(calc.Temperature(nan), 101325)), calc.QuantityTemperature, calc.ErrNotFinite},
+		{"pressure zero", second(d.Fluid(calc.Celsius(20), 0)), calc.QuantityAtmPressure, calc.ErrOutOfRange},
+		{"pressure NaN", second(d.Fluid(calc.Celsius(20), calc.Pressure(nan))), calc.QuantityAtmPressure, calc.ErrNotFinite},
+		{"water boils", second(w.Fluid(calc.Celsius(100), 101325)), calc.QuantityTemperature, calc.ErrBoiling},
+		{"gasoline boils", second(g.Fluid(calc.Celsius(40), 101325)), calc.QuantityTemperature, calc.ErrBoiling},
+		{"barb ratio", second(BarbK(1.2)), calc.QuantityBarbRatio, calc.ErrOutOfRange},
+		{"barb ratio NaN", second(BarbK(nan)), calc.QuantityBarbRatio, calc.ErrNotFinite},
+		{"salinity", second(Seawater(-1)), calc.QuantitySalinity, calc.ErrOutOfRange},
+		{"salinity Inf", second(Seawater(math.Inf(1))), calc.QuantitySalinity, calc.ErrNotFinite},
+		{"Reid vapour pressure", second(Gasoline(200)), calc.QuantityReidVaporPressure, calc.ErrOutOfRange},
+		{"Reid vapour pressure NaN", second(Gasoline(nan)), calc.QuantityReidVaporPressure, calc.ErrNotFinite},
+	}
+	for _, c := range cases {
+		var re *calc.RangeError
+		if !errors.As(c.err, &re) {
+			t.Errorf("%s: %v is not a *calc.RangeError", c.name, c.err)
+			continue
+		}
+		if re.What == calc.QuantityUnknown || re.What != c.what || !errors.Is(c.err, c.is) {
+			t.Errorf("%s: What %v, want %v; errors.Is(%v) %v", c.name, re.What, c.what, c.is, errors.Is(c.err, c.is))
+		}
+	}
+}
+
+// second returns the error of a (value, error) pair.
+func second[T any](_ T, err error) error { return err }

@@ -62,7 +62,7 @@ func Seawater(sGkg float64) (Liquid, error) {
 		if math.IsNaN(sGkg) || math.IsInf(sGkg, 0) {
 			e = calc.ErrNotFinite
 		}
-		return Liquid{}, &calc.RangeError{Quantity: "salinity", Value: sGkg, Min: 0, Max: MaxSalinity, Unit: "g/kg", Err: e,
+		return Liquid{}, &calc.RangeError{What: calc.QuantitySalinity, Quantity: "salinity", Value: sGkg, Min: 0, Max: MaxSalinity, Unit: "g/kg", Err: e,
 			Note: "Sharqawy et al. (2010) viscosity limit"}
 	}
 	s := num(sGkg)
@@ -156,7 +156,7 @@ func Gasoline(rvpKPa float64) (Liquid, error) {
 		if math.IsNaN(rvpKPa) || math.IsInf(rvpKPa, 0) {
 			e = calc.ErrNotFinite
 		}
-		return Liquid{}, &calc.RangeError{Quantity: "Reid vapour pressure", Value: rvpKPa, Min: 20, Max: 110, Unit: "kPa", Err: e}
+		return Liquid{}, &calc.RangeError{What: calc.QuantityReidVaporPressure, Quantity: "Reid vapour pressure", Value: rvpKPa, Min: 20, Max: 110, Unit: "kPa", Err: e}
 	}
 	const rho15 = 740.0
 	rho := apiDensity(rho15, apiAlpha15(346.4228, 0.4388, rho15))

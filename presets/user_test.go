@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"drawdown/calc"
+	"drawdown/calc/testkit"
 )
 
 func TestLoadUserExample(t *testing.T) {
@@ -37,12 +38,12 @@ func TestLoadUserExample(t *testing.T) {
 		return fl
 	}
 	// Tabulated: nodes exact, between them ρ linear and μ log-linear (analytic).
-	if fl := at("tank-wash", 20); float64(fl.Density) != 1010 || !closeTo(float64(fl.Viscosity), 1.3e-3, 1e-12) {
+	if fl := at("tank-wash", 20); float64(fl.Density) != 1010 || !testkit.Within(float64(fl.Viscosity), 1.3e-3, 1e-12) {
 		t.Errorf("tank-wash at 20 °C: %+v", fl)
 	}
-	if fl := at("tank-wash", 30); !closeTo(float64(fl.Density), 1007, 1e-12) ||
-		!closeTo(float64(fl.Viscosity), math.Sqrt(1.3*0.9)*1e-3, 1e-12) ||
-		!closeTo(float64(fl.VaporPressure), math.Sqrt(2300*7400), 1e-12) {
+	if fl := at("tank-wash", 30); !testkit.Within(float64(fl.Density), 1007, 1e-12) ||
+		!testkit.Within(float64(fl.Viscosity), math.Sqrt(1.3*0.9)*1e-3, 1e-12) ||
+		!testkit.Within(float64(fl.VaporPressure), math.Sqrt(2300*7400), 1e-12) {
 		t.Errorf("tank-wash at 30 °C: %+v", fl)
 	}
 	tw, _ := c.Liquid("tank-wash")
@@ -50,7 +51,7 @@ func TestLoadUserExample(t *testing.T) {
 		t.Errorf("tank-wash: %+v", tw)
 	}
 	// Constant.
-	if fl := at("molasses-rinse", 25); float64(fl.Density) != 1080 || !closeTo(float64(fl.Viscosity), 4.5e-3, 1e-12) {
+	if fl := at("molasses-rinse", 25); float64(fl.Density) != 1080 || !testkit.Within(float64(fl.Viscosity), 4.5e-3, 1e-12) {
 		t.Errorf("molasses-rinse: %+v", fl)
 	}
 	// based_on: density replaced, viscosity and vapour pressure kept.
@@ -65,7 +66,7 @@ func TestLoadUserExample(t *testing.T) {
 		t.Errorf("diesel override lost class, hazards or source: %+v", dl)
 	}
 	// Models.
-	if fl := at("saltpan-brine", 25); !absClose(float64(fl.Density), sharqawyDensity(25, 0.120), 1e-9) {
+	if fl := at("saltpan-brine", 25); !testkit.Within(float64(fl.Density), sharqawyDensity(25, 0.120), 1e-9) {
 		t.Errorf("saltpan-brine: %+v", fl)
 	}
 	sb, _ := c.Liquid("saltpan-brine")
@@ -76,7 +77,7 @@ func TestLoadUserExample(t *testing.T) {
 	if !g70.Hazards.Has(Flammable) || g70.Class != ClassIB {
 		t.Errorf("gasoline-70: %v %v", g70.Hazards, g70.Class)
 	}
-	if fl := at("gear-oil-150", 40); !closeTo(float64(fl.Viscosity)/float64(fl.Density)*1e6, 150, 1e-9) {
+	if fl := at("gear-oil-150", 40); !testkit.Within(float64(fl.Viscosity)/float64(fl.Density)*1e6, 150, 1e-9) {
 		t.Errorf("gear oil ν40: %+v", fl)
 	}
 	gear, _ := c.Liquid("gear-oil-150")
@@ -84,10 +85,10 @@ func TestLoadUserExample(t *testing.T) {
 		t.Errorf("gear oil class %v hazards %v", gear.Class, gear.Hazards)
 	}
 	// Other sections.
-	if h, ok := c.Hose("30mm"); !ok || !absClose(float64(h.Diameter), 0.030, 1e-12) {
+	if h, ok := c.Hose("30mm"); !ok || !testkit.Within(float64(h.Diameter), 0.030, 1e-12) {
 		t.Errorf("hose 30mm: %+v", h)
 	}
-	if m, ok := c.Material("blue-suction"); !ok || !absClose(float64(m.Roughness), 5e-6, 1e-15) {
+	if m, ok := c.Material("blue-suction"); !ok || !testkit.Within(float64(m.Roughness), 5e-6, 1e-15) {
 		t.Errorf("material: %+v", m)
 	}
 	if fv, _ := c.Fitting("foot-valve"); fv.K.Central != 18 || fv.Where != AtEntrance {
@@ -204,9 +205,11 @@ func (errReader) Read([]byte) (int, error) { return 0, errors.New("disconnected"
 // FuzzLoadUser: any input gives a catalogue or a *ParseError, never a panic;
 // a catalogue's liquids give no NaN anywhere in their ranges.
 func FuzzLoadUser(f *testing.F) {
-	if b, err := os.ReadFile("testdata/user.toml"); err == nil {
-		f.Add(string(b))
+	b, err := os.ReadFile("testdata/user.toml")
+	if err != nil {
+		f.Fatal(err) // a missing seed fixture fails, never silently shrinks the corpus
 	}
+	f.Add(string(b))
 	f.Add("[[fitting]]\nid = \"f\"\nk_ft = 20\nk_ft_high = 30\nwhere = \"up-leg\"\nsource = \"s\"\n[[priming]]\nid = \"p\"\nnot_for = [\"toxic\"]\nsource = \"s\"\n")
 	f.Add("[[liquid]]\nid = \"a\"\nsource = \"s\"\n[liquid.table]\nt_c = [5]\ndensity_kg_m3 = [1000]\nviscosity_mpa_s = [1]\n")
 	f.Add("[[liquid]]\nid = \"o\"\nsource = \"s\"\nmodel = \"oil\"\ndensity_15c_kg_m3 = 880\nnu1_mm2_s = 10000\nnu2_mm2_s = 0.3\nt_min_c = -60\nt_max_c = 200\n")
