@@ -4,6 +4,7 @@ import (
 	"errors"
 	"math"
 	"strconv"
+	"strings"
 	"testing"
 
 	"drawdown/calc"
@@ -193,5 +194,34 @@ func TestComputeTransferFields(t *testing.T) {
 	p = Compute(j, presets.Builtin())
 	if _, ok := p.FieldErrors[FieldReceiverWidth]; !ok {
 		t.Errorf("missing receiver width: errors %v", p.FieldErrors)
+	}
+}
+
+// TestErrorsInTheUsersUnits: a refusal from calc or presets is blamed on the
+// field by the quantity it names, and worded in the job's units. Water's
+// property data (IAPWS, liquid at 1 atm) run from 0 to 100 °C (32 to
+// 212 °F).
+func TestErrorsInTheUsersUnits(t *testing.T) {
+	cat := presets.Builtin()
+	for _, c := range []struct {
+		sys           System
+		temp          string
+		value, range_ string
+	}{
+		{SI, "-40C", "−40.0 °C", "0 to 100 °C"},
+		{US, "-40F", "−40.0 °F", "32 to 212 °F"},
+	} {
+		j := DemoJob()
+		j.Units = c.sys
+		j.Inputs[FieldTemp] = c.temp
+		p := Compute(j, cat)
+		err := p.FieldErrors[FieldTemp]
+		if err == nil {
+			t.Fatalf("%s: no error on the temperature field: %v", c.temp, p.FieldErrors)
+		}
+		msg := strings.ReplaceAll(err.Error(), "-", "−")
+		if !strings.Contains(msg, c.value) || !strings.Contains(msg, c.range_) || strings.Contains(msg, " K") {
+			t.Errorf("%s: %q, want %q and %q in the user's units", c.temp, err, c.value, c.range_)
+		}
 	}
 }

@@ -102,10 +102,10 @@ func (m *Model) recompute() {
 		m.planGen++
 	} else {
 		m.st.stale = true
-		if len(m.st.errs) == 0 && p.Err != nil {
-			m.st.errs = map[model.FieldID]error{model.FieldHoseID: p.Err}
-		}
 		m.st.problem = present.FirstProblem(m.st.errs)
+		if m.st.problem == "" {
+			m.st.problem = p.Err.Error() // no field to blame: the plan's own error
+		}
 		if !m.st.hasPlan {
 			m.st.sheet = present.Build(p, m.job.Units, 0)
 		}

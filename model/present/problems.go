@@ -23,12 +23,16 @@ func FieldProblem(spec model.FieldSpec, err error) string {
 }
 
 // FirstProblem is the first invalid field in screen order, with its pane:
-// "Hose › Hose length: …"; "" when every field is usable.
+// "Hose › Hose length: …"; then a problem no field is to blame for (keyed
+// ""); "" when every input is usable.
 func FirstProblem(errs map[model.FieldID]error) string {
 	for _, f := range model.Fields() {
 		if err := errs[f.ID]; err != nil {
 			return f.Pane.String() + " › " + FieldProblem(f, err)
 		}
+	}
+	if err := errs[""]; err != nil {
+		return err.Error()
 	}
 	return ""
 }
