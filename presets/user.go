@@ -71,7 +71,7 @@ func LoadUser(r io.Reader, name string) (*Catalogue, error) {
 		return nil, err
 	}
 	if len(data) > maxUserFile {
-		return nil, &ParseError{File: name, Err: fmt.Errorf("file larger than %d bytes", maxUserFile)}
+		return nil, &ParseError{File: name, Err: tooLarge(-1)}
 	}
 	return parse(string(data), name, "user file "+name, Builtin())
 }
