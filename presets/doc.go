@@ -108,6 +108,8 @@
 //	k = 0.3                         # or k_ft = n for K = n·f_T (Crane)
 //	k_low = 0.2                     # optional band (k_ft_low, k_ft_high)
 //	k_high = 0.5
+//	# or bore_ratio = 0.8 for a barb or reducer: K from its insert bore over
+//	# the hose bore (0.3 to 1), as BarbK
 //	from_memory = false
 //	source = "our estimate"
 //

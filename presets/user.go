@@ -200,15 +200,3 @@ func decodeAll[D, T any](p *parser, section string, docs []D, idOf func(D) strin
 	}
 	return out, nil
 }
-
-// WithUser returns the built-in catalogue with the preset file read from r
-// laid over it. On any error it returns the built-in catalogue alone and the
-// error, so the caller can report the error and carry on.
-func WithUser(r io.Reader, name string) (*Catalogue, error) {
-	b := Builtin()
-	u, err := LoadUser(r, name)
-	if err != nil {
-		return b, err
-	}
-	return b.Merge(u), nil
-}

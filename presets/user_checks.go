@@ -89,11 +89,15 @@ func orDefault(s, d string) string {
 // rangeCheck reports v outside [lo, hi] (or not finite) as an error that
 // states the accepted range.
 func rangeCheck(v, lo, hi float64, unit string) error {
+	u := ""
+	if unit != "" {
+		u = " " + unit
+	}
 	if math.IsNaN(v) || math.IsInf(v, 0) {
-		return fmt.Errorf("not a finite number; accepted %s to %s %s", num(lo), num(hi), unit)
+		return fmt.Errorf("not a finite number; accepted %s to %s%s", num(lo), num(hi), u)
 	}
 	if v < lo || v > hi {
-		return fmt.Errorf("%s %s is out of range; accepted %s to %s %s", num(v), unit, num(lo), num(hi), unit)
+		return fmt.Errorf("%s%s is out of range; accepted %s to %s%s", num(v), u, num(lo), num(hi), u)
 	}
 	return nil
 }

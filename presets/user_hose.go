@@ -76,6 +76,16 @@ func (p *parser) fitting(i int, id string, d fittingDoc) (Fitting, error) {
 		c, lo, hi = d.KFT, d.KFTLow, d.KFTHigh
 		ck, lk, hk = "k_ft", "k_ft_low", "k_ft_high"
 	}
+	if d.BoreRatio != nil {
+		if c != nil {
+			return f, p.errAt("fitting", i, id, "bore_ratio", fmt.Errorf("give %s or bore_ratio, not both", ck))
+		}
+		k, err := p.boreRatioK(i, id, *d.BoreRatio)
+		if err != nil {
+			return f, err
+		}
+		c = &k
+	}
 	if c == nil {
 		return f, p.errAt("fitting", i, id, "k", errors.New("missing; give k (or k_ft, a multiple of Crane's f_T)"))
 	}
@@ -104,3 +114,20 @@ func (p *parser) fitting(i int, id string, d fittingDoc) (Fitting, error) {
 	}
 	return f, nil
 }
+
+// boreRatioK is the K of a barb or reducer of bore ratio beta (insert bore
+// over hose bore), from BarbK.
+func (p *parser) boreRatioK(i int, id string, beta float64) (float64, error) {
+	if err := rangeCheck(beta, minBoreRatio, 1, ""); err != nil {
+		return 0, p.errAt("fitting", i, id, "bore_ratio", fmt.Errorf("%w (insert bore over hose bore)", err))
+	}
+	k, err := BarbK(beta)
+	if err != nil {
+		return 0, p.errAt("fitting", i, id, "bore_ratio", err)
+	}
+	return k, nil
+}
+
+// minBoreRatio is the smallest bore ratio a fitting entry takes: at 0.3 the
+// barb's K is already about 160.
+const minBoreRatio = 0.3

@@ -88,6 +88,7 @@ type fittingDoc struct {
 	KFT        *float64 `toml:"k_ft"`
 	KFTLow     *float64 `toml:"k_ft_low"`
 	KFTHigh    *float64 `toml:"k_ft_high"`
+	BoreRatio  *float64 `toml:"bore_ratio"`
 	FromMemory bool     `toml:"from_memory"`
 	Source     string   `toml:"source"`
 	Note       string   `toml:"note"`
