@@ -3,36 +3,21 @@ package main
 import (
 	"fmt"
 	"io"
-	"os"
 
 	"drawdown/presets"
 )
 
 // loadCatalogue returns the built-in catalogue merged with the user's preset
-// file when there is one. A bad user file is reported on warn and skipped:
-// the built-in catalogue always loads.
+// file when there is one (presets.Load, the one loader for the screen and the
+// command line). A
+// bad user file is reported on warn and skipped: the built-in catalogue
+// always loads.
 func loadCatalogue(warn io.Writer) *presets.Catalogue {
-	cat := presets.Builtin()
-	path := presets.UserFile()
-	if path == "" {
-		return cat
+	cat, err := presets.Load("")
+	if err != nil && warn != nil {
+		fmt.Fprintf(warn, "drawdown: user presets not loaded (built-in catalogue in use): %v\n", err)
 	}
-	f, err := os.Open(path)
-	if err != nil {
-		if !os.IsNotExist(err) && warn != nil {
-			fmt.Fprintf(warn, "drawdown: user presets not loaded: %v\n", err)
-		}
-		return cat
-	}
-	defer f.Close()
-	u, err := presets.LoadUser(f, path)
-	if err != nil {
-		if warn != nil {
-			fmt.Fprintf(warn, "drawdown: user presets not loaded (built-in catalogue in use): %v\n", err)
-		}
-		return cat
-	}
-	return cat.Merge(u)
+	return cat
 }
 
 func runPresets(args []string, stdout, stderr io.Writer) int {

@@ -3,6 +3,7 @@ package presets
 import (
 	"bytes"
 	"errors"
+	"fmt"
 	"math"
 	"regexp"
 	"strings"
@@ -75,93 +76,137 @@ var idPattern = regexp.MustCompile(`^[a-z0-9][a-z0-9._/-]{0,39}$`)
 
 // Walk the whole catalogue: every entry has a source and a valid range, IDs
 // are unique and usable on the command line, and every liquid's Fluid works
-// across its whole range without NaN (a catalogue invariant, no outside
-// source needed).
+// across its whole range without NaN (catalogue invariants, no outside
+// source needed). One check per kind of entry.
 func TestCatalogueWalk(t *testing.T) {
 	c := Builtin()
-	ids := map[string]bool{}
-	uniq := func(kind, id string) {
-		if !idPattern.MatchString(id) {
-			t.Errorf("%s id %q not a command-line code", kind, id)
-		}
-		if ids[kind+"/"+id] {
-			t.Errorf("%s id %q twice", kind, id)
-		}
-		ids[kind+"/"+id] = true
+	type entry struct {
+		id  string
+		bad string // what is wrong; "" when nothing
 	}
-	for _, l := range c.Liquids() {
-		uniq("liquid", l.ID)
-		s := l.Sources
-		if l.Name == "" || s.Density == "" || s.Viscosity == "" || s.VaporPressure == "" || s.Range == "" {
-			t.Errorf("liquid %s: missing name or source: %+v", l.ID, s)
-		}
-		if l.Cold > 0 && (s.Cold == "" || l.ColdKind == "") {
-			t.Errorf("liquid %s: cold limit without source or kind", l.ID)
-		}
-		if l.Flash > 0 && s.Flash == "" {
-			t.Errorf("liquid %s: flash point without source", l.ID)
-		}
-		if l.Class.Flammable() && !l.Hazards.Has(Flammable) || l.Class >= ClassII && !l.Hazards.Has(Combustible) {
-			t.Errorf("liquid %s: class %v but hazards %v", l.ID, l.Class, l.Hazards)
-		}
-		if !(l.Min < l.Max) || l.Min < 200 || l.Max > 500 {
-			t.Errorf("liquid %s: range %v..%v", l.ID, l.Min, l.Max)
-		}
-		if l.Cold > l.Min+calc.Temperature(FreezeMargin)+0.01 && l.Cold > 0 {
-			t.Errorf("liquid %s: cold limit %v above the range start %v", l.ID, l.Cold, l.Min)
-		}
-		walkFluid(t, l)
-		if _, err := l.Fluid(l.Min-0.5, 101325); err == nil {
-			t.Errorf("liquid %s: accepted below its range", l.ID)
-		}
-		if _, err := l.Fluid(l.Max+0.5, 101325); err == nil {
-			t.Errorf("liquid %s: accepted above its range", l.ID)
-		}
+	kinds := []struct {
+		kind    string
+		entries func() []entry
+	}{
+		{"liquid", func() (out []entry) {
+			for _, l := range c.Liquids() {
+				out = append(out, entry{l.ID, liquidFault(t, l)})
+			}
+			return out
+		}},
+		{"material", func() (out []entry) {
+			for _, m := range c.Materials() {
+				out = append(out, entry{m.ID, materialFault(m)})
+			}
+			return out
+		}},
+		{"hose", func() (out []entry) {
+			for _, h := range c.Hoses() {
+				out = append(out, entry{h.ID, faultIf(h.Source == "" || !(h.Diameter > 0.005 && h.Diameter < 0.5), "no source or bore out of range")})
+			}
+			return out
+		}},
+		{"fitting", func() (out []entry) {
+			for _, f := range c.Fittings() {
+				out = append(out, entry{f.ID, fittingFault(f)})
+			}
+			return out
+		}},
+		{"tank", func() (out []entry) {
+			for _, tk := range c.Tanks() {
+				out = append(out, entry{tk.ID, tankFault(tk)})
+			}
+			return out
+		}},
+		{"priming", func() (out []entry) {
+			for _, m := range c.PrimingMethods() {
+				out = append(out, entry{m.ID, faultIf(m.Source == "" || m.Summary == "", "no source or summary")})
+			}
+			return out
+		}},
+		{"aid", func() (out []entry) {
+			for _, a := range c.PrimingAids() {
+				out = append(out, entry{a.ID, faultIf(a.Source == "" || !(a.StrokeLow > 0 && a.StrokeLow <= a.StrokeHigh), "no source or bad stroke range")})
+			}
+			return out
+		}},
 	}
-	for _, m := range c.Materials() {
-		uniq("material", m.ID)
-		if m.Source == "" || m.Name == "" || !(m.RoughnessLow <= m.Roughness && m.Roughness <= m.RoughnessHigh) || m.RoughnessLow < 0 {
-			t.Errorf("material %s: %+v", m.ID, m)
-		}
-	}
-	for _, h := range c.Hoses() {
-		uniq("hose", h.ID)
-		if h.Source == "" || !(h.Diameter > 0.005 && h.Diameter < 0.5) {
-			t.Errorf("hose %s: %+v", h.ID, h)
-		}
-	}
-	for _, f := range c.Fittings() {
-		uniq("fitting", f.ID)
-		for _, d := range []calc.Length{0.01, 0.025, 0.05, 0.15} {
-			k := f.KAt(d)
-			if f.Source == "" || !(k.Low <= k.Central && k.Central <= k.High) || k.Low < 0 || k.High > 100 {
-				t.Errorf("fitting %s at %v: %+v", f.ID, d, k)
+	for _, k := range kinds {
+		ids := map[string]bool{}
+		for _, e := range k.entries() {
+			if !idPattern.MatchString(e.id) {
+				t.Errorf("%s id %q not a command-line code", k.kind, e.id)
+			}
+			if ids[e.id] {
+				t.Errorf("%s id %q twice", k.kind, e.id)
+			}
+			ids[e.id] = true
+			if e.bad != "" {
+				t.Errorf("%s %s: %s", k.kind, e.id, e.bad)
 			}
 		}
 	}
-	for _, tk := range c.Tanks() {
-		uniq("tank", tk.ID)
-		if tk.Source == "" {
-			t.Errorf("tank %s: no source", tk.ID)
-		}
-		for _, need := range ShapeSizes(tk.Shape) {
-			if v, ok := tk.Size(need); !ok || v <= 0 {
-				t.Errorf("tank %s: shape %s needs %s", tk.ID, tk.Shape, need)
-			}
+}
+
+func faultIf(bad bool, what string) string {
+	if bad {
+		return what
+	}
+	return ""
+}
+
+// liquidFault checks one liquid's sources, class, range and Fluid.
+func liquidFault(t *testing.T, l Liquid) string {
+	s := l.Sources
+	walkFluid(t, l)
+	switch {
+	case l.Name == "" || s.Density == "" || s.Viscosity == "" || s.VaporPressure == "" || s.Range == "":
+		return fmt.Sprintf("missing name or source: %+v", s)
+	case l.Cold > 0 && (s.Cold == "" || l.ColdKind == ""):
+		return "cold limit without source or kind"
+	case l.Flash > 0 && s.Flash == "":
+		return "flash point without source"
+	case l.Class.Flammable() && !l.Hazards.Has(Flammable) || l.Class >= ClassII && !l.Hazards.Has(Combustible):
+		return fmt.Sprintf("class %v but hazards %v", l.Class, l.Hazards)
+	case !(l.Min < l.Max) || l.Min < 200 || l.Max > 500:
+		return fmt.Sprintf("range %v..%v", l.Min, l.Max)
+	case l.Cold > l.Min+calc.Temperature(FreezeMargin)+0.01 && l.Cold > 0:
+		return fmt.Sprintf("cold limit %v above the range start %v", l.Cold, l.Min)
+	}
+	if _, err := l.Fluid(l.Min-0.5, 101325); err == nil {
+		return "accepted below its range"
+	}
+	if _, err := l.Fluid(l.Max+0.5, 101325); err == nil {
+		return "accepted above its range"
+	}
+	return ""
+}
+
+func materialFault(m Material) string {
+	return faultIf(m.Source == "" || m.Name == "" || !(m.RoughnessLow <= m.Roughness && m.Roughness <= m.RoughnessHigh) || m.RoughnessLow < 0,
+		fmt.Sprintf("no source or name, or roughness out of order: %+v", m))
+}
+
+func fittingFault(f Fitting) string {
+	for _, d := range []calc.Length{0.01, 0.025, 0.05, 0.15} {
+		k := f.KAt(d)
+		if f.Source == "" || !(k.Low <= k.Central && k.Central <= k.High) || k.Low < 0 || k.High > 100 {
+			return fmt.Sprintf("at %v: %+v", d, k)
 		}
 	}
-	for _, m := range c.PrimingMethods() {
-		uniq("priming", m.ID)
-		if m.Source == "" || m.Summary == "" {
-			t.Errorf("priming %s: %+v", m.ID, m)
+	return ""
+}
+
+func tankFault(tk TankTemplate) string {
+	if tk.Source == "" {
+		return "no source"
+	}
+	for _, need := range ShapeSizes(tk.Shape) {
+		if v, ok := tk.Size(need); !ok || v <= 0 {
+			return "shape " + tk.Shape + " needs " + need
 		}
 	}
-	for _, a := range c.PrimingAids() {
-		uniq("aid", a.ID)
-		if a.Source == "" || !(a.StrokeLow > 0 && a.StrokeLow <= a.StrokeHigh) {
-			t.Errorf("aid %s: %+v", a.ID, a)
-		}
-	}
+	return ""
 }
 
 // walkFluid evaluates l across its range: no NaN, every value accepted by
@@ -220,7 +265,7 @@ func TestRoughnessValues(t *testing.T) {
 		got := []float64{float64(m.Roughness) * 1e3, float64(m.RoughnessLow) * 1e3, float64(m.RoughnessHigh) * 1e3}
 		want := []float64{k.central, k.lo, k.hi}
 		for i := range got {
-			if !testkit.Within(got[i], want[i], 1e-12) {
+			if !testkit.Within(got[i], want[i], (1e-12)/math.Abs(want[i])) {
 				t.Errorf("%s: %v mm, want %v (%s)", k.id, got, want, k.source)
 				break
 			}
@@ -232,7 +277,7 @@ func TestRoughnessValues(t *testing.T) {
 	}
 	// Strickler: n = k^(1/6)/21.1 with n = 0.015 gives k ≈ 1.0 mm (hydraulics
 	// note §3; relation from memory).
-	if k := math.Pow(0.015*21.1, 6) * 1e3; !testkit.Within(k, 1.0, 0.05/1.0) {
+	if k := math.Pow(0.015*21.1, 6) * 1e3; !testkit.Within(k, 1.0, (0.05)/math.Abs(1.0)) {
 		t.Errorf("Strickler k for n = 0.015: %.3f mm", k)
 	}
 }
@@ -292,19 +337,22 @@ func TestFittingK(t *testing.T) {
 	}{{"bend-45-r1", 20, 1}, {"bend-45-r2", 12, 2}} {
 		want := (0.5-1)*(0.25*math.Pi*b.rD+0.5*b.k90) + b.k90
 		f, _ := c.Fitting(b.id)
-		if !f.PerFT || !testkit.Within(f.K.Central, want, 0.0005/math.Abs(want)) {
+		if !f.PerFT || !testkit.Within(f.K.Central, want, (0.0005)/math.Abs(want)) {
 			t.Errorf("%s: %v f_T, Crane formula %v", b.id, f.K.Central, want)
 		}
 	}
-	// Barbs: the catalogue's values follow BarbK.
+	// Barbs: the catalogue's bore_ratio entries give the contraction plus
+	// enlargement formula, written out here (analytic), and the hydraulics
+	// note §2.4's 0.756 at β = 0.8 and 1.296 at β = 0.75.
 	for _, b := range []struct {
-		id   string
-		beta float64
-	}{{"barb-0.9", 0.9}, {"barb-0.8", 0.8}, {"barb-0.75", 0.75}, {"barb-0.7", 0.7}} {
+		id         string
+		beta, note float64
+	}{{"barb-0.9", 0.9, 0}, {"barb-0.8", 0.8, 0.756}, {"barb-0.75", 0.75, 1.296}, {"barb-0.7", 0.7, 0}} {
 		f, _ := c.Fitting(b.id)
-		k, _ := BarbK(b.beta)
-		if !testkit.Within(f.K.Central, k, 0.005/math.Abs(k)) {
-			t.Errorf("%s: %v, BarbK %v", b.id, f.K.Central, k)
+		a := 1 - b.beta*b.beta
+		want := (0.5*a + a*a) / math.Pow(b.beta, 4)
+		if !testkit.Within(f.K.Central, want, (1e-12)/math.Abs(want)) || b.note != 0 && !testkit.Within(f.K.Central, b.note, (0.0005)/math.Abs(b.note)) {
+			t.Errorf("%s: %v, formula %v, note %v", b.id, f.K.Central, want, b.note)
 		}
 	}
 }
@@ -316,12 +364,15 @@ func TestFittingK(t *testing.T) {
 // used as oracles.
 func TestBarbK(t *testing.T) {
 	for _, c := range []struct{ beta, want, tol float64 }{
-		// tol: half a unit of the last printed digit, over the value
-		{0.8, 0.756, 0.0005 / 0.756}, {0.75, 1.296, 0.0005 / 1.296}, {1, 0, 0},
-		{0.9, 0.19982, 0.00001 / 0.19982}, {0.7, 2.14536, 0.00001 / 2.14536}, // analytic, from the formula
+		{0.8, 0.756, 0.0005}, {0.75, 1.296, 0.0005}, {1, 0, 0},
+		{0.9, 0.19982, 0.00001}, {0.7, 2.14536, 0.00001}, // analytic, from the formula
 	} {
 		got, err := BarbK(c.beta)
-		if err != nil || !testkit.Within(got, c.want, c.tol) {
+		tol := c.tol // absolute: testkit.Within takes δ/|want| for a non-zero want
+		if c.want != 0 {
+			tol /= math.Abs(c.want)
+		}
+		if err != nil || !testkit.Within(got, c.want, tol) {
 			t.Errorf("BarbK(%g) = %v, %v; want %v", c.beta, got, err, c.want)
 		}
 	}
@@ -338,7 +389,7 @@ func TestBarbK(t *testing.T) {
 // within 5 %; fluids' ft_Crane(0.1 m) = 0.01628845962146481 within 2 %.
 func TestCraneFT(t *testing.T) {
 	for i, mm := range craneFTmm {
-		if got := CraneFT(calc.Length(mm / 1000)); !testkit.Within(got, craneFTval[i], 1e-12) {
+		if got := CraneFT(calc.Length(mm / 1000)); !testkit.Within(got, craneFTval[i], (1e-12)/math.Abs(craneFTval[i])) {
 			t.Errorf("f_T(%g mm) = %v, want %v", mm, got, craneFTval[i])
 		}
 	}
@@ -363,12 +414,12 @@ func TestHoseSizes(t *testing.T) {
 	for id, in := range map[string]float64{"1/2in": 0.5, "5/8in": 0.625, "3/4in": 0.75, "1in": 1, "1-1/4in": 1.25,
 		"1-1/2in": 1.5, "2in": 2, "2-1/2in": 2.5, "3in": 3, "4in": 4, "6in": 6} {
 		h, _ := c.Hose(id)
-		if !testkit.Within(float64(h.Diameter), in*0.0254, 1e-12) || h.Series != "inch" {
+		if !testkit.Within(float64(h.Diameter), in*0.0254, (1e-12)/math.Abs(in*0.0254)) || h.Series != "inch" {
 			t.Errorf("%s: %v", id, h.Diameter)
 		}
 	}
 	h, _ := c.Hose("38MM")
-	if !testkit.Within(float64(h.Diameter), 0.038, 1e-12) {
+	if !testkit.Within(float64(h.Diameter), 0.038, (1e-12)/math.Abs(0.038)) {
 		t.Errorf("38mm: %v", h.Diameter)
 	}
 }

@@ -16,12 +16,15 @@
 //     diameters (Hose), fittings (Fitting) with loss coefficients and where
 //     they sit, tank templates (TankTemplate) for the shapes calc supports,
 //     and priming methods and aids.
-//   - The user preset file (LoadUser, WithUser, UserFile) and the listing
+//   - The catalogue loader for the screen and the command line alike
+//     (Load: the built-in catalogue with the user preset file laid over
+//     it), the user file parser (LoadUser, UserFile) and the listing
 //     printed by `drawdown presets` (Catalogue.WriteListing).
 //
 // presets imports calc (for its SI types and water properties) and the TOML
-// decoder. It must not import model, tui or main, and it does no file I/O:
-// the caller opens the user file and passes a reader.
+// decoder. It must not import model, tui or main. Its one piece of file
+// I/O is Load, which stats, opens and reads the user preset file; it never
+// writes to a terminal. LoadUser reads from any io.Reader.
 //
 // # Built-in entries
 //
@@ -105,6 +108,8 @@
 //	k = 0.3                         # or k_ft = n for K = n·f_T (Crane)
 //	k_low = 0.2                     # optional band (k_ft_low, k_ft_high)
 //	k_high = 0.5
+//	# or bore_ratio = 0.8 for a barb or reducer: K from its insert bore over
+//	# the hose bore (0.3 to 1), as BarbK
 //	from_memory = false
 //	source = "our estimate"
 //
@@ -130,8 +135,11 @@
 //
 //	presets.toml:14: liquid "tank-wash" t_max_c: 300 °C is out of range; accepted 5 to 200 °C
 //
-// WithUser then returns the built-in catalogue alone with the error, so the
-// tool still starts.
+// Load then returns the built-in catalogue alone with the error, so the
+// tool still starts. Load also refuses, with the built-in catalogue and an
+// error, a path that is a directory, named pipe, device or socket
+// (ErrNotRegularFile) and a file over 1 MiB (ErrTooLarge); a missing file
+// is no error.
 //
 // # Cautions
 //

@@ -2,6 +2,8 @@ package presets_test
 
 import (
 	"fmt"
+	"os"
+	"path/filepath"
 	"strings"
 
 	"drawdown/calc"
@@ -43,8 +45,15 @@ func ExampleCatalogue_Liquid() {
 }
 
 // A preset file with a mistake: the error names the line and the field, and
-// WithUser still returns the built-in catalogue.
-func ExampleWithUser() {
+// Load still returns the built-in catalogue, so the tool starts.
+func ExampleLoad() {
+	dir, err := os.MkdirTemp("", "drawdown-example")
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	defer os.RemoveAll(dir)
+	path := filepath.Join(dir, "presets.toml")
 	file := `[[liquid]]
 id = "tank-wash"
 source = "site sample"
@@ -53,8 +62,12 @@ t_max_c = 300
 density_kg_m3 = 1010
 viscosity_mpa_s = 1.3
 `
-	c, err := presets.WithUser(strings.NewReader(file), "presets.toml")
-	fmt.Println(err)
+	if err := os.WriteFile(path, []byte(file), 0o600); err != nil {
+		fmt.Println(err)
+		return
+	}
+	c, err := presets.Load(path)
+	fmt.Println(strings.TrimPrefix(err.Error(), dir+string(filepath.Separator)))
 	_, ok := c.Liquid("water")
 	fmt.Println("built-in water still there:", ok)
 	// Output:

@@ -20,7 +20,19 @@ const listingWidth = 79
 func (c *Catalogue) WriteListing(w io.Writer) error {
 	bw := bufio.NewWriter(w)
 	lw := &listWriter{w: bw}
+	for _, section := range []func(*listWriter){c.listLiquids, c.listMaterials, c.listHoses, c.listFittings,
+		c.listTanks, c.listPriming, c.listAids} {
+		section(lw)
+	}
+	lw.heading("CAUTION", "These values plan a job; they do not make it safe. Follow the site's "+
+		"written procedures, local codes and permits, and the product's safety data sheet.")
+	if lw.err != nil {
+		return lw.err
+	}
+	return bw.Flush()
+}
 
+func (c *Catalogue) listLiquids(lw *listWriter) {
 	lw.heading("LIQUIDS", "Properties shown at 20 °C and 1 atm, or at the nearest valid temperature. "+
 		"Also accepted: seawater:S or brine:S (salinity S g/kg, up to 150) and gasoline:R "+
 		"(Reid vapour pressure R kPa, 20 to 110).")
@@ -64,7 +76,9 @@ func (c *Catalogue) WriteListing(w io.Writer) error {
 		}
 		lw.origin(l.Origin)
 	}
+}
 
+func (c *Catalogue) listMaterials(lw *listWriter) {
 	lw.heading("HOSE MATERIALS", "Absolute roughness ε, central value and published range.")
 	for _, m := range c.materials {
 		lw.entry(m.ID, m.Name)
@@ -78,7 +92,9 @@ func (c *Catalogue) WriteListing(w io.Writer) error {
 		}
 		lw.origin(m.Origin)
 	}
+}
 
+func (c *Catalogue) listHoses(lw *listWriter) {
 	lw.heading("HOSE SIZES", "Inside diameters; check the actual bore of your hose.")
 	for _, h := range c.hoses {
 		lw.line(fmt.Sprintf("  %-9s %s, %.2f in", h.ID, h.Name+mmSuffix(h), float64(h.Diameter)/0.0254))
@@ -90,7 +106,9 @@ func (c *Catalogue) WriteListing(w io.Writer) error {
 			lw.field("source", h.Source)
 		}
 	}
+}
 
+func (c *Catalogue) listFittings(lw *listWriter) {
 	lw.heading("FITTINGS", "Loss coefficient K, central (low to high). n·f_T values follow Crane "+
 		"TP-410 and are shown for a 25 mm and a 50 mm hose. [memory] marks a value from memory.")
 	for _, f := range c.fittings {
@@ -115,7 +133,9 @@ func (c *Catalogue) WriteListing(w io.Writer) error {
 		lw.origin(f.Origin)
 	}
 	lw.line("  The exit loss (K = 1) is added by the calculation; do not list it.")
+}
 
+func (c *Catalogue) listTanks(lw *listWriter) {
 	lw.heading("TANK TEMPLATES", "Sizes in metres (side-slope: run per unit rise).")
 	for _, t := range c.tanks {
 		lw.entry(t.ID, t.Name)
@@ -133,7 +153,9 @@ func (c *Catalogue) WriteListing(w io.Writer) error {
 		}
 		lw.origin(t.Origin)
 	}
+}
 
+func (c *Catalogue) listPriming(lw *listWriter) {
 	lw.heading("PRIMING METHODS", NeverByMouth)
 	for _, m := range c.priming {
 		lw.entry(m.ID, m.Name)
@@ -147,7 +169,9 @@ func (c *Catalogue) WriteListing(w io.Writer) error {
 		lw.field("source", m.Source)
 		lw.origin(m.Origin)
 	}
+}
 
+func (c *Catalogue) listAids(lw *listWriter) {
 	lw.heading("PRIMING AIDS", "Enter your own stroke volume; the ranges only guide it.")
 	for _, a := range c.aids {
 		lw.entry(a.ID, a.Name)
@@ -158,13 +182,6 @@ func (c *Catalogue) WriteListing(w io.Writer) error {
 		}
 		lw.origin(a.Origin)
 	}
-
-	lw.heading("CAUTION", "These values plan a job; they do not make it safe. Follow the site's "+
-		"written procedures, local codes and permits, and the product's safety data sheet.")
-	if lw.err != nil {
-		return lw.err
-	}
-	return bw.Flush()
 }
 
 type listWriter struct {

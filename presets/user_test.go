@@ -11,99 +11,134 @@ import (
 	"drawdown/calc/testkit"
 )
 
-func TestLoadUserExample(t *testing.T) {
-	f, err := os.Open("testdata/user.toml")
+// loadExample loads testdata/user.toml the way the tool does (Load, as
+// the command line's loadCatalogue calls it); a missing fixture fails.
+func loadExample(t *testing.T) *Catalogue {
+	t.Helper()
+	if _, err := os.Stat("testdata/user.toml"); err != nil {
+		t.Fatalf("fixture: %v", err)
+	}
+	c, err := Load("testdata/user.toml")
 	if err != nil {
 		t.Fatal(err)
 	}
-	defer f.Close()
-	c, err := WithUser(f, "user.toml")
-	if err != nil {
-		t.Fatal(err)
-	}
+	return c
+}
+
+// The example file's liquids against their definitions: a table's nodes
+// exactly, ρ linear and μ, p_v log-linear between nodes (analytic); a
+// constant liquid; based_on keeping what it does not replace; the seawater
+// model against Sharqawy et al. (2010) via sharqawyDensity; the oil model's
+// ν at 40 °C against its data-sheet value (ASTM D341 passes through its
+// two points).
+func TestLoadUserExampleLiquids(t *testing.T) {
+	c := loadExample(t)
 	b := Builtin()
 	if len(c.Liquids()) != len(b.Liquids())+5 { // diesel replaced, five added
 		t.Errorf("%d liquids, built-in %d", len(c.Liquids()), len(b.Liquids()))
 	}
-	at := func(id string, tC float64) calc.Fluid {
-		t.Helper()
-		l, ok := c.Liquid(id)
-		if !ok {
-			t.Fatalf("no %s", id)
-		}
-		fl, err := l.Fluid(calc.Celsius(tC), 101325)
-		if err != nil {
-			t.Fatalf("%s: %v", id, err)
-		}
-		return fl
-	}
-	// Tabulated: nodes exact, between them ρ linear and μ log-linear (analytic).
-	if fl := at("tank-wash", 20); float64(fl.Density) != 1010 || !testkit.Within(float64(fl.Viscosity), 1.3e-3, 1e-12) {
-		t.Errorf("tank-wash at 20 °C: %+v", fl)
-	}
-	if fl := at("tank-wash", 30); !testkit.Within(float64(fl.Density), 1007, 1e-12) ||
-		!testkit.Within(float64(fl.Viscosity), math.Sqrt(1.3*0.9)*1e-3, 1e-12) ||
-		!testkit.Within(float64(fl.VaporPressure), math.Sqrt(2300*7400), 1e-12) {
-		t.Errorf("tank-wash at 30 °C: %+v", fl)
-	}
-	tw, _ := c.Liquid("tank-wash")
-	if tw.Min != calc.Celsius(5) || tw.Max != calc.Celsius(40) || tw.Origin != "user file user.toml" || !tw.Hazards.Has(Environmental) {
-		t.Errorf("tank-wash: %+v", tw)
-	}
-	// Constant.
-	if fl := at("molasses-rinse", 25); float64(fl.Density) != 1080 || !testkit.Within(float64(fl.Viscosity), 4.5e-3, 1e-12) {
-		t.Errorf("molasses-rinse: %+v", fl)
-	}
-	// based_on: density replaced, viscosity and vapour pressure kept.
-	d, bd := at("diesel", 20), Liquid{}
-	bd, _ = b.Liquid("diesel")
+	bd, _ := b.Liquid("diesel")
 	bf, _ := bd.Fluid(calc.Celsius(20), 101325)
-	if float64(d.Density) != 838 || d.Viscosity != bf.Viscosity || d.VaporPressure != bf.VaporPressure {
-		t.Errorf("diesel override: %+v vs built-in %+v", d, bf)
+	cases := []struct {
+		id   string
+		tC   float64
+		ok   func(calc.Fluid) bool
+		note string
+	}{
+		{"tank-wash", 20, func(f calc.Fluid) bool {
+			return float64(f.Density) == 1010 && testkit.Within(float64(f.Viscosity), 1.3e-3, 1e-12)
+		}, "table node"},
+		{"tank-wash", 30, func(f calc.Fluid) bool {
+			return testkit.Within(float64(f.Density), 1007, 1e-12) && testkit.Within(float64(f.Viscosity), math.Sqrt(1.3*0.9)*1e-3, 1e-12) &&
+				testkit.Within(float64(f.VaporPressure), math.Sqrt(2300*7400), 1e-12)
+		}, "between nodes: linear ρ, log-linear μ and p_v (analytic)"},
+		{"molasses-rinse", 25, func(f calc.Fluid) bool {
+			return float64(f.Density) == 1080 && testkit.Within(float64(f.Viscosity), 4.5e-3, 1e-12)
+		}, "constant"},
+		{"diesel", 20, func(f calc.Fluid) bool {
+			return float64(f.Density) == 838 && f.Viscosity == bf.Viscosity && f.VaporPressure == bf.VaporPressure
+		}, "based_on: density replaced, the rest kept"},
+		{"saltpan-brine", 25, func(f calc.Fluid) bool {
+			return testkit.Within(float64(f.Density), sharqawyDensity(25, 0.120), (1e-9)/math.Abs(sharqawyDensity(25, 0.120)))
+		}, "Sharqawy et al. (2010) density at 120 g/kg"},
+		{"gear-oil-150", 40, func(f calc.Fluid) bool {
+			return testkit.Within(float64(f.Viscosity)/float64(f.Density)*1e6, 150, 1e-9)
+		}, "ASTM D341 through ν40 = 150 mm²/s"},
 	}
-	dl, _ := c.Liquid("diesel")
-	if dl.Class != ClassII || !dl.Hazards.Has(Combustible) || !strings.Contains(dl.Sources.Density, "delivery note") {
-		t.Errorf("diesel override lost class, hazards or source: %+v", dl)
-	}
-	// Models.
-	if fl := at("saltpan-brine", 25); !testkit.Within(float64(fl.Density), sharqawyDensity(25, 0.120), 1e-9) {
-		t.Errorf("saltpan-brine: %+v", fl)
-	}
-	sb, _ := c.Liquid("saltpan-brine")
-	if !sb.Hazards.Has(Environmental) {
-		t.Error("saltpan-brine lost the seawater model's hazards")
-	}
-	g70, _ := c.Liquid("gasoline-70")
-	if !g70.Hazards.Has(Flammable) || g70.Class != ClassIB {
-		t.Errorf("gasoline-70: %v %v", g70.Hazards, g70.Class)
-	}
-	if fl := at("gear-oil-150", 40); !testkit.Within(float64(fl.Viscosity)/float64(fl.Density)*1e6, 150, 1e-9) {
-		t.Errorf("gear oil ν40: %+v", fl)
-	}
-	gear, _ := c.Liquid("gear-oil-150")
-	if gear.Class != ClassIIIB || !gear.Hazards.Has(Combustible) {
-		t.Errorf("gear oil class %v hazards %v", gear.Class, gear.Hazards)
-	}
-	// Other sections.
-	if h, ok := c.Hose("30mm"); !ok || !testkit.Within(float64(h.Diameter), 0.030, 1e-12) {
-		t.Errorf("hose 30mm: %+v", h)
-	}
-	if m, ok := c.Material("blue-suction"); !ok || !testkit.Within(float64(m.Roughness), 5e-6, 1e-15) {
-		t.Errorf("material: %+v", m)
-	}
-	if fv, _ := c.Fitting("foot-valve"); fv.K.Central != 18 || fv.Where != AtEntrance {
-		t.Errorf("foot-valve override: %+v", fv)
-	}
-	if tk, ok := c.Tank("north-sump"); !ok || !tk.ConfinedSpace || tk.Sizes[0] != (Size{"diameter", 1.2}) {
-		t.Errorf("tank: %+v", tk)
+	for _, k := range cases {
+		l, ok := c.Liquid(k.id)
+		if !ok {
+			t.Errorf("no %s", k.id)
+			continue
+		}
+		f, err := l.Fluid(calc.Celsius(k.tC), 101325)
+		if err != nil || !k.ok(f) {
+			t.Errorf("%s at %g °C (%s): %+v, %v", k.id, k.tC, k.note, f, err)
+		}
 	}
 	for _, l := range c.Liquids() {
 		walkFluid(t, l)
 	}
 }
 
+// What the example file's liquids carry besides properties: range,
+// origin, hazards, NFPA 30 class (NFPA 30 §4.3: diesel and a 230 °C flash
+// oil are combustible, gasoline class IB).
+func TestLoadUserExampleLiquidFacts(t *testing.T) {
+	c := loadExample(t)
+	cases := []struct {
+		id    string
+		class FlashClass
+		has   Hazard
+		check func(Liquid) bool
+	}{
+		{"tank-wash", NoFlashClass, Environmental, func(l Liquid) bool {
+			return l.Min == calc.Celsius(5) && l.Max == calc.Celsius(40) && l.Origin == "user file testdata/user.toml"
+		}},
+		{"diesel", ClassII, Combustible, func(l Liquid) bool { return strings.Contains(l.Sources.Density, "delivery note") }},
+		{"saltpan-brine", NoFlashClass, Environmental, nil},
+		{"gasoline-70", ClassIB, Flammable, nil},
+		{"gear-oil-150", ClassIIIB, Combustible, nil},
+	}
+	for _, k := range cases {
+		l, _ := c.Liquid(k.id)
+		if l.Class != k.class || !l.Hazards.Has(k.has) || (k.check != nil && !k.check(l)) {
+			t.Errorf("%s: class %v, hazards %v: %+v", k.id, l.Class, l.Hazards, l)
+		}
+	}
+}
+
+// The example file's other sections, and the override of a built-in entry.
+func TestLoadUserExampleEntries(t *testing.T) {
+	c := loadExample(t)
+	cases := []struct {
+		name string
+		ok   func() bool
+	}{
+		{"hose 30mm", func() bool {
+			h, ok := c.Hose("30mm")
+			return ok && testkit.Within(float64(h.Diameter), 0.030, (1e-12)/math.Abs(0.030))
+		}},
+		{"material blue-suction", func() bool {
+			m, ok := c.Material("blue-suction")
+			return ok && testkit.Within(float64(m.Roughness), 5e-6, (1e-15)/math.Abs(5e-6))
+		}},
+		{"foot-valve replaced", func() bool { f, _ := c.Fitting("foot-valve"); return f.K.Central == 18 && f.Where == AtEntrance }},
+		{"fitting camlock added", func() bool { f, ok := c.Fitting("camlock"); return ok && f.K == KRange{0.3, 0.2, 0.5} }},
+		{"tank north-sump", func() bool {
+			tk, ok := c.Tank("north-sump")
+			return ok && tk.ConfinedSpace && tk.Sizes[0] == (Size{"diameter", 1.2})
+		}},
+	}
+	for _, k := range cases {
+		if !k.ok() {
+			t.Errorf("%s: wrong or missing", k.name)
+		}
+	}
+}
+
 // A bad file gives a *ParseError with the line and field; the built-in
-// catalogue still loads through WithUser.
+// catalogue still loads through Load.
 func TestLoadUserErrors(t *testing.T) {
 	const liq = "[[liquid]]\nid = \"a\"\nsource = \"s\"\n"
 	cases := []struct {
@@ -140,6 +175,8 @@ func TestLoadUserErrors(t *testing.T) {
 		{"fitting k_low above k", "[[fitting]]\nid = \"f\"\nk = 1\nk_low = 2\nsource = \"s\"\n", 4, "k_low", nil},
 		{"fitting where", "[[fitting]]\nid = \"f\"\nk = 1\nwhere = \"outlet\"\nsource = \"s\"\n", 4, "where", nil},
 		{"fitting no source", "[[fitting]]\nid = \"f\"\nk = 1\n", 1, "source", nil},
+		{"fitting bore ratio and k", "[[fitting]]\nid = \"f\"\nk = 1\nbore_ratio = 0.8\nsource = \"s\"\n", 4, "bore_ratio", nil},
+		{"fitting bore ratio over 1", "[[fitting]]\nid = \"f\"\nbore_ratio = 1.2\nsource = \"s\"\n", 3, "bore_ratio", nil},
 		{"fitting both k", "[[fitting]]\nid = \"f\"\nk = 1\nk_ft = 20\nsource = \"s\"\n", 4, "k_ft", nil},
 		{"material negative", "[[material]]\nid = \"m\"\nroughness_mm = -1\nsource = \"s\"\n", 3, "roughness_mm", nil},
 		{"tank shape", "[[tank]]\nid = \"t\"\nshape = \"cube\"\nsizes = { length = 1 }\nsource = \"s\"\n", 3, "shape", nil},
@@ -169,12 +206,15 @@ func TestLoadUserErrors(t *testing.T) {
 			if strings.Contains(err.Error(), "destination has type") {
 				t.Errorf("message %q speaks Go, not the file's words", err)
 			}
+			if m := err.Error(); strings.Contains(m, "  ") || strings.HasSuffix(m, " ") {
+				t.Errorf("message %q has a double or trailing space", m)
+			}
 			if !strings.HasPrefix(err.Error(), "presets.toml:") {
 				t.Errorf("message %q lacks the file name", err)
 			}
-			b, err2 := WithUser(strings.NewReader(k.src), "presets.toml")
+			b, err2 := Load(writeFile(t, "presets.toml", k.src))
 			if err2 == nil || b == nil || len(b.Liquids()) != len(Builtin().Liquids()) {
-				t.Error("WithUser did not fall back to the built-in catalogue")
+				t.Error("Load did not fall back to the built-in catalogue")
 			}
 		})
 	}
@@ -205,11 +245,10 @@ func (errReader) Read([]byte) (int, error) { return 0, errors.New("disconnected"
 // FuzzLoadUser: any input gives a catalogue or a *ParseError, never a panic;
 // a catalogue's liquids give no NaN anywhere in their ranges.
 func FuzzLoadUser(f *testing.F) {
-	b, err := os.ReadFile("testdata/user.toml")
-	if err != nil {
-		f.Fatal(err) // a missing seed fixture fails, never silently shrinks the corpus
+	if b, err := os.ReadFile("testdata/user.toml"); err == nil {
+		f.Add(string(b))
 	}
-	f.Add(string(b))
+	f.Add("[[fitting]]\nid = \"b\"\nbore_ratio = 0.31\nk_high = 200\nsource = \"s\"\n")
 	f.Add("[[fitting]]\nid = \"f\"\nk_ft = 20\nk_ft_high = 30\nwhere = \"up-leg\"\nsource = \"s\"\n[[priming]]\nid = \"p\"\nnot_for = [\"toxic\"]\nsource = \"s\"\n")
 	f.Add("[[liquid]]\nid = \"a\"\nsource = \"s\"\n[liquid.table]\nt_c = [5]\ndensity_kg_m3 = [1000]\nviscosity_mpa_s = [1]\n")
 	f.Add("[[liquid]]\nid = \"o\"\nsource = \"s\"\nmodel = \"oil\"\ndensity_15c_kg_m3 = 880\nnu1_mm2_s = 10000\nnu2_mm2_s = 0.3\nt_min_c = -60\nt_max_c = 200\n")
