@@ -22,6 +22,7 @@ import (
 
 	tea "charm.land/bubbletea/v2"
 
+	"drawdown/presets"
 	"drawdown/tui"
 )
 
@@ -88,7 +89,12 @@ func isTerminal(f *os.File) bool {
 // the job is saved once more before exit.
 func runScreen(stderr io.Writer) int {
 	start := tui.OpenStart()
-	m := tui.New(tui.Options{Start: start})
+	// The same catalogue as the command line: built-in plus the user's file.
+	cat, err := presets.Load("")
+	if err != nil {
+		start.Note = strings.TrimSpace(start.Note + " user presets not loaded (built-in catalogue in use): " + err.Error())
+	}
+	m := tui.New(tui.Options{Start: start, Cat: cat})
 	p := tea.NewProgram(m)
 
 	sigs := make(chan os.Signal, 1)
