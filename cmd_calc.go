@@ -13,6 +13,7 @@ import (
 	"strings"
 
 	"drawdown/model"
+	"drawdown/model/present"
 	"drawdown/presets"
 )
 
@@ -445,10 +446,10 @@ func jsonOf(p model.Plan) jsonResult {
 		PumpStrokes:          p.PumpStrokes,
 		Warnings:             []jsonWarning{},
 		Notes:                append([]string{}, p.Notes...),
-		Cautions:             p.Cautions(),
+		Cautions:             present.Cautions(p),
 	}
-	for _, w := range r.WarningList() {
-		j.Warnings = append(j.Warnings, jsonWarning{Code: w.Code.String(), Message: w.Message})
+	for _, w := range present.WarningsOf(r, present.Figures{Sys: model.SI}) {
+		j.Warnings = append(j.Warnings, jsonWarning{Code: w.Code, Message: w.Long})
 	}
 	if d := p.Drain; d != nil {
 		jd := &jsonDrain{

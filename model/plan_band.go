@@ -1,10 +1,7 @@
 package model
 
 import (
-	"strings"
-
 	"drawdown/calc"
-	"drawdown/presets"
 )
 
 // tolerance states the input uncertainties for the band: the height
@@ -56,33 +53,4 @@ func (c *computer) drainBand() {
 	if b.SlowWillNotRun {
 		c.note("at the slow end of the height, roughness and fitting tolerances the siphon would not start: the longest time has no bound")
 	}
-}
-
-// Cautions lists the cautions that go with this plan, for the screen, the
-// text output and the record: one line per hazard of the liquid at its
-// temperature, the liquid's own note, the hose wall's note when it cannot
-// hold a vacuum, and always the rule against starting by mouth. They defer
-// to local codes and permits; they never declare anything safe.
-func (p Plan) Cautions() []string {
-	out := []string{presets.NeverByMouth}
-	for _, h := range p.Hazards.List() {
-		out = append(out, capitalise(h.Description())+".")
-	}
-	if p.Hazards.Has(presets.Flammable) && !strings.Contains(p.Liquid.Note, "local-code") {
-		out = append(out, "Whether a hose siphon may be used for this liquid at a workplace is a question for local fire code and the employer (OSHA 29 CFR 1910.106, NFPA 30, NFPA 77).")
-	}
-	if p.Liquid.Note != "" {
-		out = append(out, p.Liquid.Note)
-	}
-	if p.Material.Collapses {
-		out = append(out, p.Material.Name+" flattens under suction: a siphon's crest runs below atmospheric pressure. Use suction hose or solid-wall pipe.")
-	}
-	return out
-}
-
-func capitalise(s string) string {
-	if s == "" {
-		return s
-	}
-	return strings.ToUpper(s[:1]) + s[1:]
 }

@@ -18,7 +18,7 @@ func TestComputeDemo(t *testing.T) {
 		t.Fatalf("demo job: %v (%v)", p.Err, p.FieldErrors)
 	}
 	if p.Result.Verdict == calc.WillNotRun {
-		t.Fatalf("demo job does not run: %v", p.Result.WarningList())
+		t.Fatalf("demo job does not run: %v", p.Result.Warnings.Codes())
 	}
 	if p.Drain == nil || p.Drain.Time <= 0 || p.Drain.Volume <= 0 {
 		t.Fatalf("demo job has no drain plan: %+v", p.Drain)

@@ -291,14 +291,14 @@ func ReplaceDamaged(path string, j Job) (string, error) {
 }
 
 func writeAtomic(path string, j Job) error {
-	b, err := encodeBytes(j)
-	if err != nil {
+	var b bytes.Buffer
+	if err := Encode(&b, j); err != nil {
 		if fe, ok := err.(*JobFileError); ok {
 			fe.Path = path
 		}
 		return err
 	}
-	return writeFileAtomic(path, b)
+	return writeFileAtomic(path, b.Bytes())
 }
 
 // tempPrefix marks temporary files; a killed writer may leave one behind,

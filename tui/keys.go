@@ -1,8 +1,6 @@
 package tui
 
 import (
-	"strconv"
-
 	"charm.land/bubbles/v2/key"
 )
 
@@ -223,12 +221,4 @@ func (k KeyMap) viewHelp() []viewKeys {
 		{paneTable[PaneWhatIf].name, []key.Binding{w.Up, w.Down, w.Left, w.Right, w.Adopt}},
 		{paneTable[PaneLog].name, []key.Binding{k.AddReading, k.WriteRecord, k.ScrollUp, k.ScrollDown}},
 	}
-}
-
-// paneKeyName is the key that selects pane p ("" past the pane keys).
-func (k KeyMap) paneKeyName(p PaneID) string {
-	if int(p) < len(k.PaneKeys) {
-		return k.PaneKeys[p].Help().Key
-	}
-	return strconv.Itoa(int(p) + 1)
 }

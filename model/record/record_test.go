@@ -309,14 +309,3 @@ func TestReportZeroInput(t *testing.T) {
 		t.Fatal(err)
 	}
 }
-
-func TestFmtDuration(t *testing.T) {
-	for _, tc := range []struct {
-		s    float64
-		want string
-	}{{0, "0 s"}, {45, "45 s"}, {600, "10 min"}, {7800, "2 h 10 min"}, {7200, "2 h"}, {3 * 86400, "3 d"}, {-1, "—"}} {
-		if got := model.FormatDuration(tc.s); got != tc.want {
-			t.Errorf("FormatDuration(%g) = %q, want %q", tc.s, got, tc.want)
-		}
-	}
-}
