@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"drawdown/calc"
+	"drawdown/calc/testkit"
 	"drawdown/presets"
 )
 
@@ -90,7 +91,7 @@ func TestFieldDefaultsFromDesign(t *testing.T) {
 	for _, c := range cases {
 		f, _ := FieldByID(c.id)
 		v, err := f.Validate(f.Default, US)
-		if err != nil || !closeRel(v, c.want, 1e-12) {
+		if err != nil || !testkit.Within(v, c.want, 1e-12) {
 			t.Errorf("%s default %q → %g, %v; want %g", c.id, f.Default, v, err, c.want)
 		}
 	}
@@ -157,7 +158,7 @@ func TestFieldValidateEdgesInclusive(t *testing.T) {
 	if _, err := f.Validate("3/4", SI); !errors.Is(err, calc.ErrOutOfRange) {
 		t.Errorf("3/4 (SI, mm): %v", err)
 	}
-	if v, err := f.Validate("3/4", US); err != nil || !closeRel(v, 0.01905, 1e-12) {
+	if v, err := f.Validate("3/4", US); err != nil || !testkit.Within(v, 0.01905, 1e-12) {
 		t.Errorf("3/4 (US, in) = %g, %v", v, err)
 	}
 }

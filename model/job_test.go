@@ -7,6 +7,7 @@ import (
 	"time"
 
 	"drawdown/calc"
+	"drawdown/calc/testkit"
 	"drawdown/presets"
 )
 
@@ -26,7 +27,7 @@ func TestJobSetKeepsText(t *testing.T) {
 		t.Errorf("Set 3/4 in: %v", err)
 	}
 	// 3/4 in = 19.05 mm, exact inch (NIST SP 811 App. B.8).
-	if v, err := j.Value(FieldHoseID); err != nil || !closeRel(v, 0.01905, 1e-12) {
+	if v, err := j.Value(FieldHoseID); err != nil || !testkit.Within(v, 0.01905, 1e-12) {
 		t.Errorf("Value = %g, %v", v, err)
 	}
 	if err := j.Set(FieldHoseID, "abc"); err == nil || !strings.HasPrefix(err.Error(), "Hose inside diameter: cannot read \"abc\"") {
@@ -107,7 +108,7 @@ func TestJobSetUnitsKeepsMeaning(t *testing.T) {
 	}
 	for id, v := range before {
 		got, err := j.Value(id)
-		if err != nil || !closeRel(got, v, 1e-12) {
+		if err != nil || !testkit.Within(got, v, 1e-12) {
 			t.Errorf("%s: %g before, %g (%v) after; text %q", id, v, got, err, j.Text(id))
 		}
 	}

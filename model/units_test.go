@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"drawdown/calc/testkit"
 )
 
 // nist811 is the citation for the conversion factors below: NIST Special
@@ -13,14 +15,6 @@ import (
 // The 7-digit factors are quoted from memory of that table; the exact ones
 // (in, ft, lb, US gal, atm, bar) are the definitions printed in bold there.
 const nist811 = "NIST SP 811 (2008) App. B.8"
-
-// closeRel reports |got − want| ≤ tol·|want|, or ≤ tol when want is zero.
-func closeRel(got, want, tol float64) bool {
-	if want == 0 {
-		return math.Abs(got) <= tol
-	}
-	return math.Abs(got-want) <= tol*math.Abs(want)
-}
 
 func TestParseConversions(t *testing.T) {
 	// Each case parses "1 <unit>" (or the text given) and compares the SI
@@ -76,7 +70,7 @@ func TestParseConversions(t *testing.T) {
 			t.Errorf("%s: Parse(%q): %v (source: %s)", c.name, c.text, err, c.source)
 			continue
 		}
-		if !closeRel(got, c.want, c.tol) {
+		if !testkit.Within(got, c.want, c.tol) {
 			t.Errorf("%s: Parse(%q) = %.10g, want %.10g ± %g rel (source: %s)", c.name, c.text, got, c.want, c.tol, c.source)
 		}
 	}
@@ -153,7 +147,7 @@ func TestParseForms(t *testing.T) {
 			t.Errorf("Parse(%v, %q, %v): %v", c.dim, c.text, c.sys, err)
 			continue
 		}
-		if !closeRel(got, c.want, 1e-12) {
+		if !testkit.Within(got, c.want, 1e-12) {
 			t.Errorf("Parse(%v, %q, %v) = %.12g, want %.12g", c.dim, c.text, c.sys, got, c.want)
 		}
 	}

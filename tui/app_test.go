@@ -5,7 +5,6 @@ import (
 	"image/color"
 	"math"
 	"math/rand/v2"
-	"os"
 	"path/filepath"
 	"regexp"
 	"strconv"
@@ -18,6 +17,7 @@ import (
 	"github.com/charmbracelet/x/ansi"
 
 	"drawdown/calc"
+	"drawdown/calc/testkit"
 	"drawdown/model"
 	"drawdown/model/present"
 	"drawdown/presets"
@@ -564,19 +564,7 @@ func TestNoColor(t *testing.T) {
 		t.Error("no inverse (reverse) display for the focus under NO_COLOR")
 	}
 	readable := sgrToken.ReplaceAllString(out, "⟨$1⟩")
-	path := filepath.Join("testdata", t.Name()+".golden")
-	if *update {
-		if err := os.WriteFile(path, []byte(readable), 0o644); err != nil {
-			t.Fatal(err)
-		}
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run with -update)", err)
-	}
-	if string(want) != readable {
-		t.Errorf("NO_COLOR frame differs from %s:\n%s", path, readable)
-	}
+	testkit.Golden(t, filepath.Join("testdata", t.Name()+".golden"), []byte(readable))
 	// On a 16-colour terminal only the 16 basic colours may appear.
 	buf.Reset()
 	w.Profile = colorprofile.ANSI

@@ -96,7 +96,7 @@ func TestChecklistView(t *testing.T) {
 				v.SetChecklist(c.cl(t))
 				v.Focus()
 				for _, k := range c.keys {
-					v, _ = v.Update(wiKey(k))
+					v, _ = v.Update(keyMsg(k))
 				}
 				paneGolden(t, v.View(), s.w, s.h)
 				if testing.Verbose() && s.w > 20 {
@@ -112,7 +112,7 @@ func ckPress(v ChecklistView, keys ...string) (ChecklistView, []tea.Msg) {
 	var msgs []tea.Msg
 	for _, k := range keys {
 		var cmd tea.Cmd
-		v, cmd = v.Update(wiKey(k))
+		v, cmd = v.Update(keyMsg(k))
 		if cmd != nil {
 			if m := cmd(); m != nil {
 				msgs = append(msgs, m)

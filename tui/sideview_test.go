@@ -1,10 +1,8 @@
 package tui
 
 import (
-	"flag"
 	"math"
 	"math/rand/v2"
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -12,39 +10,21 @@ import (
 
 	"github.com/charmbracelet/x/ansi"
 
+	"drawdown/calc/testkit"
 	"drawdown/model"
 	"drawdown/model/present"
 	"drawdown/presets"
 )
 
-// update rewrites golden files: go test ./tui/ -update. Shared by every test
-// in package tui.
-var update = flag.Bool("update", false, "rewrite golden files")
-
 // paneGolden compares an ANSI-stripped frame with
-// testdata/<TestName>/<case>.golden (the subtest name gives the path), and
-// rewrites the file under -update. It also checks the frame's size.
+// testdata/<TestName>/<case>.golden (the subtest name gives the path) through
+// the house's one golden helper (go test ./tui -update rewrites it), and
+// checks the frame's size.
 func paneGolden(t *testing.T, frame string, w, h int) {
 	t.Helper()
 	plain := ansi.Strip(frame)
 	paneCheckFrame(t, plain, w, h)
-	path := filepath.Join("testdata", filepath.FromSlash(t.Name())+".golden")
-	if *update {
-		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(path, []byte(plain), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run with -update to create it)", err)
-	}
-	if string(want) != plain {
-		t.Errorf("frame differs from %s (run with -update after checking):\n--- got\n%s\n--- want\n%s", path, plain, want)
-	}
+	testkit.Golden(t, filepath.Join("testdata", filepath.FromSlash(t.Name())+".golden"), []byte(plain))
 }
 
 // paneCheckFrame asserts a plain frame is h lines of w cells with no NaN or

@@ -11,6 +11,7 @@ import (
 	"github.com/charmbracelet/x/ansi"
 
 	"drawdown/calc"
+	"drawdown/calc/testkit"
 	"drawdown/model"
 )
 
@@ -46,27 +47,6 @@ func wiDemo() WhatIfTable {
 	return t
 }
 
-func wiKey(s string) tea.KeyPressMsg {
-	switch s {
-	case "enter":
-		return tea.KeyPressMsg{Code: tea.KeyEnter}
-	case "up":
-		return tea.KeyPressMsg{Code: tea.KeyUp}
-	case "down":
-		return tea.KeyPressMsg{Code: tea.KeyDown}
-	case "left":
-		return tea.KeyPressMsg{Code: tea.KeyLeft}
-	case "right":
-		return tea.KeyPressMsg{Code: tea.KeyRight}
-	case "esc":
-		return tea.KeyPressMsg{Code: tea.KeyEscape}
-	case "backspace":
-		return tea.KeyPressMsg{Code: tea.KeyBackspace}
-	}
-	r := []rune(s)[0]
-	return tea.KeyPressMsg{Code: r, Text: s}
-}
-
 func TestWhatIfView(t *testing.T) {
 	noTank := wiDemo()
 	noTank.HasTime = false
@@ -96,7 +76,7 @@ func TestWhatIfView(t *testing.T) {
 					v.Focus()
 				}
 				for _, k := range c.keys {
-					v, _ = v.Update(wiKey(k))
+					v, _ = v.Update(keyMsg(k))
 				}
 				paneGolden(t, v.View(), s.w, s.h)
 				if testing.Verbose() && s.w > 20 {
@@ -116,7 +96,7 @@ func TestWhatIfAdopt(t *testing.T) {
 	v.SetTable(tab)
 
 	// Not focused: keys do nothing.
-	if _, cmd := v.Update(wiKey("enter")); cmd != nil {
+	if _, cmd := v.Update(keyMsg("enter")); cmd != nil {
 		t.Fatal("blurred pane answered Enter")
 	}
 	v.Focus()
@@ -133,9 +113,9 @@ func TestWhatIfAdopt(t *testing.T) {
 	}
 	for i, s := range steps {
 		for _, k := range s.keys {
-			v, _ = v.Update(wiKey(k))
+			v, _ = v.Update(keyMsg(k))
 		}
-		_, cmd := v.Update(wiKey("enter"))
+		_, cmd := v.Update(keyMsg("enter"))
 		if cmd == nil {
 			t.Fatalf("step %d: Enter gave no command", i)
 		}
@@ -208,7 +188,7 @@ func TestWhatIfNeverBreaks(t *testing.T) {
 		v.Focus()
 		for k := 0; k < 12; k++ {
 			var cmd tea.Cmd
-			v, cmd = v.Update(wiKey(keys[rng.IntN(len(keys))]))
+			v, cmd = v.Update(keyMsg(keys[rng.IntN(len(keys))]))
 			if cmd != nil {
 				cmd()
 			}
@@ -288,7 +268,7 @@ func TestWhatIfCmdDemo(t *testing.T) {
 		t.Errorf("present length on row %d, want 3 (×1 of ×½ … ×2)", tab.Row)
 	}
 	got, want := tab.Cells[tab.Row][tab.Col].Flow, float64(p.Result.Flow)
-	if math.Abs(got-want) > 1e-9*want {
+	if !testkit.Within(got, want, 1e-9) {
 		t.Errorf("present cell flow %g m³/s, plan flow %g m³/s", got, want)
 	}
 	if tab.HasTime != (p.Tank != nil) {

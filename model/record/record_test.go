@@ -4,14 +4,13 @@ import (
 	"bytes"
 	"encoding/csv"
 	"errors"
-	"flag"
-	"os"
 	"path/filepath"
 	"strconv"
 	"strings"
 	"testing"
 	"time"
 
+	"drawdown/calc/testkit"
 	"drawdown/model"
 	"drawdown/presets"
 )
@@ -19,7 +18,6 @@ import (
 // Golden files: go test ./model/ -run Report -update rewrites
 // testdata/report/*.md and *.csv. Review the diff before committing: the
 // figures come from calc and presets, so a change there shows here.
-var update = flag.Bool("update", false, "rewrite the golden files in testdata/report")
 
 // reportZone is a fixed zone so the goldens do not depend on the machine's
 // time-zone database.
@@ -186,22 +184,7 @@ func checkRecord(t *testing.T, in Input, md string) {
 
 func checkGolden(t *testing.T, path string, got []byte) {
 	t.Helper()
-	if *update {
-		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(path, got, 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run with -update to create it)", err)
-	}
-	if !bytes.Equal(got, want) {
-		t.Errorf("%s differs from the golden file (run with -update after checking):\n%s", path, firstDiff(string(want), string(got)))
-	}
+	testkit.Golden(t, path, got)
 }
 
 func firstDiff(want, got string) string {
