@@ -197,11 +197,36 @@ func (c *computer) choice(id FieldID) string {
 
 func (c *computer) note(s string) { c.p.Notes = append(c.p.Notes, s) }
 
+// run computes the plan: the site and the liquid, the hose, the heights,
+// then the steady solve, the flow band and (with a tank) the drain.
 func (c *computer) run() {
 	p := &c.p
-	sys := c.in.Units
+	fluid := c.fluid()
+	hose, hoses := c.hose()
+	geo := c.geometry()
+	p.Siphon = calc.Siphon{Fluid: fluid, AtmPressure: p.AtmPressure, Hose: hose, Hoses: hoses, Geometry: geo}
+	if p.Err != nil {
+		return
+	}
+	r, err := calc.Solve(p.Siphon)
+	if err != nil {
+		c.fail(c.fieldFor(err), c.calcFieldError(c.fieldFor(err), err))
+		return
+	}
+	p.Result = r
+	if v, ok := c.num(FieldPumpStroke); ok && v > 0 {
+		p.PumpStrokes = int(math.Ceil(float64(r.PrimingVolume) / v))
+	}
+	c.band()
+	if p.Tank != nil {
+		c.drain()
+	}
+}
 
-	// Site and liquid.
+// fluid reads the site's pressure and the liquid at its temperature, with
+// any property overrides.
+func (c *computer) fluid() calc.Fluid {
+	p := &c.p
 	if v, ok := c.num(FieldBaro); ok {
 		p.AtmPressure, p.FromBaro = calc.Pressure(v), true
 	} else if z, ok := c.num(FieldAltitude); ok {
@@ -211,8 +236,7 @@ func (c *computer) run() {
 		}
 		p.AtmPressure = pa
 	}
-	liqID := c.choice(FieldLiquid)
-	if liqID != "" {
+	if liqID := c.choice(FieldLiquid); liqID != "" {
 		l, ok := c.cat.Liquid(liqID)
 		if !ok {
 			c.fail(FieldLiquid, &FieldError{ID: FieldLiquid, Label: "Liquid", Text: liqID, Detail: `"` + liqID + `" is not in the catalogue`, Err: ErrNotAChoice})
@@ -242,8 +266,13 @@ func (c *computer) run() {
 		fluid.VaporPressure = calc.Pressure(v)
 		c.note("vapour pressure from the override, not the liquid's table")
 	}
+	return fluid
+}
 
-	// Hose.
+// hose reads the hose run: bore, length, up-leg, wall, fittings and the
+// number of hoses in parallel.
+func (c *computer) hose() (calc.Hose, int) {
+	p := &c.p
 	var hose calc.Hose
 	if v, ok := c.num(FieldHoseID); ok {
 		hose.Diameter = calc.Length(v)
@@ -274,63 +303,46 @@ func (c *computer) run() {
 	if v, ok := c.num(FieldHoseCount); ok {
 		hoses = int(v)
 	}
+	return hose, hoses
+}
 
-	// Geometry.
-	lift, okL := c.num(FieldLift)
-	drop, okD := c.num(FieldDrop)
+// geometry places the heights on one datum: the surface at 0 without a
+// tank; the tank floor at 0 with one (and then builds the tank and any
+// receiving vessel).
+func (c *computer) geometry() calc.Geometry {
+	p := &c.p
+	lift, _ := c.num(FieldLift)
+	drop, _ := c.num(FieldDrop)
 	submerged := c.choice(FieldOutletSubmerged) == "yes"
-	var geo calc.Geometry
 	shape := c.choice(FieldTankShape)
-	if shape == "" {
-		shape = "none"
-	}
-	if shape == "none" {
+	if shape == "" || shape == "none" {
 		depth, _ := c.num(FieldIntakeDepth)
-		geo = calc.Geometry{Surface: 0, Intake: calc.Length(-depth), Crest: calc.Length(lift), Outlet: calc.Length(-drop), OutletSubmerged: submerged}
 		if c.in.Receiver != nil {
-			c.fail(FieldTankShape, &FieldError{ID: FieldTankShape, Label: "Tank shape", Text: shape,
+			c.fail(FieldTankShape, &FieldError{ID: FieldTankShape, Label: "Tank shape", Text: "none",
 				Detail: "a transfer into a receiver needs the source tank described", Err: calc.ErrNoTank})
 		}
-	} else {
-		level, okLv := c.num(FieldTankLevel)
-		ih, _ := c.num(FieldIntakeHeight)
-		geo = calc.Geometry{Surface: calc.Length(level), Intake: calc.Length(ih), Crest: calc.Length(level + lift),
-			Outlet: calc.Length(level - drop), OutletSubmerged: submerged}
-		if okLv {
-			c.tank(shape, level)
-		}
-		if c.in.Receiver != nil && p.Tank != nil {
-			c.receiver()
-			if r := p.Receiver; r != nil && float64(r.Floor+r.Level) > float64(geo.Outlet) {
-				// The hose end starts under the receiving surface: the head
-				// is to that surface.
-				geo.Outlet, geo.OutletSubmerged = r.Floor+r.Level, true
-			}
-		}
-		if okLv && ih >= level {
-			c.fail(FieldIntakeHeight, &FieldError{ID: FieldIntakeHeight, Label: "Intake height above floor",
-				Text: c.text(FieldIntakeHeight), Detail: Format(DimLength, ih, sys) + " is not below the liquid level",
-				Accept: "below the level of " + Format(DimLength, level, sys), Err: calc.ErrGeometry})
+		return calc.Geometry{Surface: 0, Intake: calc.Length(-depth), Crest: calc.Length(lift), Outlet: calc.Length(-drop), OutletSubmerged: submerged}
+	}
+	level, okLv := c.num(FieldTankLevel)
+	ih, _ := c.num(FieldIntakeHeight)
+	geo := calc.Geometry{Surface: calc.Length(level), Intake: calc.Length(ih), Crest: calc.Length(level + lift),
+		Outlet: calc.Length(level - drop), OutletSubmerged: submerged}
+	if okLv {
+		c.tank(shape, level)
+	}
+	if c.in.Receiver != nil && p.Tank != nil {
+		c.receiver()
+		if r := p.Receiver; r != nil && float64(r.Floor+r.Level) > float64(geo.Outlet) {
+			// The hose end starts under the receiving surface: the head
+			// is to that surface.
+			geo.Outlet, geo.OutletSubmerged = r.Floor+r.Level, true
 		}
 	}
-	_ = okL
-	_ = okD
-
-	p.Siphon = calc.Siphon{Fluid: fluid, AtmPressure: p.AtmPressure, Hose: hose, Hoses: hoses, Geometry: geo}
-	if p.Err != nil {
-		return
+	if okLv && ih >= level {
+		sys := c.in.Units
+		c.fail(FieldIntakeHeight, &FieldError{ID: FieldIntakeHeight, Label: "Intake height above floor",
+			Text: c.text(FieldIntakeHeight), Detail: Format(DimLength, ih, sys) + " is not below the liquid level",
+			Accept: "below the level of " + Format(DimLength, level, sys), Err: calc.ErrGeometry})
 	}
-	r, err := calc.Solve(p.Siphon)
-	if err != nil {
-		c.fail(c.fieldFor(err), c.calcFieldError(c.fieldFor(err), err))
-		return
-	}
-	p.Result = r
-	if v, ok := c.num(FieldPumpStroke); ok && v > 0 {
-		p.PumpStrokes = int(math.Ceil(float64(r.PrimingVolume) / v))
-	}
-	c.band()
-	if p.Tank != nil {
-		c.drain()
-	}
+	return geo
 }

@@ -370,7 +370,9 @@ func ckStateLine(s model.Step) (string, drawClass) {
 }
 
 // View draws the pane: progress line, step list, the selected step with
-// its caution box, and the input line while typing. Exactly w×h cells.
+// its caution box, and the input line while typing. Exactly w×h cells. It
+// is long (cyclomatic ~36) because the list and the detail share the height
+// by what each needs, in two layouts (side by side when wide).
 func (v ChecklistView) View() string {
 	w, h := v.w, v.h
 	if w <= 0 || h <= 0 {

@@ -209,7 +209,10 @@ func (v *CurveView) redraw() {
 	v.frame = v.plot(w, h)
 }
 
-// plot draws title, level plot, flow strip and time axis.
+// plot draws title, level plot, flow strip and time axis. It is long
+// (cyclomatic ~55) because the four share one canvas and one set of scales
+// worked out together (the time axis serves both plots, the labels avoid the
+// curve); each block below is one part, in drawing order.
 func (v *CurveView) plot(w, h int) string {
 	c := v.curve
 	u := v.units

@@ -23,21 +23,21 @@ func openPTY(t *testing.T, cols, rows int) (master, slave *os.File) {
 	t.Helper()
 	m, err := os.OpenFile("/dev/ptmx", os.O_RDWR|syscall.O_NOCTTY, 0)
 	if err != nil {
-		t.Skip("no pseudo-terminal here:", err)
+		t.Fatal("no pseudo-terminal here:", err)
 	}
 	if err := unix.IoctlSetPointerInt(int(m.Fd()), unix.TIOCSPTLCK, 0); err != nil {
 		m.Close()
-		t.Skip("cannot unlock the pseudo-terminal:", err)
+		t.Fatal("cannot unlock the pseudo-terminal:", err)
 	}
 	n, err := unix.IoctlGetInt(int(m.Fd()), unix.TIOCGPTN)
 	if err != nil {
 		m.Close()
-		t.Skip("cannot name the pseudo-terminal:", err)
+		t.Fatal("cannot name the pseudo-terminal:", err)
 	}
 	s, err := os.OpenFile("/dev/pts/"+strconv.Itoa(n), os.O_RDWR|syscall.O_NOCTTY, 0)
 	if err != nil {
 		m.Close()
-		t.Skip("cannot open the pseudo-terminal's other end:", err)
+		t.Fatal("cannot open the pseudo-terminal's other end:", err)
 	}
 	ws := &unix.Winsize{Row: uint16(rows), Col: uint16(cols)}
 	if err := unix.IoctlSetWinsize(int(s.Fd()), unix.TIOCSWINSZ, ws); err != nil {

@@ -253,7 +253,10 @@ func (v *SideView) summaryLines(w int) []string {
 	return lines
 }
 
-// drawing lays out the full picture. Rows: caption, drawing, status.
+// drawing lays out the full picture. Rows: caption, drawing, status. It is
+// long (cyclomatic ~53): one vertical scale and one column plan place the
+// tank, hose, limits and labels so that they never overlap, and each step
+// below depends on the rows and columns the earlier ones took.
 func (v *SideView) drawing(w, h int) string {
 	g := v.geo
 	u := v.units

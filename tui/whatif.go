@@ -277,7 +277,9 @@ type wiCell struct {
 }
 
 // table lays out title, header, rows, the parallel row and a footer that
-// says what Enter will adopt.
+// says what Enter will adopt. It is long (cyclomatic ~50) because the column
+// widths, the one- or two-line cells and the scroll window are fitted to
+// the pane together before anything is drawn.
 func (v *WhatIfView) table(w, h int) string {
 	t := v.t
 	u := v.units
