@@ -57,6 +57,13 @@ type Job struct {
 
 	Resume Resume `json:"resume"`
 
+	// LastGood holds, for each field, its text as last committed (typing
+	// finished) while it read as a valid value: the "last valid" text that
+	// stands in while the field is being retyped or is wrong, and that
+	// ctrl+r puts back. It is saved with the job, so it survives a dropped
+	// link mid-edit.
+	LastGood map[FieldID]string `json:"last_good,omitempty"`
+
 	Created time.Time `json:"created,omitzero"`
 	Updated time.Time `json:"updated,omitzero"`
 }
@@ -225,6 +232,12 @@ func (j Job) Clone() Job {
 	c.Inputs = make(map[FieldID]string, len(j.Inputs))
 	for k, v := range j.Inputs {
 		c.Inputs[k] = v
+	}
+	if j.LastGood != nil {
+		c.LastGood = make(map[FieldID]string, len(j.LastGood))
+		for k, v := range j.LastGood {
+			c.LastGood[k] = v
+		}
 	}
 	c.Readings = append([]Reading(nil), j.Readings...)
 	c.Log = append([]LogEntry(nil), j.Log...)

@@ -19,6 +19,8 @@ type Options struct {
 	Now func() time.Time
 	// Loc is the zone times are shown in (nil: time.Local).
 	Loc *time.Location
+	// NoMouse starts with the mouse off (the m key turns it on and off).
+	NoMouse bool
 }
 
 // Model is the root of the screen and the only tea.Model. It routes
@@ -38,9 +40,6 @@ type Model struct {
 	// st is what the panes show; shown[i] is the gen pane i last saw.
 	st    screenState
 	shown [paneCount]uint64
-	// lastGood is the input text of the last valid plan (ctrl+r puts a
-	// field back to it).
-	lastGood map[model.FieldID]string
 
 	focus PaneID
 	lower PaneID // wide screens: the view shown in the lower strip
@@ -67,6 +66,7 @@ type Model struct {
 	fitErr error
 
 	showHelp  bool
+	mouse     bool // mouse clicks select panes, fields, steps and cells
 	jobs      jobList
 	flash     string // one-shot hint on the help line, cleared by the next key
 	width     int
@@ -104,12 +104,15 @@ func New(o Options) *Model {
 		keys: km, styles: st, cat: cat, now: now,
 		job: o.Start.Job, path: o.Start.Path, dir: o.Start.Dir,
 		noSave: o.NoSave || o.Start.Path == "", startNote: o.Start.Note, firstSave: o.Start.Fresh,
-		lower: PaneCurve,
+		lower: PaneCurve, mouse: !o.NoMouse,
 	}
 	if m.job.Inputs == nil {
 		m.job.Inputs = map[model.FieldID]string{}
 	}
 	m.st.job = &m.job
+	if m.job.LastGood == nil {
+		m.job.CommitAll(cat) // a job from an older file: what reads as valid now is its last valid text
+	}
 	m.buildPanes(o.Loc)
 	if m.startNote != "" {
 		m.job.AddLog(now(), m.startNote)
@@ -192,6 +195,10 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 	switch msg := msg.(type) {
 	case tea.KeyPressMsg:
 		return m.key(msg)
+	case tea.PasteMsg:
+		return m.paste(msg.Content)
+	case tea.MouseClickMsg:
+		return m.click(msg.Mouse())
 	case tea.WindowSizeMsg:
 		m.resize(msg.Width, msg.Height)
 		if m.firstSave {

@@ -39,19 +39,20 @@ func (m *Model) applyEdit(e FieldEdit) tea.Cmd {
 	return m.save()
 }
 
-// restoreField puts back the field's text from the last valid plan's job
-// when the field is invalid (ctrl+r).
+// restoreField puts back the field's last valid text (ctrl+r).
 func (m *Model) restoreField() tea.Cmd {
-	id := m.forms[m.focus].Selected().ID
-	if m.st.errs[id] == nil {
-		m.flash = "nothing to undo: the field is valid"
-		return nil
-	}
-	old, ok := m.lastGood[id]
-	if !ok {
+	f := m.forms[m.focus]
+	id := f.Selected().ID
+	old, ok := m.job.LastGood[id]
+	switch {
+	case !ok:
 		m.flash = "no earlier valid text for this field"
 		return nil
+	case old == m.job.Inputs[id]:
+		m.flash = "nothing to undo: the field holds its last valid text"
+		return nil
 	}
+	f.SetText(old)
 	return m.applyEdit(FieldEdit{ID: id, Text: old})
 }
 
@@ -84,33 +85,41 @@ func (m *Model) rebuildChecklist(changed model.FieldID) {
 }
 
 // recompute runs model.Compute, words the plan once (present.Build) and
-// hands both to the panes. It is the only place the plan changes.
+// hands both to the panes. It is the only place the plan changes. When an
+// input is wrong, the plan from each wrong field's last valid text (the job's
+// LastGood, kept in the job file) stands in, marked stale.
 func (m *Model) recompute() {
 	p := model.Compute(m.job, m.cat)
 	m.st.errs = p.FieldErrors
-	if p.OK() {
-		m.st.plan, m.st.hasPlan, m.st.stale = p, true, false
-		m.st.sheet = present.Build(p, m.job.Units, m.checklistHazards(p))
-		m.st.problem = ""
-		if m.lastGood == nil {
-			m.lastGood = map[model.FieldID]string{}
-		}
-		clear(m.lastGood)
-		for k, v := range m.job.Inputs {
-			m.lastGood[k] = v
-		}
-		m.planGen++
-	} else {
-		m.st.stale = true
+	m.st.stale = !p.OK()
+	m.st.problem = ""
+	if !p.OK() {
 		m.st.problem = present.FirstProblem(m.st.errs)
 		if m.st.problem == "" {
 			m.st.problem = p.Err.Error() // no field to blame: the plan's own error
 		}
-		if !m.st.hasPlan {
-			m.st.sheet = present.Build(p, m.job.Units, 0)
+		if in, ok := m.job.LastGoodInputs(p.FieldErrors); ok {
+			if lp := model.ComputeInputs(model.Inputs{Values: in, Units: m.job.Units}, m.cat); lp.OK() {
+				p = lp
+			}
 		}
 	}
+	if p.OK() {
+		m.st.plan, m.st.hasPlan = p, true
+		m.st.sheet = present.Build(p, m.job.Units, m.checklistHazards(p))
+		m.planGen++
+	} else if !m.st.hasPlan {
+		m.st.sheet = present.Build(p, m.job.Units, 0)
+	}
 	m.touch()
+}
+
+// commit records the field's text as its last valid text when typing in it
+// ends and it reads as valid (model.Job.Commit).
+func (m *Model) commit(id model.FieldID) {
+	if id != "" && m.job.Commit(id, m.cat) {
+		m.st.gen++
+	}
 }
 
 // checklistHazards are the hazards the checklist is built for: the liquid's
@@ -284,6 +293,9 @@ func (m *Model) loaded(msg jobLoadedMsg) tea.Cmd {
 	m.job = msg.job
 	if m.job.Inputs == nil {
 		m.job.Inputs = map[model.FieldID]string{}
+	}
+	if m.job.LastGood == nil {
+		m.job.CommitAll(m.cat)
 	}
 	m.path = msg.path
 	m.markedAs = ""

@@ -61,6 +61,13 @@ func (m *Model) command(msg tea.KeyPressMsg) (tea.Cmd, bool) {
 	case key.Matches(msg, k.Save):
 		m.flash = "saving now (every change is saved anyway)"
 		return m.save(), true
+	case key.Matches(msg, k.Mouse):
+		m.mouse = !m.mouse
+		m.flash = "mouse off: the terminal selects text again"
+		if m.mouse {
+			m.flash = "mouse on: tap a tab, a field, a step or a cell (shift-drag selects text)"
+		}
+		return nil, true
 	case key.Matches(msg, k.Open):
 		m.jobs.open = true
 		m.jobs.loading = true
@@ -91,11 +98,18 @@ func (m *Model) formKey(msg tea.KeyPressMsg) tea.Cmd {
 		m.move(-1, true)
 		return m.saveResume()
 	case key.Matches(msg, k.Leave):
-		if f.Editing() {
-			f.StopEditing()
-		} else {
+		if !f.Editing() {
 			m.flash = "navigate mode: press enter to type in the marked field"
+			return nil
 		}
+		id := f.Selected().ID
+		if e := f.CancelEdit(); e != nil {
+			m.flash = "put back what was there before"
+			cmd := m.applyEdit(*e)
+			m.commit(id)
+			return cmd
+		}
+		m.commit(id)
 		return nil
 	}
 	picker := f.SelectedIsPicker()
@@ -108,7 +122,7 @@ func (m *Model) formKey(msg tea.KeyPressMsg) tea.Cmd {
 			m.move(+1, false)
 			return m.saveResume()
 		case key.Matches(msg, k.Edit):
-			f.StopEditing()
+			m.endEdit()
 			return nil
 		case key.Matches(msg, k.Restore):
 			return m.restoreField()
@@ -151,7 +165,13 @@ func (m *Model) formKey(msg tea.KeyPressMsg) tea.Cmd {
 func (m *Model) move(d int, cross bool) {
 	f := m.forms[m.focus]
 	editing := f.Editing()
+	if editing {
+		m.commit(f.Selected().ID) // leaving a field ends typing in it
+	}
 	if f.Move(d) || !cross {
+		if editing {
+			f.StartEditing()
+		}
 		return
 	}
 	f.StopEditing()
@@ -171,8 +191,8 @@ func (m *Model) move(d int, cross bool) {
 
 // setFocus selects a pane.
 func (m *Model) setFocus(p PaneID) tea.Cmd {
-	if m.focus.isForm() {
-		m.forms[m.focus].StopEditing()
+	if m.focus.isForm() && m.forms[m.focus].Editing() {
+		m.endEdit()
 	}
 	m.focus = p
 	if paneTable[p].lower {
@@ -184,4 +204,79 @@ func (m *Model) setFocus(p PaneID) tea.Cmd {
 		fit = m.refit() // the plan may have changed since the last fit
 	}
 	return tea.Batch(m.saveResume(), fit)
+}
+
+// endEdit ends typing in the focused form's field, keeping the text, and
+// records it as the field's last valid text when it reads as valid.
+func (m *Model) endEdit() {
+	f := m.forms[m.focus]
+	id := f.Selected().ID
+	f.StopEditing()
+	m.commit(id)
+}
+
+// paste sends pasted text to the focused pane's input (a form starts typing
+// in its selected field).
+func (m *Model) paste(text string) tea.Cmd {
+	if m.showHelp || m.jobs.open {
+		return nil
+	}
+	cmd, edit := m.panes[m.focus].Paste(text)
+	if edit != nil {
+		return tea.Batch(cmd, m.applyEdit(*edit))
+	}
+	return cmd
+}
+
+// click acts on a left click: a tab selects its pane; a click in a pane on
+// screen focuses it and lets it choose what was tapped.
+func (m *Model) click(ms tea.Mouse) tea.Cmd {
+	if !m.mouse || ms.Button != tea.MouseLeft || m.lay.TooSmall || m.showHelp || m.jobs.open {
+		return nil
+	}
+	if ms.Y == m.lay.Tabs.Y {
+		for i, sp := range m.tabSpans() {
+			if ms.X >= sp.x0 && ms.X < sp.x1 {
+				return m.setFocus(PaneID(i))
+			}
+		}
+		return nil
+	}
+	target, at, ok := m.paneAt(ms.X, ms.Y)
+	if !ok {
+		return nil
+	}
+	var cmds []tea.Cmd
+	if target != m.focus {
+		cmds = append(cmds, m.setFocus(target))
+	} else if target.isForm() && m.forms[target].Editing() {
+		m.endEdit()
+	}
+	cmd, edit := m.panes[target].Click(ms.X-at.X, ms.Y-at.Y)
+	cmds = append(cmds, cmd)
+	if edit != nil {
+		cmds = append(cmds, m.applyEdit(*edit))
+	}
+	if target.isForm() {
+		cmds = append(cmds, m.saveResume())
+	}
+	return tea.Batch(cmds...)
+}
+
+// paneAt is the pane drawn at (x, y) and where it is on the screen.
+func (m *Model) paneAt(x, y int) (PaneID, rect, bool) {
+	in := func(r rect) bool { return x >= r.X && x < r.X+r.W && y >= r.Y && y < r.Y+r.H }
+	l := m.lay
+	switch {
+	case in(l.Main):
+		if l.Wide && !m.focus.isForm() {
+			return m.form, l.Main, true
+		}
+		return m.focus, l.Main, true
+	case l.Wide && in(l.Side):
+		return PaneSide, l.Side, true
+	case l.Wide && in(l.Lower):
+		return m.lowerPane(), l.Lower, true
+	}
+	return 0, rect{}, false
 }

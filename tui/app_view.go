@@ -42,7 +42,10 @@ func (m *Model) resize(w, h int) {
 func (m *Model) View() tea.View {
 	v := tea.NewView("")
 	v.AltScreen = true
-	v.WindowTitle = "drawdown"
+	v.WindowTitle = "drawdown · " + jobName(m.job.Name)
+	if m.mouse {
+		v.MouseMode = tea.MouseModeCellMotion
+	}
 	if m.quitting {
 		return v
 	}
@@ -135,13 +138,50 @@ func (m *Model) headerView() string {
 	right := st.fast.Title.Render(m.job.Units.String()) + "  " + save + " " + mode
 	left := st.fast.Title.Render("drawdown") + st.fast.Muted.Render(" · ")
 	room := m.lay.W - cellWidth(left) - cellWidth(right) - 1
-	name := m.job.Name
-	if name == "" {
-		name = "(unnamed job)"
-	}
-	left += st.fast.Value.Render(clip(name, max(room, 0)))
+	left += st.fast.Value.Render(clip(jobName(m.job.Name), max(room, 0)))
 	gap := max(m.lay.W-cellWidth(left)-cellWidth(right), 0)
 	return fitBlock([]string{left + strings.Repeat(" ", gap) + right}, m.lay.W, 1)
+}
+
+// jobName is a job's name for one line of the screen: control characters
+// shown as spaces, and a name for an unnamed job.
+func jobName(name string) string {
+	name = strings.TrimSpace(oneLineText(name))
+	if name == "" {
+		return "(unnamed job)"
+	}
+	return name
+}
+
+// tabLabel is pane p's tab: its key and its name (short on a narrow screen).
+func (m *Model) tabLabel(p PaneID) string {
+	name := paneTable[p].name
+	if m.lay.W < 110 {
+		name = paneTable[p].short
+	}
+	if int(p) < len(m.keys.PaneKeys) {
+		return m.keys.PaneKeys[p].Help().Key + " " + name
+	}
+	return name
+}
+
+// tabSpan is where a tab is drawn on the tab line, [x0, x1).
+type tabSpan struct{ x0, x1 int }
+
+// tabSpans places the tabs as tabsView draws them: each tab is its label
+// with one cell either side, and a bar before the views.
+func (m *Model) tabSpans() []tabSpan {
+	out := make([]tabSpan, paneCount)
+	x := 0
+	for i := PaneID(0); i < paneCount; i++ {
+		if i == PaneSide {
+			x++ // the bar
+		}
+		w := cellWidth(m.tabLabel(i)) + 2
+		out[i] = tabSpan{x, x + w}
+		x += w
+	}
+	return out
 }
 
 // tabsView is the pane selector: key and name, the selected one in inverse
@@ -153,11 +193,7 @@ func (m *Model) tabsView() string {
 		if i == PaneSide {
 			b.WriteString(st.fast.Muted.Render("│"))
 		}
-		name := paneTable[i].name
-		if m.lay.W < 110 {
-			name = paneTable[i].short
-		}
-		label := m.keys.PaneKeys[i].Help().Key + " " + name
+		label := m.tabLabel(i)
 		switch {
 		case i == m.focus:
 			b.WriteString(st.fast.TabActive.Render("[" + label + "]"))

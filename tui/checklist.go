@@ -281,6 +281,16 @@ func (v *ChecklistView) Key(msg tea.KeyPressMsg) (tea.Cmd, *FieldEdit) {
 	return cmd, nil
 }
 
+// Paste puts pasted text into the reason or note being typed.
+func (v *ChecklistView) Paste(text string) (tea.Cmd, *FieldEdit) {
+	if !v.Typing() {
+		return nil, nil
+	}
+	var cmd tea.Cmd
+	v.input, cmd = v.input.Update(tea.PasteMsg{Content: oneLineText(text)})
+	return cmd, nil
+}
+
 // Show gives the pane the job's checklist.
 func (v *ChecklistView) Show(st *screenState) { v.SetChecklist(st.job.Checklist) }
 
@@ -369,10 +379,128 @@ func ckStateLine(s model.Step) (string, drawClass) {
 	return sym + " to do", cls
 }
 
+// ckLayout is how the pane shares its room: the input line at the foot
+// while typing, the selected step's detail (beside the list when wide,
+// under it otherwise), and the list's width and height.
+type ckLayout struct {
+	input, detail []drawLine
+	wide          bool
+	listW, listH  int
+}
+
+func (v ChecklistView) layout() ckLayout {
+	w, h := v.w, v.h
+	var l ckLayout
+	step := v.cl.Steps[min(max(v.cur, 0), len(v.cl.Steps)-1)]
+	if v.mode != ckBrowse {
+		label := "Reason to skip (required):"
+		if v.mode == ckNote {
+			label = "Note for this step:"
+		}
+		iv := v.input.View()
+		l.input = append(l.input, drawPlain(label, clsTitle), drawLine{{text: iv, raw: true, width: cellWidth(iv)}})
+		if v.errText != "" {
+			l.input = append(l.input, drawPlain(v.errText, clsDanger))
+		}
+	}
+	l.wide = w >= 100 && h >= 8
+	l.listW = w
+	detailW := w
+	if l.wide {
+		l.listW = w * 55 / 100
+		detailW = w - l.listW - 1
+	}
+	// Height budget: title 1, then list and detail share the rest; the
+	// list keeps at least three rows (or what is left in a tiny pane).
+	room := h - 1 - len(l.input)
+	if l.wide {
+		l.listH = room
+		l.detail = v.detailLines(step, detailW, h-1)
+		return l
+	}
+	dh := max(room-3, 0)
+	if room < 6 {
+		dh = 0
+	}
+	l.detail = v.detailLines(step, detailW, min(dh, max(room*65/100, 0)))
+	l.listH = room - len(l.detail)
+	return l
+}
+
+// ckRow is one row of the step list: a step, or a section's heading.
+type ckRow struct {
+	step int           // index into the steps, or -1 for a heading
+	head model.Section // the heading's section
+}
+
+// listRows lays out the step list for listH rows: one row per step, with a
+// heading row where a section starts when there is room for them (12 rows
+// or more), and top, the first row shown, so that the selection stays in
+// view with some steps after it.
+func (v ChecklistView) listRows(listH int) (rows []ckRow, top int) {
+	steps := v.cl.Steps
+	rows = make([]ckRow, 0, len(steps)+6)
+	curRow := 0
+	for i, s := range steps {
+		if listH >= 12 && (i == 0 || s.Section != steps[i-1].Section) {
+			rows = append(rows, ckRow{step: -1, head: s.Section})
+		}
+		if i == v.cur {
+			curRow = len(rows)
+		}
+		rows = append(rows, ckRow{step: i})
+	}
+	if listH > 0 && len(rows) > listH {
+		top = min(max(curRow-listH/3, 0), len(rows)-listH)
+		if top > 0 && rows[top-1].step < 0 && curRow-top+1 < listH {
+			top-- // keep a section's heading with its first step
+		}
+	}
+	return rows, top
+}
+
+// stepLine is step i's row in the list: marker, state symbol, text.
+func (v ChecklistView) stepLine(i, listW int) drawLine {
+	s := v.cl.Steps[i]
+	sym, cls := ckSymbol(s.State)
+	mark := "  "
+	if i == v.cur {
+		mark = "▶ "
+	}
+	text := s.Text
+	if s.Caution != "" {
+		text = "! " + text // a caution goes with this step
+	}
+	switch {
+	case i == v.cur && v.focused:
+		l := drawLine{{text: clip(mark+sym+" "+text, listW), cls: clsSelected}}.fit(listW)
+		l[len(l)-1].cls = clsSelected // keep the reversed bar across the whole width
+		return l
+	case s.State == model.StateNotApplicable:
+		return drawPlain(mark+sym+" "+text, clsMuted)
+	}
+	return drawLine{{text: mark + sym, cls: cls}, {text: " " + text}}
+}
+
+// Click selects the step in the list row at (x, y), relative to the pane.
+func (v *ChecklistView) Click(x, y int) (tea.Cmd, *FieldEdit) {
+	if len(v.cl.Steps) == 0 || v.mode != ckBrowse || y < 1 {
+		return nil, nil
+	}
+	lay := v.layout()
+	if x >= lay.listW || y > lay.listH {
+		return nil, nil
+	}
+	rows, top := v.listRows(lay.listH)
+	if i := top + y - 1; i < len(rows) && rows[i].step >= 0 {
+		v.cur = rows[i].step
+		return ckStepCmd(v.CurrentID()), nil
+	}
+	return nil, nil
+}
+
 // View draws the pane: progress line, step list, the selected step with
-// its caution box, and the input line while typing. Exactly w×h cells. It
-// is long (cyclomatic ~36) because the list and the detail share the height
-// by what each needs, in two layouts (side by side when wide).
+// its caution box, and the input line while typing. Exactly w×h cells.
 func (v ChecklistView) View() string {
 	w, h := v.w, v.h
 	if w <= 0 || h <= 0 {
@@ -384,72 +512,10 @@ func (v ChecklistView) View() string {
 		return st.drawLines([]drawLine{drawPlain("Checklist: no steps yet — choose the liquid and the priming method.", clsText)}, w, h)
 	}
 	step := steps[min(max(v.cur, 0), len(steps)-1)]
-
-	// The bottom block: input line (when typing) and the detail.
-	var input []drawLine
-	if v.mode != ckBrowse {
-		label := "Reason to skip (required):"
-		if v.mode == ckNote {
-			label = "Note for this step:"
-		}
-		iv := v.input.View()
-		input = append(input, drawPlain(label, clsTitle), drawLine{{text: iv, raw: true, width: cellWidth(iv)}})
-		if v.errText != "" {
-			input = append(input, drawPlain(v.errText, clsDanger))
-		}
-	}
-
-	wide := w >= 100 && h >= 8
-	listW := w
-	detailW := w
-	if wide {
-		listW = w * 55 / 100
-		detailW = w - listW - 1
-	}
-	// Height budget: title 1, then list and detail share the rest; the
-	// list keeps at least three rows (or what is left in a tiny pane).
-	var listH int
-	var detail []drawLine
-	room := h - 1 - len(input)
-	if wide {
-		listH = room
-		detail = v.detailLines(step, detailW, h-1)
-	} else {
-		dh := max(room-3, 0)
-		if room < 6 {
-			dh = 0
-		}
-		detail = v.detailLines(step, detailW, min(dh, max(room*65/100, 0)))
-		listH = room - len(detail)
-	}
-
+	lay := v.layout()
+	input, detail, wide, listW, listH := lay.input, lay.detail, lay.wide, lay.listW, lay.listH
 	lines := []drawLine{drawPlain("Checklist · "+v.progressText()+" · "+step.Section.Title(), clsTitle)}
-
-	// Step list: one row per step, with a heading row where a section
-	// starts when there is room for them (12 rows or more), scrolled so
-	// the selection stays in view with some steps after it.
-	type ckRow struct {
-		step int           // index into steps, or -1 for a heading
-		head model.Section // the heading's section
-	}
-	rows := make([]ckRow, 0, len(steps)+6)
-	curRow := 0
-	for i, s := range steps {
-		if listH >= 12 && (i == 0 || s.Section != steps[i-1].Section) {
-			rows = append(rows, ckRow{step: -1, head: s.Section})
-		}
-		if i == v.cur {
-			curRow = len(rows)
-		}
-		rows = append(rows, ckRow{step: i})
-	}
-	top := 0
-	if listH > 0 && len(rows) > listH {
-		top = min(max(curRow-listH/3, 0), len(rows)-listH)
-		if top > 0 && rows[top-1].step < 0 && curRow-top+1 < listH {
-			top-- // keep a section's heading with its first step
-		}
-	}
+	rows, top := v.listRows(listH)
 	var list []drawLine
 	for _, r := range rows[top:] {
 		if len(list) >= listH {
@@ -459,27 +525,7 @@ func (v ChecklistView) View() string {
 			list = append(list, drawPlain("── "+r.head.Title()+" ", clsMuted))
 			continue
 		}
-		i := r.step
-		s := steps[i]
-		sym, cls := ckSymbol(s.State)
-		mark := "  "
-		if i == v.cur {
-			mark = "▶ "
-		}
-		text := s.Text
-		if s.Caution != "" {
-			text = "! " + text // a caution goes with this step
-		}
-		switch {
-		case i == v.cur && v.focused:
-			list = append(list, drawLine{{text: clip(mark+sym+" "+text, listW), cls: clsSelected}}.fit(listW))
-			// keep the reversed bar across the whole width
-			list[len(list)-1][len(list[len(list)-1])-1].cls = clsSelected
-		case s.State == model.StateNotApplicable:
-			list = append(list, drawPlain(mark+sym+" "+text, clsMuted))
-		default:
-			list = append(list, drawLine{{text: mark + sym, cls: cls}, {text: " " + text}})
-		}
+		list = append(list, v.stepLine(r.step, listW))
 	}
 	if wide {
 		for i := 0; i < max(len(list), len(detail)); i++ {

@@ -113,6 +113,12 @@ func (v *CurveView) Key(tea.KeyPressMsg) (tea.Cmd, *FieldEdit) { return nil, nil
 // Typing is false: the pane has no text input.
 func (v *CurveView) Typing() bool { return false }
 
+// Paste does nothing: the pane has no text input.
+func (v *CurveView) Paste(string) (tea.Cmd, *FieldEdit) { return nil, nil }
+
+// Click does nothing: the drawing has nothing to choose.
+func (v *CurveView) Click(int, int) (tea.Cmd, *FieldEdit) { return nil, nil }
+
 // CursorPos is nil: the pane has no text input.
 func (v *CurveView) CursorPos() *tea.Cursor { return nil }
 

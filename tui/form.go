@@ -31,8 +31,13 @@ type FormPane struct {
 	styles  Styles
 	keys    KeyMap
 	sys     model.System
-	gen     int      // bumped when styles or size change: every row is drawn again
-	help    []string // the selected field's help, wrapped (see renderRows)
+	// before is the field's text when typing in it began (Esc puts it
+	// back); fresh: that text is still selected whole, and the first
+	// character typed replaces it.
+	before string
+	fresh  bool
+	gen    int      // bumped when styles or size change: every row is drawn again
+	help   []string // the selected field's help, wrapped (see renderRows)
 	// inactive: another pane has the focus (wide screens show the form
 	// anyway); the selection marker is hidden.
 	inactive bool
@@ -276,16 +281,54 @@ func (f *FormPane) SelectField(id model.FieldID) bool {
 }
 
 // StartEditing puts the selected field into typing mode.
+//
+// The whole text is selected: the first character typed replaces it, while
+// an arrow, Home or End keeps it for editing. The text from before is kept,
+// so that Esc can put it back (CancelEdit).
 func (f *FormPane) StartEditing() {
 	f.editing = true
+	if len(f.fields) > 0 {
+		f.before = f.fields[f.cursor].input.Value()
+		f.fresh = !f.fields[f.cursor].spec.IsPicker() && f.before != ""
+	}
 	f.focusInput()
 	f.renderRows()
 }
 
-// StopEditing leaves typing mode (navigate mode).
+// StopEditing leaves typing mode (navigate mode), keeping what was typed.
 func (f *FormPane) StopEditing() {
-	f.editing = false
+	f.editing, f.fresh = false, false
 	f.blurInput()
+	f.renderRows()
+}
+
+// CancelEdit leaves typing mode and puts back the text from before the
+// edit; the edit is non-nil when that changes the field.
+func (f *FormPane) CancelEdit() *FieldEdit {
+	if !f.editing || len(f.fields) == 0 {
+		f.StopEditing()
+		return nil
+	}
+	ff := &f.fields[f.cursor]
+	var e *FieldEdit
+	if !ff.spec.IsPicker() && ff.input.Value() != f.before {
+		ff.input.SetValue(f.before)
+		e = &FieldEdit{ID: ff.spec.ID, Text: f.before}
+	}
+	f.StopEditing()
+	return e
+}
+
+// SetText replaces the selected field's text as typed (ctrl+r); the field
+// stays in the mode it is in.
+func (f *FormPane) SetText(text string) {
+	if len(f.fields) == 0 || f.fields[f.cursor].spec.IsPicker() {
+		return
+	}
+	ff := &f.fields[f.cursor]
+	ff.input.SetValue(text)
+	ff.input.CursorEnd()
+	f.fresh = false
 	f.renderRows()
 }
 
@@ -383,6 +426,9 @@ func (f *FormPane) Typing() bool { return f.editing && !f.SelectedIsPicker() }
 // after its own commands.
 func (f *FormPane) Claims(tea.KeyPressMsg) bool { return f.Typing() }
 
+// Paste puts pasted text into the selected field (pasteText).
+func (f *FormPane) Paste(text string) (tea.Cmd, *FieldEdit) { return nil, f.pasteText(text) }
+
 // Key handles a key for the selected field (Update).
 func (f *FormPane) Key(msg tea.KeyPressMsg) (tea.Cmd, *FieldEdit) { return f.Update(msg) }
 
@@ -391,4 +437,36 @@ func (f *FormPane) Key(msg tea.KeyPressMsg) (tea.Cmd, *FieldEdit) { return f.Upd
 func (f *FormPane) Show(st *screenState) {
 	f.SetJob(st.job, st.errs)
 	f.renderRows()
+}
+
+// Click selects the field on the row at (x, y), relative to the pane; a
+// click on the field already selected starts typing in it (a typed field)
+// or takes the next choice (a picker). Fields that do not apply are passed
+// over. The root ends typing in the previous field first.
+func (f *FormPane) Click(x, y int) (tea.Cmd, *FieldEdit) {
+	if y < 1 || y > f.bodyHeight() || len(f.fields) == 0 {
+		return nil, nil
+	}
+	line := f.scrollTop(f.selectedLine()) + y - 1
+	for i := range f.fields {
+		n := 1 + len(f.fields[i].errLines)
+		if line < n {
+			if !f.fields[i].used {
+				return nil, nil
+			}
+			if i != f.cursor {
+				f.SetCursor(i)
+				return nil, nil
+			}
+			if f.fields[i].spec.IsPicker() {
+				return nil, f.pickerKey(tea.KeyPressMsg{Code: tea.KeyRight})
+			}
+			if !f.editing {
+				f.StartEditing()
+			}
+			return nil, nil
+		}
+		line -= n
+	}
+	return nil, nil
 }

@@ -41,6 +41,22 @@ func (f *FormPane) Update(msg tea.Msg) (tea.Cmd, *FieldEdit) {
 		return nil, nil
 	}
 	before := ff.input.Value()
+	if ok && f.fresh {
+		// The whole text is selected: a character replaces it, a delete
+		// clears it, a move keeps it for editing.
+		f.fresh = false
+		switch {
+		case km.Text != "":
+			ff.input.SetValue("")
+		case km.Code == tea.KeyBackspace || km.Code == tea.KeyDelete:
+			ff.input.SetValue("")
+			f.renderRows()
+			if before != "" {
+				return nil, &FieldEdit{ID: ff.spec.ID, Text: ""}
+			}
+			return nil, nil
+		}
+	}
 	var cmd tea.Cmd
 	ff.input, cmd = ff.input.Update(msg)
 	if v := ff.input.Value(); v != before {
@@ -48,6 +64,33 @@ func (f *FormPane) Update(msg tea.Msg) (tea.Cmd, *FieldEdit) {
 	}
 	f.renderRows() // the cursor moved
 	return cmd, nil
+}
+
+// pasteText puts pasted text into the selected typed field: it replaces the
+// whole text when that is still selected (or when the field is not being
+// typed in: pasting starts typing), else it goes in at the cursor. Line
+// breaks and control characters become spaces; the edit is the new text.
+func (f *FormPane) pasteText(text string) *FieldEdit {
+	if len(f.fields) == 0 || f.fields[f.cursor].spec.IsPicker() {
+		return nil
+	}
+	if !f.editing {
+		f.StartEditing()
+	}
+	ff := &f.fields[f.cursor]
+	text = strings.TrimSpace(oneLineText(text))
+	v := ff.input.Value()
+	if f.fresh {
+		v = ""
+		f.fresh = false
+		ff.input.SetValue("")
+	}
+	ff.input, _ = ff.input.Update(tea.PasteMsg{Content: text})
+	f.renderRows()
+	if nv := ff.input.Value(); nv != v || text != "" {
+		return &FieldEdit{ID: ff.spec.ID, Text: nv}
+	}
+	return nil
 }
 
 // pickerKey cycles a picker (left/right/enter) or, in a multi picker, moves

@@ -127,10 +127,9 @@ func (f *FormPane) renderRow(i int) (string, []string) {
 		shown := ff.shown
 		sst := st.fast.Unit
 		if ff.errText != "" {
+			// A word, not an arrow: the message is at the foot of the
+			// form when the field is selected.
 			shown, sst = "✗ invalid", st.fast.Danger
-			if focused {
-				shown = "✗ below"
-			}
 		}
 		body = in + " " + sst.Render(ansi.Truncate(shown, sw, "…"))
 	}

@@ -21,7 +21,7 @@ type KeyMap struct {
 	PrevField key.Binding
 	Quit      key.Binding // ctrl+c
 	SaveNow   key.Binding // ctrl+s
-	UnitsAny  key.Binding // ctrl+u
+	UnitsAny  key.Binding // F2 (ctrl+u clears a field, as in a shell)
 	Help      key.Binding // ? or F1
 	Leave     key.Binding // esc: stop editing / close an overlay
 	CloseHelp key.Binding // esc or ? on the help screen
@@ -35,7 +35,7 @@ type KeyMap struct {
 	Prev    key.Binding // left: previous choice in a picker
 	Next    key.Binding // right: next choice in a picker
 	Toggle  key.Binding // space: tick a fitting in a multi picker
-	Clear   key.Binding // ctrl+w handled by the text input; listed for help
+	Clear   key.Binding // ctrl+u clears to the start, as in a shell (the text input's own key); listed for help
 	Restore key.Binding // ctrl+r: put back the last valid text of the field
 
 	// Navigate mode only (single keys).
@@ -43,6 +43,7 @@ type KeyMap struct {
 	Units    key.Binding // u
 	Save     key.Binding // s
 	Open     key.Binding // o
+	Mouse    key.Binding // m: mouse on / off
 	PrevPane key.Binding // [
 	NextPane key.Binding // ]
 	Panes    key.Binding // the pane keys as one help entry
@@ -93,9 +94,9 @@ func DefaultKeyMap() KeyMap {
 		PrevField: key.NewBinding(key.WithKeys("shift+tab"), key.WithHelp("shift+tab", "prev field")),
 		Quit:      key.NewBinding(key.WithKeys("ctrl+c"), key.WithHelp("ctrl+c", "save and quit")),
 		SaveNow:   key.NewBinding(key.WithKeys("ctrl+s"), key.WithHelp("ctrl+s", "save now")),
-		UnitsAny:  key.NewBinding(key.WithKeys("ctrl+u"), key.WithHelp("ctrl+u", "SI ⇄ US units")),
+		UnitsAny:  key.NewBinding(key.WithKeys("f2"), key.WithHelp("F2", "SI ⇄ US units")),
 		Help:      key.NewBinding(key.WithKeys("?", "f1"), key.WithHelp("?", "all keys")),
-		Leave:     key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "stop typing")),
+		Leave:     key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "cancel the edit")),
 		CloseHelp: key.NewBinding(key.WithKeys("esc", "?"), key.WithHelp("esc/?", "close this help")),
 
 		Up:      key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "field up")),
@@ -106,13 +107,14 @@ func DefaultKeyMap() KeyMap {
 		Prev:    key.NewBinding(key.WithKeys("left", "h"), key.WithHelp("←", "prev choice")),
 		Next:    key.NewBinding(key.WithKeys("right", "l"), key.WithHelp("→/enter", "next choice")),
 		Toggle:  key.NewBinding(key.WithKeys("space", "x"), key.WithHelp("space", "tick / untick")),
-		Clear:   key.NewBinding(key.WithKeys("ctrl+w"), key.WithHelp("ctrl+w", "delete word")),
-		Restore: key.NewBinding(key.WithKeys("ctrl+r"), key.WithHelp("ctrl+r", "undo field edit")),
+		Clear:   key.NewBinding(key.WithKeys("ctrl+u"), key.WithHelp("ctrl+u", "clear the field")),
+		Restore: key.NewBinding(key.WithKeys("ctrl+r"), key.WithHelp("ctrl+r", "last valid text")),
 
 		QuitNav:  key.NewBinding(key.WithKeys("q"), key.WithHelp("q", "save and quit")),
 		Units:    key.NewBinding(key.WithKeys("u"), key.WithHelp("u", "SI ⇄ US")),
 		Save:     key.NewBinding(key.WithKeys("s"), key.WithHelp("s", "save")),
 		Open:     key.NewBinding(key.WithKeys("o"), key.WithHelp("o", "open a job")),
+		Mouse:    key.NewBinding(key.WithKeys("m"), key.WithHelp("m", "mouse on/off")),
 		PrevPane: key.NewBinding(key.WithKeys("["), key.WithHelp("[", "prev pane")),
 		NextPane: key.NewBinding(key.WithKeys("]"), key.WithHelp("]", "next pane")),
 
@@ -164,7 +166,7 @@ func (k KeyMap) formHelp(editing, picker bool) []key.Binding {
 	case picker:
 		return []key.Binding{k.Next, k.Prev, k.UpDown, k.Panes, k.Help, k.QuitNav, k.Units}
 	case editing:
-		return []key.Binding{k.Done, k.Leave, k.NextField, k.Quit, k.UnitsAny, k.Restore}
+		return []key.Binding{k.Done, k.Leave, k.Clear, k.NextField, k.Restore, k.Quit, k.UnitsAny}
 	}
 	return []key.Binding{k.Edit, k.UpDown, k.Panes, k.Help, k.QuitNav, k.Units, k.Open}
 }
@@ -198,9 +200,9 @@ func (k KeyMap) fullHelp() [][]key.Binding {
 	panes = append(panes, k.PaneKeys...)
 	panes = append(panes, k.PrevPane, k.NextPane)
 	return [][]key.Binding{
-		{k.NextField, k.PrevField, k.Up, k.Down, k.Edit, k.Leave, k.Prev, k.Next, k.Toggle, k.Restore},
+		{k.NextField, k.PrevField, k.Up, k.Down, k.Edit, k.Leave, k.Clear, k.Prev, k.Next, k.Toggle, k.Restore},
 		panes,
-		{k.QuitNav, k.Units, k.Save, k.Open, k.Help, k.Quit, k.SaveNow, k.UnitsAny},
+		{k.QuitNav, k.Units, k.Save, k.Open, k.Mouse, k.Help, k.Quit, k.SaveNow, k.UnitsAny},
 	}
 }
 

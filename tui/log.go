@@ -97,6 +97,19 @@ func (l *LogPane) Key(msg tea.KeyPressMsg) (tea.Cmd, *FieldEdit) {
 	return cmd, nil
 }
 
+// Paste puts pasted text into the reading being typed.
+func (l *LogPane) Paste(text string) (tea.Cmd, *FieldEdit) {
+	if !l.typing {
+		return nil, nil
+	}
+	var cmd tea.Cmd
+	l.input, cmd = l.input.Update(tea.PasteMsg{Content: oneLineText(text)})
+	return cmd, nil
+}
+
+// Click does nothing: the log is read, not chosen from.
+func (l *LogPane) Click(int, int) (tea.Cmd, *FieldEdit) { return nil, nil }
+
 // Show gives the pane the job's log.
 func (l *LogPane) Show(st *screenState) { l.SetEntries(st.job.Log) }
 

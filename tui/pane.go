@@ -30,6 +30,12 @@ type pane interface {
 	// Key handles a key; a non-nil edit is a field's new text, which the
 	// root applies to the job at once.
 	Key(tea.KeyPressMsg) (tea.Cmd, *FieldEdit)
+	// Paste puts pasted text into the pane's text input, if it has one
+	// (a form starts typing in its selected field).
+	Paste(text string) (tea.Cmd, *FieldEdit)
+	// Click acts on a mouse click at (x, y), relative to the pane: select
+	// a field, a step or a cell.
+	Click(x, y int) (tea.Cmd, *FieldEdit)
 	// Typing reports whether keys go into a text input.
 	Typing() bool
 	// CursorPos is the real terminal cursor, relative to the pane, or nil.

@@ -165,8 +165,9 @@ func TestPTYBytes(t *testing.T) {
 		rec.quiet(100*time.Millisecond, 2*time.Second)
 		return rec.size() - before
 	}
-	send("j")  // Hose length
-	send("\r") // start typing
+	send("j")      // Hose length
+	send("\r")     // start typing: the whole text is selected
+	send("\x1b[C") // → keeps it for editing
 	// Turn "12 m" into "12.", then type a digit and erase it, again and
 	// again: each keystroke gives a new hose length (12.5 m, 12 m, 12.8 m,
 	// 12 m …), so the Result pane's figures change every time, as when a

@@ -142,6 +142,12 @@ func (v *SideView) Key(tea.KeyPressMsg) (tea.Cmd, *FieldEdit) { return nil, nil 
 // Typing is false: the pane has no text input.
 func (v *SideView) Typing() bool { return false }
 
+// Paste does nothing: the pane has no text input.
+func (v *SideView) Paste(string) (tea.Cmd, *FieldEdit) { return nil, nil }
+
+// Click does nothing: the drawing has nothing to choose.
+func (v *SideView) Click(int, int) (tea.Cmd, *FieldEdit) { return nil, nil }
+
 // CursorPos is nil: the pane has no text input.
 func (v *SideView) CursorPos() *tea.Cursor { return nil }
 

@@ -134,3 +134,14 @@ func finite(v float64) float64 {
 	}
 	return v
 }
+
+// oneLineText makes text pasted or loaded from outside fit one line of a
+// field: line breaks, tabs and other control characters become spaces.
+func oneLineText(s string) string {
+	return strings.Map(func(r rune) rune {
+		if r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0) {
+			return ' '
+		}
+		return r
+	}, s)
+}

@@ -68,6 +68,41 @@ type WhatIfView struct {
 	focused  bool
 	frame    string
 	selValid bool
+	hit      wiHit // where the cells were drawn (for a click)
+}
+
+// wiHit is the drawn table's geometry, kept by the drawing so that a click
+// finds its cell: the label column, cell widths, lines per cell and the
+// scroll windows of rows, columns and the parallel row.
+type wiHit struct {
+	ok                     bool
+	labelW, cellW, parW    int
+	lines                  int
+	r0, c0, p0             int
+	visR, visC, visP, nPar int
+}
+
+// Click selects the cell at (x, y), relative to the pane.
+func (v *WhatIfView) Click(x, y int) (tea.Cmd, *FieldEdit) {
+	h := v.hit
+	if !v.has || !h.ok || x < h.labelW || y < 2 {
+		return nil, nil
+	}
+	row := (y - 2) / h.lines
+	switch {
+	case row < h.visR:
+		if c := (x - h.labelW) / h.cellW; c < h.visC {
+			v.r, v.c = h.r0+row, h.c0+c
+		}
+	case row == h.visR && h.nPar > 0:
+		if c := (x - h.labelW) / h.parW; c < h.visP {
+			v.r, v.c = len(v.t.Lengths), h.p0+c
+		}
+	default:
+		return nil, nil
+	}
+	v.redraw()
+	return nil, nil
 }
 
 // NewWhatIfView returns an empty What-if pane in the given unit system.
@@ -198,6 +233,9 @@ func (v *WhatIfView) Key(msg tea.KeyPressMsg) (tea.Cmd, *FieldEdit) {
 
 // Typing is false: the pane has no text input.
 func (v *WhatIfView) Typing() bool { return false }
+
+// Paste does nothing: the pane has no text input.
+func (v *WhatIfView) Paste(string) (tea.Cmd, *FieldEdit) { return nil, nil }
 
 // CursorPos is nil: the pane has no text input.
 func (v *WhatIfView) CursorPos() *tea.Cursor { return nil }
@@ -358,6 +396,9 @@ func (v *WhatIfView) table(w, h int) string {
 	if onPar {
 		p0 = min(max(v.c-visP/2, 0), max(len(par)-visP, 0))
 	}
+
+	v.hit = wiHit{ok: true, labelW: labelW, cellW: cellW, parW: parW, lines: lines, r0: r0, c0: c0, p0: p0,
+		visR: visR, visC: visC, visP: visP, nPar: len(par)}
 
 	cv := newDrawCanvas(w, h)
 	title := "What-if · flow " + u.flowName

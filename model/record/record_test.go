@@ -5,7 +5,6 @@ import (
 	"encoding/csv"
 	"errors"
 	"path/filepath"
-	"strconv"
 	"strings"
 	"testing"
 	"time"
@@ -185,23 +184,6 @@ func checkRecord(t *testing.T, in Input, md string) {
 func checkGolden(t *testing.T, path string, got []byte) {
 	t.Helper()
 	testkit.Golden(t, path, got)
-}
-
-func firstDiff(want, got string) string {
-	wl, gl := strings.Split(want, "\n"), strings.Split(got, "\n")
-	for i := 0; i < max(len(wl), len(gl)); i++ {
-		var w, g string
-		if i < len(wl) {
-			w = wl[i]
-		}
-		if i < len(gl) {
-			g = gl[i]
-		}
-		if w != g {
-			return "line " + strconv.Itoa(i+1) + ":\n  want: " + w + "\n  got:  " + g
-		}
-	}
-	return "(same lines; trailing bytes differ)"
 }
 
 // The readings CSV parses back, has the documented header, and its reading
