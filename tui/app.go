@@ -139,7 +139,7 @@ func (m *Model) buildPanes(loc *time.Location) {
 	side := NewSideView(st, m.job.Units)
 	curve := NewCurveView(st, m.job.Units)
 	whatif := NewWhatIfView(st, m.job.Units, km)
-	checklist := NewChecklistView(st, km)
+	checklist := NewChecklistView(st, km, nil)
 	logp := NewLogPane(st, km, loc)
 	m.side, m.curve, m.whatif, m.checklist, m.log = &side, &curve, &whatif, &checklist, &logp
 	m.panes[PaneSide], m.panes[PaneCurve], m.panes[PaneWhatIf] = m.side, m.curve, m.whatif

@@ -301,7 +301,7 @@ func (m *Model) loaded(msg jobLoadedMsg) tea.Cmd {
 	m.markedAs = ""
 	m.st = screenState{job: &m.job}
 	m.shown = [paneCount]uint64{}
-	checklist := NewChecklistView(m.styles, m.keys)
+	checklist := NewChecklistView(m.styles, m.keys, nil)
 	*m.checklist = checklist
 	m.checklist.SetChecklist(m.job.Checklist)
 	m.checklist.SetCurrent(m.job.Resume.StepID)

@@ -3,6 +3,7 @@ package tui
 import (
 	"strconv"
 	"strings"
+	"time"
 
 	"charm.land/bubbles/v2/key"
 	"charm.land/bubbles/v2/textinput"
@@ -59,10 +60,23 @@ type ChecklistView struct {
 	keys    ChecklistKeys
 	styles  Styles
 	focused bool
+
+	// A mark moves the selection on; the same key again within
+	// markBounce, on the step it moved to, is a bounce (a gloved finger, a
+	// sticky key) and is ignored once. now is the root's clock.
+	now      func() time.Time
+	lastKey  string
+	lastAt   time.Time
+	lastStep int
 }
 
+// markBounce is how soon after a mark the same key on the next step is
+// taken for a bounce: 1 s (our choice: two Enters 0.48 s apart marked two
+// hazard steps; reading a step takes longer than a second).
+const markBounce = time.Second
+
 // NewChecklistView returns an empty Checklist pane.
-func NewChecklistView(st Styles, km KeyMap) ChecklistView {
+func NewChecklistView(st Styles, km KeyMap, now func() time.Time) ChecklistView {
 	ti := textinput.New()
 	ti.Prompt = "› "
 	ti.CharLimit = 300
@@ -70,7 +84,10 @@ func NewChecklistView(st Styles, km KeyMap) ChecklistView {
 	ts.Cursor.Blink = false // a blinking cursor streams bytes over SSH
 	ti.SetStyles(ts)
 	ti.SetVirtualCursor(false) // the root places the terminal's own cursor (CursorPos)
-	return ChecklistView{input: ti, keys: km.Checklist, styles: st}
+	if now == nil {
+		now = time.Now
+	}
+	return ChecklistView{input: ti, keys: km.Checklist, styles: st, now: now, lastStep: -1}
 }
 
 // SetSize sets the pane's size in cells; View fills exactly w×h.
@@ -203,6 +220,7 @@ func (v ChecklistView) Update(msg tea.Msg) (ChecklistView, tea.Cmd) {
 	}
 	id := v.CurrentID()
 	n := len(v.cl.Steps)
+	v.errText = ""
 	switch {
 	case key.Matches(k, v.keys.Up):
 		if v.cur > 0 {
@@ -214,12 +232,21 @@ func (v ChecklistView) Update(msg tea.Msg) (ChecklistView, tea.Cmd) {
 			v.cur++
 			return v, ckStepCmd(v.CurrentID())
 		}
-	case key.Matches(k, v.keys.Done):
+	case key.Matches(k, v.keys.Done), key.Matches(k, v.keys.NotApplies):
+		state := model.StateDone
+		if key.Matches(k, v.keys.NotApplies) {
+			state = model.StateNotApplicable
+		}
+		now := v.now()
+		if k.String() == v.lastKey && v.cur == v.lastStep && now.Sub(v.lastAt) < markBounce {
+			v.lastKey = "" // once: a second press marks the step
+			v.errText = "! a repeat within a second was ignored: press again to mark this step"
+			return v, nil
+		}
+		v.errText = ""
 		v.advance()
-		return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StateDone, Current: v.CurrentID()})
-	case key.Matches(k, v.keys.NotApplies):
-		v.advance()
-		return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StateNotApplicable, Current: v.CurrentID()})
+		v.lastKey, v.lastAt, v.lastStep = k.String(), now, v.cur
+		return v, ckEmit(ChecklistMarkMsg{ID: id, State: state, Current: v.CurrentID()})
 	case key.Matches(k, v.keys.Reopen):
 		if v.cl.Steps[v.cur].State != model.StatePending {
 			return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StatePending, Current: id})
@@ -392,6 +419,9 @@ func (v ChecklistView) layout() ckLayout {
 	w, h := v.w, v.h
 	var l ckLayout
 	step := v.cl.Steps[min(max(v.cur, 0), len(v.cl.Steps)-1)]
+	if v.mode == ckBrowse && v.errText != "" {
+		l.input = append(l.input, drawPlain(v.errText, clsWarn))
+	}
 	if v.mode != ckBrowse {
 		label := "Reason to skip (required):"
 		if v.mode == ckNote {

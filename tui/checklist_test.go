@@ -91,7 +91,7 @@ func TestChecklistView(t *testing.T) {
 	for _, c := range cases {
 		for _, s := range paneSizes {
 			t.Run(c.name+"/"+s.name, func(t *testing.T) {
-				v := NewChecklistView(NewStyles(true), DefaultKeyMap())
+				v := NewChecklistView(NewStyles(true), DefaultKeyMap(), nil)
 				v.SetSize(s.w, s.h)
 				v.SetChecklist(c.cl(t))
 				v.Focus()
@@ -124,7 +124,7 @@ func ckPress(v ChecklistView, keys ...string) (ChecklistView, []tea.Msg) {
 
 func TestChecklistKeys(t *testing.T) {
 	cl := ckDemo()
-	v := NewChecklistView(NewStyles(true), DefaultKeyMap())
+	v := NewChecklistView(NewStyles(true), DefaultKeyMap(), nil)
 	v.SetSize(78, 10)
 	v.SetChecklist(cl)
 
@@ -236,7 +236,7 @@ func TestChecklistCautionBox(t *testing.T) {
 		t.Skip("no step with a caution in the demo checklist")
 	}
 	for _, s := range paneSizes[:5] {
-		v := NewChecklistView(NewStyles(true), DefaultKeyMap())
+		v := NewChecklistView(NewStyles(true), DefaultKeyMap(), nil)
 		v.SetSize(s.w, s.h)
 		v.SetChecklist(cl)
 		v.SetCurrent(cl.Steps[i].ID)
@@ -264,7 +264,7 @@ func TestChecklistNeverBreaks(t *testing.T) {
 			}
 		}
 		w, h := rng.IntN(130)-2, rng.IntN(45)-2
-		v := NewChecklistView(NewStyles(true), DefaultKeyMap())
+		v := NewChecklistView(NewStyles(true), DefaultKeyMap(), nil)
 		v.SetSize(w, h)
 		v.SetChecklist(cl)
 		v.Focus()
@@ -281,7 +281,7 @@ func TestChecklistNeverBreaks(t *testing.T) {
 // The Checklist frame is built in View (it holds a live text input): one
 // View of a 31-step list at 44×21.
 func BenchmarkChecklistView(b *testing.B) {
-	v := NewChecklistView(NewStyles(true), DefaultKeyMap())
+	v := NewChecklistView(NewStyles(true), DefaultKeyMap(), nil)
 	v.SetSize(44, 21)
 	v.SetChecklist(ckDemo())
 	v.Focus()
@@ -294,7 +294,7 @@ func BenchmarkChecklistView(b *testing.B) {
 // While a reason is typed the terminal's own cursor sits after the typed
 // text on the input line (the root adds the pane's origin); otherwise none.
 func TestChecklistCursorPos(t *testing.T) {
-	v := NewChecklistView(NewStyles(true), DefaultKeyMap())
+	v := NewChecklistView(NewStyles(true), DefaultKeyMap(), nil)
 	v.SetSize(78, 10)
 	v.SetChecklist(ckFixed())
 	v.Focus()
@@ -317,5 +317,36 @@ func TestChecklistCursorPos(t *testing.T) {
 	v, _ = ckPress(v, "esc")
 	if v.CursorPos() != nil {
 		t.Error("cursor after esc")
+	}
+}
+
+// A mark moves on to the next step; the same key again within a second, on
+// that step, is a bounce and is ignored once (two quick Enters used to mark
+// two hazard steps 0.48 s apart). A second press, or a press after a
+// second, marks it.
+func TestChecklistMarkBounce(t *testing.T) {
+	now := testClock
+	clock := func() time.Time { return now }
+	v := NewChecklistView(NewStyles(true), DefaultKeyMap(), clock)
+	v.SetSize(78, 20)
+	v.SetChecklist(ckDemo())
+	v.Focus()
+	v, msgs := ckPress(v, "enter")
+	if len(msgs) != 1 {
+		t.Fatalf("first enter: %d marks", len(msgs))
+	}
+	now = now.Add(480 * time.Millisecond)
+	v, msgs = ckPress(v, "enter")
+	if len(msgs) != 0 || !strings.Contains(ansi.Strip(v.View()), "repeat within a second was ignored") {
+		t.Fatalf("bounce 0.48 s later marked %d steps:\n%s", len(msgs), ansi.Strip(v.View()))
+	}
+	v, msgs = ckPress(v, "enter")
+	if len(msgs) != 1 {
+		t.Errorf("a second press did not mark the step")
+	}
+	now = now.Add(1500 * time.Millisecond)
+	_, msgs = ckPress(v, "enter")
+	if len(msgs) != 1 {
+		t.Errorf("a press 1.5 s later did not mark the step")
 	}
 }

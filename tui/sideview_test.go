@@ -203,7 +203,7 @@ func TestDrawnPanesSameTextInColour(t *testing.T) {
 			wv.SetSize(78, 10)
 			wv.SetTable(wiDemo())
 			wv.Focus()
-			ck := NewChecklistView(st, DefaultKeyMap())
+			ck := NewChecklistView(st, DefaultKeyMap(), nil)
 			ck.SetSize(78, 10)
 			ck.SetChecklist(ckFixed())
 			ck.Focus()
