@@ -2,7 +2,6 @@ package model
 
 import (
 	"errors"
-	"fmt"
 	"strings"
 	"time"
 )
@@ -94,18 +93,25 @@ func (s StepState) Label() string {
 	return string(s)
 }
 
-// PrimingMethod names a way of filling the hose before the siphon runs. Only
 // Step is one checklist item with its state.
 type Step struct {
+	// ID identifies the step across rebuilds, for the program only: it is
+	// never shown to a person (Title is).
 	ID      string  `json:"id"`
 	Section Section `json:"section"`
-	Text    string  `json:"text"`
+	// Title is the step's short label for a list, the log and the record
+	// ("Sewage protective equipment").
+	Title string `json:"title,omitempty"`
+	Text  string `json:"text"`
 	// Caution is a short warning shown with the step, deferring to local
 	// codes and permits; empty where none is needed.
 	Caution string `json:"caution,omitempty"`
 	// Rule names the family of rule or guidance behind the step, e.g.
 	// "OSHA 29 CFR 1910.146"; "common practice" for a trade habit.
 	Rule string `json:"rule,omitempty"`
+	// Required: a rule or the job's safety asks for the step, so marking
+	// it not applicable needs a reason (skipping any step always does).
+	Required bool `json:"required,omitempty"`
 	// NoteRequired: marking the step done needs a note with the fact it
 	// asks for (a permit number, a gas reading with time and initials, the
 	// result of a sheen check, an authorisation). The checklist is gated on
@@ -117,34 +123,80 @@ type Step struct {
 	Note         string    `json:"note,omitempty"`
 }
 
+// Label is the step's title, or the start of its text for a step written
+// before titles existed; never its ID.
+func (s Step) Label() string {
+	if s.Title != "" {
+		return s.Title
+	}
+	t := s.Text
+	if i := strings.IndexAny(t, ":;."); i > 0 {
+		t = t[:i]
+	}
+	return t
+}
+
+// LogText is the log line for the step's current mark, in plain words:
+// "Sewage protective equipment: skipped (no sewage on site)".
+func (s Step) LogText() string {
+	t := s.Label() + ": " + s.State.Label()
+	if s.Reason != "" {
+		t += " (" + s.Reason + ")"
+	}
+	return t
+}
+
 // Checklist is the ordered list of steps built for a job, plus the context it
-// was built from. Dropped keeps steps that were marked but no longer apply
-// after a change of liquid or method, so that nothing recorded is lost; a
-// later Rebuild restores them if they apply again.
+// was built from (a record: ContextFor never reads it back). Dropped keeps
+// steps that were marked but no longer apply after a change, so that
+// nothing recorded is lost; a later Rebuild restores them if they apply
+// again.
 type Checklist struct {
 	Context ChecklistContext `json:"context"`
 	Steps   []Step           `json:"steps"`
 	Dropped []Step           `json:"dropped,omitempty"`
 }
 
-// ErrUnknownStep is returned by Mark for an ID not in the checklist.
-var ErrUnknownStep = errors.New("no such checklist step")
+// Errors wrapped by *MarkError; test with errors.Is.
+var (
+	// ErrUnknownStep: the step is not (or no longer) in the checklist.
+	ErrUnknownStep = errors.New("that step is not in this checklist (it may no longer apply)")
+	// ErrReasonRequired: a skip, or not-applicable on a required step,
+	// without a reason.
+	ErrReasonRequired = errors.New("a reason is needed")
+	// ErrNoteRequired: a step that asks for a recorded fact marked done
+	// without a note.
+	ErrNoteRequired = errors.New("this step is done only with its reading or reference in the note")
+	// ErrNoTime: a mark without a time.
+	ErrNoTime = errors.New("a time is needed to mark it")
+	// ErrBadState: a state that is not one of the four.
+	ErrBadState = errors.New("the state is not one of to do, done, skipped, not applicable")
+)
 
-// ErrReasonRequired is returned by Mark when a step is skipped without a
-// reason.
-var ErrReasonRequired = errors.New("a reason is required to skip a step")
-
-// ErrNoteRequired is returned by Mark when a step that asks for a recorded
-// fact is marked done without a note.
-var ErrNoteRequired = errors.New("this step is done only with its reading or reference in the note")
-
-// WithSheen rebuilds the checklist with the sheen flag set or cleared (see
-// ChecklistContext.SheenSeen), keeping every mark.
-func (c Checklist) WithSheen(seen bool) Checklist {
-	ctx := c.Context
-	ctx.SheenSeen = seen
-	return c.Rebuild(ctx)
+// MarkError is a refused mark, in plain words for the person who made it:
+// the step's label (never its ID) and what is missing.
+type MarkError struct {
+	Step  string    // the step's Label, "" for an unknown step
+	State StepState // the state asked for
+	Err   error     // one of the Err* sentinels above
 }
+
+func (e *MarkError) Error() string {
+	msg := e.Err.Error()
+	switch {
+	case errors.Is(e.Err, ErrReasonRequired) && e.State == StateSkipped:
+		msg = "a reason is needed to skip it"
+	case errors.Is(e.Err, ErrReasonRequired):
+		msg = "a reason is needed to mark it not applicable: a rule asks for this step"
+	}
+	if e.Step == "" {
+		return msg
+	}
+	return e.Step + ": " + msg
+}
+
+// Unwrap returns the sentinel.
+func (e *MarkError) Unwrap() error { return e.Err }
 
 // Index returns the position of the step with this ID, or -1.
 func (c *Checklist) Index(id string) int {
@@ -158,33 +210,37 @@ func (c *Checklist) Index(id string) int {
 
 // Mark sets the state of step id at time at (from the caller's clock).
 //
-//   - StateSkipped needs a non-blank reason.
+//   - StateSkipped needs a non-blank reason; so does StateNotApplicable on
+//     a Required step.
 //   - StateDone on a step with NoteRequired needs a note (given now or
 //     already on the step).
 //   - StateDone, StateSkipped and StateNotApplicable need a non-zero time.
 //   - StatePending undoes a mark: the time and reason are cleared.
 //
 // A non-empty note replaces the step's note; an empty note keeps it. On error
-// the checklist is unchanged.
+// the checklist is unchanged and the error is a *MarkError that names the
+// step by its label. Job.Mark also logs the mark and closes or reopens the
+// job; the screen and the commands call that.
 func (c *Checklist) Mark(id string, state StepState, reason, note string, at time.Time) error {
 	i := c.Index(id)
 	if i < 0 {
-		return fmt.Errorf("checklist step %q: %w", id, ErrUnknownStep)
-	}
-	if !state.Valid() {
-		return fmt.Errorf("checklist step %q: state %q is not one of pending, done, skipped, n/a", id, state)
-	}
-	reason = strings.TrimSpace(reason)
-	if state == StateSkipped && reason == "" {
-		return fmt.Errorf("checklist step %q: %w", id, ErrReasonRequired)
-	}
-	if state == StateDone && c.Steps[i].NoteRequired && strings.TrimSpace(note) == "" && strings.TrimSpace(c.Steps[i].Note) == "" {
-		return fmt.Errorf("checklist step %q: %w", id, ErrNoteRequired)
-	}
-	if state != StatePending && at.IsZero() {
-		return fmt.Errorf("checklist step %q: a time is required to mark it %s", id, state.Label())
+		return &MarkError{State: state, Err: ErrUnknownStep}
 	}
 	s := &c.Steps[i]
+	fail := func(err error) error { return &MarkError{Step: s.Label(), State: state, Err: err} }
+	if !state.Valid() {
+		return fail(ErrBadState)
+	}
+	reason = strings.TrimSpace(reason)
+	if reason == "" && (state == StateSkipped || state == StateNotApplicable && s.Required) {
+		return fail(ErrReasonRequired)
+	}
+	if state == StateDone && s.NoteRequired && strings.TrimSpace(note) == "" && strings.TrimSpace(s.Note) == "" {
+		return fail(ErrNoteRequired)
+	}
+	if state != StatePending && at.IsZero() {
+		return fail(ErrNoTime)
+	}
 	s.State = state
 	if state == StatePending {
 		s.At = time.Time{}
@@ -203,7 +259,7 @@ func (c *Checklist) Mark(id string, state StepState, reason, note string, at tim
 func (c *Checklist) SetNote(id, note string) error {
 	i := c.Index(id)
 	if i < 0 {
-		return fmt.Errorf("checklist step %q: %w", id, ErrUnknownStep)
+		return &MarkError{Err: ErrUnknownStep}
 	}
 	c.Steps[i].Note = note
 	return nil

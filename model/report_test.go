@@ -109,9 +109,8 @@ func TestReportGolden(t *testing.T) {
 		{"demo-us-no-readings", func(t *testing.T) ReportInput {
 			j := DemoJob()
 			j.SetUnits(US)
-			j.Checklist = j.Checklist.Rebuild(ChecklistContext{Liquid: "rainwater from an oil bund",
-				Hazards: Hazards{Environmental: true}, Method: PrimeHandPump, Discharge: DischargeStorm, Strokes: 46})
 			p := Compute(j, presets.Builtin())
+			j.RebuildChecklist(p)
 			return ReportInput{Job: j, Plan: p, Now: time.Date(2026, time.March, 14, 6, 0, 0, 0, time.FixedZone("EST", -5*3600))}
 		}},
 		{"bad-inputs", func(t *testing.T) ReportInput {
@@ -120,9 +119,11 @@ func TestReportGolden(t *testing.T) {
 			_ = j.Set(FieldHoseLength, "8 m")
 			_ = j.Set(FieldLiquid, "water")
 			j.Notes = "# not a heading\nsecond line"
-			j.Checklist = BuildChecklist(ChecklistContext{Liquid: "groundwater", ConfinedSpace: true, Method: PrimeVacuum, Discharge: DischargeSewer})
+			j.Facts = SiteFacts{ConfinedSpace: true, Discharge: DischargeSewer}
+			_ = j.Set(FieldPriming, string(PrimeVacuum))
 			j.Readings = []Reading{{At: time.Date(2026, time.March, 2, 9, 30, 0, 0, time.UTC), Level: 0.8}}
 			p := Compute(j, presets.Builtin())
+			j.RebuildChecklist(p)
 			return ReportInput{Job: j, Plan: p, Now: time.Date(2026, time.March, 2, 10, 0, 0, 0, time.UTC)}
 		}},
 	}
