@@ -14,24 +14,37 @@ const JobSchema = "drawdown-job"
 
 // JobVersion is the job-file format version this build writes. Older
 // versions are migrated on load (see migrate); newer ones are refused.
-const JobVersion = 1
+const JobVersion = 2
 
-// Job is one drain: who, where, the inputs as typed, the checklist, the level
-// readings and the log, and where the technician was in the screens. It is
-// saved as JSON (see Encode) after every change.
+// Job is one drain: who, where, the inputs as typed, the site facts, the
+// checklist, the level readings, the release record and the log, and where
+// the technician was in the screens. It is saved as JSON (see Encode) after
+// every change.
 //
 // Inputs keeps the raw text of each field exactly as typed, so nothing typed
 // is ever lost, not even text that does not parse; Value parses it in the
 // job's unit system on demand.
+//
+// The job's state (planned, draining, closed) is derived, not stored: see
+// State.
 type Job struct {
 	Schema  string `json:"schema"`  // always JobSchema
 	Version int    `json:"version"` // JobVersion when written by this build
 
-	Name     string `json:"name"`
+	Name string `json:"name"`
+	// Template is the ID of the template the job started from ("" for a
+	// blank job); see Templates.
+	Template string `json:"template,omitempty"`
 	Site     string `json:"site,omitempty"`
 	Location string `json:"location,omitempty"` // free text: yard, bund, vault number
-	Crew     string `json:"crew,omitempty"`
-	Notes    string `json:"notes,omitempty"`
+	// Date is the day of the work as YYYY-MM-DD ("" until set).
+	Date string       `json:"date,omitempty"`
+	Crew []CrewMember `json:"crew,omitempty"`
+	// Supervisor is the responsible supervisor; for a containment release,
+	// the person under whose supervision the valve is opened and resealed
+	// (40 CFR 112.8(c)(3)).
+	Supervisor string `json:"supervisor,omitempty"`
+	Notes      string `json:"notes,omitempty"`
 	// Source describes the vessel drained ("bund B2, concrete, 8 × 5 m");
 	// Receiver where the liquid goes ("east ditch", "IBC tote 3"). Free
 	// text for the record; the geometry is in Inputs.
@@ -42,9 +55,12 @@ type Job struct {
 	Units System `json:"units"`
 	// Inputs maps a field to its text as typed. An absent field is empty.
 	Inputs map[FieldID]string `json:"inputs"`
+	// Facts are the crew's answers about the site (SiteFacts).
+	Facts SiteFacts `json:"site_facts,omitzero"`
 
 	Checklist Checklist  `json:"checklist"`
 	Readings  []Reading  `json:"readings,omitempty"`
+	Release   Release    `json:"release,omitzero"`
 	Log       []LogEntry `json:"log,omitempty"`
 
 	// Started and Stopped are when the siphon started and stopped running
@@ -68,6 +84,13 @@ type Job struct {
 	Updated time.Time `json:"updated,omitzero"`
 }
 
+// CrewMember is one person on the job and their role ("lead", "attendant",
+// "entrant", "tester").
+type CrewMember struct {
+	Name string `json:"name"`
+	Role string `json:"role,omitempty"`
+}
+
 // Resume is where the technician was, so that a reopened job (after a dropped
 // SSH link, say) shows the same pane, field and checklist step.
 type Resume struct {
@@ -88,7 +111,9 @@ type LogEntry struct {
 	Text string    `json:"text"`
 }
 
-// NewJob returns an empty job in the current format.
+// NewJob returns a blank job in the current format: the name, the unit
+// system and the creation time, nothing else (no text of any template). Its
+// checklist is built at the first RebuildChecklist.
 func NewJob(name string, units System, now time.Time) Job {
 	return Job{
 		Schema:  JobSchema,
@@ -241,6 +266,9 @@ func (j Job) Clone() Job {
 	}
 	c.Readings = append([]Reading(nil), j.Readings...)
 	c.Log = append([]LogEntry(nil), j.Log...)
+	c.Crew = append([]CrewMember(nil), j.Crew...)
+	c.Release.Photos = append([]Photo(nil), j.Release.Photos...)
+	c.Release.Samples = append([]Sample(nil), j.Release.Samples...)
 	c.Checklist.Steps = append([]Step(nil), j.Checklist.Steps...)
 	c.Checklist.Dropped = append([]Step(nil), j.Checklist.Dropped...)
 	if j.Readings == nil {
@@ -248,6 +276,15 @@ func (j Job) Clone() Job {
 	}
 	if j.Log == nil {
 		c.Log = nil
+	}
+	if j.Crew == nil {
+		c.Crew = nil
+	}
+	if j.Release.Photos == nil {
+		c.Release.Photos = nil
+	}
+	if j.Release.Samples == nil {
+		c.Release.Samples = nil
 	}
 	if j.Checklist.Steps == nil {
 		c.Checklist.Steps = nil

@@ -21,10 +21,11 @@ import (
 //
 //	{
 //	  "schema": "drawdown-job",
-//	  "version": 1,
+//	  "version": 2,
 //	  "name": "...",
 //	  "units": "SI",
 //	  "inputs": {"hose.id": "38 mm", ...},
+//	  "site_facts": {"confined_space": true, "discharge": "sewer", ...},
 //	  "checklist": {...}, "readings": [...], "log": [...],
 //	  "resume": {"pane": "...", "step": 0},
 //	  ...
@@ -135,10 +136,10 @@ func decodeBytes(data []byte) (Job, error) {
 	}
 	if version > JobVersion {
 		return Job{}, &JobFileError{Version: version, Err: ErrFutureVersion, Detail: fmt.Sprintf(
-			"written by a newer drawdown (format version %d; this build reads versions 1 to %d); "+
+			"written by a newer drawdown (format version %d; this build reads versions 0 to %d); "+
 				"the file was left unchanged: open it with the newer drawdown", version, JobVersion)}
 	}
-	if version < 1 {
+	if version < 0 {
 		return Job{}, damaged(fmt.Sprintf("format version %d does not exist", version))
 	}
 	if version < JobVersion {
@@ -173,28 +174,6 @@ func jsonProblem(err error) string {
 		return fmt.Sprintf("the entry %q holds a JSON %s where a %s belongs (byte %d)", te.Field, te.Value, te.Type, te.Offset)
 	}
 	return err.Error()
-}
-
-// migrations[v] turns a version-v file into a version-(v+1) one, working on
-// the top-level JSON entries. Version 1 is the first format, so there are
-// none yet; when the format changes, bump JobVersion, add the step here and
-// add a version-1 fixture to testdata so that the step stays tested.
-var migrations = map[int]func(map[string]json.RawMessage) error{}
-
-// migrate applies the steps from version v up to JobVersion and returns the
-// updated JSON.
-func migrate(raw map[string]json.RawMessage, v int) ([]byte, error) {
-	for ; v < JobVersion; v++ {
-		step, ok := migrations[v]
-		if !ok {
-			return nil, fmt.Errorf("no conversion from version %d", v)
-		}
-		if err := step(raw); err != nil {
-			return nil, err
-		}
-	}
-	raw["version"] = json.RawMessage(strconv.Itoa(JobVersion))
-	return json.Marshal(raw)
 }
 
 // Load reads the job file at path. Errors are *JobFileError values carrying
@@ -489,6 +468,8 @@ type JobSummary struct {
 	Path    string
 	Name    string
 	Site    string
+	Date    string   // the day of the work, YYYY-MM-DD, or ""
+	State   JobState // planned, draining or closed
 	Updated time.Time
 	Err     error // set when the file cannot be read; the entry is still listed
 }
@@ -516,7 +497,7 @@ func ListJobs(dir string) ([]JobSummary, error) {
 				s.Updated = fi.ModTime()
 			}
 		} else {
-			s.Name, s.Site, s.Updated = j.Name, j.Site, j.Updated
+			s.Name, s.Site, s.Date, s.State, s.Updated = j.Name, j.Site, j.Date, j.State(), j.Updated
 		}
 		out = append(out, s)
 	}

@@ -11,11 +11,14 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"reflect"
 	"runtime"
 	"strconv"
 	"strings"
 	"testing"
 	"time"
+
+	"drawdown/presets"
 )
 
 func TestEncodeDecodeRoundTrip(t *testing.T) {
@@ -44,7 +47,7 @@ func TestEncodeDecodeRoundTrip(t *testing.T) {
 		!got.Started.Equal(j.Started) || len(got.Readings) != 2 || len(got.Checklist.Steps) != len(j.Checklist.Steps) {
 		t.Errorf("round trip lost data: %+v", got)
 	}
-	if !strings.Contains(first, `"schema": "drawdown-job"`) || !strings.Contains(first, `"version": 1`) ||
+	if !strings.Contains(first, `"schema": "drawdown-job"`) || !strings.Contains(first, `"version": 2`) ||
 		!strings.Contains(first, `"units": "SI"`) {
 		t.Errorf("header missing:\n%s", first[:200])
 	}
@@ -68,11 +71,13 @@ func TestDecodeFixtures(t *testing.T) {
 		err  error
 		says string
 	}{
+		{"job-v2.json", nil, ""},
 		{"job-v1.json", nil, ""},
-		{"job-future.json", ErrFutureVersion, "newer drawdown (format version 2; this build reads versions 1 to 1)"},
+		{"job-v0.json", nil, ""},
+		{"job-future.json", ErrFutureVersion, "newer drawdown (format version 3; this build reads versions 0 to 2)"},
 		{"job-damaged.json", ErrDamaged, "not valid JSON at byte"},
 		{"not-a-job.json", ErrNotJob, "not a drawdown job"},
-		{"job-v0.json", ErrDamaged, "format version 0 does not exist"},
+		{"job-minus1.json", ErrDamaged, "format version -1 does not exist"},
 		{"job-wrong-type.json", ErrDamaged, `the entry "inputs" holds a JSON array`},
 		{"empty.json", ErrDamaged, "empty"},
 	}
@@ -100,9 +105,9 @@ func TestDecodeFixtures(t *testing.T) {
 }
 
 func TestFixtureFormatStable(t *testing.T) {
-	// The v1 fixture must re-encode to the same bytes: the file format of
-	// version 1 has not drifted.
-	b, err := os.ReadFile(filepath.Join("testdata", "job-v1.json"))
+	// The v2 fixture must re-encode to the same bytes: the file format of
+	// version 2 has not drifted.
+	b, err := os.ReadFile(filepath.Join("testdata", "job-v2.json"))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -113,24 +118,85 @@ func TestFixtureFormatStable(t *testing.T) {
 	var out bytes.Buffer
 	Encode(&out, j)
 	if !bytes.Equal(out.Bytes(), b) {
-		t.Errorf("version-1 fixture re-encodes differently; if the format changed on purpose, bump JobVersion and add a migration")
+		t.Errorf("version-2 fixture re-encodes differently; if the format changed on purpose, bump JobVersion and add a migration")
+	}
+}
+
+// The version-1 demo file (written by the first format, with the crew's
+// site facts and two hazard objects inside the checklist context) comes up
+// to version 2: facts in site_facts, "environmental" on water as may carry
+// oil, crew as names with roles, every checklist mark kept; once rebuilt
+// from the job and its plan its checklist equals the demo's own.
+func TestMigrateV1Fixture(t *testing.T) {
+	for _, name := range []string{"job-v1.json", "job-v0.json"} {
+		j, err := Load(filepath.Join("testdata", name))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if j.Version != JobVersion {
+			t.Errorf("%s: version %d", name, j.Version)
+		}
+		want := SiteFacts{Discharge: DischargeStorm, MayCarryOil: true}
+		if j.Facts != want {
+			t.Errorf("%s: site facts %+v, want %+v", name, j.Facts, want)
+		}
+		if !reflect.DeepEqual(j.Crew, []CrewMember{{Name: "A. Marsh", Role: "lead"}, {Name: "T. Okoro"}}) {
+			t.Errorf("%s: crew %+v", name, j.Crew)
+		}
+		ctx := j.Checklist.Context
+		if ctx.Hazards != presets.Of(presets.Environmental) || ctx.Discharge != DischargeStorm || ctx.Method != PrimeHandPump || !ctx.MayCarryOil {
+			t.Errorf("%s: migrated context %+v", name, ctx)
+		}
+		steps := len(j.Checklist.Steps)
+		j.RebuildChecklist(Compute(j, presets.Builtin()))
+		demo := DemoJob()
+		if got, want := unmarked(j.Checklist.Steps), unmarked(demo.Checklist.Steps); !reflect.DeepEqual(got, want) {
+			t.Errorf("%s: rebuilt checklist differs from the demo's (%d steps before, %d after, demo %d)", name, steps, len(got), len(want))
+		}
+	}
+	// Version-1 facts the demo does not use: a confined sewage vault with
+	// an open edge, "same-site" discharge, a sheen, a fuel's class.
+	raw := map[string]json.RawMessage{"schema": json.RawMessage(`"drawdown-job"`), "version": json.RawMessage(`1`),
+		"crew": json.RawMessage(`"P. Lund; R. Oyelaran (attendant)"`),
+		"checklist": json.RawMessage(`{"context":{"hazards":{"biohazard":true,"environmental":true},"confined_space":true,` +
+			`"open_edge":true,"discharge":"same-site","sheen_seen":true,"extra_hazards":{"flammable":true,"flammable_class":"IB"}},"steps":[]}`)}
+	b, err := migrate(raw, 1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	j, err := decodeBytes(b)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := SiteFacts{ConfinedSpace: true, OpenWater: true, Discharge: DischargeStorm, SheenSeen: true}
+	if j.Facts != want || j.Checklist.Context.Class != presets.ClassIB ||
+		j.Checklist.Context.Hazards != presets.Of(presets.Biohazard, presets.Environmental, presets.Flammable) {
+		t.Errorf("migrated: facts %+v, context %+v", j.Facts, j.Checklist.Context)
+	}
+	if !reflect.DeepEqual(j.Crew, []CrewMember{{Name: "P. Lund"}, {Name: "R. Oyelaran", Role: "attendant"}}) {
+		t.Errorf("crew %+v", j.Crew)
+	}
+	raw["crew"] = json.RawMessage(`["x"]`)
+	raw["version"] = json.RawMessage(`1`)
+	if _, err := migrate(raw, 1); err == nil {
+		t.Error("a version-1 crew that is not text was accepted")
 	}
 }
 
 func TestMigrateHook(t *testing.T) {
-	// A stand-in step from a pretend version 0 that called the name
+	// A stand-in step from a pretend version -1 that called the name
 	// "title": the hook runs each step and stamps the current version.
-	migrations[0] = func(raw map[string]json.RawMessage) error {
+	migrations[-1] = func(raw map[string]json.RawMessage) error {
 		raw["name"] = raw["title"]
 		delete(raw, "title")
 		return nil
 	}
-	t.Cleanup(func() { delete(migrations, 0) })
+	t.Cleanup(func() { delete(migrations, -1) })
 	raw := map[string]json.RawMessage{
-		"schema": json.RawMessage(`"drawdown-job"`), "version": json.RawMessage(`0`),
+		"schema": json.RawMessage(`"drawdown-job"`), "version": json.RawMessage(`-1`),
 		"title": json.RawMessage(`"old pit"`),
 	}
-	b, err := migrate(raw, 0)
+	b, err := migrate(raw, -1)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -141,9 +207,8 @@ func TestMigrateHook(t *testing.T) {
 }
 
 func TestMigrateUnknownVersion(t *testing.T) {
-	// Version 1 is the first format: there is no step from 0.
-	if _, err := migrate(map[string]json.RawMessage{}, 0); err == nil || !strings.Contains(err.Error(), "no conversion from version 0") {
-		t.Errorf("migrate(0): %v", err)
+	if _, err := migrate(map[string]json.RawMessage{}, -2); err == nil || !strings.Contains(err.Error(), "no conversion from version -2") {
+		t.Errorf("migrate(-2): %v", err)
 	}
 }
 
@@ -272,11 +337,12 @@ func TestJobPathsAndList(t *testing.T) {
 }
 
 func FuzzDecode(f *testing.F) {
-	for _, name := range []string{"job-v1.json", "job-future.json", "job-damaged.json", "not-a-job.json", "job-v0.json", "job-wrong-type.json"} {
+	for _, name := range []string{"job-v2.json", "job-v1.json", "job-future.json", "job-damaged.json", "not-a-job.json", "job-v0.json", "job-wrong-type.json"} {
 		b, err := os.ReadFile(filepath.Join("testdata", name))
-		if err == nil {
-			f.Add(b)
+		if err != nil {
+			f.Fatal(err) // a missing fixture fails, never skips
 		}
+		f.Add(b)
 	}
 	var buf bytes.Buffer
 	Encode(&buf, NewJob("x", US, t0))

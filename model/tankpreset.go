@@ -22,9 +22,13 @@ var tankSizeFields = map[string]FieldID{
 // records which one in FieldTankPreset. Sizes the template does not have
 // are cleared; the liquid level and target are the technician's and are
 // left alone. Sizes are written in metres with their unit, so they read
-// the same in either unit system.
+// the same in either unit system. A tank the catalogue flags as a confined
+// space pre-sets the job's confined-space fact (the crew may clear it).
 func (j *Job) ApplyTankPreset(t presets.TankTemplate) {
 	j.Set(FieldTankPreset, t.ID)
+	if t.ConfinedSpace {
+		j.Facts.ConfinedSpace = true
+	}
 	j.Set(FieldTankShape, t.Shape)
 	for name, id := range tankSizeFields {
 		v, ok := t.Size(name)

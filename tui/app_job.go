@@ -56,31 +56,14 @@ func (m *Model) restoreField() tea.Cmd {
 	return m.applyEdit(FieldEdit{ID: id, Text: old})
 }
 
-// rebuildChecklist adapts the checklist to a new liquid or priming method,
-// keeping every recorded mark (model.Checklist.Rebuild).
-func (m *Model) rebuildChecklist(changed model.FieldID) {
-	ctx := m.job.Checklist.Context
-	switch changed {
-	case model.FieldPriming:
-		pm, err := model.ParsePrimingMethod(m.job.Choice(model.FieldPriming))
-		if err != nil {
-			return
-		}
-		ctx.Method = pm
-	case model.FieldLiquid:
-		p := m.st.plan
-		if !p.Liquid.Valid() || m.st.stale {
-			return
-		}
-		h := model.HazardsFromPresets(p.Hazards, p.Liquid.Class)
-		// Site-confirmed flags stay: the crew set them for this water.
-		h.Environmental = h.Environmental || ctx.Hazards.Environmental
-		h.Biohazard = h.Biohazard || ctx.Hazards.Biohazard
-		ctx.Hazards = h
-		ctx.Liquid = p.Liquid.Name
+// rebuildChecklist rebuilds the checklist from the job and the last valid
+// plan (model.Job.RebuildChecklist: the context derived again, every
+// recorded mark kept).
+func (m *Model) rebuildChecklist(model.FieldID) {
+	if m.st.stale || !m.st.hasPlan {
+		return
 	}
-	ctx.Strokes = m.st.plan.PumpStrokes
-	m.job.Checklist = m.job.Checklist.Rebuild(ctx)
+	m.job.RebuildChecklist(m.st.plan)
 	m.touch()
 }
 
@@ -122,22 +105,10 @@ func (m *Model) commit(id model.FieldID) {
 	}
 }
 
-// checklistHazards are the hazards the checklist is built for: the liquid's
-// at its temperature and those the crew recorded for the site.
+// checklistHazards are the hazards the checklist is built for
+// (model.ContextFor).
 func (m *Model) checklistHazards(p model.Plan) presets.Hazards {
-	h := p.Hazards
-	c := m.job.Checklist.Context.Hazards
-	for _, x := range []struct {
-		on  bool
-		tag presets.Hazard
-	}{{c.Flammable, presets.Flammable}, {c.Combustible, presets.Combustible}, {c.Toxic, presets.Toxic},
-		{c.Biohazard, presets.Biohazard}, {c.Environmental, presets.Environmental}, {c.Hot, presets.Hot},
-		{c.FreezingRisk, presets.FreezingRisk}, {c.Volatile, presets.Volatile}} {
-		if x.on {
-			h = h.With(x.tag)
-		}
-	}
-	return h
+	return model.ContextFor(m.job, p).Hazards
 }
 
 func (m *Model) toggleUnits() tea.Cmd {

@@ -18,8 +18,8 @@ import (
 // golden frames use ckFixed instead).
 func ckDemo() model.Checklist {
 	return model.BuildChecklist(model.ChecklistContext{
-		Liquid: "rain water", Method: model.PrimeSubmerge, OpenEdge: true,
-		Discharge: model.DischargeStorm, Hazards: model.Hazards{Environmental: true},
+		Liquid: "rain water", Method: model.PrimeSubmerge, OilCheck: true,
+		SiteFacts: model.SiteFacts{OpenWater: true, Discharge: model.DischargeStorm, MayCarryOil: true},
 	})
 }
 

@@ -63,7 +63,7 @@ func Write(w io.Writer, r Input) error {
 	rw.row("Job", name)
 	rw.row("Site", orDash(j.Site))
 	rw.row("Location", orDash(j.Location))
-	rw.row("Crew", orDash(j.Crew))
+	rw.row("Crew", orDash(j.CrewText()))
 	if p.Liquid.Name != "" {
 		rw.row("Liquid", p.Liquid.Name)
 	} else {
@@ -73,8 +73,8 @@ func Write(w io.Writer, r Input) error {
 		rw.row("Liquid hazard tags", p.Hazards.String())
 	}
 	ctx := j.Checklist.Context
-	if hz := ctx.Hazards.List(); len(hz) > 0 {
-		rw.row("Hazards the checklist is built for", strings.Join(hz, ", "))
+	if ctx.Hazards != 0 {
+		rw.row("Hazards the checklist is built for", ctx.Hazards.String())
 	}
 	if ctx.Discharge != "" {
 		rw.row("Discharge to", ctx.Discharge.Label())

@@ -107,9 +107,8 @@ func TestReportGolden(t *testing.T) {
 		{"demo-us-no-readings", func(t *testing.T) Input {
 			j := model.DemoJob()
 			j.SetUnits(model.US)
-			j.Checklist = j.Checklist.Rebuild(model.ChecklistContext{Liquid: "rainwater from an oil bund",
-				Hazards: model.Hazards{Environmental: true}, Method: model.PrimeHandPump, Discharge: model.DischargeStorm, Strokes: 46})
 			p := model.Compute(j, presets.Builtin())
+			j.RebuildChecklist(p)
 			return Input{Job: j, Plan: p, Now: time.Date(2026, time.March, 14, 6, 0, 0, 0, time.FixedZone("EST", -5*3600))}
 		}},
 		{"bad-inputs", func(t *testing.T) Input {
@@ -118,9 +117,11 @@ func TestReportGolden(t *testing.T) {
 			_ = j.Set(model.FieldHoseLength, "8 m")
 			_ = j.Set(model.FieldLiquid, "water")
 			j.Notes = "# not a heading\nsecond line"
-			j.Checklist = model.BuildChecklist(model.ChecklistContext{Liquid: "groundwater", ConfinedSpace: true, Method: model.PrimeVacuum, Discharge: model.DischargeSewer})
+			j.Facts = model.SiteFacts{ConfinedSpace: true, Discharge: model.DischargeSewer}
+			_ = j.Set(model.FieldPriming, string(model.PrimeVacuum))
 			j.Readings = []model.Reading{{At: time.Date(2026, time.March, 2, 9, 30, 0, 0, time.UTC), Level: 0.8}}
 			p := model.Compute(j, presets.Builtin())
+			j.RebuildChecklist(p)
 			return Input{Job: j, Plan: p, Now: time.Date(2026, time.March, 2, 10, 0, 0, 0, time.UTC)}
 		}},
 	}
