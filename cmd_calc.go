@@ -22,9 +22,9 @@ import (
 // some of its own parses append(calcFlagTable(), its own...) and reads the
 // calc part with calcValues.
 var calcFlagDefs = []flagDef{
-	{name: "json", help: "print one JSON object (SI units, unit in each key;)"},
+	{name: "json", help: "print one JSON object (SI units, unit in each key; schema " + calcSchema + ")"},
 	{name: "units", arg: "si|us", help: "units for text output and for bare numbers [si]", complete: completeUnits},
-	{name: "curve", help: "with a tank, print the drain curve as a table"},
+	{name: "curve", help: "with a tank, the drain curve too (a table, or drain.curve in JSON)"},
 	{name: "outlet-submerged", help: "the hose end sits below a receiving surface (--drop is to that surface)"},
 	{name: "hose", arg: "ID", help: "a hose size from `drawdown presets` (sets --hose-id)", complete: completeHoses},
 	{name: "tank-table", arg: "FILE", help: "CSV of level, volume for --tank table (at most 1 MiB and 10000 rows)", path: "file"},
@@ -177,6 +177,9 @@ func calcUsage(w io.Writer) {
 	fmt.Fprintln(w, "3/4 in, 40ft, 15C, 59F, 98.2kPa, 29.6inHg; bare numbers are in the --units system.")
 	fmt.Fprintln(w, "A flag is given once (--fitting may repeat). Exit status 0, 2 for bad input (one line")
 	fmt.Fprintln(w, "naming the flag), 1 when a file cannot be read.")
+	fmt.Fprintln(w, "With --json: one object with \"schema\": \""+calcSchema+"\" (the number changes only")
+	fmt.Fprintln(w, "when a key is removed or changes meaning), SI units named in each key, numbers to", jsonDigits)
+	fmt.Fprintln(w, "significant figures; with a tank a \"drain\" object, with --curve its \"curve\" list.")
 	fmt.Fprintln(w)
 	writeFlagHelp(w, calcFlagDefs)
 }
@@ -301,7 +304,7 @@ func runCalc(args []string, stdout, stderr io.Writer) int {
 	if o.json {
 		enc := json.NewEncoder(stdout)
 		enc.SetIndent("", "  ")
-		if err := enc.Encode(jsonOf(p)); err != nil {
+		if err := enc.Encode(jsonOf(p, o.curve)); err != nil {
 			fmt.Fprintln(stderr, "drawdown calc: "+err.Error())
 			return ExitError
 		}
@@ -324,13 +327,27 @@ func planError(p model.Plan) string {
 
 func oneLine(s string) string { return strings.Join(strings.Fields(s), " ") }
 
-// jsonNum rounds away float noise below 1e-12 relative and guarantees a
-// finite number (calc never returns NaN or Inf; this is the last guard).
+// calcSchema names the JSON document of `drawdown calc --json`, in its
+// "schema" key. The number after the slash changes only when a key is
+// removed or changes meaning; new keys may be added under the same number.
+const calcSchema = "drawdown-calc/1"
+
+// jsonDigits is the number of significant figures in the JSON numbers: far
+// more than any input is measured to (a tape reads 3 or 4 figures), few
+// enough that float noise never shows.
+const jsonDigits = 6
+
+// jsonNum rounds to jsonDigits significant figures and guarantees a finite
+// number (calc never returns NaN or Inf; this is the last guard).
 func jsonNum(v float64) float64 {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return 0
 	}
-	return v
+	r, err := strconv.ParseFloat(strconv.FormatFloat(v, 'g', jsonDigits, 64), 64)
+	if err != nil || r == 0 {
+		return 0 // also turns -0 into 0
+	}
+	return r
 }
 
 type jsonWarning struct {
@@ -339,25 +356,30 @@ type jsonWarning struct {
 }
 
 type jsonDrain struct {
-	TimeS            float64  `json:"time_s"`
-	TimeLowS         float64  `json:"time_low_s"`
-	TimeHighS        float64  `json:"time_high_s"`
-	VolumeM3         float64  `json:"volume_m3"`
-	StopLevelM       float64  `json:"stop_level_m"`
-	StopReason       string   `json:"stop_reason"`
-	ResidualM3       float64  `json:"residual_m3"`
-	CrestLimitLevelM *float64 `json:"crest_limit_level_m"`
-	StartFlowM3S     float64  `json:"start_flow_m3_s"`
-	ReceiverLevelM   *float64 `json:"receiver_level_m,omitempty"`
-	TargetLevelM     float64  `json:"target_level_m"`
-	Curve            []struct {
-		TimeS  float64 `json:"time_s"`
-		LevelM float64 `json:"level_m"`
-		FlowM3 float64 `json:"flow_m3_s"`
-	} `json:"curve,omitempty"`
+	TimeS            float64     `json:"time_s"`
+	TimeLowS         float64     `json:"time_low_s"`
+	TimeHighS        float64     `json:"time_high_s"`
+	VolumeM3         float64     `json:"volume_m3"`
+	StopLevelM       float64     `json:"stop_level_m"`
+	StopReason       string      `json:"stop_reason"`
+	ResidualM3       float64     `json:"residual_m3"`
+	CrestLimitLevelM *float64    `json:"crest_limit_level_m"`
+	StartFlowM3S     float64     `json:"start_flow_m3_s"`
+	ReceiverLevelM   *float64    `json:"receiver_level_m,omitempty"`
+	TargetLevelM     float64     `json:"target_level_m"`
+	Curve            []jsonPoint `json:"curve,omitempty"`
+}
+
+// jsonPoint is one point of the drain curve (with --curve).
+type jsonPoint struct {
+	TimeS          float64  `json:"time_s"`
+	LevelM         float64  `json:"level_m"`
+	FlowM3S        float64  `json:"flow_m3_s"`
+	ReceiverLevelM *float64 `json:"receiver_level_m,omitempty"`
 }
 
 type jsonResult struct {
+	Schema               string        `json:"schema"`
 	Verdict              string        `json:"verdict"`
 	Liquid               string        `json:"liquid"`
 	TemperatureK         float64       `json:"temperature_k"`
@@ -389,10 +411,13 @@ type jsonResult struct {
 	Drain                *jsonDrain    `json:"drain,omitempty"`
 }
 
-func jsonOf(p model.Plan) jsonResult {
+// jsonOf lays the plan out as the JSON document; curve adds the drain
+// curve.
+func jsonOf(p model.Plan, curve bool) jsonResult {
 	r := p.Result
 	s := p.Siphon
 	j := jsonResult{
+		Schema:               calcSchema,
 		Verdict:              r.Verdict.String(),
 		Liquid:               p.Liquid.ID,
 		TemperatureK:         jsonNum(float64(p.Temperature)),
@@ -444,6 +469,16 @@ func jsonOf(p model.Plan) jsonResult {
 		if p.Receiver != nil {
 			v := jsonNum(float64(d.ReceiverLevel))
 			jd.ReceiverLevelM = &v
+		}
+		if curve {
+			for _, pt := range d.Curve {
+				jp := jsonPoint{TimeS: jsonNum(float64(pt.Time)), LevelM: jsonNum(float64(pt.Level)), FlowM3S: jsonNum(float64(pt.Flow))}
+				if p.Receiver != nil {
+					v := jsonNum(float64(pt.ReceiverLevel))
+					jp.ReceiverLevelM = &v
+				}
+				jd.Curve = append(jd.Curve, jp)
+			}
 		}
 		j.Drain = jd
 	}
