@@ -79,7 +79,7 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		return ExitError
 	}
 	if out == "" {
-		out = "."
+		out = filepath.Dir(path)
 	}
 	base := strings.TrimSuffix(filepath.Base(path), ".json")
 	for _, f := range []struct {

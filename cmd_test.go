@@ -354,3 +354,31 @@ func TestCalcFlagTable(t *testing.T) {
 		}
 	}
 }
+
+// TestReportBesideJob: without --out the record is written beside the job
+// file, wherever the command is run from.
+func TestReportBesideJob(t *testing.T) {
+	t.Setenv("DRAWDOWN_HOME", t.TempDir())
+	t.Setenv("XDG_CONFIG_HOME", t.TempDir())
+	dir := t.TempDir()
+	path := filepath.Join(dir, "pit-7.json")
+	if err := model.SaveAtomic(path, model.DemoJob()); err != nil {
+		t.Fatal(err)
+	}
+	t.Chdir(t.TempDir())
+	var so, se bytes.Buffer
+	if code := run([]string{"report", path}, &so, &se); code != 0 {
+		t.Fatalf("exit %d: %s", code, se.String())
+	}
+	for _, name := range []string{"pit-7-record.md", "pit-7-readings.csv"} {
+		if _, err := os.Stat(filepath.Join(dir, name)); err != nil {
+			t.Errorf("%s not beside the job: %v", name, err)
+		}
+		if !strings.Contains(so.String(), filepath.Join(dir, name)) {
+			t.Errorf("path of %s not printed: %q", name, so.String())
+		}
+	}
+	if entries, _ := os.ReadDir("."); len(entries) != 0 {
+		t.Errorf("wrote into the current folder: %v", entries)
+	}
+}
