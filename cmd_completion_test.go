@@ -42,15 +42,15 @@ func TestCompleteWords(t *testing.T) {
 		{[]string{"help", ""}, []string{"calc", "report"}, nil, ""},
 		{[]string{"completion", ""}, []string{"bash", "zsh", "fish"}, nil, ""},
 		{[]string{"calc", "--li"}, []string{"--liquid", "--lift"}, []string{"--level"}, ""},
-		{[]string{"calc", "--lift", "1m", "--li"}, []string{"--liquid"}, []string{"--lift"}, ""},               // given once
-		{[]string{"calc", "--fitting", "coupling", "--fi"}, []string{"--fitting"}, nil, ""},                    // repeatable
-		{[]string{"calc", "--liquid", "wa"}, []string{"water", "wastewater"}, []string{"gasoline"}, ""},        // catalogue liquids
-		{[]string{"calc", "--liquid=wa"}, []string{"--liquid=water"}, nil, ""},                                 // zsh, fish
-		{[]string{"calc", "--liquid", "=", "wa"}, []string{"water"}, nil, ""},                                  // bash splits at =
-		{[]string{"calc", "--hose", ""}, []string{cat.Hoses()[0].ID}, nil, ""},                                 // hose sizes
-		{[]string{"calc", "--material", ""}, []string{cat.Materials()[0].ID}, nil, ""},                         // materials
-		{[]string{"calc", "--fitting", "coupling,ball"}, []string{"coupling,ball-valve"}, nil, ""},             // after the comma
-		{[]string{"calc", "--tank-preset", ""}, []string{cat.Tanks()[0].ID}, []string{"custom"}, ""},           // tanks
+		{[]string{"calc", "--lift", "1m", "--li"}, []string{"--liquid"}, []string{"--lift"}, ""},                // given once
+		{[]string{"calc", "--fitting", "coupling", "--fi"}, []string{"--fitting"}, nil, ""},                     // repeatable
+		{[]string{"calc", "--liquid", "wa"}, []string{"water", "wastewater"}, []string{"gasoline"}, ""},         // catalogue liquids
+		{[]string{"calc", "--liquid=wa"}, []string{"--liquid=water"}, nil, ""},                                  // zsh, fish
+		{[]string{"calc", "--liquid", "=", "wa"}, []string{"water"}, nil, ""},                                   // bash splits at =
+		{[]string{"calc", "--hose", ""}, []string{cat.Hoses()[0].ID}, nil, ""},                                  // hose sizes
+		{[]string{"calc", "--material", ""}, []string{cat.Materials()[0].ID}, nil, ""},                          // materials
+		{[]string{"calc", "--fitting", "coupling,ball"}, []string{"coupling,ball-valve"}, nil, ""},              // after the comma
+		{[]string{"calc", "--tank-preset", ""}, []string{cat.Tanks()[0].ID}, []string{"custom"}, ""},            // tanks
 		{[]string{"calc", "--priming", ""}, []string{string(model.PrimingMethods()[0])}, []string{"mouth"}, ""}, // never by mouth
 		{[]string{"calc", "--tank", ""}, []string{"vertical-cylinder", "sphere", "table"}, nil, ""},
 		{[]string{"calc", "--receiver", ""}, []string{"rectangular"}, []string{"table"}, ""},
