@@ -17,48 +17,75 @@ import (
 	"drawdown/presets"
 )
 
-// flagField ties a command-line flag to the job field it sets.
-type flagField struct {
-	name  string
-	field model.FieldID
-	help  string
+// calcFlagDefs are the flags of `drawdown calc`, in help order: first the
+// ones that are not job fields, then one per job field. The names are the
+// contract of design §4; keep them. A command that takes the calc flags and
+// some of its own parses append(calcFlagTable(), its own...) and reads the
+// calc part with calcValues.
+var calcFlagDefs = []flagDef{
+	{name: "json", help: "print one JSON object (SI units, unit in each key; schema " + calcSchema + ")"},
+	{name: "units", arg: "si|us", help: "units for text output and for bare numbers [si]", complete: completeUnits},
+	{name: "curve", help: "with a tank, the drain curve too (a table, or drain.curve in JSON)"},
+	{name: "outlet-submerged", help: "the hose end sits below a receiving surface (--drop is to that surface)"},
+	{name: "hose", arg: "ID", help: "a hose size from `drawdown presets` (sets --hose-id)", complete: completeHoses},
+	{name: "tank-table", arg: "FILE", help: "CSV of level, volume for --tank table (at most 1 MiB and 10000 rows)", path: "file"},
+	{name: "tank-preset", arg: "ID", help: "a tank from `drawdown presets` (shape and sizes; flags given win)", complete: completeTankPresets},
+	{name: "receiver", arg: "SHAPE", help: "transfer into a receiving vessel of this shape (needs --tank)", complete: completeShapes},
+	{name: "receiver-diameter", arg: "X", help: "receiving vessel: inside diameter"},
+	{name: "receiver-length", arg: "X", help: "receiving vessel: inside length (a pit: its bottom length)"},
+	{name: "receiver-width", arg: "X", help: "receiving vessel: inside width (a pit: its bottom width)"},
+	{name: "receiver-height", arg: "X", help: "receiving vessel: floor to brim; the transfer stops when it is full"},
+	{name: "receiver-cone-height", arg: "X", help: "receiving vessel: height of its cone bottom"},
+	{name: "receiver-side-slope", arg: "X", help: "receiving pit: side slope, horizontal per vertical"},
+	{name: "receiver-floor", arg: "X", help: "receiving vessel: its floor above the source floor (negative when lower)"},
+	{name: "receiver-level", arg: "X", help: "receiving vessel: its level above its floor at the start [0m]"},
+	fieldFlag("liquid", model.FieldLiquid, "ID", "liquid ID from `drawdown presets` [water]"),
+	fieldFlag("temp", model.FieldTemp, "X", "liquid temperature [15C]"),
+	fieldFlag("density", model.FieldDensity, "X", "density override, e.g. from a safety data sheet"),
+	fieldFlag("viscosity", model.FieldViscosity, "X", "dynamic viscosity override (mPa.s, cP)"),
+	fieldFlag("vapor-pressure", model.FieldVapor, "X", "vapour pressure override (kPa, psi)"),
+	fieldFlag("altitude", model.FieldAltitude, "X", "site altitude [0m]"),
+	fieldFlag("baro", model.FieldBaro, "X", "barometer reading; overrides --altitude"),
+	fieldFlag("hose-id", model.FieldHoseID, "X", "hose inside diameter (25mm, 1in, 3/4 in)"),
+	fieldFlag("hose-length", model.FieldHoseLength, "X", "hose length"),
+	fieldFlag("upleg-length", model.FieldHoseUpLeg, "X", "hose length from intake to crest [intake depth + lift]"),
+	fieldFlag("intake-depth", model.FieldIntakeDepth, "X", "intake below the surface, without a tank [0.3m]"),
+	fieldFlag("roughness", model.FieldHoseRoughness, "X", "wall roughness [from --material]"),
+	fieldFlag("k-minor", model.FieldHoseKMinor, "X", "sum of entrance, bend and coupling K; overrides --fitting"),
+	fieldFlag("hoses", model.FieldHoseCount, "N", "identical hoses in parallel [1]"),
+	fieldFlag("lift", model.FieldLift, "X", "crest height above the liquid surface"),
+	fieldFlag("drop", model.FieldDrop, "X", "outlet (or receiving surface) below the liquid surface"),
+	fieldFlag("material", model.FieldHoseMaterial, "ID", "hose material ID [rubber-smooth]"),
+	{name: "fitting", arg: "ID", field: model.FieldHoseFittings, repeat: true, help: "fitting ID; repeat or comma-separate", complete: completeField(model.FieldHoseFittings)},
+	fieldFlag("priming", model.FieldPriming, "ID", "priming method ID"),
+	fieldFlag("pump-stroke", model.FieldPumpStroke, "X", "hand-pump stroke volume, for the stroke count"),
+	fieldFlag("height-tolerance", model.FieldTolHeight, "X", "tolerance on measured heights for the band [3cm]"),
+	{name: "tank", arg: "SHAPE", field: model.FieldTankShape, complete: completeTankShapes,
+		help: "tank shape: " + strings.Join(append(presets.TankShapes(), "table"), ", ")},
+	fieldFlag("tank-diameter", model.FieldTankDiameter, "X", "tank diameter"),
+	fieldFlag("tank-length", model.FieldTankLength, "X", "tank length (pit bottom length)"),
+	fieldFlag("tank-width", model.FieldTankWidth, "X", "tank width (pit bottom width)"),
+	fieldFlag("tank-height", model.FieldTankHeight, "X", "tank depth, floor to brim [the level]"),
+	fieldFlag("cone-height", model.FieldTankCone, "X", "height of a cone bottom"),
+	fieldFlag("side-slope", model.FieldTankSlope, "X", "pit side slope, horizontal per vertical"),
+	fieldFlag("level", model.FieldTankLevel, "X", "liquid level above the tank floor"),
+	fieldFlag("target-level", model.FieldTankTarget, "X", "level to stop at [intake + submergence]"),
+	fieldFlag("intake-height", model.FieldIntakeHeight, "X", "intake above the tank floor [0.05m]"),
 }
 
-// calcFlags are the value flags of `drawdown calc`, in help order. The names
-// are the contract of design §4; keep them.
-var calcFlags = []flagField{
-	{"liquid", model.FieldLiquid, "liquid ID from `drawdown presets` [water]"},
-	{"temp", model.FieldTemp, "liquid temperature [15C]"},
-	{"density", model.FieldDensity, "density override, e.g. from a safety data sheet"},
-	{"viscosity", model.FieldViscosity, "dynamic viscosity override (mPa.s, cP)"},
-	{"vapor-pressure", model.FieldVapor, "vapour pressure override (kPa, psi)"},
-	{"altitude", model.FieldAltitude, "site altitude [0m]"},
-	{"baro", model.FieldBaro, "barometer reading; overrides --altitude"},
-	{"hose-id", model.FieldHoseID, "hose inside diameter (25mm, 1in, 3/4 in)"},
-	{"hose-length", model.FieldHoseLength, "hose length"},
-	{"upleg-length", model.FieldHoseUpLeg, "hose length from intake to crest [intake depth + lift]"},
-	{"intake-depth", model.FieldIntakeDepth, "intake below the surface, without a tank [0.3m]"},
-	{"roughness", model.FieldHoseRoughness, "wall roughness [from --material]"},
-	{"k-minor", model.FieldHoseKMinor, "sum of entrance, bend and coupling K; overrides --fitting"},
-	{"hoses", model.FieldHoseCount, "identical hoses in parallel [1]"},
-	{"lift", model.FieldLift, "crest height above the liquid surface"},
-	{"drop", model.FieldDrop, "outlet (or receiving surface) below the liquid surface"},
-	{"material", model.FieldHoseMaterial, "hose material ID [rubber-smooth]"},
-	{"fitting", model.FieldHoseFittings, "fitting ID; repeat or comma-separate"},
-	{"priming", model.FieldPriming, "priming method ID"},
-	{"pump-stroke", model.FieldPumpStroke, "hand-pump stroke volume, for the stroke count"},
-	{"height-tolerance", model.FieldTolHeight, "tolerance on measured heights for the band [3cm]"},
-	{"tank", model.FieldTankShape, "tank shape: vertical-cylinder, rectangular, horizontal-cylinder, cone-bottom, sloped-pit, sphere, table"},
-	{"tank-diameter", model.FieldTankDiameter, "tank diameter"},
-	{"tank-length", model.FieldTankLength, "tank length (pit bottom length)"},
-	{"tank-width", model.FieldTankWidth, "tank width (pit bottom width)"},
-	{"tank-height", model.FieldTankHeight, "tank depth, floor to brim [the level]"},
-	{"cone-height", model.FieldTankCone, "height of a cone bottom"},
-	{"side-slope", model.FieldTankSlope, "pit side slope, horizontal per vertical"},
-	{"level", model.FieldTankLevel, "liquid level above the tank floor"},
-	{"target-level", model.FieldTankTarget, "level to stop at [intake + submergence]"},
-	{"intake-height", model.FieldIntakeHeight, "intake above the tank floor [0.05m]"},
+// fieldFlag is a flag that sets one job field; a picker field completes
+// from its own list of choices.
+func fieldFlag(name string, id model.FieldID, arg, help string) flagDef {
+	d := flagDef{name: name, arg: arg, field: id, help: help}
+	if spec, ok := model.FieldByID(id); ok && spec.IsPicker() {
+		d.complete = completeField(id)
+	}
+	return d
 }
+
+// calcFlagTable returns a copy of the calc flags, for a command that adds its
+// own to them.
+func calcFlagTable() []flagDef { return append([]flagDef(nil), calcFlagDefs...) }
 
 // calcOptions are the flags that are not job fields.
 type calcOptions struct {
@@ -68,19 +95,6 @@ type calcOptions struct {
 	receiver                     *model.ReceiverSpec
 }
 
-// receiverFlags are the --receiver-* flags of a transfer, by the size or
-// position name model.ReceiverSpec uses.
-var receiverFlags = []string{"diameter", "length", "width", "height", "cone-height", "side-slope", "floor", "level"}
-
-func flagByName(name string) (flagField, bool) {
-	for _, f := range calcFlags {
-		if f.name == name {
-			return f, true
-		}
-	}
-	return flagField{}, false
-}
-
 func flagForField(id model.FieldID) string {
 	if rest, ok := strings.CutPrefix(string(id), "receiver."); ok {
 		if rest == "shape" {
@@ -88,123 +102,87 @@ func flagForField(id model.FieldID) string {
 		}
 		return "--receiver-" + rest
 	}
-	for _, f := range calcFlags {
-		if f.field == id {
+	for _, f := range calcFlagDefs {
+		if f.field != "" && f.field == id {
 			return "--" + f.name
 		}
 	}
 	return string(id)
 }
 
-// usageError is a bad flag or value: one line, exit status 2.
-type usageError struct{ msg string }
-
-func (e *usageError) Error() string { return e.msg }
-
-func usagef(format string, a ...any) error { return &usageError{fmt.Sprintf(format, a...)} }
-
-// parseCalcArgs reads --name value, --name=value and the boolean flags.
+// parseCalcArgs reads the calc flags: --name value, --name=value and the
+// switches.
 func parseCalcArgs(args []string) (map[model.FieldID]string, calcOptions, error) {
+	pf, err := parseFlags("calc", args, calcFlagDefs, 0)
+	if err != nil {
+		return nil, calcOptions{}, err
+	}
+	return calcValues(pf)
+}
+
+// calcValues reads the calc part of parsed flags: the job field texts and
+// the options. Flags that are not calc's are left for the caller.
+func calcValues(pf *parsedFlags) (map[model.FieldID]string, calcOptions, error) {
 	vals := map[model.FieldID]string{}
-	var o calcOptions
-	for i := 0; i < len(args); i++ {
-		a := args[i]
-		if !strings.HasPrefix(a, "-") || a == "-" {
-			return nil, o, usagef("unexpected argument %q; flags start with --", a)
-		}
-		name := strings.TrimLeft(a, "-")
-		value, hasValue := "", false
-		if k, v, ok := strings.Cut(name, "="); ok {
-			name, value, hasValue = k, v, true
-		}
-		switch name {
-		case "json", "curve", "outlet-submerged", "help", "h":
-			if hasValue {
-				return nil, o, usagef("--%s takes no value", name)
-			}
-			switch name {
-			case "json":
-				o.json = true
-			case "curve":
-				o.curve = true
-			case "outlet-submerged":
-				o.submerged = true
-			default:
-				o.help = true
-			}
+	o := calcOptions{help: pf.help}
+	for _, d := range calcFlagDefs {
+		if !pf.has(d.name) {
 			continue
 		}
-		if !hasValue {
-			if i+1 >= len(args) {
-				return nil, o, usagef("--%s needs a value", name)
-			}
-			i++
-			value = args[i]
+		value := strings.Join(pf.all(d.name), ",") // only --fitting repeats
+		if d.field != "" {
+			vals[d.field] = value
+			continue
 		}
-		switch name {
-		case "units":
+		switch part, isRecv := strings.CutPrefix(d.name, "receiver-"); {
+		case d.name == "json":
+			o.json = true
+		case d.name == "curve":
+			o.curve = true
+		case d.name == "outlet-submerged":
+			o.submerged = true
+		case d.name == "units":
 			sys, err := model.ParseSystem(value)
 			if err != nil {
 				return nil, o, usagef("--units: %q is not a unit system; accepted si or us", value)
 			}
 			o.units = sys
-			continue
-		case "hose":
+		case d.name == "hose":
 			o.hose = value
-			continue
-		case "tank-table":
+		case d.name == "tank-table":
 			o.tankTable = value
-			continue
-		case "tank-preset":
+		case d.name == "tank-preset":
 			o.tankPreset = value
-			continue
-		}
-		if name == "receiver" || strings.HasPrefix(name, "receiver-") {
+		case d.name == "receiver" || isRecv:
 			if o.receiver == nil {
 				o.receiver = &model.ReceiverSpec{Sizes: map[string]string{}}
 			}
-			switch part := strings.TrimPrefix(name, "receiver-"); {
-			case name == "receiver":
+			switch {
+			case d.name == "receiver":
 				o.receiver.Shape = value
 			case part == "floor":
 				o.receiver.Floor = value
 			case part == "level":
 				o.receiver.Level = value
-			case slices.Contains(receiverFlags, part):
-				o.receiver.Sizes[part] = value
 			default:
-				return nil, o, usagef("unknown flag --%s; see drawdown calc --help", name)
+				o.receiver.Sizes[part] = value
 			}
-			continue
 		}
-		f, ok := flagByName(name)
-		if !ok {
-			return nil, o, usagef("unknown flag --%s; see drawdown calc --help", name)
-		}
-		if f.field == model.FieldHoseFittings && vals[f.field] != "" {
-			value = vals[f.field] + "," + value
-		}
-		vals[f.field] = value
 	}
 	return vals, o, nil
 }
 
 func calcUsage(w io.Writer) {
-	fmt.Fprintln(w, "usage: drawdown calc [flags]   (every value accepts a unit suffix: 25mm, 1in, 3/4 in, 40ft, 15C, 59F, 98.2kPa, 29.6inHg)")
-	fmt.Fprintln(w, "  --json                 print one JSON object (SI units, unit in each key)")
-	fmt.Fprintln(w, "  --units si|us          units for text output and for bare numbers [si]")
-	fmt.Fprintln(w, "  --curve                with a tank, print the drain curve as a table")
-	fmt.Fprintln(w, "  --outlet-submerged     the hose end sits below a receiving surface (--drop is to that surface)")
-	fmt.Fprintln(w, "  --hose ID              a hose size from `drawdown presets` (sets --hose-id)")
-	fmt.Fprintln(w, "  --tank-table FILE      CSV of level, volume for --tank table")
-	fmt.Fprintln(w, "  --tank-preset ID       a tank from `drawdown presets` (shape and sizes; flags given win)")
-	fmt.Fprintln(w, "  --receiver SHAPE       transfer into a receiving vessel (needs --tank); its sizes as")
-	fmt.Fprintln(w, "                         --receiver-diameter, -length, -width, -height (brim), -cone-height,")
-	fmt.Fprintln(w, "                         -side-slope; --receiver-floor (its floor above the source floor,")
-	fmt.Fprintln(w, "                         negative when lower) and --receiver-level (its level at the start)")
-	for _, f := range calcFlags {
-		fmt.Fprintf(w, "  --%-20s %s\n", f.name+" X", f.help)
-	}
+	fmt.Fprintln(w, "usage: drawdown calc [flags]")
+	fmt.Fprintln(w, "Computes one case without the screen. Every value accepts a unit suffix: 25mm, 1in,")
+	fmt.Fprintln(w, "3/4 in, 40ft, 15C, 59F, 98.2kPa, 29.6inHg; bare numbers are in the --units system.")
+	fmt.Fprintln(w, "A flag is given once (--fitting may repeat). Exit status 0, 2 for bad input (one line")
+	fmt.Fprintln(w, "naming the flag), 1 when a file cannot be read.")
+	fmt.Fprintln(w, "With --json: one object with \"schema\": \""+calcSchema+"\" (the number changes only")
+	fmt.Fprintln(w, "when a key is removed or changes meaning), SI units named in each key, numbers to", jsonDigits)
+	fmt.Fprintln(w, "significant figures; with a tank a \"drain\" object, with --curve its \"curve\" list.")
+	fmt.Fprintln(w)
+	writeFlagHelp(w, calcFlagDefs)
 }
 
 // buildInputs validates each given flag against its field (so that the
@@ -327,7 +305,7 @@ func runCalc(args []string, stdout, stderr io.Writer) int {
 	if o.json {
 		enc := json.NewEncoder(stdout)
 		enc.SetIndent("", "  ")
-		if err := enc.Encode(jsonOf(p)); err != nil {
+		if err := enc.Encode(jsonOf(p, o.curve)); err != nil {
 			fmt.Fprintln(stderr, "drawdown calc: "+err.Error())
 			return ExitError
 		}
@@ -350,13 +328,27 @@ func planError(p model.Plan) string {
 
 func oneLine(s string) string { return strings.Join(strings.Fields(s), " ") }
 
-// jsonNum rounds away float noise below 1e-12 relative and guarantees a
-// finite number (calc never returns NaN or Inf; this is the last guard).
+// calcSchema names the JSON document of `drawdown calc --json`, in its
+// "schema" key. The number after the slash changes only when a key is
+// removed or changes meaning; new keys may be added under the same number.
+const calcSchema = "drawdown-calc/1"
+
+// jsonDigits is the number of significant figures in the JSON numbers: far
+// more than any input is measured to (a tape reads 3 or 4 figures), few
+// enough that float noise never shows.
+const jsonDigits = 6
+
+// jsonNum rounds to jsonDigits significant figures and guarantees a finite
+// number (calc never returns NaN or Inf; this is the last guard).
 func jsonNum(v float64) float64 {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return 0
 	}
-	return v
+	r, err := strconv.ParseFloat(strconv.FormatFloat(v, 'g', jsonDigits, 64), 64)
+	if err != nil || r == 0 {
+		return 0 // also turns -0 into 0
+	}
+	return r
 }
 
 type jsonWarning struct {
@@ -365,25 +357,30 @@ type jsonWarning struct {
 }
 
 type jsonDrain struct {
-	TimeS            float64  `json:"time_s"`
-	TimeLowS         float64  `json:"time_low_s"`
-	TimeHighS        float64  `json:"time_high_s"`
-	VolumeM3         float64  `json:"volume_m3"`
-	StopLevelM       float64  `json:"stop_level_m"`
-	StopReason       string   `json:"stop_reason"`
-	ResidualM3       float64  `json:"residual_m3"`
-	CrestLimitLevelM *float64 `json:"crest_limit_level_m"`
-	StartFlowM3S     float64  `json:"start_flow_m3_s"`
-	ReceiverLevelM   *float64 `json:"receiver_level_m,omitempty"`
-	TargetLevelM     float64  `json:"target_level_m"`
-	Curve            []struct {
-		TimeS  float64 `json:"time_s"`
-		LevelM float64 `json:"level_m"`
-		FlowM3 float64 `json:"flow_m3_s"`
-	} `json:"curve,omitempty"`
+	TimeS            float64     `json:"time_s"`
+	TimeLowS         float64     `json:"time_low_s"`
+	TimeHighS        float64     `json:"time_high_s"`
+	VolumeM3         float64     `json:"volume_m3"`
+	StopLevelM       float64     `json:"stop_level_m"`
+	StopReason       string      `json:"stop_reason"`
+	ResidualM3       float64     `json:"residual_m3"`
+	CrestLimitLevelM *float64    `json:"crest_limit_level_m"`
+	StartFlowM3S     float64     `json:"start_flow_m3_s"`
+	ReceiverLevelM   *float64    `json:"receiver_level_m,omitempty"`
+	TargetLevelM     float64     `json:"target_level_m"`
+	Curve            []jsonPoint `json:"curve,omitempty"`
+}
+
+// jsonPoint is one point of the drain curve (with --curve).
+type jsonPoint struct {
+	TimeS          float64  `json:"time_s"`
+	LevelM         float64  `json:"level_m"`
+	FlowM3S        float64  `json:"flow_m3_s"`
+	ReceiverLevelM *float64 `json:"receiver_level_m,omitempty"`
 }
 
 type jsonResult struct {
+	Schema               string        `json:"schema"`
 	Verdict              string        `json:"verdict"`
 	Liquid               string        `json:"liquid"`
 	TemperatureK         float64       `json:"temperature_k"`
@@ -415,10 +412,13 @@ type jsonResult struct {
 	Drain                *jsonDrain    `json:"drain,omitempty"`
 }
 
-func jsonOf(p model.Plan) jsonResult {
+// jsonOf lays the plan out as the JSON document; curve adds the drain
+// curve.
+func jsonOf(p model.Plan, curve bool) jsonResult {
 	r := p.Result
 	s := p.Siphon
 	j := jsonResult{
+		Schema:               calcSchema,
 		Verdict:              r.Verdict.String(),
 		Liquid:               p.Liquid.ID,
 		TemperatureK:         jsonNum(float64(p.Temperature)),
@@ -470,6 +470,16 @@ func jsonOf(p model.Plan) jsonResult {
 		if p.Receiver != nil {
 			v := jsonNum(float64(d.ReceiverLevel))
 			jd.ReceiverLevelM = &v
+		}
+		if curve {
+			for _, pt := range d.Curve {
+				jp := jsonPoint{TimeS: jsonNum(float64(pt.Time)), LevelM: jsonNum(float64(pt.Level)), FlowM3S: jsonNum(float64(pt.Flow))}
+				if p.Receiver != nil {
+					v := jsonNum(float64(pt.ReceiverLevel))
+					jp.ReceiverLevelM = &v
+				}
+				jd.Curve = append(jd.Curve, jp)
+			}
 		}
 		j.Drain = jd
 	}

@@ -20,10 +20,23 @@ func loadCatalogue(warn io.Writer) *presets.Catalogue {
 	return cat
 }
 
+const presetsHelp = `usage: drawdown presets
+Lists the catalogue: liquids (with the basis and source of each property), hose materials
+and sizes, fittings with their loss coefficients K, priming methods and tank templates,
+each with its source. The IDs shown are what the calc flags and the screen's pickers take.
+User presets in $XDG_CONFIG_HOME/drawdown/presets.toml (~/.config/drawdown/presets.toml)
+are merged in; a bad user file is named on stderr and the built-in catalogue is used.
+`
+
 func runPresets(args []string, stdout, stderr io.Writer) int {
-	if len(args) > 0 {
-		fmt.Fprintf(stderr, "drawdown presets: takes no arguments (got %q)\n", args[0])
+	pf, err := parseFlags("presets", args, nil, 0)
+	if err != nil {
+		fmt.Fprintln(stderr, "drawdown presets: "+err.Error())
 		return ExitUsage
+	}
+	if pf.help {
+		fmt.Fprint(stdout, presetsHelp)
+		return ExitOK
 	}
 	if err := loadCatalogue(stderr).WriteListing(stdout); err != nil {
 		fmt.Fprintf(stderr, "drawdown presets: %v\n", err)

@@ -13,43 +13,47 @@ import (
 	"drawdown/model/record"
 )
 
+// reportFlagDefs are the flags of `drawdown report`.
+var reportFlagDefs = []flagDef{
+	{name: "out", arg: "DIR", path: "dir", help: "write the record and the readings CSV into DIR [beside the job file]"},
+	{name: "stdout", help: "print the record (Markdown) on standard output instead; no files written"},
+}
+
+const reportHelp = `usage: drawdown report JOB [--out DIR] [--stdout]
+Writes the job record (Markdown) and its readings CSV as <job>-record.md and
+<job>-readings.csv beside the job file, or into DIR, and prints their paths. JOB is a job
+file, or the name of a job in the jobs folder ($DRAWDOWN_HOME/jobs). An existing record is
+replaced whole (written to a temporary file, then renamed).
+
+`
+
+// reportNow is the record's time (a variable so that the golden test can fix
+// it).
+var reportNow = time.Now
+
 // runReport writes the job record: `drawdown report JOB [--out DIR]`. JOB
 // is a job file path, or the name of a job in the jobs folder. The record
 // (Markdown) and the readings CSV are written atomically into DIR (default:
-// the current directory) as <job>-record.md and <job>-readings.csv; the
+// the folder of the job file) as <job>-record.md and <job>-readings.csv; the
 // paths are printed. With --stdout the Markdown goes to standard output
 // instead.
 func runReport(args []string, stdout, stderr io.Writer) int {
-	var job, out string
-	toStdout := false
-	for i := 0; i < len(args); i++ {
-		a := args[i]
-		switch {
-		case a == "--stdout":
-			toStdout = true
-		case a == "--out" || a == "-out":
-			if i+1 >= len(args) {
-				fmt.Fprintln(stderr, "drawdown report: --out needs a folder")
-				return ExitUsage
-			}
-			i++
-			out = args[i]
-		case strings.HasPrefix(a, "--out="):
-			out = strings.TrimPrefix(a, "--out=")
-		case strings.HasPrefix(a, "-"):
-			fmt.Fprintf(stderr, "drawdown report: unknown flag %s; usage: drawdown report JOB [--out DIR] [--stdout]\n", a)
-			return ExitUsage
-		case job == "":
-			job = a
-		default:
-			fmt.Fprintf(stderr, "drawdown report: one job at a time (got %q and %q)\n", job, a)
-			return ExitUsage
-		}
+	pf, err := parseFlags("report", args, reportFlagDefs, 1)
+	if err != nil {
+		fmt.Fprintln(stderr, "drawdown report: "+err.Error())
+		return ExitUsage
 	}
-	if job == "" {
+	if pf.help {
+		fmt.Fprint(stdout, reportHelp)
+		writeFlagHelp(stdout, reportFlagDefs)
+		return ExitOK
+	}
+	out, toStdout := pf.get("out"), pf.has("stdout")
+	if len(pf.positional) == 0 {
 		fmt.Fprintln(stderr, "drawdown report: which job? usage: drawdown report JOB [--out DIR] [--stdout] (JOB is a file or a job name)")
 		return ExitUsage
 	}
+	job := pf.positional[0]
 	path, err := findJob(job)
 	if err != nil {
 		fmt.Fprintln(stderr, "drawdown report: "+err.Error())
@@ -61,7 +65,7 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		return ExitError
 	}
 	cat := loadCatalogue(stderr)
-	in := record.Input{Job: j, Plan: model.Compute(j, cat), Now: time.Now()}
+	in := record.Input{Job: j, Plan: model.Compute(j, cat), Now: reportNow()}
 	var md, csv bytes.Buffer
 	if err := record.Write(&md, in); err != nil {
 		fmt.Fprintln(stderr, "drawdown report: "+err.Error())
@@ -76,7 +80,7 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 		return ExitError
 	}
 	if out == "" {
-		out = "."
+		out = filepath.Dir(path)
 	}
 	base := strings.TrimSuffix(filepath.Base(path), ".json")
 	for _, f := range []struct {

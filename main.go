@@ -4,7 +4,10 @@
 //	drawdown                 the terminal screen, on the last job or the demo job
 //	drawdown calc [flags]    one case without the screen (--json for JSON)
 //	drawdown presets         the built-in catalogue
-//	drawdown report JOB      the job record
+//	drawdown report JOB      the job record, beside the job file
+//	drawdown help [COMMAND]  help; every command also answers -h and --help
+//	drawdown version         the version and VCS revision (also --version)
+//	drawdown completion SH   a completion script for bash, zsh or fish
 //
 // The command line lives in this package, one file per command (cmd_*.go);
 // each turns its flags into model inputs and lays out what model and its
@@ -21,6 +24,7 @@ import (
 	"syscall"
 
 	tea "charm.land/bubbletea/v2"
+	"github.com/charmbracelet/x/term"
 
 	"drawdown/presets"
 	"drawdown/tui"
@@ -46,43 +50,109 @@ func run(args []string, stdout, stderr io.Writer) int {
 			return runPresets(args[1:], stdout, stderr)
 		case "report":
 			return runReport(args[1:], stdout, stderr)
-		case "-h", "--help", "help":
+		case "version", "--version":
+			return runVersion(args[1:], stdout, stderr)
+		case "completion":
+			return runCompletion(args[1:], stdout, stderr)
+		case "__complete": // hidden: the completion scripts call it
+			return runComplete(args[1:], stdout, stderr)
+		case "help":
+			return runHelp(args[1:], stdout, stderr)
+		case "-h", "--help":
 			fmt.Fprint(stdout, usage)
 			return ExitOK
 		}
 		fmt.Fprintf(stderr, "drawdown: unknown command %q\n%s", args[0], usage)
 		return ExitUsage
 	}
-	if t := os.Getenv("TERM"); t == "dumb" || t == "" && !isTerminal(os.Stdout) {
-		fmt.Fprint(stderr, dumbMessage)
-		return 1
+	if msg := noScreen(isTerminal(os.Stdin), isTerminal(os.Stdout), os.Getenv("TERM")); msg != "" {
+		fmt.Fprintln(stderr, msg)
+		return ExitUsage
 	}
 	return runScreen(stderr)
 }
 
+// runHelp is `drawdown help [COMMAND]`: the top-level usage, or that
+// command's own help (every command answers --help).
+func runHelp(args []string, stdout, stderr io.Writer) int {
+	switch {
+	case len(args) == 0:
+		fmt.Fprint(stdout, usage)
+		return ExitOK
+	case len(args) > 1:
+		fmt.Fprintf(stderr, "drawdown help: one command at a time (got %q)\n", strings.Join(args, " "))
+		return ExitUsage
+	case args[0] == "help" || args[0] == "-h" || args[0] == "--help":
+		fmt.Fprint(stdout, usage)
+		return ExitOK
+	}
+	for _, c := range commands() {
+		if c.value == args[0] {
+			return run([]string{args[0], "--help"}, stdout, stderr)
+		}
+	}
+	fmt.Fprintf(stderr, "drawdown help: %q is not a command; the commands are %s\n", args[0], commandList())
+	return ExitUsage
+}
+
+func commandList() string {
+	var names []string
+	for _, c := range commands() {
+		names = append(names, c.value)
+	}
+	return strings.Join(names, ", ")
+}
+
+// usage is the top-level help. Its "  drawdown NAME" lines are the list of
+// commands that `help` and shell completion use.
 const usage = `drawdown — plan, run and record a siphon drain
 
 usage:
-  drawdown                 open the planning screen (last job, or the demo job)
-  drawdown calc [flags]    compute one case without the screen; --json for JSON
-  drawdown presets         list the built-in liquids, hoses, fittings and tanks with sources
-  drawdown report JOB      write the job record (Markdown) and its readings CSV
+  drawdown                   open the planning screen (last job, or the demo job)
+  drawdown calc [flags]      compute one case without the screen; --json for JSON
+  drawdown presets           list the built-in liquids, hoses, fittings and tanks with sources
+  drawdown report JOB        write the job record (Markdown) and its readings CSV beside the job
+  drawdown help [COMMAND]    this help, or a command's own (also: drawdown COMMAND --help)
+  drawdown version           the version and revision (also: drawdown --version)
+  drawdown completion SHELL  print a completion script for bash, zsh or fish
+
+environment:
+  DRAWDOWN_HOME      the data folder (jobs, last job); overrides XDG_DATA_HOME
+  XDG_DATA_HOME      the data folder is $XDG_DATA_HOME/drawdown [~/.local/share/drawdown]
+  XDG_CONFIG_HOME    user presets are read from $XDG_CONFIG_HOME/drawdown/presets.toml
+                     [~/.config/drawdown/presets.toml]
+  NO_COLOR           set to anything: the screen draws without colour (every state
+                     also has a word or a mark)
+  TERM               the terminal type; the screen needs one that moves the cursor (not dumb)
+
+exit status: 0 done, 1 a file could not be read or written, 2 bad input (one line naming
+the flag) or no terminal for the screen.
 
 drawdown plans and records; it does not authorise a discharge or an entry. Local codes,
 permits and licensed practice govern.
 `
 
-const dumbMessage = `drawdown: this terminal cannot move the cursor (TERM=dumb), and the
-planning screen needs one that can (xterm, tmux, screen, a Linux console, an
-SSH client). Set TERM to your terminal's type, or work without the screen:
-  drawdown calc --hose-id 25mm --hose-length 10m --lift 1m --drop 2m
-  drawdown calc --help
-`
-
-func isTerminal(f *os.File) bool {
-	fi, err := f.Stat()
-	return err == nil && fi.Mode()&os.ModeCharDevice != 0
+// noScreen says why the planning screen cannot start, in one line that
+// blames the right cause and says what to do instead; "" when it can.
+// stdin and stdout tell whether each is a terminal; termType is $TERM.
+func noScreen(stdin, stdout bool, termType string) string {
+	const calc = "for results without the screen use drawdown calc (drawdown calc --help)"
+	switch {
+	case !stdin && !stdout:
+		return "drawdown: the planning screen needs a terminal, and neither input nor output is one (over ssh, use ssh -t); " + calc
+	case !stdin:
+		return "drawdown: the planning screen needs a terminal, and standard input is not one (over ssh, use ssh -t; no input redirect); " + calc
+	case !stdout:
+		return "drawdown: standard output is not a terminal (piped or redirected to a file), so the planning screen is not started; " + calc
+	case termType == "dumb":
+		return "drawdown: this terminal cannot move the cursor (TERM=dumb); set TERM to your terminal's type (e.g. xterm-256color), or " + calc
+	}
+	return ""
 }
+
+// isTerminal reports whether f is a terminal (a character device such as
+// /dev/null is not).
+func isTerminal(f *os.File) bool { return term.IsTerminal(f.Fd()) }
 
 // runScreen runs the planning screen. Every change is saved while it runs;
 // on SIGHUP (the SSH link dropped) or SIGTERM the screen is told to stop and
