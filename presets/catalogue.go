@@ -21,6 +21,7 @@ type Catalogue struct {
 	tanks     []TankTemplate
 	priming   []PrimingMethod
 	aids      []PrimingAid
+	series    []SizeSeries // built in only
 }
 
 //go:embed catalogue.toml
@@ -35,6 +36,18 @@ var embedded = sync.OnceValue(func() *Catalogue {
 	}
 	return c
 })
+
+// embeddedSeries is the size series, computed once and never changed.
+var embeddedSeries = sync.OnceValue(builtinSeries)
+
+func cloneSeries(in []SizeSeries) []SizeSeries {
+	out := make([]SizeSeries, len(in))
+	for i, s := range in {
+		out[i] = s
+		out[i].Sizes = cloneSizes(s.Sizes)
+	}
+	return out
+}
 
 // Builtin returns a new catalogue of the built-in entries: the liquids
 // defined in Go (their correlations) and the hoses, materials, fittings,
@@ -53,6 +66,7 @@ func Builtin() *Catalogue {
 		tanks:     slices.Clone(e.tanks),
 		priming:   slices.Clone(e.priming),
 		aids:      slices.Clone(e.aids),
+		series:    cloneSeries(embeddedSeries()),
 	}
 	for i := range c.tanks {
 		c.tanks[i].Sizes = slices.Clone(c.tanks[i].Sizes)
@@ -236,6 +250,7 @@ func (c *Catalogue) Merge(u *Catalogue) *Catalogue {
 		tanks:     mergeByID(c.tanks, u.tanks, func(t TankTemplate) string { return t.ID }),
 		priming:   mergeByID(c.priming, u.priming, func(m PrimingMethod) string { return m.ID }),
 		aids:      mergeByID(c.aids, u.aids, func(a PrimingAid) string { return a.ID }),
+		series:    cloneSeries(c.series),
 	}
 }
 

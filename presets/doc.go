@@ -16,6 +16,12 @@
 //     diameters (Hose), fittings (Fitting) with loss coefficients and where
 //     they sit, tank templates (TankTemplate) for the shapes calc supports,
 //     and priming methods and aids.
+//   - Size series (SizeSeries, Catalogue.Series, Catalogue.Bore): steel
+//     pipe schedules 40 and 80 (ASME B36.10M/B36.19M), PVC schedules 40
+//     and 80 (ASTM D1785), PE pipe SDR 11 and 17 (ISO 4427-2) and suction
+//     and rubber hose (EN ISO 1307), each size with its bore and the band
+//     its standard's tolerances allow; BoreHelp is the field help that goes
+//     with them ("enter the bore").
 //   - The catalogue loader for the screen and the command line alike
 //     (Load: the built-in catalogue with the user preset file laid over
 //     it), the user file parser (LoadUser, UserFile) and the listing

@@ -20,7 +20,7 @@ const listingWidth = 79
 func (c *Catalogue) WriteListing(w io.Writer) error {
 	bw := bufio.NewWriter(w)
 	lw := &listWriter{w: bw}
-	for _, section := range []func(*listWriter){c.listLiquids, c.listMaterials, c.listHoses, c.listFittings,
+	for _, section := range []func(*listWriter){c.listLiquids, c.listMaterials, c.listHoses, c.listSeries, c.listFittings,
 		c.listTanks, c.listPriming, c.listAids} {
 		section(lw)
 	}
@@ -107,6 +107,33 @@ func (c *Catalogue) listHoses(lw *listWriter) {
 		}
 	}
 }
+
+func (c *Catalogue) listSeries(lw *listWriter) {
+	lw.heading("SIZE SERIES", BoreHelp()+" Below, pipe and hose by nominal size with the bore to enter "+
+		"and, in brackets, the bores the standard's tolerances allow.")
+	for _, sr := range c.series {
+		lw.entry(sr.ID, sr.Name)
+		lw.field("standard", sr.Standard)
+		lw.field("bore", sr.Method)
+		for _, n := range sr.Sizes {
+			t := fmt.Sprintf("bore %.1f mm (%.1f to %.1f)", float64(n.Bore)*1e3, float64(n.BoreLow)*1e3, float64(n.BoreHigh)*1e3)
+			if n.OD > 0 {
+				t += fmt.Sprintf("; OD %.1f mm, wall %s mm", float64(n.OD)*1e3, mm2(n.Wall))
+			}
+			if len(n.Aliases) > 0 {
+				t += "; also " + strings.Join(n.Aliases, ", ")
+			}
+			lw.field(n.Nominal, t)
+		}
+		lw.field("source", sr.Source)
+		if sr.Note != "" {
+			lw.field("note", sr.Note)
+		}
+	}
+}
+
+// mm2 is a length in millimetres to 0.01 mm, trailing zeros dropped.
+func mm2(l calc.Length) string { return gnum(math.Round(float64(l)*1e5) / 100) }
 
 func (c *Catalogue) listFittings(lw *listWriter) {
 	lw.heading("FITTINGS", "Loss coefficient K, central (low to high). n·f_T values follow Crane "+
