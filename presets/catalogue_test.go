@@ -43,7 +43,7 @@ func TestRequiredIDs(t *testing.T) {
 			t.Errorf("hose %q missing", id)
 		}
 	}
-	for _, id := range []string{"rubber-smooth", "pvc-smooth", "suction-helix", "layflat", "pvc-pipe", "steel", "galvanised"} {
+	for _, id := range []string{"rubber-smooth", "pvc-smooth", "suction-smooth", "suction-corrugated", "lay-flat", "pvc-pipe", "steel", "galvanised"} {
 		if _, ok := c.Material(id); !ok {
 			t.Errorf("material %q missing", id)
 		}
@@ -255,8 +255,9 @@ func TestRoughnessValues(t *testing.T) {
 		{"rubber-smooth", 0.01, 0.006, 0.07, "Cengel & Cimbala Table 8-2 (attribution from memory); Neutrium 0.006-0.07"},
 		{"pvc-smooth", 0.0015, 0, 0.007, "Munson Table 8.1 (0); Neutrium/caetool 0.0015-0.007"},
 		{"pvc-pipe", 0.0015, 0, 0.007, "Munson Table 8.1 (0); Neutrium/caetool 0.0015-0.007"},
-		{"suction-helix", 1.0, 0.3, 4.0, "Neutrium wire-reinforced rubber 0.3-4; Strickler from n = 0.015 (from memory)"},
-		{"layflat", 0.03, 0.001, 0.09, "fire-service C coefficients converted (hydraulics note §3, computed)"},
+		{"suction-smooth", 0.01, 0.0015, 0.07, "Munson Table 8.1 PVC 0.0015; Neutrium smooth rubber tubing 0.07; Cengel Table 8-2 0.01 (attribution from memory)"},
+		{"suction-corrugated", 1.0, 0.3, 4.0, "Neutrium wire-reinforced rubber 0.3-4; Strickler from n = 0.015 (from memory)"},
+		{"lay-flat", 0.03, 0.001, 0.09, "fire-service C coefficients converted (hydraulics note §3, computed)"},
 	}
 	for _, k := range cases {
 		m, ok := c.Material(k.id)
@@ -272,7 +273,7 @@ func TestRoughnessValues(t *testing.T) {
 			}
 		}
 	}
-	lf, _ := c.Material("layflat")
+	lf, _ := c.Material("lay-flat")
 	if !lf.Collapses || !strings.Contains(lf.Note, "Not for siphons") {
 		t.Error("lay-flat hose must be marked as collapsing under suction, not for siphons")
 	}

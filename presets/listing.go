@@ -82,6 +82,7 @@ func (c *Catalogue) listMaterials(lw *listWriter) {
 	lw.heading("HOSE MATERIALS", "Absolute roughness ε, central value and published range.")
 	for _, m := range c.materials {
 		lw.entry(m.ID, m.Name)
+		lw.aliases(m.Aliases)
 		lw.field("roughness", fmt.Sprintf("%s mm (%s to %s mm)", mmText(m.Roughness), mmText(m.RoughnessLow), mmText(m.RoughnessHigh)))
 		if m.Collapses {
 			lw.field("WARNING", "collapses under suction: not for siphons")
@@ -97,7 +98,11 @@ func (c *Catalogue) listMaterials(lw *listWriter) {
 func (c *Catalogue) listHoses(lw *listWriter) {
 	lw.heading("HOSE SIZES", "Inside diameters; check the actual bore of your hose.")
 	for _, h := range c.hoses {
-		lw.line(fmt.Sprintf("  %-9s %s, %.2f in", h.ID, h.Name+mmSuffix(h), float64(h.Diameter)/0.0254))
+		also := ""
+		if len(h.Aliases) > 0 {
+			also = "; also " + strings.Join(h.Aliases, ", ")
+		}
+		lw.line(fmt.Sprintf("  %-9s %s, %.2f in%s", h.ID, h.Name+mmSuffix(h), float64(h.Diameter)/0.0254, also))
 	}
 	srcs := map[string]bool{}
 	for _, h := range c.hoses {
@@ -140,6 +145,7 @@ func (c *Catalogue) listFittings(lw *listWriter) {
 		"TP-410 and are shown for a 25 mm and a 50 mm hose. [memory] marks a value from memory.")
 	for _, f := range c.fittings {
 		lw.entry(f.ID, f.Name)
+		lw.aliases(f.Aliases)
 		var k string
 		if f.PerFT {
 			a, b := f.KAt(0.025), f.KAt(0.050)
@@ -250,6 +256,13 @@ func (lw *listWriter) field(label, text string) {
 	}
 	if len(lines) == 0 {
 		lw.line(fmt.Sprintf("    %-12s", label))
+	}
+}
+
+// aliases lists the other IDs an entry is found by.
+func (lw *listWriter) aliases(a []string) {
+	if len(a) > 0 {
+		lw.field("also", strings.Join(a, ", "))
 	}
 }
 

@@ -61,6 +61,7 @@ type tableDoc struct {
 
 type materialDoc struct {
 	ID        string   `toml:"id"`
+	Aliases   []string `toml:"aliases"`
 	Name      string   `toml:"name"`
 	Rough     *float64 `toml:"roughness_mm"`
 	RoughLow  *float64 `toml:"roughness_low_mm"`
@@ -72,6 +73,7 @@ type materialDoc struct {
 
 type hoseDoc struct {
 	ID       string   `toml:"id"`
+	Aliases  []string `toml:"aliases"`
 	Name     string   `toml:"name"`
 	Diameter *float64 `toml:"inside_diameter_mm"`
 	Series   string   `toml:"series"`
@@ -80,6 +82,7 @@ type hoseDoc struct {
 
 type fittingDoc struct {
 	ID         string   `toml:"id"`
+	Aliases    []string `toml:"aliases"`
 	Name       string   `toml:"name"`
 	Where      string   `toml:"where"`
 	K          *float64 `toml:"k"`
