@@ -32,6 +32,9 @@ func TestAliases(t *testing.T) {
 		{"hose", "38", ""}, // a bare number names no unit
 		{"hose", "1.6in", ""},
 		{"hose", "dn50", ""},
+		{"fitting", "footvalve", "foot-valve"},
+		{"fitting", "Bell-Mouth", "entrance-bellmouth"},
+		{"fitting", "check-valve", "swing-check"},
 	}
 	for _, k := range cases {
 		var got string
@@ -45,6 +48,10 @@ func TestAliases(t *testing.T) {
 			var h Hose
 			h, ok = c.Hose(k.typed)
 			got = h.ID
+		case "fitting":
+			var f Fitting
+			f, ok = c.Fitting(k.typed)
+			got = f.ID
 		}
 		if ok != (k.want != "") || got != k.want {
 			t.Errorf("%s %q → %q, %v; want %q", k.kind, k.typed, got, ok, k.want)

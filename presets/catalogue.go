@@ -225,7 +225,9 @@ func (c *Catalogue) Materials() []Material {
 }
 
 // Hoses returns the hose sizes in catalogue order (a copy).
-func (c *Catalogue) Hoses() []Hose { return cloneAliased(c.hoses, func(h *Hose) *[]string { return &h.Aliases }) }
+func (c *Catalogue) Hoses() []Hose {
+	return cloneAliased(c.hoses, func(h *Hose) *[]string { return &h.Aliases })
+}
 
 // Fittings returns the fittings in catalogue order (a copy).
 func (c *Catalogue) Fittings() []Fitting {

@@ -96,7 +96,8 @@ func (c *Catalogue) listMaterials(lw *listWriter) {
 }
 
 func (c *Catalogue) listHoses(lw *listWriter) {
-	lw.heading("HOSE SIZES", "Inside diameters; check the actual bore of your hose.")
+	lw.heading("HOSE SIZES", "Inside diameters; check the actual bore of your hose. Other spellings "+
+		"of a size are accepted: 1.5in, 1 1/2 in or 1-1/2\" for 1-1/2in, 38 mm for 38mm.")
 	for _, h := range c.hoses {
 		also := ""
 		if len(h.Aliases) > 0 {
