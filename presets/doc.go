@@ -141,6 +141,12 @@
 //
 //	presets.toml:14: liquid "tank-wash" t_max_c: 300 °C is out of range; accepted 5 to 200 °C
 //
+// A file nested deeper than 64 levels (tables, arrays and dotted keys) or
+// with a key path over 1,024 characters is refused before it is decoded
+// (ErrTooDeep, ErrKeyPathTooLong): the TOML decoder's cost grows with the
+// square of the depth. An error line never repeats a long key path: it is
+// cut with an ellipsis.
+//
 // Load then returns the built-in catalogue alone with the error, so the
 // tool still starts. Load also refuses, with the built-in catalogue and an
 // error, a path that is a directory, named pipe, device or socket
