@@ -10,9 +10,9 @@ import (
 	"sync"
 )
 
-// Catalogue holds liquids, hose materials, hose sizes, fittings, tank
-// templates and priming methods and aids. A Catalogue is not changed after
-// it is built: Merge returns a new one. Lookups are safe for concurrent use.
+// Catalogue holds liquids, hose materials, hose sizes, size series,
+// fittings, intakes, tank templates and priming methods and aids. A
+// Catalogue is not changed after it is built: Merge returns a new one. Lookups are safe for concurrent use.
 type Catalogue struct {
 	liquids   []Liquid
 	materials []Material
@@ -21,6 +21,7 @@ type Catalogue struct {
 	tanks     []TankTemplate
 	priming   []PrimingMethod
 	aids      []PrimingAid
+	intakes   []Intake
 	series    []SizeSeries // built in only
 }
 
@@ -66,6 +67,7 @@ func Builtin() *Catalogue {
 		tanks:     slices.Clone(e.tanks),
 		priming:   slices.Clone(e.priming),
 		aids:      slices.Clone(e.aids),
+		intakes:   slices.Clone(e.intakes),
 		series:    cloneSeries(embeddedSeries()),
 	}
 	for i := range c.tanks {
@@ -290,7 +292,9 @@ func (c *Catalogue) Merge(u *Catalogue) *Catalogue {
 		tanks:   mergeByID(c.tanks, u.tanks, func(t TankTemplate) string { return t.ID }),
 		priming: mergeByID(c.priming, u.priming, func(m PrimingMethod) string { return m.ID }),
 		aids:    mergeByID(c.aids, u.aids, func(a PrimingAid) string { return a.ID }),
-		series:  cloneSeries(c.series),
+		intakes: keepAliases(mergeByID(c.intakes, u.intakes, func(in Intake) string { return in.ID }), c.intakes,
+			func(in *Intake) *[]string { return &in.Aliases }, func(in Intake) string { return in.ID }),
+		series: cloneSeries(c.series),
 	}
 }
 

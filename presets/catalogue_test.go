@@ -22,7 +22,7 @@ func TestEmbeddedCatalogueParses(t *testing.T) {
 		t.Fatal(err)
 	}
 	if len(c.materials) < 7 || len(c.hoses) != 22 || len(c.fittings) < 20 || len(c.tanks) < 10 ||
-		len(c.priming) != 7 || len(c.aids) < 3 || len(c.liquids) != 0 {
+		len(c.priming) != 7 || len(c.aids) < 3 || len(c.liquids) != 0 || len(c.intakes) != 7 {
 		t.Errorf("counts: %d materials, %d hoses, %d fittings, %d tanks, %d priming, %d aids, %d liquids",
 			len(c.materials), len(c.hoses), len(c.fittings), len(c.tanks), len(c.priming), len(c.aids), len(c.liquids))
 	}
@@ -113,6 +113,12 @@ func TestCatalogueWalk(t *testing.T) {
 			}
 			return out
 		}},
+		{"intake", func() (out []entry) {
+			for _, in := range c.Intakes() {
+				out = append(out, entry{in.ID, intakeFault(in)})
+			}
+			return out
+		}},
 		{"tank", func() (out []entry) {
 			for _, tk := range c.Tanks() {
 				out = append(out, entry{tk.ID, tankFault(tk)})
@@ -194,6 +200,21 @@ func fittingFault(f Fitting) string {
 		if f.Source == "" || !(k.Low <= k.Central && k.Central <= k.High) || k.Low < 0 || k.High > 100 {
 			return fmt.Sprintf("at %v: %+v", d, k)
 		}
+	}
+	return ""
+}
+
+func intakeFault(in Intake) string {
+	k := in.K
+	switch {
+	case in.Source == "" || in.KSource == "" || in.Name == "":
+		return "no source or name"
+	case !(k.Low <= k.Central && k.Central <= k.High) || k.Low < 0 || k.High > 100:
+		return fmt.Sprintf("K %+v", k)
+	case in.FaceDiameter(0.025) <= 0 || in.Kind != FloatingIntake && in.MouthHeight(0.025) <= 0:
+		return "no face or mouth"
+	case in.OpenRatio < 0 || in.OpenRatio > 1:
+		return fmt.Sprintf("open area %v", in.OpenRatio)
 	}
 	return ""
 }

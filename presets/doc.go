@@ -16,6 +16,11 @@
 //     diameters (Hose), fittings (Fitting) with loss coefficients and where
 //     they sit, tank templates (TankTemplate) for the shapes calc supports,
 //     and priming methods and aids.
+//   - Intakes (Intake, IntakeKind, DefaultIntake): bare end hung or on the
+//     floor, strainer, foot valve, low-level suction plate, board or raft,
+//     floating intake, each with its entrance K and the geometry the
+//     intake physics needs (face diameter, mouth height, open area,
+//     draw-down level, depth), sizes in millimetres plus hose bores.
 //   - Size series (SizeSeries, Catalogue.Series, Catalogue.Bore): steel
 //     pipe schedules 40 and 80 (ASME B36.10M/B36.19M), PVC schedules 40
 //     and 80 (ASTM D1785), PE pipe SDR 11 and 17 (ISO 4427-2) and suction
@@ -131,6 +136,23 @@
 //	# bottom), side-slope, height; sphere diameter
 //	confined_space = true
 //	source = "site drawing"
+//
+//	[[intake]]
+//	id = "sump-strainer"
+//	kind = "strainer"               # bare-hung, bare-floor, strainer, foot-valve,
+//	                                # suction-plate, board, floating
+//	k = 2.0                         # entrance K at the hose velocity (k_low,
+//	k_source = "maker's chart"      # k_high optional; k_source defaults to source)
+//	face_diameter_mm = 120          # or face_diameter_bores (default 1 bore)
+//	mouth_height_mm = 90            # top of the opening above the floor, or
+//	                                # mouth_height_bores (not for floating)
+//	open_area_ratio = 0.35          # optional, 0.01 to 1
+//	# draw_down_mm = 20             # suction-plate only: its rated level
+//	# depth_mm = 150                # floating only: depth below the surface
+//	source = "measured"
+//
+// Materials, hoses, fittings and intakes may list aliases = ["other-id"]:
+// other IDs they are found by.
 //
 // The file may also hold [[priming]] and [[priming_aid]] entries in the form
 // of catalogue.toml.

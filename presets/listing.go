@@ -21,7 +21,7 @@ func (c *Catalogue) WriteListing(w io.Writer) error {
 	bw := bufio.NewWriter(w)
 	lw := &listWriter{w: bw}
 	for _, section := range []func(*listWriter){c.listLiquids, c.listMaterials, c.listHoses, c.listSeries, c.listFittings,
-		c.listTanks, c.listPriming, c.listAids} {
+		c.listIntakes, c.listTanks, c.listPriming, c.listAids} {
 		section(lw)
 	}
 	lw.heading("CAUTION", "These values plan a job; they do not make it safe. Follow the site's "+
@@ -167,6 +167,58 @@ func (c *Catalogue) listFittings(lw *listWriter) {
 		lw.origin(f.Origin)
 	}
 	lw.line("  The exit loss (K = 1) is added by the calculation; do not list it.")
+}
+
+func (c *Catalogue) listIntakes(lw *listWriter) {
+	lw.heading("INTAKES", "How the hose end draws. K: entrance loss coefficient at the hose velocity, "+
+		"central (low to high). Sizes in bores scale with the hose's inside diameter. "+
+		"Default when none is chosen: "+DefaultIntake+". [memory] marks a value from memory.")
+	for _, in := range c.intakes {
+		lw.entry(in.ID, in.Name)
+		lw.aliases(in.Aliases)
+		k := kText(in.K)
+		if in.FromMemory {
+			k += " [memory]"
+		}
+		lw.field("K", k)
+		lw.field("face", sizeText(in.Face, in.FaceBores, "across"))
+		if in.Kind == FloatingIntake {
+			lw.field("depth", fmt.Sprintf("%s mm below the surface", mmText(in.Depth)))
+		} else {
+			lw.field("mouth", sizeText(in.Mouth, in.MouthBores, "above the floor (top of the opening)"))
+		}
+		if in.OpenRatio > 0 {
+			lw.field("open area", fmt.Sprintf("%s %% of the screen", gnum(in.OpenRatio*100)))
+		}
+		if in.Kind == SuctionPlate {
+			lw.field("draws to", fmt.Sprintf("%s mm above the floor (rated)", mmText(in.DrawDown)))
+		}
+		lw.field("K source", in.KSource)
+		lw.field("source", in.Source)
+		if in.Note != "" {
+			lw.field("note", in.Note)
+		}
+		lw.origin(in.Origin)
+	}
+}
+
+// sizeText words a size given as millimetres plus hose bores.
+func sizeText(l calc.Length, bores float64, what string) string {
+	var parts []string
+	if l > 0 {
+		parts = append(parts, mmText(l)+" mm")
+	}
+	if bores > 0 {
+		unit := "bores"
+		if bores == 1 {
+			unit = "bore"
+		}
+		parts = append(parts, gnum(bores)+" "+unit)
+	}
+	if len(parts) == 0 {
+		parts = append(parts, "0 mm")
+	}
+	return strings.Join(parts, " + ") + " " + what
 }
 
 func (c *Catalogue) listTanks(lw *listWriter) {

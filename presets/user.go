@@ -183,7 +183,11 @@ func (p *parser) build(doc *fileDoc) (*Catalogue, error) {
 	if c.fittings, err = decodeAll(p, "fitting", doc.Fitting, func(d fittingDoc) string { return d.ID }, p.fitting); err != nil {
 		return nil, err
 	}
+	if c.intakes, err = decodeAll(p, "intake", doc.Intake, func(d intakeDoc) string { return d.ID }, p.intake); err != nil {
+		return nil, err
+	}
 	for _, err := range []error{
+		aliasClash(p, "intake", c.intakes, func(in Intake) string { return in.ID }, func(in Intake) []string { return in.Aliases }),
 		aliasClash(p, "material", c.materials, func(m Material) string { return m.ID }, func(m Material) []string { return m.Aliases }),
 		aliasClash(p, "hose", c.hoses, func(h Hose) string { return h.ID }, func(h Hose) []string { return h.Aliases }),
 		aliasClash(p, "fitting", c.fittings, func(f Fitting) string { return f.ID }, func(f Fitting) []string { return f.Aliases }),
