@@ -113,7 +113,7 @@ func DemoJob() Job {
 	j.Inputs = map[FieldID]string{
 		FieldHoseID:          "38 mm",
 		FieldHoseLength:      "12 m",
-		FieldHoseMaterial:    "suction-helix",
+		FieldHoseMaterial:    "suction-corrugated",
 		FieldHoseFittings:    "strainer-basket, bend-90-r2",
 		FieldHoseCount:       "1",
 		FieldPriming:         string(PrimeHandPump),

@@ -301,7 +301,8 @@ func (f FieldSpec) ValidateChoice(text string, cat *presets.Catalogue) error {
 		return nil
 	}
 	for _, id := range ids {
-		if !hasChoice(choices, id) && !(f.ID == FieldLiquid && cat != nil && liquidKnown(cat, id)) {
+		if !hasChoice(choices, id) && !(cat != nil && (f.ID == FieldLiquid && liquidKnown(cat, id) ||
+			f.ID == FieldHoseMaterial && materialKnown(cat, id))) {
 			return &FieldError{ID: f.ID, Label: f.Label, Text: text, Detail: strconv.Quote(id) + " is not in the list", Accept: f.choiceText(cat), Err: ErrNotAChoice}
 		}
 	}
@@ -347,6 +348,13 @@ func (f FieldSpec) ChoiceID(text string, cat *presets.Catalogue) (string, bool) 
 // liquidKnown admits the catalogue's parametric liquids ("seawater:35").
 func liquidKnown(cat *presets.Catalogue, id string) bool {
 	_, ok := cat.Liquid(id)
+	return ok
+}
+
+// materialKnown accepts a material's old ID or other spelling (an alias in
+// the catalogue), so saved jobs keep loading.
+func materialKnown(cat *presets.Catalogue, id string) bool {
+	_, ok := cat.Material(id)
 	return ok
 }
 

@@ -10,9 +10,9 @@ import (
 	"sync"
 )
 
-// Catalogue holds liquids, hose materials, hose sizes, fittings, tank
-// templates and priming methods and aids. A Catalogue is not changed after
-// it is built: Merge returns a new one. Lookups are safe for concurrent use.
+// Catalogue holds liquids, hose materials, hose sizes, size series,
+// fittings, intakes, tank templates and priming methods and aids. A
+// Catalogue is not changed after it is built: Merge returns a new one. Lookups are safe for concurrent use.
 type Catalogue struct {
 	liquids   []Liquid
 	materials []Material
@@ -21,6 +21,8 @@ type Catalogue struct {
 	tanks     []TankTemplate
 	priming   []PrimingMethod
 	aids      []PrimingAid
+	intakes   []Intake
+	series    []SizeSeries // built in only
 }
 
 //go:embed catalogue.toml
@@ -35,6 +37,18 @@ var embedded = sync.OnceValue(func() *Catalogue {
 	}
 	return c
 })
+
+// embeddedSeries is the size series, computed once and never changed.
+var embeddedSeries = sync.OnceValue(builtinSeries)
+
+func cloneSeries(in []SizeSeries) []SizeSeries {
+	out := make([]SizeSeries, len(in))
+	for i, s := range in {
+		out[i] = s
+		out[i].Sizes = cloneSizes(s.Sizes)
+	}
+	return out
+}
 
 // Builtin returns a new catalogue of the built-in entries: the liquids
 // defined in Go (their correlations) and the hoses, materials, fittings,
@@ -53,6 +67,8 @@ func Builtin() *Catalogue {
 		tanks:     slices.Clone(e.tanks),
 		priming:   slices.Clone(e.priming),
 		aids:      slices.Clone(e.aids),
+		intakes:   slices.Clone(e.intakes),
+		series:    cloneSeries(embeddedSeries()),
 	}
 	for i := range c.tanks {
 		c.tanks[i].Sizes = slices.Clone(c.tanks[i].Sizes)
@@ -114,37 +130,58 @@ func parametricLiquid(id string) (Liquid, bool) {
 	return l, true
 }
 
-// Material returns the hose material with the given ID.
+// Material returns the hose material with the given ID or alias
+// (case-insensitive); the result carries its canonical ID. An old ID kept
+// as an alias (suction-helix, layflat) still finds its material, so saved
+// jobs load.
 func (c *Catalogue) Material(id string) (Material, bool) {
-	id = norm(id)
-	for _, m := range c.materials {
-		if m.ID == id {
-			return m, true
-		}
-	}
-	return Material{}, false
+	m, ok := findAliased(c.materials, norm(id), func(m Material) (string, []string) { return m.ID, m.Aliases })
+	m.Aliases = slices.Clone(m.Aliases)
+	return m, ok
 }
 
-// Hose returns the hose size with the given ID, e.g. "25mm" or "1-1/2in".
+// Hose returns the hose size with the given ID, e.g. "25mm" or "1-1/2in",
+// or an alias, or the same size in another spelling: "1.5in", "1 1/2 in",
+// `1-1/2"` and "38 mm" find the 1-1/2in and 38mm hoses.
 func (c *Catalogue) Hose(id string) (Hose, bool) {
 	id = norm(id)
-	for _, h := range c.hoses {
-		if h.ID == id {
-			return h, true
+	h, ok := findAliased(c.hoses, id, func(h Hose) (string, []string) { return h.ID, h.Aliases })
+	if !ok {
+		if v, u, parsed := parseSize(id); parsed && u != unitNone && u != unitDN {
+			for _, x := range c.hoses {
+				if xv, xu, ok2 := parseSize(x.ID); ok2 && xu == u && sameSize(v, u, xv, xu) {
+					h, ok = x, true
+					break
+				}
+			}
 		}
 	}
-	return Hose{}, false
+	h.Aliases = slices.Clone(h.Aliases)
+	return h, ok
 }
 
-// Fitting returns the fitting with the given ID.
+// Fitting returns the fitting with the given ID or alias.
 func (c *Catalogue) Fitting(id string) (Fitting, bool) {
-	id = norm(id)
-	for _, f := range c.fittings {
-		if f.ID == id {
-			return f, true
+	f, ok := findAliased(c.fittings, norm(id), func(f Fitting) (string, []string) { return f.ID, f.Aliases })
+	f.Aliases = slices.Clone(f.Aliases)
+	return f, ok
+}
+
+// findAliased returns the item whose ID is id, else the first whose aliases
+// hold it: an ID always wins over another entry's alias.
+func findAliased[T any](items []T, id string, names func(T) (string, []string)) (T, bool) {
+	for _, it := range items {
+		if n, _ := names(it); n == id {
+			return it, true
 		}
 	}
-	return Fitting{}, false
+	for _, it := range items {
+		if _, al := names(it); slices.Contains(al, id) {
+			return it, true
+		}
+	}
+	var zero T
+	return zero, false
 }
 
 // Tank returns the tank template with the given ID.
@@ -185,13 +222,29 @@ func (c *Catalogue) PrimingAid(id string) (PrimingAid, bool) {
 func (c *Catalogue) Liquids() []Liquid { return append([]Liquid(nil), c.liquids...) }
 
 // Materials returns the hose materials in catalogue order (a copy).
-func (c *Catalogue) Materials() []Material { return append([]Material(nil), c.materials...) }
+func (c *Catalogue) Materials() []Material {
+	return cloneAliased(c.materials, func(m *Material) *[]string { return &m.Aliases })
+}
 
 // Hoses returns the hose sizes in catalogue order (a copy).
-func (c *Catalogue) Hoses() []Hose { return append([]Hose(nil), c.hoses...) }
+func (c *Catalogue) Hoses() []Hose {
+	return cloneAliased(c.hoses, func(h *Hose) *[]string { return &h.Aliases })
+}
 
 // Fittings returns the fittings in catalogue order (a copy).
-func (c *Catalogue) Fittings() []Fitting { return append([]Fitting(nil), c.fittings...) }
+func (c *Catalogue) Fittings() []Fitting {
+	return cloneAliased(c.fittings, func(f *Fitting) *[]string { return &f.Aliases })
+}
+
+// cloneAliased copies items and each item's alias list.
+func cloneAliased[T any](items []T, aliases func(*T) *[]string) []T {
+	out := slices.Clone(items)
+	for i := range out {
+		a := aliases(&out[i])
+		*a = slices.Clone(*a)
+	}
+	return out
+}
 
 // Tanks returns the tank templates in catalogue order (a copy).
 func (c *Catalogue) Tanks() []TankTemplate {
@@ -229,14 +282,39 @@ func (c *Catalogue) Merge(u *Catalogue) *Catalogue {
 		u = &Catalogue{}
 	}
 	return &Catalogue{
-		liquids:   mergeByID(c.liquids, u.liquids, func(l Liquid) string { return l.ID }),
-		materials: mergeByID(c.materials, u.materials, func(m Material) string { return m.ID }),
-		hoses:     mergeByID(c.hoses, u.hoses, func(h Hose) string { return h.ID }),
-		fittings:  mergeByID(c.fittings, u.fittings, func(f Fitting) string { return f.ID }),
-		tanks:     mergeByID(c.tanks, u.tanks, func(t TankTemplate) string { return t.ID }),
-		priming:   mergeByID(c.priming, u.priming, func(m PrimingMethod) string { return m.ID }),
-		aids:      mergeByID(c.aids, u.aids, func(a PrimingAid) string { return a.ID }),
+		liquids: mergeByID(c.liquids, u.liquids, func(l Liquid) string { return l.ID }),
+		materials: keepAliases(mergeByID(c.materials, u.materials, func(m Material) string { return m.ID }), c.materials,
+			func(m *Material) *[]string { return &m.Aliases }, func(m Material) string { return m.ID }),
+		hoses: keepAliases(mergeByID(c.hoses, u.hoses, func(h Hose) string { return h.ID }), c.hoses,
+			func(h *Hose) *[]string { return &h.Aliases }, func(h Hose) string { return h.ID }),
+		fittings: keepAliases(mergeByID(c.fittings, u.fittings, func(f Fitting) string { return f.ID }), c.fittings,
+			func(f *Fitting) *[]string { return &f.Aliases }, func(f Fitting) string { return f.ID }),
+		tanks:   mergeByID(c.tanks, u.tanks, func(t TankTemplate) string { return t.ID }),
+		priming: mergeByID(c.priming, u.priming, func(m PrimingMethod) string { return m.ID }),
+		aids:    mergeByID(c.aids, u.aids, func(a PrimingAid) string { return a.ID }),
+		intakes: keepAliases(mergeByID(c.intakes, u.intakes, func(in Intake) string { return in.ID }), c.intakes,
+			func(in *Intake) *[]string { return &in.Aliases }, func(in Intake) string { return in.ID }),
+		series: cloneSeries(c.series),
 	}
+}
+
+// keepAliases gives a replaced entry the aliases of the entry it replaced
+// as well as its own, so an old ID that saved jobs use survives a user
+// override.
+func keepAliases[T any](merged, base []T, aliases func(*T) *[]string, id func(T) string) []T {
+	old := make(map[string][]string, len(base))
+	for i := range base {
+		old[id(base[i])] = *aliases(&base[i])
+	}
+	for i := range merged {
+		a := aliases(&merged[i])
+		for _, x := range old[id(merged[i])] {
+			if !slices.Contains(*a, x) {
+				*a = append(slices.Clone(*a), x)
+			}
+		}
+	}
+	return merged
 }
 
 func mergeByID[T any](base, over []T, id func(T) string) []T {

@@ -21,7 +21,7 @@ func TestEmbeddedCatalogueParses(t *testing.T) {
 		t.Fatal(err)
 	}
 	if len(c.materials) < 7 || len(c.hoses) != 22 || len(c.fittings) < 20 || len(c.tanks) < 10 ||
-		len(c.priming) != 7 || len(c.aids) < 3 || len(c.liquids) != 0 {
+		len(c.priming) != 7 || len(c.aids) < 3 || len(c.liquids) != 0 || len(c.intakes) != 7 {
 		t.Errorf("counts: %d materials, %d hoses, %d fittings, %d tanks, %d priming, %d aids, %d liquids",
 			len(c.materials), len(c.hoses), len(c.fittings), len(c.tanks), len(c.priming), len(c.aids), len(c.liquids))
 	}
@@ -42,7 +42,7 @@ func TestRequiredIDs(t *testing.T) {
 			t.Errorf("hose %q missing", id)
 		}
 	}
-	for _, id := range []string{"rubber-smooth", "pvc-smooth", "suction-helix", "layflat", "pvc-pipe", "steel", "galvanised"} {
+	for _, id := range []string{"rubber-smooth", "pvc-smooth", "suction-smooth", "suction-corrugated", "lay-flat", "pvc-pipe", "steel", "galvanised"} {
 		if _, ok := c.Material(id); !ok {
 			t.Errorf("material %q missing", id)
 		}
@@ -109,6 +109,12 @@ func TestCatalogueWalk(t *testing.T) {
 		{"fitting", func() (out []entry) {
 			for _, f := range c.Fittings() {
 				out = append(out, entry{f.ID, fittingFault(f)})
+			}
+			return out
+		}},
+		{"intake", func() (out []entry) {
+			for _, in := range c.Intakes() {
+				out = append(out, entry{in.ID, intakeFault(in)})
 			}
 			return out
 		}},
@@ -197,6 +203,21 @@ func fittingFault(f Fitting) string {
 	return ""
 }
 
+func intakeFault(in Intake) string {
+	k := in.K
+	switch {
+	case in.Source == "" || in.KSource == "" || in.Name == "":
+		return "no source or name"
+	case !(k.Low <= k.Central && k.Central <= k.High) || k.Low < 0 || k.High > 100:
+		return fmt.Sprintf("K %+v", k)
+	case in.FaceDiameter(0.025) <= 0 || in.Kind != FloatingIntake && in.MouthHeight(0.025) <= 0:
+		return "no face or mouth"
+	case in.OpenRatio < 0 || in.OpenRatio > 1:
+		return fmt.Sprintf("open area %v", in.OpenRatio)
+	}
+	return ""
+}
+
 func tankFault(tk TankTemplate) string {
 	if tk.Source == "" {
 		return "no source"
@@ -254,8 +275,9 @@ func TestRoughnessValues(t *testing.T) {
 		{"rubber-smooth", 0.01, 0.006, 0.07, "Cengel & Cimbala Table 8-2 (attribution from memory); Neutrium 0.006-0.07"},
 		{"pvc-smooth", 0.0015, 0, 0.007, "Munson Table 8.1 (0); Neutrium/caetool 0.0015-0.007"},
 		{"pvc-pipe", 0.0015, 0, 0.007, "Munson Table 8.1 (0); Neutrium/caetool 0.0015-0.007"},
-		{"suction-helix", 1.0, 0.3, 4.0, "Neutrium wire-reinforced rubber 0.3-4; Strickler from n = 0.015 (from memory)"},
-		{"layflat", 0.03, 0.001, 0.09, "fire-service C coefficients converted (hydraulics note §3, computed)"},
+		{"suction-smooth", 0.01, 0.0015, 0.07, "Munson Table 8.1 PVC 0.0015; Neutrium smooth rubber tubing 0.07; Cengel Table 8-2 0.01 (attribution from memory)"},
+		{"suction-corrugated", 1.0, 0.3, 4.0, "Neutrium wire-reinforced rubber 0.3-4; Strickler from n = 0.015 (from memory)"},
+		{"lay-flat", 0.03, 0.001, 0.09, "fire-service C coefficients converted (hydraulics note §3, computed)"},
 	}
 	for _, k := range cases {
 		m, ok := c.Material(k.id)
@@ -271,7 +293,7 @@ func TestRoughnessValues(t *testing.T) {
 			}
 		}
 	}
-	lf, _ := c.Material("layflat")
+	lf, _ := c.Material("lay-flat")
 	if !lf.Collapses || !strings.Contains(lf.Note, "Not for siphons") {
 		t.Error("lay-flat hose must be marked as collapsing under suction, not for siphons")
 	}

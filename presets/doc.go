@@ -16,6 +16,17 @@
 //     diameters (Hose), fittings (Fitting) with loss coefficients and where
 //     they sit, tank templates (TankTemplate) for the shapes calc supports,
 //     and priming methods and aids.
+//   - Intakes (Intake, IntakeKind, DefaultIntake): bare end hung or on the
+//     floor, strainer, foot valve, low-level suction plate, board or raft,
+//     floating intake, each with its entrance K and the geometry the
+//     intake physics needs (face diameter, mouth height, open area,
+//     draw-down level, depth), sizes in millimetres plus hose bores.
+//   - Size series (SizeSeries, Catalogue.Series, Catalogue.Bore): steel
+//     pipe schedules 40 and 80 (ASME B36.10M/B36.19M), PVC schedules 40
+//     and 80 (ASTM D1785), PE pipe SDR 11 and 17 (ISO 4427-2) and suction
+//     and rubber hose (EN ISO 1307), each size with its bore and the band
+//     its standard's tolerances allow; BoreHelp is the field help that goes
+//     with them ("enter the bore").
 //   - The catalogue loader for the screen and the command line alike
 //     (Load: the built-in catalogue with the user preset file laid over
 //     it), the user file parser (LoadUser, UserFile) and the listing
@@ -126,6 +137,23 @@
 //	confined_space = true
 //	source = "site drawing"
 //
+//	[[intake]]
+//	id = "sump-strainer"
+//	kind = "strainer"               # bare-hung, bare-floor, strainer, foot-valve,
+//	                                # suction-plate, board, floating
+//	k = 2.0                         # entrance K at the hose velocity (k_low,
+//	k_source = "maker's chart"      # k_high optional; k_source defaults to source)
+//	face_diameter_mm = 120          # or face_diameter_bores (default 1 bore)
+//	mouth_height_mm = 90            # top of the opening above the floor, or
+//	                                # mouth_height_bores (not for floating)
+//	open_area_ratio = 0.35          # optional, 0.01 to 1
+//	# draw_down_mm = 20             # suction-plate only: its rated level
+//	# depth_mm = 150                # floating only: depth below the surface
+//	source = "measured"
+//
+// Materials, hoses, fittings and intakes may list aliases = ["other-id"]:
+// other IDs they are found by.
+//
 // The file may also hold [[priming]] and [[priming_aid]] entries in the form
 // of catalogue.toml.
 //
@@ -134,6 +162,12 @@
 // example
 //
 //	presets.toml:14: liquid "tank-wash" t_max_c: 300 °C is out of range; accepted 5 to 200 °C
+//
+// A file nested deeper than 64 levels (tables, arrays and dotted keys) or
+// with a key path over 1,024 characters is refused before it is decoded
+// (ErrTooDeep, ErrKeyPathTooLong): the TOML decoder's cost grows with the
+// square of the depth. An error line never repeats a long key path: it is
+// cut with an ellipsis.
 //
 // Load then returns the built-in catalogue alone with the error, so the
 // tool still starts. Load also refuses, with the built-in catalogue and an

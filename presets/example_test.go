@@ -26,7 +26,7 @@ func ExampleCatalogue_Liquid() {
 	fmt.Println("NFPA 30 class:", diesel.Class)
 
 	hose, _ := c.Hose("1-1/2in")
-	wall, _ := c.Material("suction-helix")
+	wall, _ := c.Material("suction-corrugated")
 	fmt.Printf("%s: bore %.4f m, roughness %.1f mm (%.1f to %.1f)\n", hose.Name, float64(hose.Diameter),
 		float64(wall.Roughness)*1e3, float64(wall.RoughnessLow)*1e3, float64(wall.RoughnessHigh)*1e3)
 

@@ -9,8 +9,11 @@ import (
 
 // Material is a hose or pipe wall with its absolute roughness ε.
 type Material struct {
-	ID   string
-	Name string
+	ID string
+	// Aliases are other IDs the material is found by: old IDs kept so
+	// that saved jobs still load, and spellings a user would guess.
+	Aliases []string
+	Name    string
 	// Roughness is the central absolute roughness ε; RoughnessLow and
 	// RoughnessHigh bound the published range.
 	Roughness, RoughnessLow, RoughnessHigh calc.Length
@@ -25,6 +28,7 @@ type Material struct {
 // Hose is a common hose or pipe inside diameter, metric or inch series.
 type Hose struct {
 	ID       string      // e.g. "25mm", "1-1/2in"
+	Aliases  []string    // other IDs it is found by
 	Name     string      // e.g. "1½ in (38.1 mm)"
 	Diameter calc.Length // inside diameter, m
 	Series   string      // "metric" or "inch"
@@ -74,9 +78,10 @@ type KRange struct{ Central, Low, High float64 }
 
 // Fitting is a fitting or hose feature with its loss coefficient.
 type Fitting struct {
-	ID    string
-	Name  string
-	Where Location
+	ID      string
+	Aliases []string // other IDs it is found by
+	Name    string
+	Where   Location
 	// K is the loss coefficient. When PerFT is true its three values are
 	// multiples n of Crane's friction factor f_T, and KAt gives K = n·f_T(D)
 	// (Crane TP-410 method).

@@ -20,8 +20,8 @@ const listingWidth = 79
 func (c *Catalogue) WriteListing(w io.Writer) error {
 	bw := bufio.NewWriter(w)
 	lw := &listWriter{w: bw}
-	for _, section := range []func(*listWriter){c.listLiquids, c.listMaterials, c.listHoses, c.listFittings,
-		c.listTanks, c.listPriming, c.listAids} {
+	for _, section := range []func(*listWriter){c.listLiquids, c.listMaterials, c.listHoses, c.listSeries, c.listFittings,
+		c.listIntakes, c.listTanks, c.listPriming, c.listAids} {
 		section(lw)
 	}
 	lw.heading("CAUTION", "These values plan a job; they do not make it safe. Follow the site's "+
@@ -82,6 +82,7 @@ func (c *Catalogue) listMaterials(lw *listWriter) {
 	lw.heading("HOSE MATERIALS", "Absolute roughness ε, central value and published range.")
 	for _, m := range c.materials {
 		lw.entry(m.ID, m.Name)
+		lw.aliases(m.Aliases)
 		lw.field("roughness", fmt.Sprintf("%s mm (%s to %s mm)", mmText(m.Roughness), mmText(m.RoughnessLow), mmText(m.RoughnessHigh)))
 		if m.Collapses {
 			lw.field("WARNING", "collapses under suction: not for siphons")
@@ -95,9 +96,14 @@ func (c *Catalogue) listMaterials(lw *listWriter) {
 }
 
 func (c *Catalogue) listHoses(lw *listWriter) {
-	lw.heading("HOSE SIZES", "Inside diameters; check the actual bore of your hose.")
+	lw.heading("HOSE SIZES", "Inside diameters; check the actual bore of your hose. Other spellings "+
+		"of a size are accepted: 1.5in, 1 1/2 in or 1-1/2\" for 1-1/2in, 38 mm for 38mm.")
 	for _, h := range c.hoses {
-		lw.line(fmt.Sprintf("  %-9s %s, %.2f in", h.ID, h.Name+mmSuffix(h), float64(h.Diameter)/0.0254))
+		also := ""
+		if len(h.Aliases) > 0 {
+			also = "; also " + strings.Join(h.Aliases, ", ")
+		}
+		lw.line(fmt.Sprintf("  %-9s %s, %.2f in%s", h.ID, h.Name+mmSuffix(h), float64(h.Diameter)/0.0254, also))
 	}
 	srcs := map[string]bool{}
 	for _, h := range c.hoses {
@@ -108,11 +114,39 @@ func (c *Catalogue) listHoses(lw *listWriter) {
 	}
 }
 
+func (c *Catalogue) listSeries(lw *listWriter) {
+	lw.heading("SIZE SERIES", BoreHelp()+" Below, pipe and hose by nominal size with the bore to enter "+
+		"and, in brackets, the bores the standard's tolerances allow.")
+	for _, sr := range c.series {
+		lw.entry(sr.ID, sr.Name)
+		lw.field("standard", sr.Standard)
+		lw.field("bore", sr.Method)
+		for _, n := range sr.Sizes {
+			t := fmt.Sprintf("bore %.1f mm (%.1f to %.1f)", float64(n.Bore)*1e3, float64(n.BoreLow)*1e3, float64(n.BoreHigh)*1e3)
+			if n.OD > 0 {
+				t += fmt.Sprintf("; OD %.1f mm, wall %s mm", float64(n.OD)*1e3, mm2(n.Wall))
+			}
+			if len(n.Aliases) > 0 {
+				t += "; also " + strings.Join(n.Aliases, ", ")
+			}
+			lw.field(n.Nominal, t)
+		}
+		lw.field("source", sr.Source)
+		if sr.Note != "" {
+			lw.field("note", sr.Note)
+		}
+	}
+}
+
+// mm2 is a length in millimetres to 0.01 mm, trailing zeros dropped.
+func mm2(l calc.Length) string { return gnum(math.Round(float64(l)*1e5) / 100) }
+
 func (c *Catalogue) listFittings(lw *listWriter) {
 	lw.heading("FITTINGS", "Loss coefficient K, central (low to high). n·f_T values follow Crane "+
 		"TP-410 and are shown for a 25 mm and a 50 mm hose. [memory] marks a value from memory.")
 	for _, f := range c.fittings {
 		lw.entry(f.ID, f.Name)
+		lw.aliases(f.Aliases)
 		var k string
 		if f.PerFT {
 			a, b := f.KAt(0.025), f.KAt(0.050)
@@ -133,6 +167,58 @@ func (c *Catalogue) listFittings(lw *listWriter) {
 		lw.origin(f.Origin)
 	}
 	lw.line("  The exit loss (K = 1) is added by the calculation; do not list it.")
+}
+
+func (c *Catalogue) listIntakes(lw *listWriter) {
+	lw.heading("INTAKES", "How the hose end draws. K: entrance loss coefficient at the hose velocity, "+
+		"central (low to high). Sizes in bores scale with the hose's inside diameter. "+
+		"Default when none is chosen: "+DefaultIntake+". [memory] marks a value from memory.")
+	for _, in := range c.intakes {
+		lw.entry(in.ID, in.Name)
+		lw.aliases(in.Aliases)
+		k := kText(in.K)
+		if in.FromMemory {
+			k += " [memory]"
+		}
+		lw.field("K", k)
+		lw.field("face", sizeText(in.Face, in.FaceBores, "across"))
+		if in.Kind == FloatingIntake {
+			lw.field("depth", fmt.Sprintf("%s mm below the surface", mmText(in.Depth)))
+		} else {
+			lw.field("mouth", sizeText(in.Mouth, in.MouthBores, "above the floor (top of the opening)"))
+		}
+		if in.OpenRatio > 0 {
+			lw.field("open area", fmt.Sprintf("%s %% of the screen", gnum(in.OpenRatio*100)))
+		}
+		if in.Kind == SuctionPlate {
+			lw.field("draws to", fmt.Sprintf("%s mm above the floor (rated)", mmText(in.DrawDown)))
+		}
+		lw.field("K source", in.KSource)
+		lw.field("source", in.Source)
+		if in.Note != "" {
+			lw.field("note", in.Note)
+		}
+		lw.origin(in.Origin)
+	}
+}
+
+// sizeText words a size given as millimetres plus hose bores.
+func sizeText(l calc.Length, bores float64, what string) string {
+	var parts []string
+	if l > 0 {
+		parts = append(parts, mmText(l)+" mm")
+	}
+	if bores > 0 {
+		unit := "bores"
+		if bores == 1 {
+			unit = "bore"
+		}
+		parts = append(parts, gnum(bores)+" "+unit)
+	}
+	if len(parts) == 0 {
+		parts = append(parts, "0 mm")
+	}
+	return strings.Join(parts, " + ") + " " + what
 }
 
 func (c *Catalogue) listTanks(lw *listWriter) {
@@ -223,6 +309,13 @@ func (lw *listWriter) field(label, text string) {
 	}
 	if len(lines) == 0 {
 		lw.line(fmt.Sprintf("    %-12s", label))
+	}
+}
+
+// aliases lists the other IDs an entry is found by.
+func (lw *listWriter) aliases(a []string) {
+	if len(a) > 0 {
+		lw.field("also", strings.Join(a, ", "))
 	}
 }
 

@@ -7,6 +7,7 @@ import (
 	"regexp"
 	"strconv"
 	"strings"
+	"unicode/utf8"
 
 	"github.com/BurntSushi/toml"
 )
@@ -26,7 +27,9 @@ type ParseError struct {
 	Err   error  // what is wrong
 }
 
-// Error formats the error as "file:line: field: what is wrong".
+// Error formats the error as "file:line: field: what is wrong". A field
+// over 60 characters (a long key path) and a message over 200 are cut in
+// the middle with an ellipsis, so the line never repeats a whole key path.
 func (e *ParseError) Error() string {
 	var b strings.Builder
 	b.WriteString(e.File)
@@ -35,12 +38,30 @@ func (e *ParseError) Error() string {
 	}
 	b.WriteString(": ")
 	if e.Field != "" {
-		b.WriteString(e.Field + ": ")
+		b.WriteString(elide(e.Field, maxFieldText) + ": ")
 	}
 	if e.Err != nil {
-		b.WriteString(e.Err.Error())
+		b.WriteString(elide(e.Err.Error(), maxMessageText))
 	}
 	return b.String()
+}
+
+// Lengths, in characters, past which ParseError.Error cuts a field and a
+// message.
+const (
+	maxFieldText   = 60
+	maxMessageText = 200
+)
+
+// elide shortens s to max characters by cutting its middle with "…".
+func elide(s string, max int) string {
+	if utf8.RuneCountInString(s) <= max {
+		return s
+	}
+	r := []rune(s)
+	head := (max - 1) / 2
+	tail := max - 1 - head
+	return string(r[:head]) + "…" + string(r[len(r)-tail:])
 }
 
 // Unwrap returns the underlying error.
@@ -94,6 +115,10 @@ var tomlLineRe = regexp.MustCompile(`^toml: line (\d+) \(last key "([^"]*)"\): (
 func parse(src, file, origin string, base *Catalogue) (*Catalogue, error) {
 	p := &parser{file: file, origin: origin, lines: strings.Split(src, "\n"), base: base,
 		seen: map[string]map[string]bool{}}
+	// The decoder is quadratic in the nesting depth: bound it first.
+	if line, err := checkBounds(src); err != nil {
+		return nil, &ParseError{File: file, Line: line, Err: err}
+	}
 	var doc fileDoc
 	md, err := toml.Decode(src, &doc)
 	if err != nil {
@@ -157,6 +182,19 @@ func (p *parser) build(doc *fileDoc) (*Catalogue, error) {
 	}
 	if c.fittings, err = decodeAll(p, "fitting", doc.Fitting, func(d fittingDoc) string { return d.ID }, p.fitting); err != nil {
 		return nil, err
+	}
+	if c.intakes, err = decodeAll(p, "intake", doc.Intake, func(d intakeDoc) string { return d.ID }, p.intake); err != nil {
+		return nil, err
+	}
+	for _, err := range []error{
+		aliasClash(p, "intake", c.intakes, func(in Intake) string { return in.ID }, func(in Intake) []string { return in.Aliases }),
+		aliasClash(p, "material", c.materials, func(m Material) string { return m.ID }, func(m Material) []string { return m.Aliases }),
+		aliasClash(p, "hose", c.hoses, func(h Hose) string { return h.ID }, func(h Hose) []string { return h.Aliases }),
+		aliasClash(p, "fitting", c.fittings, func(f Fitting) string { return f.ID }, func(f Fitting) []string { return f.Aliases }),
+	} {
+		if err != nil {
+			return nil, err
+		}
 	}
 	if c.tanks, err = decodeAll(p, "tank", doc.Tank, func(d tankDoc) string { return d.ID }, p.tank); err != nil {
 		return nil, err

@@ -34,6 +34,50 @@ func (p *parser) checkID(section string, i int, id string) (string, error) {
 	return n, nil
 }
 
+// maxAliases bounds the aliases of one entry.
+const maxAliases = 8
+
+// aliases checks the other IDs an entry may be found by: each a usable
+// code, not the entry's own ID and not given twice in this file. Whether an
+// alias is another entry's ID is checked once the section is read
+// (aliasClash).
+func (p *parser) aliases(section string, i int, id string, list []string) ([]string, error) {
+	if len(list) > maxAliases {
+		return nil, p.errAt(section, i, id, "aliases", fmt.Errorf("%d aliases; give at most %d", len(list), maxAliases))
+	}
+	var out []string
+	for _, a := range list {
+		n := norm(a)
+		switch {
+		case !idRe.MatchString(n):
+			return nil, p.errAt(section, i, id, "aliases", fmt.Errorf("%q: use up to 40 letters, digits and . _ / - (no spaces)", a))
+		case n == id:
+			return nil, p.errAt(section, i, id, "aliases", fmt.Errorf("%q is the entry's own id", a))
+		case p.seen["alias:"+section][n]:
+			return nil, p.errAt(section, i, id, "aliases", fmt.Errorf("%q is an alias of another %s in this file", a, section))
+		}
+		if p.seen["alias:"+section] == nil {
+			p.seen["alias:"+section] = map[string]bool{}
+		}
+		p.seen["alias:"+section][n] = true
+		out = append(out, n)
+	}
+	return out, nil
+}
+
+// aliasClash reports an alias of one entry that is the ID of another entry
+// of the same section in this file.
+func aliasClash[T any](p *parser, section string, items []T, id func(T) string, aliases func(T) []string) error {
+	for i, it := range items {
+		for _, a := range aliases(it) {
+			if p.seen[section][a] {
+				return p.errAt(section, i, id(it), "aliases", fmt.Errorf("%q is the id of another %s in this file", a, section))
+			}
+		}
+	}
+	return nil
+}
+
 // needSource reports an entry without a source.
 func (p *parser) needSource(section string, i int, id, s string) error {
 	if strings.TrimSpace(s) == "" {

@@ -12,6 +12,10 @@ import (
 
 func (p *parser) material(i int, id string, d materialDoc) (Material, error) {
 	m := Material{ID: id, Name: orDefault(d.Name, id), Collapses: d.Collapses, Source: d.Source, Note: d.Note, Origin: p.origin}
+	var err error
+	if m.Aliases, err = p.aliases("material", i, id, d.Aliases); err != nil {
+		return m, err
+	}
 	if d.Rough == nil {
 		return m, p.errAt("material", i, id, "roughness_mm", errors.New("missing"))
 	}
@@ -39,6 +43,10 @@ func (p *parser) material(i int, id string, d materialDoc) (Material, error) {
 }
 
 func (p *parser) hose(i int, id string, d hoseDoc) (Hose, error) {
+	aliases, err := p.aliases("hose", i, id, d.Aliases)
+	if err != nil {
+		return Hose{}, err
+	}
 	if d.Diameter == nil {
 		return Hose{}, p.errAt("hose", i, id, "inside_diameter_mm", errors.New("missing"))
 	}
@@ -51,12 +59,16 @@ func (p *parser) hose(i int, id string, d hoseDoc) (Hose, error) {
 	if err := p.needSource("hose", i, id, d.Source); err != nil {
 		return Hose{}, err
 	}
-	return Hose{ID: id, Name: orDefault(d.Name, id), Diameter: calc.Length(*d.Diameter / 1000),
+	return Hose{ID: id, Aliases: aliases, Name: orDefault(d.Name, id), Diameter: calc.Length(*d.Diameter / 1000),
 		Series: d.Series, Source: d.Source, Origin: p.origin}, nil
 }
 
 func (p *parser) fitting(i int, id string, d fittingDoc) (Fitting, error) {
 	f := Fitting{ID: id, Name: orDefault(d.Name, id), FromMemory: d.FromMemory, Source: d.Source, Note: d.Note, Origin: p.origin}
+	var err error
+	if f.Aliases, err = p.aliases("fitting", i, id, d.Aliases); err != nil {
+		return f, err
+	}
 	where := d.Where
 	if where == "" {
 		where = "either"

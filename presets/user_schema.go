@@ -11,6 +11,7 @@ type fileDoc struct {
 	Tank       []tankDoc     `toml:"tank"`
 	Priming    []primingDoc  `toml:"priming"`
 	PrimingAid []aidDoc      `toml:"priming_aid"`
+	Intake     []intakeDoc   `toml:"intake"`
 }
 
 type liquidDoc struct {
@@ -61,6 +62,7 @@ type tableDoc struct {
 
 type materialDoc struct {
 	ID        string   `toml:"id"`
+	Aliases   []string `toml:"aliases"`
 	Name      string   `toml:"name"`
 	Rough     *float64 `toml:"roughness_mm"`
 	RoughLow  *float64 `toml:"roughness_low_mm"`
@@ -72,6 +74,7 @@ type materialDoc struct {
 
 type hoseDoc struct {
 	ID       string   `toml:"id"`
+	Aliases  []string `toml:"aliases"`
 	Name     string   `toml:"name"`
 	Diameter *float64 `toml:"inside_diameter_mm"`
 	Series   string   `toml:"series"`
@@ -80,6 +83,7 @@ type hoseDoc struct {
 
 type fittingDoc struct {
 	ID         string   `toml:"id"`
+	Aliases    []string `toml:"aliases"`
 	Name       string   `toml:"name"`
 	Where      string   `toml:"where"`
 	K          *float64 `toml:"k"`
@@ -118,6 +122,27 @@ type aidDoc struct {
 	Name       string   `toml:"name"`
 	StrokeLow  *float64 `toml:"stroke_low_ml"`
 	StrokeHigh *float64 `toml:"stroke_high_ml"`
+	Source     string   `toml:"source"`
+	Note       string   `toml:"note"`
+}
+
+type intakeDoc struct {
+	ID         string   `toml:"id"`
+	Aliases    []string `toml:"aliases"`
+	Name       string   `toml:"name"`
+	Kind       string   `toml:"kind"`
+	K          *float64 `toml:"k"`
+	KLow       *float64 `toml:"k_low"`
+	KHigh      *float64 `toml:"k_high"`
+	FromMemory bool     `toml:"from_memory"`
+	KSource    string   `toml:"k_source"`
+	FaceMM     *float64 `toml:"face_diameter_mm"`
+	FaceBores  *float64 `toml:"face_diameter_bores"`
+	MouthMM    *float64 `toml:"mouth_height_mm"`
+	MouthBores *float64 `toml:"mouth_height_bores"`
+	OpenRatio  *float64 `toml:"open_area_ratio"`
+	DrawDownMM *float64 `toml:"draw_down_mm"`
+	DepthMM    *float64 `toml:"depth_mm"`
 	Source     string   `toml:"source"`
 	Note       string   `toml:"note"`
 }

@@ -253,6 +253,7 @@ func FuzzLoadUser(f *testing.F) {
 	f.Add("[[liquid]]\nid = \"a\"\nsource = \"s\"\n[liquid.table]\nt_c = [5]\ndensity_kg_m3 = [1000]\nviscosity_mpa_s = [1]\n")
 	f.Add("[[liquid]]\nid = \"o\"\nsource = \"s\"\nmodel = \"oil\"\ndensity_15c_kg_m3 = 880\nnu1_mm2_s = 10000\nnu2_mm2_s = 0.3\nt_min_c = -60\nt_max_c = 200\n")
 	f.Add("[[liquid]]\nid = \"w\"\nbased_on = \"water\"\nvapor_pressure_pa = 200000\n")
+	f.Add("[[intake]]\nid = \"i\"\nkind = \"floating\"\nk = 1.5\nk_high = 3\ndepth_mm = 150\nface_diameter_bores = 2\nsource = \"s\"\n")
 	f.Add("[[tank]]\nid = \"t\"\nshape = \"sphere\"\nsizes = { diameter = 1e308 }\nsource = \"s\"\n")
 	f.Fuzz(func(t *testing.T, src string) {
 		c, err := LoadUser(strings.NewReader(src), "fuzz.toml")
