@@ -5,6 +5,8 @@ import (
 	"strconv"
 	"strings"
 	"testing"
+
+	"drawdown/calc/testkit"
 )
 
 // Steel schedules against ASME B36.10M's millimetre columns (the Grinnell
@@ -32,14 +34,14 @@ func TestSteelSchedules(t *testing.T) {
 			if !ok {
 				t.Fatalf("%s %s missing", sw.series, k.nps)
 			}
-			if !absClose(float64(n.OD)*1e3, k.od, 0.06) || !absClose(float64(n.Wall)*1e3, sw.wall, 0.01) {
+			if !testkit.Within(float64(n.OD)*1e3, k.od, (0.06)/math.Abs(k.od)) || !testkit.Within(float64(n.Wall)*1e3, sw.wall, (0.01)/math.Abs(sw.wall)) {
 				t.Errorf("%s %s: OD %.2f wall %.2f mm, B36.10M %.1f and %.2f", sw.series, k.nps, float64(n.OD)*1e3, float64(n.Wall)*1e3, k.od, sw.wall)
 			}
-			if !absClose(float64(n.Bore), float64(n.OD-2*n.Wall), 1e-12) || !(n.BoreLow < n.Bore && n.Bore < n.BoreHigh) {
+			if !testkit.Within(float64(n.Bore), float64(n.OD-2*n.Wall), (1e-12)/math.Abs(float64(n.OD-2*n.Wall))) || !(n.BoreLow < n.Bore && n.Bore < n.BoreHigh) {
 				t.Errorf("%s %s: bore %v (%v..%v)", sw.series, k.nps, n.Bore, n.BoreLow, n.BoreHigh)
 			}
 			// ±12.5 % of the wall moves the bore by ±0.25 wall (analytic).
-			if !absClose(float64(n.BoreHigh-n.Bore), 0.25*float64(n.Wall), 1e-12) {
+			if !testkit.Within(float64(n.BoreHigh-n.Bore), 0.25*float64(n.Wall), (1e-12)/math.Abs(0.25*float64(n.Wall))) {
 				t.Errorf("%s %s: band %v", sw.series, k.nps, n.BoreHigh-n.Bore)
 			}
 		}
@@ -49,7 +51,7 @@ func TestSteelSchedules(t *testing.T) {
 		bore   float64 // mm
 	}{{"sch40", 102.26}, {"sch80", 97.18}} {
 		n, _ := c.Bore(k.series, "4in")
-		if !absClose(float64(n.Bore)*1e3, k.bore, 0.005) {
+		if !testkit.Within(float64(n.Bore)*1e3, k.bore, (0.005)/math.Abs(k.bore)) {
 			t.Errorf("%s 4in bore %.3f mm, chart %.2f", k.series, float64(n.Bore)*1e3, k.bore)
 		}
 	}
@@ -70,7 +72,7 @@ func TestPVCSchedules(t *testing.T) {
 			}
 			for _, n := range s.Sizes {
 				st, _ := c.Bore(pair[1], n.Nominal)
-				if !absClose(float64(n.Bore)*1e3, float64(st.Bore)*1e3, 0.02) {
+				if !testkit.Within(float64(n.Bore)*1e3, float64(st.Bore)*1e3, (0.02)/math.Abs(float64(st.Bore)*1e3)) {
 					t.Errorf("%s %s: bore %.3f, steel %.3f mm", s.ID, n.Nominal, float64(n.Bore)*1e3, float64(st.Bore)*1e3)
 				}
 				if !(n.BoreLow < n.Bore && n.Bore <= n.BoreHigh) || n.Tolerance() > 0.09 {
@@ -91,7 +93,7 @@ func TestPVCSchedules(t *testing.T) {
 // MS 1058-2 is used there.
 func TestPESeries(t *testing.T) {
 	c := Builtin()
-	if n, _ := c.Bore("pe-sdr11", "63mm"); !absClose(float64(n.Bore)*1e3, 51.4, 1e-9) {
+	if n, _ := c.Bore("pe-sdr11", "63mm"); !testkit.Within(float64(n.Bore)*1e3, 51.4, (1e-9)/math.Abs(51.4)) {
 		t.Errorf("63 mm SDR 11 bore %v", n.Bore)
 	}
 	maxOD := map[float64]float64{20: 20.3, 25: 25.3, 32: 32.3, 40: 40.4, 50: 50.5, 63: 63.6, 75: 75.7, 90: 90.9,
@@ -120,10 +122,10 @@ func TestPESeries(t *testing.T) {
 				if e < calc-0.05 || e > calc+0.2 && !small {
 					t.Errorf("%s %g: e_min %.1f, d/SDR %.3f", series, dn, e, calc)
 				}
-				if got := peMaxOD(dn); !absClose(got, maxOD[dn], 1e-9) {
+				if got := peMaxOD(dn); !testkit.Within(got, maxOD[dn], (1e-9)/math.Abs(maxOD[dn])) {
 					t.Errorf("%s %g: max OD %.1f, published %.1f", series, dn, got, maxOD[dn])
 				}
-				if got := peMaxWall(e); !absClose(got, k.maxWall[dn], 1e-9) {
+				if got := peMaxWall(e); !testkit.Within(got, k.maxWall[dn], (1e-9)/math.Abs(k.maxWall[dn])) {
 					t.Errorf("%s %g: max wall %.1f, published %.1f", series, dn, got, k.maxWall[dn])
 				}
 				if !(n.BoreLow < n.Bore && n.Bore < n.BoreHigh) {
@@ -152,7 +154,7 @@ func TestHoseSeries(t *testing.T) {
 	for _, k := range cases {
 		n, ok := c.Bore(k.series, k.nominal)
 		got := []float64{float64(n.Bore) * 1e3, float64(n.BoreLow) * 1e3, float64(n.BoreHigh) * 1e3}
-		if !ok || !absClose(got[0], k.bore, 1e-9) || !absClose(got[1], k.lo, 1e-9) || !absClose(got[2], k.hi, 1e-9) {
+		if !ok || !testkit.Within(got[0], k.bore, (1e-9)/math.Abs(k.bore)) || !testkit.Within(got[1], k.lo, (1e-9)/math.Abs(k.lo)) || !testkit.Within(got[2], k.hi, (1e-9)/math.Abs(k.hi)) {
 			t.Errorf("%s %s: %v, %v; ISO 1307 %v (%v..%v)", k.series, k.nominal, got, ok, k.bore, k.lo, k.hi)
 		}
 		if n.OD != 0 || n.Wall != 0 {

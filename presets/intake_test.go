@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"drawdown/calc"
+	"drawdown/calc/testkit"
 )
 
 // One built-in intake of each kind issue 11 names, the default among them.
@@ -62,7 +63,7 @@ func TestIntakeK(t *testing.T) {
 			t.Errorf("%s: K %+v, want %+v (%s)", k.id, in.K, k.want, k.source)
 		}
 	}
-	if re.K.Central != 0.78 || !absClose(re.K.High, 1.015, 0.02) {
+	if re.K.Central != 0.78 || !testkit.Within(re.K.High, 1.015, (0.02)/math.Abs(1.015)) {
 		t.Errorf("re-entrant %+v", re.K)
 	}
 }
@@ -88,7 +89,7 @@ func TestIntakeGeometry(t *testing.T) {
 		if !ok {
 			t.Fatalf("no %s", k.id)
 		}
-		if !absClose(float64(in.FaceDiameter(d)), k.face, 1e-12) || !absClose(float64(in.MouthHeight(d)), k.mouth, 1e-12) {
+		if !testkit.Within(float64(in.FaceDiameter(d)), k.face, (1e-12)/math.Abs(k.face)) || !testkit.Within(float64(in.MouthHeight(d)), k.mouth, (1e-12)/math.Abs(k.mouth)) {
 			t.Errorf("%s: face %v, mouth %v; want %v, %v", k.id, in.FaceDiameter(d), in.MouthHeight(d), k.face, k.mouth)
 		}
 	}
