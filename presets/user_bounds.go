@@ -51,10 +51,12 @@ type bounds struct {
 	stack   []boundsFrame
 	err     error
 	errLine int
+	steps   int // scanner steps taken, for the linear-time test
 }
 
 func (s *bounds) run() {
 	for s.i < len(s.src) && s.err == nil {
+		s.steps++
 		if len(s.stack) == 0 {
 			s.topLevel()
 		} else {
