@@ -65,7 +65,7 @@ var calcFlagDefs = []flagDef{
 	fieldFlag("tank-diameter", model.FieldTankDiameter, "X", "tank diameter"),
 	fieldFlag("tank-length", model.FieldTankLength, "X", "tank length (pit bottom length)"),
 	fieldFlag("tank-width", model.FieldTankWidth, "X", "tank width (pit bottom width)"),
-	fieldFlag("tank-height", model.FieldTankHeight, "X", "tank depth, floor to brim [the level]"),
+	fieldFlag("tank-height", model.FieldTankHeight, "X", "tank height, floor to brim [the level]"),
 	fieldFlag("cone-height", model.FieldTankCone, "X", "height of a cone bottom"),
 	fieldFlag("side-slope", model.FieldTankSlope, "X", "pit side slope, horizontal per vertical"),
 	fieldFlag("level", model.FieldTankLevel, "X", "liquid level above the tank floor"),

@@ -203,8 +203,9 @@ func (f FieldSpec) RangeText(sys System) string {
 	}
 	lo, u := formatPlain(f.Dim, f.Min, sys)
 	hi, u2 := formatPlain(f.Dim, f.Max, sys)
-	if f.Dim == DimTime {
-		// Format may pick different units at the two ends.
+	if u != u2 {
+		// Format may pick different units at the two ends (seconds and
+		// hours; inches and feet).
 		lo += " " + u
 		u = u2
 	}
@@ -265,6 +266,7 @@ func (f FieldSpec) valueText(v float64, sys System) string {
 	if math.Abs(x) < 1e6 && !strings.ContainsAny(s, "e") {
 		s = trimZeros(strconv.FormatFloat(x, 'f', 4, 64))
 	}
+	s = typographicMinus(s)
 	if u.name != "" {
 		s += " " + u.name
 	}

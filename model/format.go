@@ -25,6 +25,18 @@ func displayUnit(d Dim, si float64, sys System) unit {
 	if d == DimNumber {
 		return unit{scale: 1}
 	}
+	if d == DimVolume {
+		// A pond's volume in litres is a row of zeros: cubic metres from
+		// a thousand of them; million gallons from ten.
+		switch a := math.Abs(si); {
+		case sys != US && a >= 1000:
+			u, _ := unitByName(d, "m³")
+			return u
+		case sys == US && a >= 1e7*m3PerGallon:
+			u, _ := unitByName(d, "Mgal")
+			return u
+		}
+	}
 	u, _ := unitByName(d, DefaultUnit(d, sys))
 	return u
 }
@@ -35,9 +47,9 @@ func precision(d Dim, u unit) (decimals, sig int) {
 	switch d {
 	case DimLength:
 		if u.name == "ft" {
-			return 1, 0 // 0.1 ft ≈ 3 cm
+			return 1, 4 // 0.1 ft ≈ 3 cm; feet and inches below 10 ft (FormatParts)
 		}
-		return 2, 0 // to the centimetre
+		return 2, 4 // to the centimetre, at most 4 figures: 2000 m, not 2000.00 m
 	case DimDiameter:
 		return 0, 3
 	case DimRoughness:
@@ -73,7 +85,9 @@ func precision(d Dim, u unit) (decimals, sig int) {
 
 // Format writes si (in SI units) as a value and unit in sys, rounded for the
 // field: diameters, viscosities, flows and volumes to 3 significant figures,
-// roughness to 2, lengths to the centimetre or 0.1 ft, temperatures to 0.1°,
+// roughness to 2, lengths to the centimetre (at most 4 figures) or, in US
+// units, in feet and inches to the quarter inch below 10 ft (as a tape is
+// read: "1 ft 11-1/2 in", "2 in") and in feet to 0.1 ft above, temperatures to 0.1°,
 // pressures to 0.1 kPa or 0.01 psi, durations in s, min or h. Plain numbers
 // show up to 4 significant figures without trailing zeros. The result is
 // accepted by Parse. Non-finite values print "—" (never "NaN").
@@ -93,12 +107,60 @@ func FormatParts(d Dim, si float64, sys System) (number, unit string) {
 	}
 	u := displayUnit(d, si, sys)
 	v := si/u.scale - u.off
+	if d == DimLength && u.name == "ft" && math.Abs(v) < 10 {
+		return feetInches(si)
+	}
 	dec, sig := precision(d, u)
-	s := formatNumber(v, dec, sig)
+	var s string
+	if d == DimLength {
+		s = formatCapped(v, dec, sig)
+	} else {
+		s = formatNumber(v, dec, sig)
+	}
 	if d == DimNumber {
 		s = trimZeros(s)
 	}
 	return s, u.name
+}
+
+// formatCapped rounds to sig significant figures but to no more than
+// decimals decimal places.
+func formatCapped(v float64, decimals, sig int) string {
+	if v != 0 && !math.IsNaN(v) {
+		e := int(math.Floor(math.Log10(math.Abs(v)))) + 1 // digits before the point
+		decimals = min(decimals, max(0, sig-e))
+	}
+	return formatNumber(v, decimals, 0)
+}
+
+// feetInches writes a length under 10 ft as feet and inches to the
+// quarter inch, the way a tape is read and as Parse reads it back:
+// "1 ft 11-1/2", unit "in"; "4", unit "ft" for whole feet; "2", unit "in"
+// under a foot.
+func feetInches(si float64) (number, unit string) {
+	q := int(math.Round(math.Abs(si) / metrePerInch * 4)) // quarter inches
+	sign := ""
+	if si < 0 && q > 0 {
+		sign = "-"
+	}
+	ft, qi := q/48, q%48
+	in, frac := qi/4, qi%4
+	inches := strconv.Itoa(in)
+	if frac > 0 {
+		f := [...]string{"", "1/4", "1/2", "3/4"}[frac]
+		if in == 0 {
+			inches = f
+		} else {
+			inches += "-" + f
+		}
+	}
+	switch {
+	case ft == 0:
+		return sign + inches, "in"
+	case qi == 0:
+		return sign + strconv.Itoa(ft), "ft"
+	}
+	return sign + strconv.Itoa(ft) + " ft " + inches, "in"
 }
 
 func formatNumber(v float64, decimals, sig int) string {
@@ -144,5 +206,20 @@ func trimZeros(s string) string {
 // ("3 to 600 mm").
 func formatPlain(d Dim, si float64, sys System) (string, string) {
 	n, u := FormatParts(d, si, sys)
-	return trimZeros(n), u
+	return typographicMinus(trimZeros(n)), u
+}
+
+// minusSign is the minus every message shows a person (U+2212); Format keeps
+// the ASCII hyphen-minus, since its text is typed back into fields.
+const minusSign = "−"
+
+// shown is Format for a message: the typographic minus.
+func shown(d Dim, si float64, sys System) string { return typographicMinus(Format(d, si, sys)) }
+
+// typographicMinus swaps a leading ASCII minus for the typographic one.
+func typographicMinus(s string) string {
+	if strings.HasPrefix(s, "-") {
+		return minusSign + s[1:]
+	}
+	return s
 }

@@ -82,7 +82,7 @@ func TestJobErrorsInJobUnits(t *testing.T) {
 	j := NewJob("us", US, t0)
 	err := j.Set(FieldLift, "50")
 	// 15 m = 49.2 ft (exact foot, NIST SP 811 App. B.8).
-	if err == nil || err.Error() != "Lift over crest: 50 ft is out of range; accepted -16.4 to 49.2 ft" {
+	if err == nil || err.Error() != "Lift over crest: 50 ft is out of range; accepted −16.4 to 49.2 ft" {
 		t.Errorf("US lift: %v", err)
 	}
 	errs := j.InputErrors()

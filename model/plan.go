@@ -341,8 +341,8 @@ func (c *computer) geometry() calc.Geometry {
 	if okLv && ih >= level {
 		sys := c.in.Units
 		c.fail(FieldIntakeHeight, &FieldError{ID: FieldIntakeHeight, Label: "Intake height above floor",
-			Text: c.text(FieldIntakeHeight), Detail: Format(DimLength, ih, sys) + " is not below the liquid level",
-			Accept: "below the level of " + Format(DimLength, level, sys), Err: calc.ErrGeometry})
+			Text: c.text(FieldIntakeHeight), Detail: shown(DimLength, ih, sys) + " is not below the liquid level",
+			Accept: "below the level of " + shown(DimLength, level, sys), Err: calc.ErrGeometry})
 	}
 	return geo
 }

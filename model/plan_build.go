@@ -69,8 +69,8 @@ func (c *computer) tank(shape string, level float64) {
 		height = v
 		if level > height {
 			c.fail(FieldTankLevel, &FieldError{ID: FieldTankLevel, Label: "Liquid level", Text: c.text(FieldTankLevel),
-				Detail: Format(DimLength, level, c.in.Units) + " is above the tank depth",
-				Accept: "0 to " + Format(DimLength, height, c.in.Units), Err: calc.ErrGeometry})
+				Detail: shown(DimLength, level, c.in.Units) + " is above the tank height",
+				Accept: "0 to " + shown(DimLength, height, c.in.Units), Err: calc.ErrGeometry})
 			return
 		}
 	}
@@ -103,8 +103,8 @@ func (c *computer) tank(shape string, level float64) {
 	}
 	if float64(t.Height()) < level {
 		c.fail(FieldTankLevel, &FieldError{ID: FieldTankLevel, Label: "Liquid level", Text: c.text(FieldTankLevel),
-			Detail: Format(DimLength, level, c.in.Units) + " is above the top of the tank",
-			Accept: "0 to " + Format(DimLength, float64(t.Height()), c.in.Units), Err: calc.ErrGeometry})
+			Detail: shown(DimLength, level, c.in.Units) + " is above the top of the tank",
+			Accept: "0 to " + shown(DimLength, float64(t.Height()), c.in.Units), Err: calc.ErrGeometry})
 		return
 	}
 	p.Tank = t
@@ -120,7 +120,7 @@ func (c *computer) receiver() {
 	read := func(name, text string, d Dim, lo, hi float64, def float64) float64 {
 		id := ReceiverField(name)
 		label := "Receiver " + strings.ReplaceAll(name, "-", " ")
-		accept := Format(d, lo, sys) + " to " + Format(d, hi, sys)
+		accept := shown(d, lo, sys) + " to " + shown(d, hi, sys)
 		if f, ok := FieldByID(id); ok {
 			label, accept, lo, hi = f.Label, f.RangeText(sys), f.Min, f.Max
 		}
@@ -168,8 +168,8 @@ func (c *computer) receiver() {
 	}
 	if level > float64(t.Height()) {
 		id := ReceiverField("level")
-		c.fail(id, &FieldError{ID: id, Label: "Receiver level", Text: rs.Level, Detail: Format(DimLength, level, sys) + " is above its brim",
-			Accept: "0 to " + Format(DimLength, float64(t.Height()), sys), Err: calc.ErrGeometry})
+		c.fail(id, &FieldError{ID: id, Label: "Receiver level", Text: rs.Level, Detail: shown(DimLength, level, sys) + " is above its brim",
+			Accept: "0 to " + shown(DimLength, float64(t.Height()), sys), Err: calc.ErrGeometry})
 		return
 	}
 	c.p.Receiver = &calc.Receiver{Tank: t, Floor: calc.Length(floor), Level: calc.Length(level)}
@@ -218,8 +218,8 @@ func (c *computer) drain() {
 	if v, ok := c.num(FieldTankTarget); ok {
 		if v >= float64(p.Siphon.Geometry.Surface) {
 			c.fail(FieldTankTarget, &FieldError{ID: FieldTankTarget, Label: "Target level", Text: c.text(FieldTankTarget),
-				Detail: Format(DimLength, v, c.in.Units) + " is not below the liquid level",
-				Accept: "0 to " + Format(DimLength, float64(p.Siphon.Geometry.Surface), c.in.Units), Err: calc.ErrGeometry})
+				Detail: shown(DimLength, v, c.in.Units) + " is not below the liquid level",
+				Accept: "0 to " + shown(DimLength, float64(p.Siphon.Geometry.Surface), c.in.Units), Err: calc.ErrGeometry})
 			return
 		}
 		in.Target = calc.Length(v)

@@ -85,9 +85,9 @@ func (c *computer) calcFieldError(id FieldID, err error) error {
 	var re *calc.RangeError
 	if errors.As(err, &re) && re.Unit == siUnit(f.Dim) && f.Dim != DimNumber {
 		sys := c.in.Units
-		fe.Detail = re.Quantity + " " + Format(f.Dim, re.Value, sys) + " is out of range"
+		fe.Detail = re.Quantity + " " + shown(f.Dim, re.Value, sys) + " is out of range"
 		if errors.Is(err, calc.ErrBoiling) {
-			fe.Detail = re.Quantity + " " + Format(f.Dim, re.Value, sys) + ": the liquid boils at this site's pressure"
+			fe.Detail = re.Quantity + " " + shown(f.Dim, re.Value, sys) + ": the liquid boils at this site's pressure"
 		}
 		if math.IsNaN(re.Value) || math.IsInf(re.Value, 0) {
 			fe.Detail = re.Quantity + " is not a finite number"

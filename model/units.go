@@ -196,6 +196,7 @@ var unitTable = [dimCount][]unit{
 		{name: "gal", scale: m3PerGallon, alias: []string{"gallon", "gallons", "usgal"}},
 		{name: "ft³", scale: m3PerCubicFt, alias: []string{"ft3", "cuft"}},
 		{name: "bbl", scale: m3PerBarrel, alias: []string{"barrel", "barrels"}},
+		{name: "Mgal", scale: 1e6 * m3PerGallon, alias: []string{"milliongallons", "mg"}},
 	},
 	DimTime: {
 		{name: "s", scale: 1, alias: []string{"sec", "secs", "second", "seconds"}},

@@ -265,6 +265,15 @@ func displayTol(d Dim, si float64, sys System) float64 {
 		e := math.Floor(math.Log10(math.Abs(v)))
 		return 0.5*math.Pow(10, e-float64(n-1))*u.scale + noise
 	}
+	if d == DimLength {
+		if u.name == "ft" && math.Abs(v) < 10 {
+			return metrePerInch/8 + noise // feet and inches to the quarter inch
+		}
+		if v != 0 {
+			dec = min(dec, max(0, sig-int(math.Floor(math.Log10(math.Abs(v))))-1))
+		}
+		return 0.5*math.Pow(10, -float64(dec))*u.scale + noise
+	}
 	if sig > 0 {
 		dec = sig - 1
 		if v != 0 {

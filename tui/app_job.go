@@ -195,12 +195,12 @@ func (m *Model) addReading(msg ReadingAddMsg) tea.Cmd {
 		return nil
 	}
 	if top, ok := m.tankTop(); ok && r.Level > top {
-		m.log.ReadingError("✗ level reading " + model.Format(model.DimLength, r.Level, sys) +
-			" is above the tank (" + model.Format(model.DimLength, top, sys) + ")")
+		m.log.ReadingError("✗ level reading " + present.Figures{Sys: sys}.Of(model.DimLength, r.Level) +
+			" is above the tank (" + present.Figures{Sys: sys}.Of(model.DimLength, top) + ")")
 		return nil
 	}
 	m.job.Readings = append(m.job.Readings, r)
-	m.job.AddLog(now, "level reading "+model.Format(model.DimLength, r.Level, sys))
+	m.job.AddLog(now, "level reading "+present.Figures{Sys: sys}.Of(model.DimLength, r.Level))
 	m.log.ReadingTaken()
 	m.log.SetSummary(readingsSummary(&m.job, nil, nil, m.loc()))
 	m.touch()

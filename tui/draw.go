@@ -6,6 +6,7 @@ import (
 	"github.com/charmbracelet/x/ansi"
 
 	"drawdown/model"
+	"drawdown/model/present"
 )
 
 // The drawing kit shared by the drawn panes (Side view, Drain curve,
@@ -61,10 +62,10 @@ func newDrawUnits(sys model.System) drawUnits {
 }
 
 func (u drawUnits) length(si float64) string {
-	return model.Format(model.DimLength, finite(si), u.sys)
+	return present.Figures{Sys: u.sys}.Of(model.DimLength, finite(si))
 }
 func (u drawUnits) flow(si float64) string {
-	return model.Format(model.DimFlow, finite(si), u.sys)
+	return present.Figures{Sys: u.sys}.Of(model.DimFlow, finite(si))
 }
 
 // drawCell is one character cell of a canvas.

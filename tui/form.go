@@ -234,7 +234,7 @@ func (ff *formField) describe(sys model.System) string {
 		}
 		return "" // a plain number reads as typed
 	}
-	return "= " + model.Format(ff.spec.Dim, v, sys)
+	return "= " + present.Figures{Sys: sys}.Of(ff.spec.Dim, v)
 }
 
 // Focused field and mode.

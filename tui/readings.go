@@ -11,6 +11,7 @@ import (
 
 	"drawdown/calc"
 	"drawdown/model"
+	"drawdown/model/present"
 	"drawdown/model/record"
 )
 
@@ -87,7 +88,7 @@ func readingsSummary(j *model.Job, f *model.Fit, fitErr error, loc *time.Locatio
 	}
 	last := j.Readings[n-1]
 	sys := j.Units
-	out := []string{"Readings: " + strconv.Itoa(n) + ", last " + model.Format(model.DimLength, last.Level, sys) +
+	out := []string{"Readings: " + strconv.Itoa(n) + ", last " + present.Figures{Sys: sys}.Of(model.DimLength, last.Level) +
 		" at " + last.At.In(loc).Format("15:04")}
 	switch {
 	case fitErr != nil:
@@ -98,7 +99,7 @@ func readingsSummary(j *model.Job, f *model.Fit, fitErr error, loc *time.Locatio
 		}
 		if !f.Finish.IsZero() && !f.Stopped {
 			out = append(out, "Re-predicted stop "+f.Finish.In(loc).Format("15:04")+" at "+
-				model.Format(model.DimLength, f.StopLevel, sys))
+				present.Figures{Sys: sys}.Of(model.DimLength, f.StopLevel))
 		}
 		if f.Slowing {
 			out = append(out, "! slowing faster than planned: check for air at the crest or a clogged intake")

@@ -19,8 +19,56 @@ const Minus = "−"
 type Figures struct{ Sys model.System }
 
 // Of formats an SI value of dimension d, with its unit, rounded for the
-// dimension (model.Format), with the typographic minus.
-func (f Figures) Of(d model.Dim, si float64) string { return typographic(model.Format(d, si, f.Sys)) }
+// dimension (model.Format), with the typographic minus, and a volume of five
+// digits or more grouped by thousands ("10 214 L", "2,698 gal").
+func (f Figures) Of(d model.Dim, si float64) string {
+	if d != model.DimVolume {
+		return typographic(model.Format(d, si, f.Sys))
+	}
+	n, u := model.FormatParts(d, si, f.Sys)
+	n = group(n, f.Sys)
+	if u == "" || n == "—" {
+		return typographic(n)
+	}
+	return typographic(n + " " + u)
+}
+
+// GroupSep separates groups of three digits: a space in SI (ISO 80000-1,
+// 7.3.1, and the SI Brochure, 5.4.4, ask for a small space; a plain space is
+// the one every terminal and font draws), a comma in US customary (common
+// practice).
+func GroupSep(sys model.System) string {
+	if sys == model.US {
+		return ","
+	}
+	return " "
+}
+
+// group puts the separator between groups of three digits of a number's
+// whole part when it has five digits or more (four stay as they are:
+// "2698 gal" reads at a glance, as SI usage has it).
+func group(n string, sys model.System) string {
+	sign := ""
+	if strings.HasPrefix(n, "-") {
+		sign, n = "-", n[1:]
+	}
+	whole, frac, hasFrac := strings.Cut(n, ".")
+	if len(whole) < 5 || strings.ContainsAny(whole, "eE") {
+		return sign + n
+	}
+	sep := GroupSep(sys)
+	var b strings.Builder
+	for i, c := range whole {
+		if i > 0 && (len(whole)-i)%3 == 0 {
+			b.WriteString(sep)
+		}
+		b.WriteRune(c)
+	}
+	if hasFrac {
+		b.WriteString("." + frac)
+	}
+	return sign + b.String()
+}
 
 // Signed is Of with an explicit sign: "+0.30 m", "−0.30 m" (zero has none).
 func (f Figures) Signed(d model.Dim, si float64) string {
