@@ -221,6 +221,7 @@ func vacuumText(m Material) string {
 		return "rated " + t
 	case VacuumNone:
 		return "none: the wall collapses"
+	case VacuumNotRated:
 	}
 	return "not rated: check the hose's marking"
 }
