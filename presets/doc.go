@@ -12,9 +12,10 @@
 //     flash point and NFPA 30 class, and hazard tags (Hazard, Hazards) from
 //     which the model builds the checklist. Liquid.Fluid returns a
 //     calc.Fluid, or a *calc.RangeError naming the liquid and its range.
-//   - Hose materials (Material) with absolute roughness ranges, hose inside
-//     diameters (Hose), fittings (Fitting) with loss coefficients and where
-//     they sit, tank templates (TankTemplate) for the shapes calc supports,
+//   - Hose materials (Material) with absolute roughness ranges and a
+//     vacuum rating (VacuumClass; Vacuum, gauge, positive for vacuum),
+//     hose inside diameters (Hose), fittings (Fitting) with loss
+//     coefficients and where they sit, tank templates (TankTemplate) for the shapes calc supports,
 //     and priming methods and aids.
 //   - Intakes (Intake, IntakeKind, DefaultIntake): bare end hung or on the
 //     floor, strainer, foot valve, low-level suction plate, board or raft,
@@ -105,6 +106,9 @@
 //	roughness_low_mm = 0.2          # optional band
 //	roughness_high_mm = 1.0
 //	collapses = false               # true: flattens under suction (lay-flat)
+//	vacuum = "rated"                # "rated", "not rated" (default) or "none"
+//	vacuum_kpa = 80                 # the rating, gauge, positive for vacuum
+//	vacuum_source = "hose marking"  # optional, default source
 //	source = "maker's data"
 //
 //	[[hose]]

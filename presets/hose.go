@@ -18,12 +18,60 @@ type Material struct {
 	// RoughnessHigh bound the published range.
 	Roughness, RoughnessLow, RoughnessHigh calc.Length
 	// Collapses is true for a wall that flattens under suction (lay-flat
-	// hose): it cannot hold the vacuum of a siphon's crest.
+	// hose): it cannot hold the vacuum of a siphon's crest. It goes with
+	// VacuumClass VacuumNone.
 	Collapses bool
-	Source    string
-	Note      string
-	Origin    string
+	// VacuumClass says whether the wall has a vacuum rating; Vacuum is the
+	// rating when it has one, a gauge pressure, positive for vacuum: the
+	// wall holds an inside pressure Vacuum below the atmosphere outside
+	// (80 kPa is an absolute 21 kPa at sea level; 101.325 kPa is full
+	// vacuum). VacuumSource says where the rating comes from.
+	VacuumClass  VacuumClass
+	Vacuum       calc.Pressure
+	VacuumSource string
+	Source       string
+	Note         string
+	Origin       string
 }
+
+// VacuumClass says whether a hose wall has a vacuum rating.
+type VacuumClass uint8
+
+// Vacuum classes.
+const (
+	// VacuumNotRated: no rating known (garden hose, plain hose or
+	// tubing); the hose's own marking decides.
+	VacuumNotRated VacuumClass = iota
+	// VacuumRated: Material.Vacuum holds the rating.
+	VacuumRated
+	// VacuumNone: the wall holds no vacuum; it collapses (lay-flat).
+	VacuumNone
+)
+
+var vacuumClassNames = [...]string{"not rated", "rated", "none"}
+
+// String returns "not rated", "rated" or "none", as the preset file writes
+// it.
+func (v VacuumClass) String() string {
+	if int(v) < len(vacuumClassNames) {
+		return vacuumClassNames[v]
+	}
+	return "unknown"
+}
+
+// ParseVacuumClass is the inverse of String.
+func ParseVacuumClass(s string) (VacuumClass, bool) {
+	for i, n := range vacuumClassNames {
+		if s == n {
+			return VacuumClass(i), true
+		}
+	}
+	return 0, false
+}
+
+// FullVacuum is the largest vacuum rating, gauge: the standard atmosphere
+// (ISO 2533), an absolute zero inside at sea level.
+const FullVacuum calc.Pressure = 101325
 
 // Hose is a common hose or pipe inside diameter, metric or inch series.
 type Hose struct {

@@ -87,6 +87,10 @@ func (c *Catalogue) listMaterials(lw *listWriter) {
 		if m.Collapses {
 			lw.field("WARNING", "collapses under suction: not for siphons")
 		}
+		lw.field("vacuum", vacuumText(m))
+		if m.VacuumSource != "" {
+			lw.field("vac source", m.VacuumSource)
+		}
 		lw.field("source", m.Source)
 		if m.Note != "" {
 			lw.field("note", m.Note)
@@ -200,6 +204,26 @@ func (c *Catalogue) listIntakes(lw *listWriter) {
 		}
 		lw.origin(in.Origin)
 	}
+}
+
+// inHg is one inch of mercury at 0 °C, Pa (NIST SP 811).
+const inHg = 3386.389
+
+// vacuumText words a material's vacuum rating, gauge, in kPa and inHg as
+// hoses are rated.
+func vacuumText(m Material) string {
+	switch m.VacuumClass {
+	case VacuumRated:
+		t := fmt.Sprintf("%s kPa (%.1f inHg), gauge", gnum(float64(m.Vacuum)/1000), float64(m.Vacuum)/inHg)
+		if m.Vacuum >= FullVacuum {
+			return "rated to full vacuum, " + t
+		}
+		return "rated " + t
+	case VacuumNone:
+		return "none: the wall collapses"
+	case VacuumNotRated:
+	}
+	return "not rated: check the hose's marking"
 }
 
 // sizeText words a size given as millimetres plus hose bores.

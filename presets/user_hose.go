@@ -36,10 +36,54 @@ func (p *parser) material(i int, id string, d materialDoc) (Material, error) {
 		}
 	}
 	m.Roughness, m.RoughnessLow, m.RoughnessHigh = calc.Length(*d.Rough/1000), calc.Length(lo/1000), calc.Length(hi/1000)
+	if err := p.vacuum(i, id, d, &m); err != nil {
+		return m, err
+	}
 	if err := p.needSource("material", i, id, d.Source); err != nil {
 		return m, err
 	}
 	return m, nil
+}
+
+// vacuum reads a material's vacuum rating: vacuum = "rated" with
+// vacuum_kpa (gauge, positive for vacuum), "not rated" (the default) or
+// "none" (the wall collapses, as collapses = true says).
+func (p *parser) vacuum(i int, id string, d materialDoc, m *Material) error {
+	fail := func(key string, err error) error { return p.errAt("material", i, id, key, err) }
+	class := VacuumNotRated
+	switch {
+	case d.Vacuum != "":
+		c, ok := ParseVacuumClass(d.Vacuum)
+		if !ok {
+			return fail("vacuum", fmt.Errorf("%q: use \"rated\" (with vacuum_kpa), \"not rated\" or \"none\"", d.Vacuum))
+		}
+		class = c
+	case d.VacuumKPa != nil:
+		class = VacuumRated
+	case d.Collapses:
+		class = VacuumNone
+	}
+	switch {
+	case d.Collapses && class != VacuumNone:
+		return fail("collapses", fmt.Errorf("true, but vacuum is %q: a wall that collapses holds no vacuum (\"none\")", class))
+	case class == VacuumRated && d.VacuumKPa == nil:
+		return fail("vacuum_kpa", errors.New("missing; give the rated vacuum in kPa, gauge (positive for vacuum)"))
+	case class != VacuumRated && d.VacuumKPa != nil:
+		return fail("vacuum_kpa", fmt.Errorf("only with vacuum = \"rated\", not %q", class))
+	}
+	if class == VacuumRated {
+		if err := rangeCheck(*d.VacuumKPa, 1, float64(FullVacuum)/1000, "kPa"); err != nil {
+			return fail("vacuum_kpa", err)
+		}
+		m.Vacuum = calc.Pressure(*d.VacuumKPa * 1000)
+	}
+	m.VacuumClass = class
+	m.Collapses = class == VacuumNone
+	m.VacuumSource = d.VacuumSrc
+	if m.VacuumSource == "" && class != VacuumNotRated {
+		m.VacuumSource = d.Source
+	}
+	return nil
 }
 
 func (p *parser) hose(i int, id string, d hoseDoc) (Hose, error) {

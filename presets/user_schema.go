@@ -68,6 +68,9 @@ type materialDoc struct {
 	RoughLow  *float64 `toml:"roughness_low_mm"`
 	RoughHigh *float64 `toml:"roughness_high_mm"`
 	Collapses bool     `toml:"collapses"`
+	Vacuum    string   `toml:"vacuum"`
+	VacuumKPa *float64 `toml:"vacuum_kpa"`
+	VacuumSrc string   `toml:"vacuum_source"`
 	Source    string   `toml:"source"`
 	Note      string   `toml:"note"`
 }
