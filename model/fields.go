@@ -487,7 +487,7 @@ func (f FieldSpec) ValidateChoice(text string, cat *presets.Catalogue) error {
 		return nil
 	}
 	for _, id := range ids {
-		if !hasChoice(choices, id) && !(f.ID == FieldLiquid && cat != nil && liquidKnown(cat, id)) {
+		if !hasChoice(choices, id) && !(f.ID == FieldLiquid && cat != nil && liquidKnown(cat, id)) && !tableShape(f, id) {
 			return &FieldError{ID: f.ID, Label: f.Label, Text: text, Detail: strconv.Quote(id) + " is not in the list", Accept: f.choiceText(cat), Err: ErrNotAChoice}
 		}
 	}
@@ -524,6 +524,9 @@ func (f FieldSpec) ChoiceID(text string, cat *presets.Catalogue) (string, bool) 
 		if !found && f.ID == FieldLiquid && cat != nil && liquidKnown(cat, p) {
 			p, found = strings.ToLower(p), true
 		}
+		if !found && tableShape(f, p) {
+			p, found = calc.ShapeTable, true
+		}
 		all = all && found
 		out = append(out, p)
 	}
@@ -534,6 +537,13 @@ func (f FieldSpec) ChoiceID(text string, cat *presets.Catalogue) (string, bool) 
 func liquidKnown(cat *presets.Catalogue, id string) bool {
 	_, ok := cat.Liquid(id)
 	return ok
+}
+
+// tableShape admits the calibration-table tank shape, which comes with a
+// table file (drawdown calc --tank table --tank-table FILE). The picker does
+// not offer it: the screen cannot load a table yet.
+func tableShape(f FieldSpec, id string) bool {
+	return f.ID == FieldTankShape && strings.EqualFold(strings.TrimSpace(id), calc.ShapeTable)
 }
 
 func hasChoice(cs []Choice, id string) bool {
