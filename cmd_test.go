@@ -227,6 +227,9 @@ func FuzzCalcArgs(f *testing.F) {
 	f.Add("--hose-id 1in --hose-length 40ft --lift 5ft --drop 8ft --units us --tank sphere --tank-diameter 2m --level 1.5m --curve")
 	f.Add("--hose-id 3/4in --hose-length 5m --lift 9m --drop 1m --liquid gasoline --temp 30C --altitude 2500m")
 	f.Add("--hose-id 25mm --hose-length 6m --lift 0.3m --drop 1.2m --tank vertical-cylinder --tank-diameter 1.1m --level 0.9m --receiver sphere --receiver-diameter 1m --receiver-floor -1.5m")
+	f.Add("--hose-id 25mm --hose-length 12m --lift 1.5m --drop 2.5m --lift 2m")
+	f.Add("--fitting coupling --fitting=ball-valve --hose 25mm --hose-length 5m --lift 1m --drop 2m --bogus")
+	f.Add("--help --json")
 	t0 := f.TempDir()
 	f.Fuzz(func(t *testing.T, line string) {
 		args := append([]string{"calc"}, strings.Fields(line)...)
