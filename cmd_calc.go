@@ -27,7 +27,7 @@ var calcFlagDefs = []flagDef{
 	{name: "curve", help: "with a tank, the drain curve too (a table, or drain.curve in JSON)"},
 	{name: "outlet-submerged", help: "the hose end sits below a receiving surface (--drop is to that surface)"},
 	{name: "hose", arg: "ID", help: "a hose size from `drawdown presets` (sets --hose-id)", complete: completeHoses},
-	{name: "tank-table", arg: "FILE", help: "CSV of level, volume for --tank table (at most 1 MiB and 10000 rows)", path: "file"},
+	{name: "tank-table", arg: "FILE", help: "CSV of level, volume for --tank table; a header may name the units, e.g. level (ft),volume (gal); at most 1 MiB, 10000 rows", path: "file"},
 	{name: "tank-preset", arg: "ID", help: "a tank from `drawdown presets` (shape and sizes; flags given win)", complete: completeTankPresets},
 	{name: "receiver", arg: "SHAPE", help: "transfer into a receiving vessel of this shape (needs --tank)", complete: completeShapes},
 	{name: "receiver-diameter", arg: "X", help: "receiving vessel: inside diameter"},
