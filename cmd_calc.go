@@ -6,12 +6,12 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"os"
 	"slices"
 	"sort"
 	"strconv"
 	"strings"
 
+	"drawdown/calc"
 	"drawdown/model"
 	"drawdown/model/present"
 	"drawdown/presets"
@@ -28,7 +28,7 @@ var calcFlagDefs = []flagDef{
 	{name: "curve", help: "with a tank, the drain curve too (a table, or drain.curve in JSON)"},
 	{name: "outlet-submerged", help: "the hose end sits below a receiving surface (--drop is to that surface)"},
 	{name: "hose", arg: "ID", help: "a hose size from `drawdown presets` (sets --hose-id)", complete: completeHoses},
-	{name: "tank-table", arg: "FILE", help: "CSV of level, volume for --tank table (at most 1 MiB and 10000 rows)", path: "file"},
+	{name: "tank-table", arg: "FILE", help: "CSV of level, volume for --tank table; a header may name the units, e.g. level (ft),volume (gal); at most 1 MiB, 10000 rows", path: "file"},
 	{name: "tank-preset", arg: "ID", help: "a tank from `drawdown presets` (shape and sizes; flags given win)", complete: completeTankPresets},
 	{name: "receiver", arg: "SHAPE", help: "transfer into a receiving vessel of this shape (needs --tank)", complete: completeShapes},
 	{name: "receiver-diameter", arg: "X", help: "receiving vessel: inside diameter"},
@@ -189,61 +189,107 @@ func calcUsage(w io.Writer) {
 // message names the flag) and returns the job inputs.
 func buildInputs(vals map[model.FieldID]string, o calcOptions, cat *presets.Catalogue) (model.Inputs, error) {
 	in := model.Inputs{Values: vals, Units: o.units, Receiver: o.receiver}
-	if r := o.receiver; r != nil {
-		if r.Shape == "" {
-			return in, usagef("--receiver SHAPE is needed with the --receiver-* sizes")
-		}
-		if !slices.Contains(presets.TankShapes(), r.Shape) {
-			return in, usagef("--receiver: %q is not a tank shape; accepted %s", r.Shape, strings.Join(presets.TankShapes(), ", "))
-		}
-		if shape := vals[model.FieldTankShape]; shape == "" || shape == "none" {
-			return in, usagef("--receiver needs --tank SHAPE for the source vessel")
-		}
-	}
-	if o.hose != "" {
-		h, ok := cat.Hose(o.hose)
-		if !ok {
-			return in, usagef("--hose: %q is not a hose size in the catalogue; see drawdown presets", o.hose)
-		}
-		if _, dup := vals[model.FieldHoseID]; dup {
-			return in, usagef("--hose and --hose-id both given; use one")
-		}
-		vals[model.FieldHoseID] = strconv.FormatFloat(float64(h.Diameter)*1000, 'g', 10, 64) + "mm"
-	}
-	if o.tankPreset != "" {
-		t, ok := cat.Tank(o.tankPreset)
-		if !ok {
-			return in, usagef("--tank-preset: %q is not a tank in the catalogue; see drawdown presets", o.tankPreset)
-		}
-		// The template fills what the flags did not give.
-		j := model.Job{Inputs: map[model.FieldID]string{}}
-		j.ApplyTankPreset(t)
-		for id, v := range j.Inputs {
-			if _, given := vals[id]; !given && v != "" {
-				vals[id] = v
-			}
+	for _, step := range []func() error{
+		func() error { return checkReceiver(vals, o.receiver) },
+		func() error { return applyHose(vals, o.hose, cat) },
+		func() error { return applyTankPreset(vals, o.tankPreset, cat) },
+		func() (err error) { in.TankTable, err = readTankTable(vals, o); return err },
+		func() error { return validateFields(vals, o.units, cat) },
+		func() error { return checkRequired(vals, o.units) },
+	} {
+		if err := step(); err != nil {
+			return in, err
 		}
 	}
+	return in, nil
+}
+
+func checkReceiver(vals map[model.FieldID]string, r *model.ReceiverSpec) error {
+	if r == nil {
+		return nil
+	}
+	if r.Shape == "" {
+		return usagef("--receiver SHAPE is needed with the --receiver-* sizes")
+	}
+	if !slices.Contains(presets.TankShapes(), r.Shape) {
+		return usagef("--receiver: %q is not a tank shape; accepted %s", r.Shape, strings.Join(presets.TankShapes(), ", "))
+	}
+	if noTank(vals) {
+		return usagef("--receiver needs --tank SHAPE for the source vessel")
+	}
+	return nil
+}
+
+func noTank(vals map[model.FieldID]string) bool {
+	shape := strings.TrimSpace(vals[model.FieldTankShape])
+	return shape == "" || strings.EqualFold(shape, "none")
+}
+
+func isTableShape(vals map[model.FieldID]string) bool {
+	return strings.EqualFold(strings.TrimSpace(vals[model.FieldTankShape]), calc.ShapeTable)
+}
+
+// applyHose sets the bore from a catalogue hose size.
+func applyHose(vals map[model.FieldID]string, hose string, cat *presets.Catalogue) error {
+	if hose == "" {
+		return nil
+	}
+	h, ok := cat.Hose(hose)
+	if !ok {
+		return usagef("--hose: %q is not a hose size in the catalogue; see drawdown presets", hose)
+	}
+	if _, dup := vals[model.FieldHoseID]; dup {
+		return usagef("--hose and --hose-id both given; use one")
+	}
+	vals[model.FieldHoseID] = strconv.FormatFloat(float64(h.Diameter)*1000, 'g', 10, 64) + "mm"
+	return nil
+}
+
+// applyTankPreset fills the shape and sizes of a catalogue tank that the
+// flags did not give.
+func applyTankPreset(vals map[model.FieldID]string, id string, cat *presets.Catalogue) error {
+	if id == "" {
+		return nil
+	}
+	t, ok := cat.Tank(id)
+	if !ok {
+		return usagef("--tank-preset: %q is not a tank in the catalogue; see drawdown presets", id)
+	}
+	j := model.Job{Inputs: map[model.FieldID]string{}}
+	j.ApplyTankPreset(t)
+	for id, v := range j.Inputs {
+		if _, given := vals[id]; !given && v != "" {
+			vals[id] = v
+		}
+	}
+	return nil
+}
+
+// readTankTable reads --tank-table for --tank table (and --outlet-submerged
+// is set here too, being the other option that becomes a field).
+func readTankTable(vals map[model.FieldID]string, o calcOptions) ([]model.TablePoint, error) {
 	if o.submerged {
 		vals[model.FieldOutletSubmerged] = "yes"
 	}
-	if o.tankTable != "" {
-		if vals[model.FieldTankShape] != "table" {
-			return in, usagef("--tank-table needs --tank table")
+	if o.tankTable == "" {
+		if isTableShape(vals) {
+			return nil, usagef("--tank table needs --tank-table FILE (CSV of level, volume)")
 		}
-		f, err := os.Open(o.tankTable)
-		if err != nil {
-			return in, usagef("--tank-table: %v", err)
-		}
-		defer f.Close()
-		rows, err := model.ParseTankTable(f, o.units)
-		if err != nil {
-			return in, usagef("--tank-table %s: %v", o.tankTable, err)
-		}
-		in.TankTable = rows
-	} else if vals[model.FieldTankShape] == "table" {
-		return in, usagef("--tank table needs --tank-table FILE (CSV of level, volume)")
+		return nil, nil
 	}
+	if !isTableShape(vals) {
+		return nil, usagef("--tank-table needs --tank table")
+	}
+	rows, err := model.ReadTankTableFile(o.tankTable, o.units)
+	if err != nil {
+		return nil, usagef("--tank-table %s: %s", o.tankTable, oneLine(err.Error()))
+	}
+	return rows, nil
+}
+
+// validateFields checks every given field, in a fixed order, so that the
+// first bad one is named by its flag.
+func validateFields(vals map[model.FieldID]string, sys model.System, cat *presets.Catalogue) error {
 	if _, ok := vals[model.FieldLiquid]; !ok {
 		vals[model.FieldLiquid] = "water"
 	}
@@ -259,26 +305,29 @@ func buildInputs(vals map[model.FieldID]string, o calcOptions, cat *presets.Cata
 		if spec.IsPicker() {
 			err = spec.ValidateChoice(vals[id], cat)
 		} else {
-			_, err = spec.Validate(vals[id], o.units)
+			_, err = spec.Validate(vals[id], sys)
 		}
 		if err != nil {
-			return in, usagef("%s: %v", flagForField(id), err)
+			return usagef("%s: %v", flagForField(id), err)
 		}
 	}
+	return nil
+}
+
+func checkRequired(vals map[model.FieldID]string, sys model.System) error {
 	for _, id := range []model.FieldID{model.FieldHoseID, model.FieldHoseLength, model.FieldLift, model.FieldDrop} {
 		if strings.TrimSpace(vals[id]) == "" {
 			spec, _ := model.FieldByID(id)
-			return in, usagef("%s is required (%s, accepted %s)", flagForField(id), strings.ToLower(spec.Label), spec.RangeText(o.units))
+			return usagef("%s is required (%s, accepted %s)", flagForField(id), strings.ToLower(spec.Label), spec.RangeText(sys))
 		}
 	}
-	shape := vals[model.FieldTankShape]
-	if shape != "" && shape != "none" && strings.TrimSpace(vals[model.FieldTankLevel]) == "" {
-		return in, usagef("--level is required with --tank (liquid level above the tank floor)")
+	if !noTank(vals) && strings.TrimSpace(vals[model.FieldTankLevel]) == "" {
+		return usagef("--level is required with --tank (liquid level above the tank floor)")
 	}
-	if (shape == "" || shape == "none") && vals[model.FieldTankLevel] != "" {
-		return in, usagef("--level needs --tank SHAPE")
+	if noTank(vals) && vals[model.FieldTankLevel] != "" {
+		return usagef("--level needs --tank SHAPE")
 	}
-	return in, nil
+	return nil
 }
 
 func runCalc(args []string, stdout, stderr io.Writer) int {

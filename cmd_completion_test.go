@@ -144,7 +144,8 @@ func TestCompleteCommand(t *testing.T) {
 func fakeDrawdown(t *testing.T) string {
 	t.Helper()
 	bin := t.TempDir()
-	script := "#!/bin/sh\nDRAWDOWN_TEST_MAIN=1 exec " + shellQuote(os.Args[0]) + " \"$@\"\n"
+	// GORACE: a race-enabled binary otherwise sleeps 1 s at exit.
+	script := "#!/bin/sh\nDRAWDOWN_TEST_MAIN=1 GORACE=atexit_sleep_ms=0 exec " + shellQuote(os.Args[0]) + " \"$@\"\n"
 	if err := os.WriteFile(filepath.Join(bin, "drawdown"), []byte(script), 0o755); err != nil {
 		t.Fatal(err)
 	}

@@ -30,7 +30,8 @@ func drawdownCmd(t *testing.T, env []string, args ...string) *exec.Cmd {
 	ctx, cancel := context.WithTimeout(context.Background(), 20*time.Second)
 	t.Cleanup(cancel)
 	cmd := exec.CommandContext(ctx, os.Args[0], args...)
-	cmd.Env = append(os.Environ(), "DRAWDOWN_TEST_MAIN=1", "DRAWDOWN_HOME="+t.TempDir(), "XDG_CONFIG_HOME="+t.TempDir())
+	// GORACE: a race-enabled binary otherwise sleeps 1 s at exit.
+	cmd.Env = append(os.Environ(), "DRAWDOWN_TEST_MAIN=1", "GORACE=atexit_sleep_ms=0", "DRAWDOWN_HOME="+t.TempDir(), "XDG_CONFIG_HOME="+t.TempDir())
 	cmd.Env = append(cmd.Env, env...)
 	return cmd
 }

@@ -304,7 +304,7 @@ func (f FieldSpec) ValidateChoice(text string, cat *presets.Catalogue) error {
 	}
 	for _, id := range ids {
 		if !hasChoice(choices, id) && !(cat != nil && (f.ID == FieldLiquid && liquidKnown(cat, id) ||
-			f.ID == FieldHoseMaterial && materialKnown(cat, id))) {
+			f.ID == FieldHoseMaterial && materialKnown(cat, id))) && !tableShape(f, id) {
 			return &FieldError{ID: f.ID, Label: f.Label, Text: text, Detail: strconv.Quote(id) + " is not in the list", Accept: f.choiceText(cat), Err: ErrNotAChoice}
 		}
 	}
@@ -341,6 +341,9 @@ func (f FieldSpec) ChoiceID(text string, cat *presets.Catalogue) (string, bool) 
 		if !found && f.ID == FieldLiquid && cat != nil && liquidKnown(cat, p) {
 			p, found = strings.ToLower(p), true
 		}
+		if !found && tableShape(f, p) {
+			p, found = calc.ShapeTable, true
+		}
 		all = all && found
 		out = append(out, p)
 	}
@@ -358,6 +361,13 @@ func liquidKnown(cat *presets.Catalogue, id string) bool {
 func materialKnown(cat *presets.Catalogue, id string) bool {
 	_, ok := cat.Material(id)
 	return ok
+}
+
+// tableShape admits the calibration-table tank shape, which comes with a
+// table file (drawdown calc --tank table --tank-table FILE). The picker does
+// not offer it: the screen cannot load a table yet.
+func tableShape(f FieldSpec, id string) bool {
+	return f.ID == FieldTankShape && strings.EqualFold(strings.TrimSpace(id), calc.ShapeTable)
 }
 
 func hasChoice(cs []Choice, id string) bool {
