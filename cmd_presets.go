@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 
+	"drawdown/model/present"
 	"drawdown/presets"
 )
 
@@ -38,7 +39,7 @@ func runPresets(args []string, stdout, stderr io.Writer) int {
 		fmt.Fprint(stdout, presetsHelp)
 		return ExitOK
 	}
-	if err := loadCatalogue(stderr).WriteListing(stdout); err != nil {
+	if err := present.WriteListing(stdout, loadCatalogue(stderr)); err != nil {
 		fmt.Fprintf(stderr, "drawdown presets: %v\n", err)
 		return ExitError
 	}

@@ -26,6 +26,7 @@ import (
 	tea "charm.land/bubbletea/v2"
 	"github.com/charmbracelet/x/term"
 
+	"drawdown/model/present"
 	"drawdown/presets"
 	"drawdown/tui"
 )
@@ -42,6 +43,9 @@ const (
 )
 
 func run(args []string, stdout, stderr io.Writer) int {
+	// Error lines quote what a person typed or a file held: they pass the
+	// one sanitiser, so no byte of it acts on the terminal.
+	stderr = cleanWriter{stderr}
 	if len(args) > 0 {
 		switch args[0] {
 		case "calc":
@@ -199,4 +203,15 @@ func signalName(s os.Signal) string {
 		return "sigterm"
 	}
 	return s.String()
+}
+
+// cleanWriter passes text through present.CleanText: line breaks kept,
+// every other control character shown as a visible escape.
+type cleanWriter struct{ w io.Writer }
+
+func (c cleanWriter) Write(p []byte) (int, error) {
+	if _, err := io.WriteString(c.w, present.CleanText(string(p))); err != nil {
+		return 0, err
+	}
+	return len(p), nil
 }

@@ -3,6 +3,7 @@ package presets
 import (
 	"fmt"
 	"math"
+	"strconv"
 	"strings"
 
 	"drawdown/calc"
@@ -19,7 +20,7 @@ import (
 func BoreHelp() string {
 	ex := "a pipe's nominal size is not its bore"
 	if s, ok := Builtin().Bore("pe-sdr11", "63mm"); ok {
-		ex = fmt.Sprintf("63 mm PE pipe SDR 11 has a bore of %s mm", gnum(math.Round(float64(s.Bore)*1e4)/10))
+		ex = fmt.Sprintf("63 mm PE pipe SDR 11 has a bore of %s mm", strconv.FormatFloat(math.Round(float64(s.Bore)*1e4)/10, 'g', 4, 64))
 	}
 	return "Enter the bore (inside diameter), not the nominal size: " + ex + "; drawdown presets lists the bores."
 }

@@ -21,7 +21,7 @@ func TestVacuumRatings(t *testing.T) {
 		class VacuumClass
 		kPa   float64
 	}{
-		{"suction-smooth", VacuumRated, 22 * inHg / 1000},
+		{"suction-smooth", VacuumRated, 22 * 3386.389 / 1000}, // 1 inHg = 3386.389 Pa (NIST SP 811)
 		{"suction-corrugated", VacuumRated, 60},
 		{"garden-hose", VacuumNotRated, 0},
 		{"rubber-smooth", VacuumNotRated, 0},

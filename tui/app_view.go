@@ -4,6 +4,8 @@ import (
 	"strconv"
 	"strings"
 
+	"drawdown/model/present"
+
 	"charm.land/bubbles/v2/key"
 	tea "charm.land/bubbletea/v2"
 )
@@ -146,7 +148,7 @@ func (m *Model) headerView() string {
 // jobName is a job's name for one line of the screen: control characters
 // shown as spaces, and a name for an unnamed job.
 func jobName(name string) string {
-	name = strings.TrimSpace(oneLineText(name))
+	name = strings.TrimSpace(present.Clean(name))
 	if name == "" {
 		return "(unnamed job)"
 	}
@@ -209,10 +211,10 @@ func (m *Model) tabsView() string {
 // helpLine is the one-line help for the present state, or a one-shot hint.
 func (m *Model) helpLine() string {
 	if m.flash != "" {
-		return fitBlock([]string{m.styles.fast.Warning.Render("! " + m.flash)}, m.lay.W, 1)
+		return fitBlock([]string{m.styles.fast.Warning.Render("! " + present.Clean(m.flash))}, m.lay.W, 1)
 	}
 	if m.saveErr != nil {
-		return fitBlock([]string{m.styles.fast.Danger.Render("✗ not saved: " + m.saveErr.Error())}, m.lay.W, 1)
+		return fitBlock([]string{m.styles.fast.Danger.Render("✗ not saved: " + present.Clean(m.saveErr.Error()))}, m.lay.W, 1)
 	}
 	var b []key.Binding
 	switch {

@@ -10,6 +10,7 @@ import (
 	tea "charm.land/bubbletea/v2"
 
 	"drawdown/model"
+	"drawdown/model/present"
 )
 
 // ChecklistMarkMsg asks the root to mark a checklist step (model.Checklist.
@@ -394,11 +395,11 @@ func ckStateLine(s model.Step) (string, drawClass) {
 	case model.StateDone:
 		return sym + " done" + at, cls
 	case model.StateSkipped:
-		return sym + " skipped" + at + ": " + s.Reason, cls
+		return sym + " skipped" + at + ": " + present.Clean(s.Reason), cls
 	case model.StateNotApplicable:
 		t := sym + " not applicable" + at
 		if s.Reason != "" {
-			t += ": " + s.Reason
+			t += ": " + present.Clean(s.Reason)
 		}
 		return t, cls
 	case model.StatePending:
@@ -497,7 +498,7 @@ func (v ChecklistView) stepLine(i, listW int) drawLine {
 	if i == v.cur {
 		mark = "▶ "
 	}
-	text := s.Text
+	text := present.Clean(s.Text)
 	if s.Caution != "" {
 		text = "! " + text // a caution goes with this step
 	}
@@ -604,12 +605,12 @@ func (v *ChecklistView) detailLines(s model.Step, w, maxH int) []drawLine {
 		return out
 	}
 	head := plain([]string{s.Section.Title() + " · step " + strconv.Itoa(v.cur+1) + " of " + strconv.Itoa(len(v.cl.Steps))}, clsMuted)
-	text := plain(ckWrap(s.Text, w), clsText)
+	text := plain(ckWrap(present.Clean(s.Text), w), clsText)
 	sl, cls := ckStateLine(s)
 	state := plain(ckWrap(sl, w), cls)
 	var note []drawLine
 	if s.Note != "" {
-		note = plain(ckWrap("note: "+s.Note, w), clsText)
+		note = plain(ckWrap("note: "+present.Clean(s.Note), w), clsText)
 	}
 	var box []drawLine
 	if s.Caution != "" {

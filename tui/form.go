@@ -182,7 +182,7 @@ func (f *FormPane) SetJob(j *model.Job, errs map[model.FieldID]error) {
 			ff.errText = present.FieldProblem(ff.spec, err)
 		}
 		if !ff.described || ff.descRaw != ff.raw || ff.descSys != f.sys {
-			ff.shown = ff.describe(f.sys)
+			ff.shown = present.Clean(ff.describe(f.sys)) // choice labels may come from a user's presets
 			ff.described, ff.descRaw, ff.descSys = true, ff.raw, f.sys
 		}
 		if ff.spec.Multi && len(ff.choices) > 0 {

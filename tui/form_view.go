@@ -4,6 +4,8 @@ import (
 	"strconv"
 	"strings"
 
+	"drawdown/model/present"
+
 	"github.com/charmbracelet/x/ansi"
 )
 
@@ -37,6 +39,7 @@ func (f *FormPane) inputCell(ff *formField, focused bool, w int) string {
 		return st.fast.Muted.Render(padRight(ansi.Truncate(ff.input.Placeholder, w, "…"), w))
 	}
 	text, _ := inputWindow(v, ff.input.Position(), w)
+	text = oneCellText(text)
 	if cellWidth(text) > w {
 		text = ansi.Truncate(text, w, "")
 	}
@@ -143,7 +146,7 @@ func (f FormPane) pickerCell(ff *formField, focused bool, w int) string {
 		if focused && len(ff.choices) > 0 {
 			c := ff.choices[ff.sub]
 			n := multiCounts(ff.raw)[strings.ToLower(c.ID)]
-			text = "◀ " + c.Label + " ▶ ×" + strconv.Itoa(n)
+			text = "◀ " + present.Clean(c.Label) + " ▶ ×" + strconv.Itoa(n)
 		}
 		return st.fast.Input.Render(ansi.Truncate(text, w, "…"))
 	}
@@ -192,7 +195,7 @@ func (f FormPane) makeHelpLines() []string {
 		} else {
 			for _, c := range ff.choices {
 				if strings.EqualFold(c.ID, strings.TrimSpace(ff.raw)) && c.Note != "" {
-					text = c.Note + " " + text
+					text = present.Clean(c.Note) + " " + text
 				}
 			}
 			// The row may cut the choice short: name it in full here.

@@ -7,6 +7,7 @@ import (
 	tea "charm.land/bubbletea/v2"
 
 	"drawdown/model"
+	"drawdown/model/present"
 )
 
 // jobList is the open-job overlay: the job folder, newest first.
@@ -53,7 +54,7 @@ func (l jobList) View() string {
 	top := max(l.cursor-room+1, 0)
 	for i := top; i < len(l.jobs) && i < top+room; i++ {
 		j := l.jobs[i]
-		name := j.Name
+		name := present.Clean(j.Name)
 		status := ""
 		if j.Err != nil {
 			name, status = fileBase(j.Path), "  ✗ cannot be read"

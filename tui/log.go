@@ -9,6 +9,7 @@ import (
 	tea "charm.land/bubbletea/v2"
 
 	"drawdown/model"
+	"drawdown/model/present"
 )
 
 // LogPane lists the job's log, newest at the bottom, with the time of each
@@ -208,7 +209,7 @@ func (l LogPane) View() string {
 	var lines []string
 	for _, e := range l.entries {
 		stamp := e.At.In(l.loc).Format("01-02 15:04")
-		text := strings.ReplaceAll(e.Text, "\n", " ")
+		text := present.Clean(e.Text) // text from the job file is data
 		wrapped := wrapText(text, max(l.w-len(stamp)-2, 10), 4)
 		for i, w := range wrapped {
 			if i == 0 {

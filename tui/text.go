@@ -145,3 +145,16 @@ func oneLineText(s string) string {
 		return r
 	}, s)
 }
+
+// oneCellText shows text as typed in an input cell, where each rune keeps
+// its cell (the cursor counts runes): a control or hidden character that
+// came from a file is shown as U+FFFD instead of acting on the terminal.
+func oneCellText(s string) string {
+	return strings.Map(func(r rune) rune {
+		if r < 0x20 || r == 0x7f || r >= 0x80 && r < 0xa0 || r >= 0x202a && r <= 0x202e || r >= 0x2066 && r <= 0x2069 ||
+			r == 0x2028 || r == 0x2029 || r == 0x200e || r == 0x200f || r == 0xfeff {
+			return '\uFFFD'
+		}
+		return r
+	}, s)
+}

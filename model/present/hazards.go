@@ -52,10 +52,10 @@ func Cautions(p model.Plan) []string {
 		out = append(out, presets.FlammableLocalCode)
 	}
 	if p.Liquid.Note != "" {
-		out = append(out, p.Liquid.Note)
+		out = append(out, Clean(p.Liquid.Note)) // a user's preset may carry it
 	}
 	if p.Material.Collapses {
-		out = append(out, p.Material.Name+" flattens under suction: a siphon's crest runs below atmospheric pressure. Use suction hose or solid-wall pipe.")
+		out = append(out, Clean(p.Material.Name)+" flattens under suction: a siphon's crest runs below atmospheric pressure. Use suction hose or solid-wall pipe.")
 	}
 	return out
 }

@@ -161,7 +161,7 @@ func factsOf(p model.Plan, f Figures) []Fact {
 		site = "barometer reading"
 	}
 	hose := strconv.Itoa(s.Hoses) + " × " + f.Of(model.DimDiameter, float64(s.Hose.Diameter)) + " bore, " +
-		L(s.Hose.Length) + " long, " + p.Material.Name + " (roughness " + f.Of(model.DimRoughness, float64(s.Hose.Roughness)) +
+		L(s.Hose.Length) + " long, " + Clean(p.Material.Name) + " (roughness " + f.Of(model.DimRoughness, float64(s.Hose.Roughness)) +
 		"), ΣK " + strconv.FormatFloat(s.Hose.KMinor(), 'f', 2, 64)
 	prime := f.Of(model.DimVolume, float64(r.PrimingVolume)) + " to fill the hose"
 	if s.Hoses > 1 {
@@ -171,7 +171,7 @@ func factsOf(p model.Plan, f Figures) []Fact {
 		prime += ", about " + strconv.Itoa(p.PumpStrokes) + " hand-pump strokes"
 	}
 	return []Fact{
-		{"Liquid", p.Liquid.Name + " at " + f.Of(model.DimTemperature, float64(p.Temperature)) + ": " +
+		{"Liquid", Clean(p.Liquid.Name) + " at " + f.Of(model.DimTemperature, float64(p.Temperature)) + ": " +
 			f.Of(model.DimDensity, float64(s.Fluid.Density)) + ", " + f.Of(model.DimViscosity, float64(s.Fluid.Viscosity)) +
 			", vapour pressure " + f.Of(model.DimPressure, float64(s.Fluid.VaporPressure))},
 		{"Site", f.Of(model.DimPressure, float64(s.AtmPressure)) + " (" + site + ")"},

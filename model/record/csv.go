@@ -8,6 +8,7 @@ import (
 	"time"
 
 	"drawdown/model"
+	"drawdown/model/present"
 )
 
 // WriteCSV writes the job's level readings and the planned curve as
@@ -47,7 +48,7 @@ func WriteCSV(w io.Writer, r Input) error {
 			}
 		}
 		_ = cw.Write([]string{"reading", rd.At.In(loc).Format(time.RFC3339), num(round3(rd.At.Sub(origin).Seconds())),
-			num(round6(rd.Level)), planned, rd.Note})
+			num(round6(rd.Level)), planned, present.CSVCell(rd.Note)})
 	}
 	// Plan points on the clock: from the start time, or placed so that the
 	// plan passes the first reading's level at its time.

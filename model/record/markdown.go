@@ -4,25 +4,16 @@ import (
 	"fmt"
 	"strings"
 	"time"
+
+	"drawdown/model/present"
 )
 
 // cell makes text safe inside a Markdown table cell.
-func cell(s string) string {
-	s = strings.ReplaceAll(s, "\r\n", " ")
-	s = strings.ReplaceAll(s, "\n", " ")
-	s = strings.ReplaceAll(s, "|", `\|`)
-	return strings.TrimSpace(s)
-}
+func cell(s string) string { return present.MarkdownCell(oneLine(s)) }
 
 // mdText keeps free text from breaking the record's structure: one line, no
 // leading heading or list markers.
-func mdText(s string) string {
-	s = oneLine(s)
-	if strings.HasPrefix(s, "#") || strings.HasPrefix(s, "---") {
-		s = `\` + s
-	}
-	return s
-}
+func mdText(s string) string { return present.Markdown(oneLine(s)) }
 
 func oneLine(s string) string {
 	return strings.TrimSpace(strings.Join(strings.Fields(s), " "))

@@ -49,7 +49,7 @@ func Write(w io.Writer, r Input) error {
 	if strings.TrimSpace(name) == "" {
 		name = "(unnamed job)"
 	}
-	rw.line("# Drain record: " + oneLine(name))
+	rw.line("# Drain record: " + mdText(name))
 	rw.line("")
 	rw.line("Record written " + rw.tm(r.Now) + ". Unit system: " + j.Units.String() +
 		". All times are shown in " + zoneName(r.Now) + ".")

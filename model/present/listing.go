@@ -1,4 +1,4 @@
-package presets
+package present
 
 import (
 	"bufio"
@@ -9,6 +9,7 @@ import (
 	"unicode/utf8"
 
 	"drawdown/calc"
+	"drawdown/presets"
 )
 
 // listingWidth is the width WriteListing wraps to, for an 80-column terminal.
@@ -17,12 +18,12 @@ const listingWidth = 79
 // WriteListing writes the human listing of the catalogue for
 // `drawdown presets`: every entry with its values, valid range and sources,
 // wrapped to 80 columns, in SI units with the inch sizes alongside.
-func (c *Catalogue) WriteListing(w io.Writer) error {
+func WriteListing(w io.Writer, c *presets.Catalogue) error {
 	bw := bufio.NewWriter(w)
 	lw := &listWriter{w: bw}
-	for _, section := range []func(*listWriter){c.listLiquids, c.listMaterials, c.listHoses, c.listSeries, c.listFittings,
-		c.listIntakes, c.listTanks, c.listPriming, c.listAids} {
-		section(lw)
+	for _, section := range []func(*listWriter, *presets.Catalogue){listLiquids, listMaterials, listHoses, listSeries, listFittings,
+		listIntakes, listTanks, listPriming, listAids} {
+		section(lw, c)
 	}
 	lw.heading("CAUTION", "These values plan a job; they do not make it safe. Follow the site's "+
 		"written procedures, local codes and permits, and the product's safety data sheet.")
@@ -32,11 +33,11 @@ func (c *Catalogue) WriteListing(w io.Writer) error {
 	return bw.Flush()
 }
 
-func (c *Catalogue) listLiquids(lw *listWriter) {
+func listLiquids(lw *listWriter, c *presets.Catalogue) {
 	lw.heading("LIQUIDS", "Properties shown at 20 °C and 1 atm, or at the nearest valid temperature. "+
 		"Also accepted: seawater:S or brine:S (salinity S g/kg, up to 150) and gasoline:R "+
 		"(Reid vapour pressure R kPa, 20 to 110).")
-	for _, l := range c.liquids {
+	for _, l := range c.Liquids() {
 		lw.entry(l.ID, l.Name)
 		if l.Basis != "" {
 			lw.field("basis", l.Basis)
@@ -78,9 +79,9 @@ func (c *Catalogue) listLiquids(lw *listWriter) {
 	}
 }
 
-func (c *Catalogue) listMaterials(lw *listWriter) {
+func listMaterials(lw *listWriter, c *presets.Catalogue) {
 	lw.heading("HOSE MATERIALS", "Absolute roughness ε, central value and published range.")
-	for _, m := range c.materials {
+	for _, m := range c.Materials() {
 		lw.entry(m.ID, m.Name)
 		lw.aliases(m.Aliases)
 		lw.field("roughness", fmt.Sprintf("%s mm (%s to %s mm)", mmText(m.Roughness), mmText(m.RoughnessLow), mmText(m.RoughnessHigh)))
@@ -99,10 +100,10 @@ func (c *Catalogue) listMaterials(lw *listWriter) {
 	}
 }
 
-func (c *Catalogue) listHoses(lw *listWriter) {
+func listHoses(lw *listWriter, c *presets.Catalogue) {
 	lw.heading("HOSE SIZES", "Inside diameters; check the actual bore of your hose. Other spellings "+
 		"of a size are accepted: 1.5in, 1 1/2 in or 1-1/2\" for 1-1/2in, 38 mm for 38mm.")
-	for _, h := range c.hoses {
+	for _, h := range c.Hoses() {
 		also := ""
 		if len(h.Aliases) > 0 {
 			also = "; also " + strings.Join(h.Aliases, ", ")
@@ -110,7 +111,7 @@ func (c *Catalogue) listHoses(lw *listWriter) {
 		lw.line(fmt.Sprintf("  %-9s %s, %.2f in%s", h.ID, h.Name+mmSuffix(h), float64(h.Diameter)/0.0254, also))
 	}
 	srcs := map[string]bool{}
-	for _, h := range c.hoses {
+	for _, h := range c.Hoses() {
 		if !srcs[h.Source] {
 			srcs[h.Source] = true
 			lw.field("source", h.Source)
@@ -118,10 +119,10 @@ func (c *Catalogue) listHoses(lw *listWriter) {
 	}
 }
 
-func (c *Catalogue) listSeries(lw *listWriter) {
-	lw.heading("SIZE SERIES", BoreHelp()+" Below, pipe and hose by nominal size with the bore to enter "+
+func listSeries(lw *listWriter, c *presets.Catalogue) {
+	lw.heading("SIZE SERIES", presets.BoreHelp()+" Below, pipe and hose by nominal size with the bore to enter "+
 		"and, in brackets, the bores the standard's tolerances allow.")
-	for _, sr := range c.series {
+	for _, sr := range c.Series() {
 		lw.entry(sr.ID, sr.Name)
 		lw.field("standard", sr.Standard)
 		lw.field("bore", sr.Method)
@@ -145,10 +146,10 @@ func (c *Catalogue) listSeries(lw *listWriter) {
 // mm2 is a length in millimetres to 0.01 mm, trailing zeros dropped.
 func mm2(l calc.Length) string { return gnum(math.Round(float64(l)*1e5) / 100) }
 
-func (c *Catalogue) listFittings(lw *listWriter) {
+func listFittings(lw *listWriter, c *presets.Catalogue) {
 	lw.heading("FITTINGS", "Loss coefficient K, central (low to high). n·f_T values follow Crane "+
 		"TP-410 and are shown for a 25 mm and a 50 mm hose. [memory] marks a value from memory.")
-	for _, f := range c.fittings {
+	for _, f := range c.Fittings() {
 		lw.entry(f.ID, f.Name)
 		lw.aliases(f.Aliases)
 		var k string
@@ -173,11 +174,11 @@ func (c *Catalogue) listFittings(lw *listWriter) {
 	lw.line("  The exit loss (K = 1) is added by the calculation; do not list it.")
 }
 
-func (c *Catalogue) listIntakes(lw *listWriter) {
+func listIntakes(lw *listWriter, c *presets.Catalogue) {
 	lw.heading("INTAKES", "How the hose end draws. K: entrance loss coefficient at the hose velocity, "+
 		"central (low to high). Sizes in bores scale with the hose's inside diameter. "+
-		"Default when none is chosen: "+DefaultIntake+". [memory] marks a value from memory.")
-	for _, in := range c.intakes {
+		"Default when none is chosen: "+presets.DefaultIntake+". [memory] marks a value from memory.")
+	for _, in := range c.Intakes() {
 		lw.entry(in.ID, in.Name)
 		lw.aliases(in.Aliases)
 		k := kText(in.K)
@@ -186,7 +187,7 @@ func (c *Catalogue) listIntakes(lw *listWriter) {
 		}
 		lw.field("K", k)
 		lw.field("face", sizeText(in.Face, in.FaceBores, "across"))
-		if in.Kind == FloatingIntake {
+		if in.Kind == presets.FloatingIntake {
 			lw.field("depth", fmt.Sprintf("%s mm below the surface", mmText(in.Depth)))
 		} else {
 			lw.field("mouth", sizeText(in.Mouth, in.MouthBores, "above the floor (top of the opening)"))
@@ -194,7 +195,7 @@ func (c *Catalogue) listIntakes(lw *listWriter) {
 		if in.OpenRatio > 0 {
 			lw.field("open area", fmt.Sprintf("%s %% of the screen", gnum(in.OpenRatio*100)))
 		}
-		if in.Kind == SuctionPlate {
+		if in.Kind == presets.SuctionPlate {
 			lw.field("draws to", fmt.Sprintf("%s mm above the floor (rated)", mmText(in.DrawDown)))
 		}
 		lw.field("K source", in.KSource)
@@ -211,17 +212,17 @@ const inHg = 3386.389
 
 // vacuumText words a material's vacuum rating, gauge, in kPa and inHg as
 // hoses are rated.
-func vacuumText(m Material) string {
+func vacuumText(m presets.Material) string {
 	switch m.VacuumClass {
-	case VacuumRated:
+	case presets.VacuumRated:
 		t := fmt.Sprintf("%s kPa (%.1f inHg), gauge", gnum(float64(m.Vacuum)/1000), float64(m.Vacuum)/inHg)
-		if m.Vacuum >= FullVacuum {
+		if m.Vacuum >= presets.FullVacuum {
 			return "rated to full vacuum, " + t
 		}
 		return "rated " + t
-	case VacuumNone:
+	case presets.VacuumNone:
 		return "none: the wall collapses"
-	case VacuumNotRated:
+	case presets.VacuumNotRated:
 	}
 	return "not rated: check the hose's marking"
 }
@@ -245,9 +246,9 @@ func sizeText(l calc.Length, bores float64, what string) string {
 	return strings.Join(parts, " + ") + " " + what
 }
 
-func (c *Catalogue) listTanks(lw *listWriter) {
+func listTanks(lw *listWriter, c *presets.Catalogue) {
 	lw.heading("TANK TEMPLATES", "Sizes in metres (side-slope: run per unit rise).")
-	for _, t := range c.tanks {
+	for _, t := range c.Tanks() {
 		lw.entry(t.ID, t.Name)
 		parts := make([]string, 0, len(t.Sizes))
 		for _, s := range t.Sizes {
@@ -265,9 +266,9 @@ func (c *Catalogue) listTanks(lw *listWriter) {
 	}
 }
 
-func (c *Catalogue) listPriming(lw *listWriter) {
-	lw.heading("PRIMING METHODS", NeverByMouth)
-	for _, m := range c.priming {
+func listPriming(lw *listWriter, c *presets.Catalogue) {
+	lw.heading("PRIMING METHODS", presets.NeverByMouth)
+	for _, m := range c.PrimingMethods() {
 		lw.entry(m.ID, m.Name)
 		lw.field("how", m.Summary)
 		if m.NotFor != 0 {
@@ -281,9 +282,9 @@ func (c *Catalogue) listPriming(lw *listWriter) {
 	}
 }
 
-func (c *Catalogue) listAids(lw *listWriter) {
+func listAids(lw *listWriter, c *presets.Catalogue) {
 	lw.heading("PRIMING AIDS", "Enter your own stroke volume; the ranges only guide it.")
-	for _, a := range c.aids {
+	for _, a := range c.PrimingAids() {
 		lw.entry(a.ID, a.Name)
 		lw.field("stroke", fmt.Sprintf("%s to %s mL", gnum(float64(a.StrokeLow)*1e6), gnum(float64(a.StrokeHigh)*1e6)))
 		lw.field("source", a.Source)
@@ -299,11 +300,13 @@ type listWriter struct {
 	err error
 }
 
+// line writes one line; every line passes the sanitiser, since names,
+// notes and sources may come from a user's presets file.
 func (lw *listWriter) line(s string) {
 	if lw.err != nil {
 		return
 	}
-	_, lw.err = lw.w.WriteString(strings.TrimRight(s, " ") + "\n")
+	_, lw.err = lw.w.WriteString(strings.TrimRight(Clean(s), " ") + "\n")
 }
 
 func (lw *listWriter) heading(title, intro string) {
@@ -412,11 +415,11 @@ func gnum(v float64) string { return fmt.Sprintf("%.4g", v) }
 
 func mmText(l calc.Length) string { return gnum(float64(l) * 1000) }
 
-func kText(k KRange) string {
+func kText(k presets.KRange) string {
 	return fmt.Sprintf("%s (%s to %s)", gnum(k.Central), gnum(k.Low), gnum(k.High))
 }
 
-func mmSuffix(h Hose) string {
+func mmSuffix(h presets.Hose) string {
 	if strings.Contains(h.Name, "mm") {
 		return ""
 	}
