@@ -54,6 +54,12 @@ func run(args []string, stdout, stderr io.Writer) int {
 			return runPresets(args[1:], stdout, stderr)
 		case "report":
 			return runReport(args[1:], stdout, stderr)
+		case "checklist":
+			return runChecklist(args[1:], stdout, stderr)
+		case "new":
+			return runNew(args[1:], stdout, stderr)
+		case "jobs":
+			return runJobs(args[1:], stdout, stderr)
 		case "version", "--version":
 			return runVersion(args[1:], stdout, stderr)
 		case "completion":
@@ -116,6 +122,9 @@ usage:
   drawdown calc [flags]      compute one case without the screen; --json for JSON
   drawdown presets           list the built-in liquids, hoses, fittings and tanks with sources
   drawdown report JOB        write the job record (Markdown) and its readings CSV beside the job
+  drawdown checklist         print the checklist a job with these facts gets
+  drawdown new NAME          create a job (blank, or from --template ID) and print its path
+  drawdown jobs              list the jobs: name, site, date and state
   drawdown help [COMMAND]    this help, or a command's own (also: drawdown COMMAND --help)
   drawdown version           the version and revision (also: drawdown --version)
   drawdown completion SHELL  print a completion script for bash, zsh or fish

@@ -174,6 +174,15 @@ func (ctx ChecklistContext) Fuel() bool {
 	return ctx.Hazards.Has(presets.Flammable) || ctx.Hazards.Has(presets.Combustible)
 }
 
+// outletPlace words where the hose end goes: into the receiver for a
+// transfer, else at the discharge point.
+func (ctx ChecklistContext) outletPlace() string {
+	if ctx.Transfer {
+		return "in the receiver"
+	}
+	return "at the discharge point"
+}
+
 // has reports whether the context's hazards hold h.
 func (ctx ChecklistContext) has(h presets.Hazard) bool { return ctx.Hazards.Has(h) }
 

@@ -279,7 +279,7 @@ func (b *builder) handPumpSteps(ctx ChecklistContext) {
 		pump += " Expect about " + strconv.Itoa(f.Strokes) + " strokes to fill the hose."
 	}
 	b.add(SectionPrime, "prime.pump.place", "Place intake and outlet",
-		"Put the intake in the source clear of sludge (and of settled water under fuel, unless that water is what is being removed) and the outlet in the receiver, lower than the source surface.",
+		"Put the intake end in the source and the outlet end "+ctx.outletPlace()+", lower than the source surface.",
 		rated(ctx), rulePractice)
 	b.add(SectionPrime, "prime.pump.close", "Close the outlet if needed",
 		"Close or pinch the outlet end if the pump design needs it.", "", rulePractice)
@@ -290,7 +290,7 @@ func (b *builder) handPumpSteps(ctx ChecklistContext) {
 
 func (b *builder) shakeSteps(ctx ChecklistContext) {
 	b.add(SectionPrime, "prime.shake.outlet", "Place the outlet",
-		"Put the outlet end in the receiver, lower than the source surface.", rated(ctx), rulePractice)
+		"Put the outlet end "+ctx.outletPlace()+", lower than the source surface.", rated(ctx), rulePractice)
 	b.add(SectionPrime, "prime.shake.lower", "Lower the valve end",
 		"Lower the valve end into the liquid, deep enough to stroke without drawing air.", "", rulePractice)
 	b.add(SectionPrime, "prime.shake.stroke", "Shake until it flows",

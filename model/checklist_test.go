@@ -156,7 +156,7 @@ func TestChecklistStopByMethod(t *testing.T) {
 
 func TestChecklistMark(t *testing.T) {
 	at := time.Date(2026, 5, 14, 9, 30, 0, 0, time.FixedZone("CEST", 2*3600))
-	c := built(siteJob("gasoline", "15 C", PrimeHandPump, SiteFacts{Discharge: DischargeContainer}))
+	c := built(siteJob("water", "15 C", PrimeHandPump, SiteFacts{Discharge: DischargeContainer}))
 	first, ok := c.Current()
 	if !ok || first.ID != "hazard.liquid" {
 		t.Fatalf("Current = %v %v", first.ID, ok)
@@ -192,7 +192,7 @@ func TestChecklistMark(t *testing.T) {
 		err.Error() != "Receiving vessel and destination: a reason is needed to mark it not applicable: a rule asks for this step" {
 		t.Errorf("n/a without reason on a required step: %v", err)
 	}
-	if err := c.Mark("hazard.discharge", StateNotApplicable, "fuel stays in the tank: job cancelled", "", at); err != nil {
+	if err := c.Mark("hazard.discharge", StateNotApplicable, "water stays in the tank: job cancelled", "", at); err != nil {
 		t.Errorf("n/a with reason: %v", err)
 	}
 	// A plain practice step may be marked not applicable without one.
@@ -423,11 +423,23 @@ func ExampleBuildChecklist() {
 	s, _ := c.Current()
 	fmt.Println("first:", s.Title)
 	// Output:
-	// Hazard check: 5
+	// Hazard check: 4
 	// Set-up: 10
 	// Prime: 6
 	// Run and watch: 7
 	// Stop and drain the hose: 5
 	// Close out: 4
 	// first: Identify the liquid
+}
+
+// BenchmarkRebuildChecklist is the per-compute cost the screen pays after
+// each keystroke: ContextFor and Rebuild on the demo job (its plan
+// computed once outside the loop).
+func BenchmarkRebuildChecklist(b *testing.B) {
+	j := DemoJob()
+	p := Compute(j, testCat)
+	b.ReportAllocs()
+	for b.Loop() {
+		j.RebuildChecklist(p)
+	}
 }

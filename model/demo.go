@@ -37,9 +37,11 @@ func Templates() []Template {
 }
 
 // FromTemplate returns a new job named name from template id, created at
-// now, with its checklist built from the built-in catalogue. The demo keeps
-// its own scenario (site, crew, figures; see DemoJob) under the new name.
-// An unknown ID is an *InputError listing the IDs.
+// now, with its checklist built from the built-in catalogue. The empty ID
+// gives a blank job (NewJob: no text of any template). The demo keeps its
+// own scenario (site, crew, figures; see DemoJob) under the new name. A
+// blank name or an unknown ID is an *InputError (the latter listing the
+// IDs).
 func FromTemplate(id, name string, now time.Time) (Job, error) {
 	name, err := cleanLine("Job name", name, maxLine)
 	if err != nil {
@@ -51,6 +53,8 @@ func FromTemplate(id, name string, now time.Time) (Job, error) {
 	cat := presets.Builtin()
 	var j Job
 	switch strings.ToLower(strings.TrimSpace(id)) {
+	case "":
+		j = NewJob(name, SI, now)
 	case TemplateDemo:
 		j = DemoJob()
 		j.Name, j.Created, j.Updated = name, now, now

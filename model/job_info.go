@@ -21,8 +21,8 @@ const (
 	InfoLocation   InfoField = "location"
 	InfoDate       InfoField = "date"
 	InfoSupervisor InfoField = "supervisor"
-	InfoSource     InfoField = "source"
-	InfoReceiver   InfoField = "receiver"
+	InfoSource     InfoField = "vessel"
+	InfoReceiver   InfoField = "destination"
 	InfoNotes      InfoField = "notes"
 )
 

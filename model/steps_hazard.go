@@ -16,16 +16,18 @@ func (b *builder) hazardSection(ctx ChecklistContext) {
 		liquid = "not yet named"
 	}
 	b.add(SectionHazard, "hazard.liquid", "Identify the liquid",
-		"Identify the liquid ("+liquid+") and check its hazards on the safety data sheet where there is one; note what it looks and smells like.",
+		"Identify the liquid: "+liquid+". Check its hazards on the safety data sheet where there is one; note what it looks and smells like.",
 		"Treat an unknown liquid as hazardous until it is identified.", rulePractice)
 	b.must()
 	if ctx.ConfinedSpace {
 		b.confinedSteps(ctx)
 	}
-	b.add(SectionHazard, "hazard.electrical", "Live equipment isolated",
-		"Check for energised equipment in or touching the liquid (outlets, cords, pumps, panels); have the supply isolated by an electrician or the utility before anyone goes near the water.",
-		"Never step into water that may be live or work a breaker while standing in water; treat every flooded device as live. Work in pairs.",
-		ruleElectrical)
+	if !ctx.Fuel() { // a fuel's electrical equipment is an ignition source: setup.ignition
+		b.add(SectionHazard, "hazard.electrical", "Live equipment isolated",
+			"Check for energised equipment in or touching the liquid (outlets, cords, pumps, panels); have the supply isolated by an electrician or the utility before anyone goes near the water.",
+			"Never step into water that may be live or work a breaker while standing in water; treat every flooded device as live. Work in pairs.",
+			ruleElectrical)
+	}
 	if ctx.OpenWater {
 		b.openWaterSteps()
 	}

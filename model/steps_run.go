@@ -61,8 +61,11 @@ func (b *builder) runSection(ctx ChecklistContext) {
 		b.add(SectionRun, "run.receiver", "Watch the receiver",
 			"Watch the receiver level and stop before it is full (leave room for the hose contents).", "", rulePractice)
 	}
-	b.add(SectionRun, "run.stop-before", "Stop before the intake uncovers",
-		"Stop before the intake uncovers or reaches sludge or a floating oil layer.", "", rulePractice)
+	stop := "Stop before the intake uncovers or reaches sludge or a floating oil layer."
+	if ctx.Fuel() {
+		stop = "Stop before the intake uncovers or reaches sludge or the water settled under the fuel."
+	}
+	b.add(SectionRun, "run.stop-before", "Stop before the intake uncovers", stop, "", rulePractice)
 }
 
 // overnightSteps: whether the siphon may stand overnight, and frost on a
@@ -78,7 +81,11 @@ func (b *builder) overnightSteps(ctx ChecklistContext) {
 			"A containment release runs under responsible supervision: stop it and reseal the valve before the crew leaves, unless the facility's plan allows an attended night release.",
 			"Some facility plans allow releases in daylight hours only.", ruleSPCC)
 	default:
-		text := "Before leaving the siphon to stand overnight: fence or mark the hose and the outlet, weight both ends, check that the receiver cannot overflow by morning, and check the siphon first thing."
+		morning := "check that the outlet cannot scour or flood anything by morning"
+		if ctx.Transfer {
+			morning = "check that the receiver cannot overflow by morning"
+		}
+		text := "Before leaving the siphon to stand overnight: fence or mark the hose and the outlet, weight both ends, " + morning + ", and check the siphon first thing."
 		if ctx.ConfinedSpace {
 			text += " Close or guard the opening, and test the air again before anyone works at it in the morning."
 		}
@@ -106,13 +113,17 @@ func (b *builder) stopSection(ctx ChecklistContext) {
 			"A fast valve closure on a long rigid line causes a pressure surge (water hammer) that can split couplings.",
 			rulePractice)
 	default:
+		room := ""
+		if ctx.Transfer {
+			room = "Lift the intake only if the receiver has room for the hose contents."
+		}
 		b.add(SectionStop, "stop.break", "Stop the flow",
-			"Stop the flow: lift the intake clear of the liquid so the hose runs out into the receiver, or raise the outlet above the source surface so the hose contents run back.",
-			"Lift the intake only if the receiver has room for the hose contents.", rulePractice)
+			"Stop the flow: lift the intake clear of the liquid so the hose runs out "+ctx.outletPlace()+", or raise the outlet above the source surface so the hose contents run back.",
+			room, rulePractice)
 	}
 	b.add(SectionStop, "stop.record", "Record the stop",
 		"Record the stop time and the source level.", "", rulePractice)
-	drain := "Drain the hose into the receiver or back into the source."
+	drain := "Drain the hose " + ctx.outletPlace() + " or back into the source."
 	if ctx.has(presets.FreezingRisk) {
 		drain += " Drain it completely so it cannot freeze."
 	}

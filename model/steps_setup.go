@@ -14,9 +14,11 @@ func (b *builder) setupSection(ctx ChecklistContext) {
 	if ctx.OpenWater {
 		intake = "A large-bore intake can trap a person or animal: keep people out of the water near it."
 	}
-	b.add(SectionSetup, "setup.intake", "Place the intake",
-		"Place the intake below the surface with margin, screened, clear of sludge and floating oil; weight it so it stays submerged.",
-		intake, rulePractice)
+	place := "Place the intake below the surface with margin, screened, clear of sludge and floating oil; weight it so it stays submerged."
+	if ctx.Fuel() {
+		place = "Place the intake below the surface with margin, clear of sludge and of any water settled under the fuel (unless that water is what is being removed)."
+	}
+	b.add(SectionSetup, "setup.intake", "Place the intake", place, intake, rulePractice)
 	b.add(SectionSetup, "setup.outlet", "Secure the outlet end",
 		"Secure the discharge end: tie it down or weight it so it cannot leave the receiver or drain; keep people clear of the outlet while starting.",
 		"A free hose end can jump and thrash when trapped air is expelled.", rulePractice)
