@@ -7,9 +7,9 @@ import (
 	"io"
 	"strings"
 	"time"
-	"unicode"
 
 	"drawdown/model"
+	"drawdown/model/present"
 	"drawdown/presets"
 )
 
@@ -243,16 +243,8 @@ func writeChecklistText(w io.Writer, c model.Checklist) {
 	fmt.Fprintln(w, presets.PlanNotPermit)
 }
 
-// plain keeps text from a catalogue or a person from acting on the
-// terminal: control characters become U+FFFD.
-func plain(s string) string {
-	return strings.Map(func(r rune) rune {
-		if unicode.IsControl(r) {
-			return '\uFFFD'
-		}
-		return r
-	}, s)
-}
+// plain is text from outside on one line of output: the one sanitiser.
+func plain(s string) string { return present.Clean(s) }
 
 func checklistUsage(w io.Writer, table []flagDef) {
 	fmt.Fprintln(w, "usage: drawdown checklist [calc flags] [site facts] [--json]")
