@@ -4,7 +4,6 @@ import (
 	"errors"
 	"strconv"
 	"strings"
-	"time"
 
 	tea "charm.land/bubbletea/v2"
 
@@ -20,22 +19,21 @@ import (
 
 // applyEdit stores a field's new text, recomputes and saves.
 func (m *Model) applyEdit(e FieldEdit) tea.Cmd {
+	prevPreset := strings.TrimSpace(m.job.Inputs[model.FieldTankPreset])
 	_ = m.job.Set(e.ID, e.Text) // the error comes back with the plan's field errors
 	if e.ID == model.FieldTankPreset {
 		if t, ok := m.cat.Tank(e.Text); ok {
-			if prev := m.job.TankSizesText(); prev != "" {
-				// Keep what was typed before the catalogue replaced it.
-				m.job.AddLog(m.now(), "tank before the catalogue choice: "+prev)
+			if prev := m.job.TankSizesText(); prev != "" && (prevPreset == "" || prevPreset == "custom") {
+				// Keep what was typed by hand before the catalogue
+				// replaced it; browsing from one catalogue tank to the
+				// next logs nothing.
+				m.job.AddLog(m.now(), "Tank sizes typed before the catalogue choice: "+prev)
 			}
 			m.job.ApplyTankPreset(t)
 			m.flash = "tank set from the catalogue: " + t.Name + "; now set the liquid level"
 		}
 	}
 	m.recompute()
-	if e.ID == model.FieldLiquid || e.ID == model.FieldPriming {
-		m.rebuildChecklist(e.ID)
-		m.recompute() // the sheet's hazard words follow the checklist
-	}
 	return m.save()
 }
 
@@ -54,17 +52,6 @@ func (m *Model) restoreField() tea.Cmd {
 	}
 	f.SetText(old)
 	return m.applyEdit(FieldEdit{ID: id, Text: old})
-}
-
-// rebuildChecklist rebuilds the checklist from the job and the last valid
-// plan (model.Job.RebuildChecklist: the context derived again, every
-// recorded mark kept).
-func (m *Model) rebuildChecklist(model.FieldID) {
-	if m.st.stale || !m.st.hasPlan {
-		return
-	}
-	m.job.RebuildChecklist(m.st.plan)
-	m.touch()
 }
 
 // recompute runs model.Compute, words the plan once (present.Build) and
@@ -88,6 +75,9 @@ func (m *Model) recompute() {
 		}
 	}
 	if p.OK() {
+		// The checklist's context is derived again from the job and this
+		// plan after every compute (model.ContextFor): nothing in it sticks.
+		m.job.RebuildChecklist(p)
 		m.st.plan, m.st.hasPlan = p, true
 		m.st.sheet = present.Build(p, m.job.Units, m.checklistHazards(p))
 		m.planGen++
@@ -145,26 +135,18 @@ func (m *Model) adopt(a WhatIfAdoptMsg) tea.Cmd {
 	return m.save()
 }
 
-// mark records a checklist step's state with the time, logs it and saves.
+// mark records a checklist step's state with the time (model.Job.Mark: it
+// logs the step by its label and closes or reopens the job), and saves.
 func (m *Model) mark(c ChecklistMarkMsg) tea.Cmd {
 	now := m.now()
-	if err := m.job.Checklist.Mark(c.ID, c.State, c.Reason, "", now); err != nil {
+	wasClosed := !m.job.Closed.IsZero()
+	if err := m.job.Mark(c.ID, c.State, c.Reason, "", now); err != nil {
 		m.flash = err.Error()
+		m.checklist.Refused(c.ID) // keep the cursor on the step that was refused
 		return nil
 	}
-	text := "checklist: " + c.ID + " " + c.State.Label()
-	if c.Reason != "" {
-		text += " (" + c.Reason + ")"
-	}
-	m.job.AddLog(now, text)
-	if pr := m.job.Checklist.Progress(); pr.Total > 0 && pr.Pending == 0 && m.job.Closed.IsZero() {
-		// Every step is done, skipped with a reason, or not applicable.
-		m.job.Closed = now
-		m.job.AddLog(now, "job closed out: every checklist step marked; press w in the Log pane for the record")
-		m.flash = "job closed out: write the record with w in the Log pane (9)"
-	} else if pr.Pending > 0 && !m.job.Closed.IsZero() {
-		m.job.Closed = time.Time{} // a step was put back to do: the job is open again
-		m.job.AddLog(now, "job reopened: a checklist step is to do again")
+	if !wasClosed && !m.job.Closed.IsZero() {
+		m.flash = "job closed out: write the record with w in the Log pane"
 	}
 	if c.Current != "" {
 		m.job.Resume.StepID = c.Current

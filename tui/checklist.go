@@ -44,6 +44,7 @@ type ckMode int
 const (
 	ckBrowse ckMode = iota // moving and marking
 	ckReason               // typing a reason to skip
+	ckReasonNA             // typing why a required step does not apply
 	ckNote                 // typing a note
 )
 
@@ -237,6 +238,10 @@ func (v ChecklistView) Update(msg tea.Msg) (ChecklistView, tea.Cmd) {
 		state := model.StateDone
 		if key.Matches(k, v.keys.NotApplies) {
 			state = model.StateNotApplicable
+			if v.cl.Steps[v.cur].Required {
+				// A required step is not waved off: it takes a reason.
+				return v, v.openInput(ckReasonNA, "", "why does this required step not apply here?")
+			}
 		}
 		now := v.now()
 		if k.String() == v.lastKey && v.cur == v.lastStep && now.Sub(v.lastAt) < markBounce {
@@ -260,6 +265,16 @@ func (v ChecklistView) Update(msg tea.Msg) (ChecklistView, tea.Cmd) {
 	return v, nil
 }
 
+// Refused puts the selection back on step id when the root refused its
+// mark (a required step skipped without a reason): the cursor does not run
+// on past a step that was not marked.
+func (v *ChecklistView) Refused(id string) {
+	if i := v.cl.Index(id); i >= 0 {
+		v.cur = i
+	}
+	v.lastKey = ""
+}
+
 // advance moves the selection on after a step is marked (not past the
 // last step).
 func (v *ChecklistView) advance() {
@@ -273,14 +288,18 @@ func (v ChecklistView) submit() (ChecklistView, tea.Cmd) {
 	id := v.CurrentID()
 	text := strings.TrimSpace(v.input.Value())
 	switch v.mode {
-	case ckReason:
+	case ckReason, ckReasonNA:
+		state, what := model.StateSkipped, "to skip a step"
+		if v.mode == ckReasonNA {
+			state, what = model.StateNotApplicable, "to mark a required step not applicable"
+		}
 		if text == "" {
-			v.errText = "✗ a reason is required to skip a step"
+			v.errText = "✗ a reason is required " + what
 			return v, nil
 		}
 		v.closeInput()
 		v.advance()
-		return v, ckEmit(ChecklistMarkMsg{ID: id, State: model.StateSkipped, Reason: text, Current: v.CurrentID()})
+		return v, ckEmit(ChecklistMarkMsg{ID: id, State: state, Reason: text, Current: v.CurrentID()})
 	case ckNote:
 		v.closeInput()
 		return v, ckEmit(ChecklistNoteMsg{ID: id, Note: text})
@@ -425,8 +444,12 @@ func (v ChecklistView) layout() ckLayout {
 	}
 	if v.mode != ckBrowse {
 		label := "Reason to skip (required):"
-		if v.mode == ckNote {
+		switch v.mode {
+		case ckNote:
 			label = "Note for this step:"
+		case ckReasonNA:
+			label = "Why this required step does not apply (required):"
+		default:
 		}
 		iv := v.input.View()
 		l.input = append(l.input, drawPlain(label, clsTitle), drawLine{{text: iv, raw: true, width: cellWidth(iv)}})
