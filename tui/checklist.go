@@ -42,10 +42,10 @@ type ChecklistStepMsg struct {
 type ckMode int
 
 const (
-	ckBrowse ckMode = iota // moving and marking
-	ckReason               // typing a reason to skip
-	ckReasonNA             // typing why a required step does not apply
-	ckNote                 // typing a note
+	ckBrowse   ckMode = iota // moving and marking
+	ckReason                 // typing a reason to skip
+	ckReasonNA               // typing why a required step does not apply
+	ckNote                   // typing a note
 )
 
 // ChecklistView steps through the job's checklist: a scrolling list of the
