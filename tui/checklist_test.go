@@ -197,7 +197,7 @@ func TestChecklistKeys(t *testing.T) {
 	}
 	v, msgs = ckPress(v, "x")
 	fourth := cl.Steps[3].ID
-	want := ChecklistMarkMsg{ID: third, State: model.StateNotApplicable, Current: fourth}
+	wantX := ChecklistMarkMsg{ID: third, State: model.StateNotApplicable, Current: fourth}
 	if cl.Steps[2].Required {
 		// A required step is not waved off: x asks why, and the mark
 		// carries the reason.
@@ -205,9 +205,9 @@ func TestChecklistKeys(t *testing.T) {
 			t.Fatalf("x on a required step marked it without a reason: %v", msgs)
 		}
 		v, msgs = ckPress(v, append(strings.Split("no vault here", ""), "enter")...)
-		want.Reason = "no vault here"
+		wantX.Reason = "no vault here"
 	}
-	if len(msgs) != 1 || msgs[0] != want {
+	if len(msgs) != 1 || msgs[0] != wantX {
 		t.Fatalf("x: %v", msgs)
 	}
 	v, _ = ckPress(v, "up")
