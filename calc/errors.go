@@ -123,6 +123,28 @@ const (
 	QuantityReidVaporPressure
 	// QuantityBarbRatio: bore ratio of a hose barb (presets).
 	QuantityBarbRatio
+	// QuantityOutletK: outlet valve or fitting loss coefficient.
+	QuantityOutletK
+	// QuantityMaxFlow: maximum discharge rate (a permit's cap).
+	QuantityMaxFlow
+	// QuantityIntakeKind: intake kind.
+	QuantityIntakeKind
+	// QuantityIntakeSize: intake face diameter.
+	QuantityIntakeSize
+	// QuantityIntakeHeight: height of the intake's opening.
+	QuantityIntakeHeight
+	// QuantityIntakeOpenArea: intake open area.
+	QuantityIntakeOpenArea
+	// QuantityIntakeK: intake device loss coefficient.
+	QuantityIntakeK
+	// QuantityFloatDepth: floating intake depth.
+	QuantityFloatDepth
+	// QuantityVacuumRating: hose vacuum rating or class.
+	QuantityVacuumRating
+	// QuantityHoseWall: hose wall (thickness, modulus, Poisson's ratio).
+	QuantityHoseWall
+	// QuantityDownLegSlope: steepest down-leg slope after the crest.
+	QuantityDownLegSlope
 	quantityCount
 )
 
@@ -169,6 +191,17 @@ var quantityCodes = [...]string{
 	"salinity",
 	"reid_vapor_pressure",
 	"barb_ratio",
+	"outlet_k",
+	"max_flow",
+	"intake_kind",
+	"intake_size",
+	"intake_height",
+	"intake_open_area",
+	"intake_k",
+	"float_depth",
+	"vacuum_rating",
+	"hose_wall",
+	"down_leg_slope",
 }
 
 // String returns the stable lowercase code of q, e.g. "hose_diameter".

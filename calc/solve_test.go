@@ -234,8 +234,9 @@ func TestSolveEnergyBalanceAndProperties(t *testing.T) {
 	if !testkit.Within(float64(r3.Flow), 3*float64(r0.Flow), 1e-12) || r3.Velocity != r0.Velocity {
 		t.Errorf("3 hoses: %v vs 3×%v", r3.Flow, r0.Flow)
 	}
-	// Crest pressure falls as the crest rises; the verdict moves from runs
-	// to near limit to will not run.
+	// Crest pressure falls as the crest rises until it reaches the running
+	// limit, where the siphon runs choked with the crest held there; the
+	// verdict moves from runs to near limit to runs choked to will not run.
 	seen := map[Verdict]bool{}
 	prevP := math.Inf(1)
 	for lift := 0.0; lift < 11; lift += 0.25 {
@@ -245,17 +246,22 @@ func TestSolveEnergyBalanceAndProperties(t *testing.T) {
 		s.Hose.Length = Length(2*lift + 4)
 		r, _ := Solve(s)
 		seen[r.Verdict] = true
-		if r.Verdict != WillNotRun {
+		switch r.Verdict {
+		case Runs, RunsNearLimit:
 			if float64(r.CrestPressure) >= prevP {
 				t.Errorf("lift %g: crest pressure did not fall", lift)
 			}
 			prevP = float64(r.CrestPressure)
-			if !(r.CrestPressure > base.Fluid.VaporPressure) {
-				t.Errorf("lift %g: running with crest at or below vapour pressure", lift)
+			if !(r.CrestPressure > r.RunningCrestPressure) {
+				t.Errorf("lift %g: running with crest at or below the running limit", lift)
+			}
+		case RunsChoked:
+			if !testkit.Within(float64(r.CrestPressure), float64(r.RunningCrestPressure), 1e-9) || !(r.Flow < r.GravityFlow) {
+				t.Errorf("lift %g: choked with crest %v (limit %v), flow %v of %v", lift, r.CrestPressure, r.RunningCrestPressure, r.Flow, r.GravityFlow)
 			}
 		}
 	}
-	for _, v := range []Verdict{Runs, RunsNearLimit, WillNotRun} {
+	for _, v := range []Verdict{Runs, RunsNearLimit, RunsChoked, WillNotRun} {
 		if !seen[v] {
 			t.Errorf("verdict %v never seen over 0–11 m lift", v)
 		}
@@ -314,7 +320,6 @@ func TestSolveBadInput(t *testing.T) {
 		{"negative length", func(s *Siphon) { s.Hose.Length = -3 }, ErrOutOfRange, "hose length"},
 		{"Inf length", func(s *Siphon) { s.Hose.Length = Length(math.Inf(1)) }, ErrNotFinite, "hose length"},
 		{"roughness as big as the bore", func(s *Siphon) { s.Hose.Roughness = 0.025 }, ErrGeometry, "roughness"},
-		{"boiling", func(s *Siphon) { s.Fluid.VaporPressure = 101325 }, ErrBoiling, "vapour pressure"},
 		{"crest below intake", func(s *Siphon) { s.Geometry.Crest = -1 }, ErrGeometry, "crest"},
 		{"no hoses", func(s *Siphon) { s.Hoses = 0 }, ErrOutOfRange, "number of hoses"},
 		{"density", func(s *Siphon) { s.Fluid.Density = 0 }, ErrOutOfRange, "density"},
@@ -364,8 +369,9 @@ func FuzzSolve(f *testing.F) {
 		if r.Verdict == WillNotRun && r.Flow != 0 {
 			t.Fatalf("will not run but flows: %+v", r)
 		}
-		if r.Verdict != WillNotRun && (!(r.Flow > 0) || r.CrestPressure <= s.Fluid.VaporPressure) {
-			t.Fatalf("runs without flow or with a boiling crest: %+v", r)
+		if r.Verdict != WillNotRun && (!(r.Flow > 0) || r.CrestPressure <= s.Fluid.VaporPressure ||
+			r.CrestPressure < r.RunningCrestPressure*(1-1e-9)) {
+			t.Fatalf("runs without flow or with the crest below its running limit: %+v", r)
 		}
 	})
 }
