@@ -486,28 +486,6 @@ func TestDrainCrestStop(t *testing.T) {
 	if r := at(plan.StopLevel - EqualHead - 1e-6); r.Verdict != WillNotRun || r.Why != WarnCannotRun {
 		t.Errorf("past the running crest height Solve says %v (%v)", r.Verdict, r.Why)
 	}
-	// This crest chokes from the start; a lower one chokes on the way down.
-	if plan.Start.Verdict != RunsChoked || !plan.ChokeFound || plan.ChokeLevel != in.Siphon.Geometry.Surface {
-		t.Errorf("start %v, choke level %g (found %v)", plan.Start.Verdict, plan.ChokeLevel, plan.ChokeFound)
-	}
-	mid := in
-	mid.Siphon.Geometry.Crest = 8.8
-	pm, err := PlanDrain(mid)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if pm.Start.Verdict == RunsChoked || !pm.ChokeFound || !(pm.ChokeLevel > pm.StopLevel) {
-		t.Fatalf("crest 8.8 m: start %v, choke level %g (found %v), stop %g (%s)", pm.Start.Verdict, pm.ChokeLevel, pm.ChokeFound, pm.StopLevel, pm.StopReason)
-	}
-	if r := solveLevel(t, mid.Siphon, pm.ChokeLevel-1e-5); r.Verdict != RunsChoked {
-		t.Errorf("just below the choke level Solve says %v", r.Verdict)
-	}
-	if r := solveLevel(t, mid.Siphon, pm.ChokeLevel+1e-5); r.Verdict == RunsChoked {
-		t.Errorf("just above the choke level Solve says %v", r.Verdict)
-	}
-	if !pm.WorkingLimitFound || !(pm.WorkingLimitLevel > pm.ChokeLevel) {
-		t.Errorf("working limit %g (found %v) should be above the choke level %g", pm.WorkingLimitLevel, pm.WorkingLimitFound, pm.ChokeLevel)
-	}
 	// Solve's verdict turns from runs to runs-near-limit at the working
 	// limit (a lower crest, so that this happens during the drain).
 	low := in
@@ -533,6 +511,38 @@ func TestDrainCrestStop(t *testing.T) {
 	}
 	if pt.StopReason != StopTarget || !pt.CrestLimitFound || math.Abs(float64(pt.CrestLimitLevel-plan.CrestLimitLevel)) > 1e-9 {
 		t.Errorf("target plan: %s, crest limit %g (found %v), want %g", pt.StopReason, pt.CrestLimitLevel, pt.CrestLimitFound, plan.CrestLimitLevel)
+	}
+}
+
+// TestDrainChokeLevel: the crest case chokes from the start; with a lower
+// crest the siphon chokes on the way down, where Solve's verdict turns to
+// runs choked, and the working limit (p_work > p_run) is passed before that.
+func TestDrainChokeLevel(t *testing.T) {
+	in := crestCase()
+	plan, err := PlanDrain(in)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if plan.Start.Verdict != RunsChoked || !plan.ChokeFound || plan.ChokeLevel != in.Siphon.Geometry.Surface {
+		t.Errorf("start %v, choke level %g (found %v)", plan.Start.Verdict, plan.ChokeLevel, plan.ChokeFound)
+	}
+	mid := in
+	mid.Siphon.Geometry.Crest = 8.8
+	pm, err := PlanDrain(mid)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if pm.Start.Verdict == RunsChoked || !pm.ChokeFound || !(pm.ChokeLevel > pm.StopLevel) {
+		t.Fatalf("crest 8.8 m: start %v, choke level %g (found %v), stop %g (%s)", pm.Start.Verdict, pm.ChokeLevel, pm.ChokeFound, pm.StopLevel, pm.StopReason)
+	}
+	if r := solveLevel(t, mid.Siphon, pm.ChokeLevel-1e-5); r.Verdict != RunsChoked {
+		t.Errorf("just below the choke level Solve says %v", r.Verdict)
+	}
+	if r := solveLevel(t, mid.Siphon, pm.ChokeLevel+1e-5); r.Verdict == RunsChoked {
+		t.Errorf("just above the choke level Solve says %v", r.Verdict)
+	}
+	if !pm.WorkingLimitFound || !(pm.WorkingLimitLevel > pm.ChokeLevel) {
+		t.Errorf("working limit %g (found %v) should be above the choke level %g", pm.WorkingLimitLevel, pm.WorkingLimitFound, pm.ChokeLevel)
 	}
 }
 
@@ -686,17 +696,20 @@ func TestDrainBadInput(t *testing.T) {
 // FuzzPlanDrain: any input gives an error or a finite plan with a known stop
 // reason; it never panics or hangs.
 func FuzzPlanDrain(f *testing.F) {
-	f.Add(1.4, 0.05, 1.9, -2.0, 0.025, 10.0, 1.2, 0.0, 0.0, false)
-	f.Add(1.9, 0.05, 9.6, -3.0, 0.025, 25.0, 1.5, 0.0, 0.0, false)
-	f.Add(1.8, 0.05, 2.3, -1.1, 0.025, 10.0, 1.2, 0.3, -0.4, true)
-	f.Add(0.2, 0.19, 0.3, 0.1, 0.3, 0.5, 50.0, 0.195, 0.0, false)
-	f.Fuzz(func(t *testing.T, level, intake, crest, outlet, diam, length, tankD, target, rcvFloor float64, rcv bool) {
+	f.Add(1.4, 0.05, 1.9, -2.0, 0.025, 10.0, 1.2, 0.0, 0.0, false, uint8(0), false, false, 0.0)
+	f.Add(1.9, 0.05, 9.6, -3.0, 0.025, 25.0, 1.5, 0.0, 0.0, false, uint8(2), true, false, 0.0)
+	f.Add(1.8, 0.05, 2.3, -1.1, 0.025, 10.0, 1.2, 0.3, -0.4, true, uint8(5), false, true, 1e-3)
+	f.Add(0.2, 0.19, 0.3, 0.1, 0.3, 0.5, 50.0, 0.195, 0.0, false, uint8(1), true, true, 0.0)
+	f.Fuzz(func(t *testing.T, level, intake, crest, outlet, diam, length, tankD, target, rcvFloor float64, rcv bool,
+		kind uint8, film, cover bool, qmax float64) {
 		tk, err := NewVerticalCylinder(Length(tankD), 2)
 		if err != nil {
 			return
 		}
 		s := baseSiphon(level, intake, crest, outlet)
 		s.Hose.Diameter, s.Hose.Length = Length(diam), Length(length)
+		s.Intake = Intake{Kind: IntakeKind(kind % 6), FaceDiameter: 0.08, Height: 0.03, FloatDepth: 0.05, FilmRisk: film, Covered: cover}
+		s.MaxFlow = FlowRate(qmax)
 		in := DrainInput{Tank: tk, Siphon: s, Target: Length(target), CurvePoints: 20}
 		if rcv {
 			in.Receiver = &Receiver{Tank: mustTank(NewHorizontalCylinder(1.4, 2.5)), Floor: Length(rcvFloor), Level: 0.1}
@@ -722,8 +735,12 @@ func FuzzPlanDrain(f *testing.F) {
 		default:
 			t.Fatalf("stop reason %q", plan.StopReason)
 		}
-		if len(plan.Curve) > 20 || plan.Time < 0 || plan.Volume < 0 || plan.StopLevel > s.Geometry.Surface {
+		if len(plan.Curve) > 20 || plan.Time < 0 || plan.Volume < 0 || plan.StopLevel > s.Geometry.Surface ||
+			plan.GulpTimeLost > plan.GulpTime || plan.GulpTime > plan.Time*(1+1e-9) {
 			t.Fatalf("plan %+v", plan)
+		}
+		if target > 0 && plan.StopLevel < Length(target)*(1-1e-9) {
+			t.Fatalf("drained past the target %v to %v", target, plan.StopLevel)
 		}
 	})
 }

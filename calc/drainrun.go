@@ -14,11 +14,10 @@ func (p *planner) run() (DrainPlan, error) {
 	_, hr0, _, H0 := p.state(0)
 	plan.ReceiverLevel = Length(hr0)
 	plan.AirStartsLevel, plan.PrimeLostLevel = start.AirStartsLevel, start.PrimeLostLevel
-	defer func() {
-		plan.TargetBelowPrimeLost = p.target >= 0 && p.target < float64(plan.PrimeLostLevel)
-	}()
+	targetBelow := func() bool { return p.target >= 0 && p.target < float64(plan.PrimeLostLevel) }
 
 	stopNow := func(why StopReason) (DrainPlan, error) {
+		plan.TargetBelowPrimeLost = targetBelow()
 		plan.StopReason = why
 		plan.StartFlow = start.Flow
 		plan.EndFlow = start.Flow
@@ -106,9 +105,12 @@ func (p *planner) run() (DrainPlan, error) {
 	p.integrate(&plan, newXmap(xz, haveZ, 0, xStop))
 	if xa := roots[evAir]; found[evAir] && xa < xStop {
 		t, t0 := p.gulpTimes(newXmap(xz, haveZ, xa, xStop))
-		plan.GulpTime, plan.GulpTimeLost = Seconds(t), Seconds(math.Max(t-t0, 0))
+		// two quadratures of the same span: keep the gulping inside the drain
+		t = math.Min(t, float64(plan.Time))
+		plan.GulpTime, plan.GulpTimeLost = Seconds(t), Seconds(math.Min(math.Max(t-t0, 0), t))
 	}
 	plan.StartFlow = start.Flow
+	plan.TargetBelowPrimeLost = targetBelow()
 	return plan, nil
 }
 

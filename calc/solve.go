@@ -148,7 +148,7 @@ type siphonCase struct {
 	pRun, pWork, workAllow     float64
 	ig                         intakeGeom
 	gravityV, gravityF         float64 // full-gravity solution (no cap, no choke)
-	flowSolved                 bool
+	flowSolved, upLegAsLaid    bool
 	vC                         float64 // air-clearing velocity
 	blockedVacuum, primeVacuum float64
 }
@@ -166,6 +166,7 @@ func (c *siphonCase) init(s *Siphon, r *Result) {
 	c.H = float64(geo.Drop())
 	c.area = math.Pi * c.D * c.D / 4
 	c.lUp = float64(s.Hose.UpLegLength)
+	c.upLegAsLaid = c.lUp == 0
 	if c.lUp == 0 {
 		c.lUp = math.Max(float64(geo.Crest-geo.Intake), 0)
 	}
@@ -387,8 +388,15 @@ func (c *siphonCase) fix(r *Result) {
 	x.NeedsPump = c.H <= 0 || x.CrestHeightThrottled <= 0
 	if c.flowSolved {
 		kCrest := 1 + c.kUp + c.gravityF*c.lUp/c.D
-		vh := kCrest * c.gravityV * c.gravityV / (2 * StandardGravity)
-		if ch := (c.patm-c.pWork)/rg - vh; ch > 0 {
+		vh := c.gravityV * c.gravityV / (2 * StandardGravity)
+		// lift + vh·(1 + kUp + f·L_up/D) = (p_atm − p_work)/(ρg); an up-leg
+		// laid straight (UpLegLength 0) grows with the lift it climbs
+		ch := (c.patm-c.pWork)/rg - vh*kCrest
+		if c.upLegAsLaid {
+			a := vh * (1 + c.kUp + c.gravityF*math.Max(float64(c.geo.Surface-c.geo.Intake), 0)/c.D)
+			ch = ((c.patm-c.pWork)/rg - a) / (1 + vh*c.gravityF/c.D)
+		}
+		if ch > 0 {
 			x.CrestHeight, x.HasCrestHeight = Length(ch), true
 		}
 		// the vapour pressure that puts the full-gravity crest at p_work

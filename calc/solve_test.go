@@ -342,36 +342,66 @@ func TestSolveBadInput(t *testing.T) {
 	}
 }
 
+// FuzzSolve: any input gives an error or a finite result whose verdict, fix
+// and figures agree with each other; never a panic, NaN or Inf.
 func FuzzSolve(f *testing.F) {
-	f.Add(0.025, 12.0, 1e-5, 0.78, 0.0, 1.5, -2.5, -0.3, 999.1, 1.14e-3, 1705.0, 101325.0, 1)
-	f.Add(0.013, 3.0, 0.0, 0.0, 15.0, 9.0, -0.1, -0.1, 720.0, 4e-4, 60e3, 80e3, 3)
-	f.Fuzz(func(t *testing.T, d, l, eps, kin, kdown, crest, outlet, intake, rho, mu, pv, patm float64, n int) {
+	f.Add(0.025, 12.0, 1e-5, 0.78, 0.0, 1.5, -2.5, -0.3, 999.1, 1.14e-3, 1705.0, 101325.0, 1, uint8(0), 0.0, 0.0, false, false, 0.0, 0.0, uint8(0), 0.0, 0.0, false)
+	f.Add(0.013, 3.0, 0.0, 0.0, 15.0, 9.0, -0.1, -0.1, 720.0, 4e-4, 60e3, 80e3, 3, uint8(2), 0.1, 0.03, true, false, 2.0, 1e-4, uint8(1), 50e3, 0.5, true)
+	f.Add(0.025, 30.0, 1e-5, 0.78, 0.0, 5.5, -12.0, -0.3, 998.2, 1.0e-3, 2339.0, 84560.0, 1, uint8(5), 0.0, 0.0, false, true, 0.0, 0.0, uint8(2), 0.0, 1.0, false)
+	f.Fuzz(func(t *testing.T, d, l, eps, kin, kdown, crest, outlet, intake, rho, mu, pv, patm float64, n int,
+		kind uint8, face, top float64, film, cover bool, kout, qmax float64, vac uint8, rating, slope float64, volatile bool) {
 		s := Siphon{
-			Fluid: Fluid{Density: Density(rho), Viscosity: Viscosity(mu), VaporPressure: Pressure(pv)}, AtmPressure: Pressure(patm), Hoses: n,
-			Hose:     Hose{Diameter: Length(d), Length: Length(l), Roughness: Length(eps), KEntrance: kin, KDownLeg: kdown},
-			Geometry: Geometry{Surface: 0, Intake: Length(intake), Crest: Length(crest), Outlet: Length(outlet)},
+			Fluid: Fluid{Density: Density(rho), Viscosity: Viscosity(mu), VaporPressure: Pressure(pv), Volatile: volatile}, AtmPressure: Pressure(patm), Hoses: n,
+			Hose: Hose{Diameter: Length(d), Length: Length(l), Roughness: Length(eps), KEntrance: kin, KDownLeg: kdown, OutletK: kout,
+				Vacuum: VacuumClass(vac), VacuumRating: Pressure(rating), Wall: Wall{Thickness: Length(d / 10), Modulus: 2e9, Poisson: 0.4}},
+			Geometry: Geometry{Surface: 0, Intake: Length(intake), Crest: Length(crest), Outlet: Length(outlet), DownLegSlope: slope},
+			Intake:   Intake{Kind: IntakeKind(kind), FaceDiameter: Length(face), Height: Length(top), FilmRisk: film, Covered: cover, FloatDepth: Length(top)},
+			MaxFlow:  FlowRate(qmax),
 		}
 		r, err := Solve(s)
 		if err != nil {
 			return
 		}
+		x := r.Fix
 		vals := []float64{float64(r.Flow), float64(r.Velocity), r.Reynolds, r.FrictionFactor, float64(r.CrestPressure),
 			float64(r.MaxCrestHeight), float64(r.FlowingCrestLimit), float64(r.WorkingCrestHeight), float64(r.CrestMargin),
-			float64(r.RequiredSubmergence), float64(r.AirClearingVelocity), float64(r.PrimingVolume), float64(r.Head)}
+			float64(r.RequiredSubmergence), float64(r.AirClearingVelocity), float64(r.PrimingVolume), float64(r.Head),
+			float64(r.RunningCrestHeight), float64(r.GravityFlow), r.OutletThrottleK, r.MaxFlowThrottleK, float64(r.FaceVelocity),
+			float64(r.SubmergenceHI), float64(r.AirStartsLevel), float64(r.PrimeLostLevel), r.GulpVoid, float64(r.GulpHead),
+			float64(r.HoseVacuumWorst), float64(r.HoseVacuumRating), float64(r.CrestVacuum),
+			float64(x.CrestHeight), float64(x.CrestHeightThrottled), float64(x.MaxVaporPressure), float64(x.ThrottleFlow), x.ThrottleK,
+			float64(x.MinVacuumRating)}
 		for i, v := range vals {
 			if math.IsNaN(v) || math.IsInf(v, 0) {
 				t.Fatalf("value %d not finite: %+v", i, r)
 			}
 		}
-		if r.Flow < 0 || r.Velocity < 0 || r.PrimingVolume <= 0 || r.MaxCrestHeight <= 0 {
+		if r.Flow < 0 || r.Velocity < 0 || r.PrimingVolume <= 0 || (r.MaxCrestHeight <= 0 && r.Why != WarnBoiling) {
 			t.Fatalf("wrong sign: %+v", r)
 		}
-		if r.Verdict == WillNotRun && r.Flow != 0 {
-			t.Fatalf("will not run but flows: %+v", r)
+		if r.Verdict == WillNotRun && (r.Flow != 0 || r.Why == 0 || x.Code == FixNone) {
+			t.Fatalf("will not run but flows, or says not why or what to change: %+v", r)
 		}
 		if r.Verdict != WillNotRun && (!(r.Flow > 0) || r.CrestPressure <= s.Fluid.VaporPressure ||
 			r.CrestPressure < r.RunningCrestPressure*(1-1e-9)) {
 			t.Fatalf("runs without flow or with the crest below its running limit: %+v", r)
+		}
+		if (r.Verdict == Runs) != (x.Code == FixNone) || x.Code >= fixCount {
+			t.Fatalf("verdict %v with fix %v", r.Verdict, x.Code)
+		}
+		if r.Verdict == Runs && r.CrestMargin < 0 {
+			t.Fatalf("runs with a negative margin: %+v", r)
+		}
+		if qmax > 0 && float64(r.Flow) > qmax*(1+1e-9) {
+			t.Fatalf("flow %v over the cap %v", r.Flow, qmax)
+		}
+		if s.Hose.Vacuum == VacuumNone && r.Verdict != WillNotRun && r.CrestVacuum > 0 {
+			t.Fatalf("lay-flat runs under vacuum: %+v", r)
+		}
+		for _, w := range r.WarningList() {
+			if w.Message == "" || strings.Contains(w.Message, "NaN") || strings.Contains(w.Message, "Inf") {
+				t.Fatalf("message %q for %v", w.Message, w.Code)
+			}
 		}
 	})
 }
