@@ -547,7 +547,7 @@ func TestDrainChokeLevel(t *testing.T) {
 }
 
 // TestDrainIntakeStopMatchesSolve: at an intake stop the level is the
-// prime-lost level Solve gives there (PrimeLostDepth over the opening), to
+// prime-lost level Solve gives there (the prime-lost depth over the opening), to
 // 1e-6 m: just above it Solve runs (gulping), just below it the prime is
 // lost.
 func TestDrainIntakeStopMatchesSolve(t *testing.T) {

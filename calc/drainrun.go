@@ -1,7 +1,5 @@
 package calc
 
-import "math"
-
 // run plans the drain: the stops known at the start, then the flow tables,
 // the events on them, the first stop and the time integral.
 func (p *planner) run() (DrainPlan, error) {
@@ -31,7 +29,7 @@ func (p *planner) run() (DrainPlan, error) {
 	}
 
 	xBottom, xTarget, xFull, xEqual, x0, haveX0 := p.geoLimits()
-	xMax := math.Min(math.Min(xBottom, xFull), xEqual)
+	xMax := min(min(xBottom, xFull), xEqual)
 	if xMax <= 0 || H0 <= p.eps {
 		if p.hasRcv && xFull <= 0 {
 			return stopNow(StopReceiverFull)
@@ -39,7 +37,7 @@ func (p *planner) run() (DrainPlan, error) {
 		return stopNow(StopEqual)
 	}
 	_, _, _, hLo := p.state(xMax)
-	hLo = math.Max(hLo, math.Min(p.eps, H0))
+	hLo = max(hLo, min(p.eps, H0))
 	// the gulping head reaches down to (1 − GulpVoidMax) of the head
 	p.build(hLo*(1-GulpVoidMax), H0)
 
@@ -90,7 +88,7 @@ func (p *planner) run() (DrainPlan, error) {
 		case p.film:
 			first(roots[evAir], true, StopAir)
 		case found[evClear]:
-			first(math.Max(roots[evAir], roots[evClear]), true, StopAir)
+			first(max(roots[evAir], roots[evClear]), true, StopAir)
 		}
 	}
 	first(xCrest, okCrest, StopCrest)
@@ -102,13 +100,8 @@ func (p *planner) run() (DrainPlan, error) {
 	if why == StopCrest {
 		xz, haveZ = x0Crest, true
 	}
-	p.integrate(&plan, newXmap(xz, haveZ, 0, xStop))
-	if xa := roots[evAir]; found[evAir] && xa < xStop {
-		t, t0 := p.gulpTimes(newXmap(xz, haveZ, xa, xStop))
-		// two quadratures of the same span: keep the gulping inside the drain
-		t = math.Min(t, float64(plan.Time))
-		plan.GulpTime, plan.GulpTimeLost = Seconds(t), Seconds(math.Min(math.Max(t-t0, 0), t))
-	}
+	xa, gulp := roots[evAir], found[evAir] && roots[evAir] < xStop
+	p.integrate(&plan, newXmap(xz, haveZ, 0, xStop), xa, gulp)
 	plan.StartFlow = start.Flow
 	plan.TargetBelowPrimeLost = targetBelow()
 	return plan, nil

@@ -32,18 +32,18 @@ func (p *planner) eval(x float64) pathState {
 			qc = 0
 		}
 	}
-	e.q0 = math.Min(qg, qc)
+	e.q0 = min(qg, qc)
 	e.choked = qc < qg
 	if p.fixed != nil {
 		e.air, e.prime, e.q = p.intake, p.intake, e.q0
 		return e
 	}
-	e.air, e.prime, _, _ = intakeLevels(p.s.Intake, p.c.ig, p.intake, e.q0/p.c.n)
+	e.air, e.prime = p.c.im.levels(e.q0 / p.c.n)
 	e.q = e.q0
 	if a := gulpVoid(e.hs, e.air, e.prime); a > 0 {
 		he := e.H - float64(GulpHeadLoss(a, Length(p.intake), Length(e.out)))
 		qd, _ := p.tab.at(he)
-		e.q = math.Min(qd, qc)
+		e.q = min(qd, qc)
 	}
 	return e
 }
@@ -60,8 +60,18 @@ const (
 	evCount
 )
 
-// events returns every event function at x.
-func (p *planner) events(x float64) (g [evCount]float64) {
+// events returns the event functions at x; with crestOnly, only the two
+// that need no more than the full-gravity table (the others are left at 1).
+func (p *planner) events(x float64, crestOnly bool) (g [evCount]float64) {
+	if crestOnly {
+		hs, _, _, H := p.state(x)
+		if H <= 0 {
+			return [evCount]float64{-1, -1, 1, 1, 1, 1}
+		}
+		_, c := p.tab.at(H)
+		lift := p.crest - hs
+		return [evCount]float64{c - p.runAllow - lift, c - p.workAllow - lift, 1, 1, 1, 1}
+	}
 	e := p.eval(x)
 	if e.H <= 0 {
 		for i := range g {
@@ -79,11 +89,15 @@ func (p *planner) events(x float64) (g [evCount]float64) {
 		return g
 	}
 	c := &p.c
-	g[evClear] = e.q/(c.n*c.area) - airClearing(c.D, p.crest-e.out, c.lDown, p.s.Geometry.DownLegSlope)
+	vc := c.vC // the outlet moves only in a transfer
+	if p.hasRcv {
+		vc = airClearing(c.D, p.crest-e.out, c.lDown, c.geo.DownLegSlope)
+	}
+	g[evClear] = e.q/(c.n*c.area) - vc
 	if p.rating >= 0 {
 		rg := c.rho * StandardGravity
 		maxCrest := (c.patm - c.pv) / rg
-		vac := math.Min(rg*(lift+maxCrest-e.c), c.patm-c.pRun)
+		vac := min(rg*(lift+maxCrest-e.c), c.patm-c.pRun)
 		if e.choked {
 			vac = c.patm - c.pRun
 		}
@@ -97,9 +111,10 @@ func (p *planner) events(x float64) (g [evCount]float64) {
 // Brent's method) and whether it did.
 func (p *planner) scanRoots(m xmap, n int, tol float64, want [evCount]bool) (roots [evCount]float64, found [evCount]bool) {
 	var prevX, prevG [evCount]float64
+	crestOnly := !want[evAir] && !want[evPrime] && !want[evClear] && !want[evCollapse]
 	for k := 0; k <= n; k++ {
 		x, _ := m.at(float64(k) / float64(n))
-		g := p.events(x)
+		g := p.events(x, crestOnly)
 		open := 0
 		for e := range g {
 			if !want[e] || found[e] {
@@ -112,7 +127,7 @@ func (p *planner) scanRoots(m xmap, n int, tol float64, want [evCount]bool) (roo
 				roots[e], found[e] = 0, true
 			default:
 				ev := e
-				f := func(x float64) float64 { return p.events(x)[ev] }
+				f := func(x float64) float64 { return p.events(x, crestOnly)[ev] }
 				roots[e], found[e] = brent(f, prevX[e], x, prevG[e], g[e], tol, true), true
 			}
 			prevX[e], prevG[e] = x, g[e]
@@ -150,8 +165,8 @@ func (p *planner) geoLimits() (xBottom, xTarget, xFull, xEqual, x0 float64, have
 		xTarget = p.xAtLevel(p.target)
 	}
 	xFull = p.vrCap - p.vr0
-	lim := math.Min(xBottom, xFull)
-	tol := 1e-13 * math.Max(p.vs0, 1e-9)
+	lim := min(xBottom, xFull)
+	tol := 1e-13 * max(p.vs0, 1e-9)
 	_, _, _, H0 := p.state(0)
 	_, _, _, Hl := p.state(lim)
 	if Hl <= 0 && H0 > 0 {
@@ -169,8 +184,8 @@ func (p *planner) geoLimits() (xBottom, xTarget, xFull, xEqual, x0 float64, have
 // xTol is the path tolerance that corresponds to about 1e-10 m of level.
 func (p *planner) xTol(x float64) float64 {
 	if !p.hasRcv {
-		return 1e-10 * math.Max(1, p.h0)
+		return 1e-10 * max(1, p.h0)
 	}
 	hs, _, _, _ := p.state(x)
-	return 1e-10 * math.Max(float64(p.src.Area(Length(hs))), 1e-6)
+	return 1e-10 * max(float64(p.src.Area(Length(hs))), 1e-6)
 }

@@ -56,7 +56,7 @@ func (k IntakeKind) String() string {
 //     intake face (vortex onset, Gordon 1970; see AirStartsSubmergence);
 //     below it the siphon gulps air and slows (see GulpVoidMax);
 //   - prime lost: the depth at which the opening itself draws air (see
-//     PrimeLostDepth): the siphon breaks.
+//     intakeModel): the siphon breaks.
 //
 // A board or raft over the intake (Covered), or a floating intake's float,
 // keeps vortices from forming: air starts where prime is lost.
@@ -149,13 +149,6 @@ func resolveIntake(in Intake, bore float64) intakeGeom {
 	return g
 }
 
-// TopOfOpening is the elevation of the top of the intake's opening for a
-// hose of inside diameter bore whose intake sits at base: base plus
-// Intake.Height (or the kind's own height, see Intake).
-func (in Intake) TopOfOpening(base, bore Length) Length {
-	return base + Length(resolveIntake(in, float64(bore)).top)
-}
-
 // AirStartsSubmergence returns the depth of liquid over the top of the
 // intake's opening at which an air-entraining vortex forms, for a flow q
 // (m³/s) through an intake face of diameter d (m), by Gordon (1970) for an
@@ -195,8 +188,8 @@ func SubmergenceHI(q FlowRate, d Length) Length {
 	return Length(dd * (1 + 2.3*v/math.Sqrt(StandardGravity*dd)))
 }
 
-// PrimeLostDepth returns the depth of liquid over the top of the opening at
-// which the opening draws air, for a flow q through open area a (m²):
+// The prime-lost depth is the depth of liquid over the top of the opening
+// at which the opening draws air, for a flow q through open area a (m²):
 //
 //	d = max(V_a²/(2g), MinPrimeDepth),  V_a = q/(2a)
 //
@@ -208,32 +201,43 @@ func SubmergenceHI(q FlowRate, d Length) Length {
 // spherical sink surface of Yıldırım and Kocabaş, from memory). It is small
 // for a strainer with ample open area and grows with the square of the flow
 // for a bare end.
-func PrimeLostDepth(q FlowRate, a Area) Length {
-	va := float64(q) / (2 * float64(a))
-	return Length(math.Max(va*va/(2*StandardGravity), float64(MinPrimeDepth)))
+//
+// intakeModel is an Intake resolved for fast evaluation along a drain: the
+// levels are linear (air starts) and quadratic (prime lost) in the flow.
+type intakeModel struct {
+	top, prime0           float64 // top of the opening; a fixed prime-lost level (plate, floating)
+	fixedPrime            bool    // prime0 holds
+	fixedAir, covered     bool    // air starts where prime is lost
+	gordonPerQ, primePerQ float64 // S = gordonPerQ·q; drawdown = primePerQ·q²
 }
 
-// intakeLevels returns the elevations at which air starts and prime is lost
-// for flow q (one hose) with the top of the opening at top, and the Gordon
-// and HI submergences.
-func intakeLevels(in Intake, g intakeGeom, base, q float64) (air, prime, sG, sHI float64) {
-	top := base + g.top
-	sG = float64(AirStartsSubmergence(FlowRate(q), Length(g.face)))
-	sHI = float64(SubmergenceHI(FlowRate(q), Length(g.face)))
+func newIntakeModel(in Intake, g intakeGeom, base float64) intakeModel {
+	m := intakeModel{top: base + g.top, covered: in.Covered}
+	m.gordonPerQ = float64(AirStartsSubmergence(1, Length(g.face)))
+	m.primePerQ = 1 / (8 * StandardGravity * g.holes * g.holes)
 	switch in.Kind {
 	case IntakeFloating:
-		prime = base + float64(in.FloatDepth)
-		return prime, prime, sG, sHI
+		m.prime0, m.fixedPrime = base+float64(in.FloatDepth), true
+		m.fixedAir = true
 	case IntakeSuctionPlate:
-		prime = top
-	default:
-		prime = top + float64(PrimeLostDepth(FlowRate(q), Area(g.holes)))
+		m.prime0, m.fixedPrime = m.top, true
 	}
-	air = math.Max(top+sG, prime)
-	if in.Covered {
-		air = prime
+	return m
+}
+
+// levels returns the elevations at which air starts and prime is lost for a
+// flow q through one hose: the top of the opening plus AirStartsSubmergence,
+// and plus the prime-lost depth above (a floating intake grounds, a suction plate stops
+// at its rated level); with a cover, air starts where prime is lost.
+func (m *intakeModel) levels(q float64) (air, prime float64) {
+	prime = m.prime0
+	if !m.fixedPrime {
+		prime = m.top + max(m.primePerQ*q*q, float64(MinPrimeDepth))
 	}
-	return air, prime, sG, sHI
+	if m.fixedAir || m.covered {
+		return prime, prime
+	}
+	return max(m.top+m.gordonPerQ*q, prime), prime
 }
 
 // gulpVoid is the void fraction at level h between the air-starts and
@@ -242,7 +246,7 @@ func gulpVoid(h, air, prime float64) float64 {
 	if h >= air || air <= prime {
 		return 0
 	}
-	return GulpVoidMax * math.Min((air-h)/(air-prime), 1)
+	return GulpVoidMax * min((air-h)/(air-prime), 1)
 }
 
 // GulpHeadLoss is the head a gulping siphon loses, m: with void fraction α in
@@ -251,7 +255,7 @@ func gulpVoid(h, air, prime float64) float64 {
 // (hydrostatics of the mixture, homogeneous flow; the air's own friction is
 // not counted).
 func GulpHeadLoss(alpha float64, intake, outlet Length) Length {
-	return Length(alpha * math.Max(float64(intake-outlet), 0))
+	return Length(alpha * max(float64(intake-outlet), 0))
 }
 
 func validateIntake(in Intake) error {

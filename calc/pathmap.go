@@ -14,9 +14,23 @@ type xmap struct {
 
 func newXmap(x0 float64, haveX0 bool, xa, xe float64) xmap {
 	if haveX0 && x0 >= xe && x0 > xa {
-		return xmap{sq: true, x0: x0, wa: math.Sqrt(x0 - xa), wb: math.Sqrt(math.Max(x0-xe, 0)), xa: xa, xe: xe}
+		return xmap{sq: true, x0: x0, wa: math.Sqrt(x0 - xa), wb: math.Sqrt(max(x0-xe, 0)), xa: xa, xe: xe}
 	}
 	return xmap{xa: xa, xe: xe}
+}
+
+// sOf inverts at: the s at which x(s) = x.
+func (m xmap) sOf(x float64) float64 {
+	if !m.sq {
+		if m.xe == m.xa {
+			return 0
+		}
+		return (x - m.xa) / (m.xe - m.xa)
+	}
+	if m.wb == m.wa {
+		return 0
+	}
+	return (m.wa - math.Sqrt(max(m.x0-x, 0))) / (m.wa - m.wb)
 }
 
 // at returns x(s) and dx/ds.

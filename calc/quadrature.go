@@ -1,5 +1,7 @@
 package calc
 
+import "math"
+
 // Gauss–Lobatto 4-point rule on [−1, 1]: nodes ±1, ±1/√5, weights 1/6, 5/6;
 // exact for polynomials of degree ≤ 5 (Lobatto integration, Abramowitz &
 // Stegun, Handbook of Mathematical Functions, 25.4.32).
@@ -8,21 +10,24 @@ const lobattoInner = 0.4472135954999579
 // quadIntervals is the number of quadrature intervals over the drain.
 const quadIntervals = 64
 
-// lobatto integrates f over [0, 1] by the composite Gauss–Lobatto rule on
-// len(ts)−1 equal steps. It fills ts with the running integral at the step
-// ends (ts[0] = 0) and fs with f there, for Hermite interpolation between
-// them (see hermite).
-func lobatto(f func(float64) float64, ts, fs []float64) {
+// lobatto integrates the two functions f returns over [0, 1] by the
+// composite Gauss–Lobatto rule on len(ts)−1 equal steps. For each it fills
+// ts (ts0) with the running integral at the step ends (ts[0] = 0) and fs
+// (fs0) with the function there, for Hermite interpolation between them (see
+// hermite).
+func lobatto(f func(float64) (float64, float64), ts, fs, ts0, fs0 []float64) {
 	n := len(ts) - 1
 	ds := 1.0 / float64(n)
-	ts[0] = 0
-	fs[0] = f(0)
+	ts[0], ts0[0] = 0, 0
+	fs[0], fs0[0] = f(0)
 	for k := 0; k < n; k++ {
 		mid := (float64(k) + 0.5) * ds
-		fb := f(float64(k+1) * ds)
-		fi := f(mid-lobattoInner*ds/2) + f(mid+lobattoInner*ds/2)
-		ts[k+1] = ts[k] + ds/2*((fs[k]+fb)/6+fi*5/6)
-		fs[k+1] = fb
+		fb, fb0 := f(float64(k+1) * ds)
+		f1, f10 := f(mid - lobattoInner*ds/2)
+		f2, f20 := f(mid + lobattoInner*ds/2)
+		ts[k+1] = ts[k] + ds/2*((fs[k]+fb)/6+(f1+f2)*5/6)
+		ts0[k+1] = ts0[k] + ds/2*((fs0[k]+fb0)/6+(f10+f20)*5/6)
+		fs[k+1], fs0[k+1] = fb, fb0
 	}
 }
 
@@ -45,22 +50,31 @@ func hermite(ts, fs []float64, sg float64) float64 {
 // out.
 func smooth(sg float64) (s, dsds float64) { return sg * sg * (3 - 2*sg), 6 * sg * (1 - sg) }
 
+// unsmooth inverts smooth: σ = 1/2 − sin(arcsin(1 − 2s)/3), the root in
+// [0, 1] of the cubic (trigonometric solution).
+func unsmooth(s float64) float64 {
+	return 0.5 - math.Sin(math.Asin(min(max(1-2*s, -1), 1))/3)
+}
+
 // integrate fills the time, volume, stop values and the curve for the path
-// m from x = 0 to the stop. t(σ) is integrated by the composite
-// Gauss–Lobatto rule on quadIntervals equal steps in σ (see smooth); curve
-// points, evenly spaced in σ, take t from the Hermite interpolant.
-func (p *planner) integrate(plan *DrainPlan, m xmap) {
-	rate := func(sg float64) float64 {
+// m from x = 0 to the stop, and the gulping time from xAir (if gulp) to the
+// stop. t(σ) is integrated by the composite Gauss–Lobatto rule on
+// quadIntervals equal steps in σ (see smooth), with the flow and with the
+// flow the siphon would have without gulped air; curve points, evenly spaced
+// in σ, and the time at xAir take t from the Hermite interpolant.
+func (p *planner) integrate(plan *DrainPlan, m xmap, xAir float64, gulp bool) {
+	rate := func(sg float64) (float64, float64) {
 		s, dsds := smooth(sg)
 		x, dxds := m.at(s)
 		e := p.eval(x)
 		if !(e.q > 0) {
-			return 0
+			return 0, 0
 		}
-		return dsds * dxds * p.dvdx(e.hs) / e.q
+		w := dsds * dxds * p.dvdx(e.hs)
+		return w / e.q, w / e.q0
 	}
-	var ts, fs [quadIntervals + 1]float64
-	lobatto(rate, ts[:], fs[:])
+	var ts, fs, ts0, fs0 [quadIntervals + 1]float64
+	lobatto(rate, ts[:], fs[:], ts0[:], fs0[:])
 	if nc := p.points; nc > 0 {
 		plan.Curve = make([]DrainPoint, nc)
 		for i := range plan.Curve {
@@ -86,33 +100,10 @@ func (p *planner) integrate(plan *DrainPlan, m xmap) {
 	if n := len(plan.Curve); n > 0 {
 		plan.Curve[n-1].Time = plan.Time
 	}
-}
-
-// gulpIntervals is the number of quadrature intervals for the gulping span.
-const gulpIntervals = 24
-
-// gulpTimes integrates the time over the path m (from where air starts to
-// the stop) with the gulping flow and with the flow the siphon would have
-// there without air.
-func (p *planner) gulpTimes(m xmap) (t, t0 float64) {
-	var ts, fs [gulpIntervals + 1]float64
-	rate := func(air bool) func(float64) float64 {
-		return func(sg float64) float64 {
-			s, dsds := smooth(sg)
-			x, dxds := m.at(s)
-			e := p.eval(x)
-			q := e.q
-			if !air {
-				q = e.q0
-			}
-			if !(q > 0) {
-				return 0
-			}
-			return dsds * dxds * p.dvdx(e.hs) / q
-		}
+	if gulp {
+		sg := unsmooth(m.sOf(xAir))
+		t := ts[quadIntervals] - hermite(ts[:], fs[:], sg)
+		t0 := ts0[quadIntervals] - hermite(ts0[:], fs0[:], sg)
+		plan.GulpTime, plan.GulpTimeLost = Seconds(max(t, 0)), Seconds(min(max(t-t0, 0), max(t, 0)))
 	}
-	lobatto(rate(true), ts[:], fs[:])
-	t = ts[gulpIntervals]
-	lobatto(rate(false), ts[:], fs[:])
-	return t, ts[gulpIntervals]
 }

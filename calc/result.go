@@ -104,6 +104,9 @@ type Result struct {
 	// SubmergenceHI is the ANSI/HI 9.8 submergence at the intake face, for
 	// reference only (a pump-bell rule, never a stop), m.
 	SubmergenceHI Length
+	// IntakeTop is the elevation of the top of the intake's opening (the
+	// mouth of a hung end, the top row of a strainer's holes), m.
+	IntakeTop Length
 	// AirStartsLevel and PrimeLostLevel are the elevations (on the
 	// geometry's datum) at which air starts to be drawn in and at which the
 	// intake loses its prime, at this flow, m.

@@ -86,8 +86,9 @@ const MaxFlowRate = 100.0
 // capped flow is then checked like any other.
 //
 // Intake (see Intake): air starts at the depth Gordon (1970) gives at the
-// intake face, AirStartsSubmergence; prime is lost at PrimeLostDepth over the
-// opening. Between the two the siphon gulps air: the void fraction grows to
+// intake face, AirStartsSubmergence; prime is lost at the prime-lost depth
+// over the opening (intake.go). Between the two the siphon gulps air: the
+// void fraction grows to
 // GulpVoidMax and the head falls by GulpHeadLoss; the flow is solved with
 // that head. It runs on while the down-leg clears the air, and will not run
 // (WarnAirDrawn) when it does not or when Intake.FilmRisk is set without a
@@ -147,6 +148,7 @@ type siphonCase struct {
 	kUp, kSum                  float64 // before the crest (with entrance and intake); all (no exit)
 	pRun, pWork, workAllow     float64
 	ig                         intakeGeom
+	im                         intakeModel
 	gravityV, gravityF         float64 // full-gravity solution (no cap, no choke)
 	flowSolved, upLegAsLaid    bool
 	vC                         float64 // air-clearing velocity
@@ -180,6 +182,7 @@ func (c *siphonCase) init(s *Siphon, r *Result) {
 	c.pRun, c.pWork = crestPressures(s.Fluid, c.patm)
 	c.workAllow = (c.pWork - c.pv) / (c.rho * StandardGravity)
 	c.ig = resolveIntake(s.Intake, c.D)
+	c.im = newIntakeModel(s.Intake, c.ig, float64(s.Geometry.Intake))
 
 	rg := c.rho * StandardGravity
 	r.Head = Length(c.H)
@@ -194,8 +197,9 @@ func (c *siphonCase) init(s *Siphon, r *Result) {
 	rating, rated := hoseRating(h)
 	r.HoseVacuumRating, r.HoseRated = Pressure(rating), rated
 	// the intake's levels at zero flow, until a flow is solved
-	air, prime, _, _ := intakeLevels(s.Intake, c.ig, float64(geo.Intake), 0)
+	air, prime := c.im.levels(0)
 	r.AirStartsLevel, r.PrimeLostLevel = Length(air), Length(prime)
+	r.IntakeTop = Length(c.im.top)
 
 	if c.pv > NearBoilingFraction*c.patm {
 		r.Warnings.Add(WarnNearBoiling)
@@ -268,10 +272,10 @@ func (c *siphonCase) solve(r *Result) {
 	}
 	V, f, re := c.flow(r, c.H, c.gravityV, c.gravityF, gRe)
 	// intake: levels at this flow, gulping between them
-	air, prime, _, sHI := intakeLevels(c.in, c.ig, float64(geo.Intake), V*c.area)
+	air, prime := c.im.levels(V * c.area)
 	r.AirStartsLevel, r.PrimeLostLevel = Length(air), Length(prime)
-	r.RequiredSubmergence = Length(air - float64(geo.Intake) - c.ig.top)
-	r.SubmergenceHI = Length(sHI)
+	r.RequiredSubmergence = Length(air - c.im.top)
+	r.SubmergenceHI = SubmergenceHI(FlowRate(V*c.area), Length(c.ig.face))
 	r.FaceVelocity = Velocity(V * c.area / (math.Pi * c.ig.face * c.ig.face / 4))
 	h := float64(geo.Surface)
 	if h <= prime {
