@@ -362,48 +362,52 @@ func FuzzSolve(f *testing.F) {
 		if err != nil {
 			return
 		}
-		x := r.Fix
-		vals := []float64{float64(r.Flow), float64(r.Velocity), r.Reynolds, r.FrictionFactor, float64(r.CrestPressure),
-			float64(r.MaxCrestHeight), float64(r.FlowingCrestLimit), float64(r.WorkingCrestHeight), float64(r.CrestMargin),
-			float64(r.RequiredSubmergence), float64(r.AirClearingVelocity), float64(r.PrimingVolume), float64(r.Head),
-			float64(r.RunningCrestHeight), float64(r.GravityFlow), r.OutletThrottleK, r.MaxFlowThrottleK, float64(r.FaceVelocity),
-			float64(r.SubmergenceHI), float64(r.AirStartsLevel), float64(r.PrimeLostLevel), r.GulpVoid, float64(r.GulpHead),
-			float64(r.HoseVacuumWorst), float64(r.HoseVacuumRating), float64(r.CrestVacuum),
-			float64(x.CrestHeight), float64(x.CrestHeightThrottled), float64(x.MaxVaporPressure), float64(x.ThrottleFlow), x.ThrottleK,
-			float64(x.MinVacuumRating)}
-		for i, v := range vals {
-			if math.IsNaN(v) || math.IsInf(v, 0) {
-				t.Fatalf("value %d not finite: %+v", i, r)
-			}
-		}
-		if r.Flow < 0 || r.Velocity < 0 || r.PrimingVolume <= 0 || (r.MaxCrestHeight <= 0 && r.Why != WarnBoiling) {
-			t.Fatalf("wrong sign: %+v", r)
-		}
-		if r.Verdict == WillNotRun && (r.Flow != 0 || r.Why == 0 || x.Code == FixNone) {
-			t.Fatalf("will not run but flows, or says not why or what to change: %+v", r)
-		}
-		if r.Verdict != WillNotRun && (!(r.Flow > 0) || r.CrestPressure <= s.Fluid.VaporPressure ||
-			r.CrestPressure < r.RunningCrestPressure*(1-1e-9)) {
-			t.Fatalf("runs without flow or with the crest below its running limit: %+v", r)
-		}
-		if (r.Verdict == Runs) != (x.Code == FixNone) || x.Code >= fixCount {
-			t.Fatalf("verdict %v with fix %v", r.Verdict, x.Code)
-		}
-		if r.Verdict == Runs && r.CrestMargin < 0 {
-			t.Fatalf("runs with a negative margin: %+v", r)
-		}
-		if qmax > 0 && float64(r.Flow) > qmax*(1+1e-9) {
-			t.Fatalf("flow %v over the cap %v", r.Flow, qmax)
-		}
-		if s.Hose.Vacuum == VacuumNone && r.Verdict != WillNotRun && r.CrestVacuum > 0 {
-			t.Fatalf("lay-flat runs under vacuum: %+v", r)
-		}
-		for _, w := range r.WarningList() {
-			if w.Message == "" || strings.Contains(w.Message, "NaN") || strings.Contains(w.Message, "Inf") {
-				t.Fatalf("message %q for %v", w.Message, w.Code)
-			}
-		}
+		checkResult(t, s, r)
 	})
+}
+
+// checkResult asserts what every Solve result must satisfy: finite figures,
+// a verdict that agrees with its flow, its reason and its fix, a cap that
+// holds, lay-flat never running under vacuum, and messages without NaN.
+func checkResult(t *testing.T, s Siphon, r Result) {
+	t.Helper()
+	x := r.Fix
+	vals := []float64{float64(r.Flow), float64(r.Velocity), r.Reynolds, r.FrictionFactor, float64(r.CrestPressure),
+		float64(r.MaxCrestHeight), float64(r.FlowingCrestLimit), float64(r.WorkingCrestHeight), float64(r.CrestMargin),
+		float64(r.RequiredSubmergence), float64(r.AirClearingVelocity), float64(r.PrimingVolume), float64(r.Head),
+		float64(r.RunningCrestHeight), float64(r.GravityFlow), r.OutletThrottleK, r.MaxFlowThrottleK, float64(r.FaceVelocity),
+		float64(r.SubmergenceHI), float64(r.AirStartsLevel), float64(r.PrimeLostLevel), r.GulpVoid, float64(r.GulpHead),
+		float64(r.HoseVacuumWorst), float64(r.HoseVacuumRating), float64(r.CrestVacuum),
+		float64(x.CrestHeight), float64(x.CrestHeightThrottled), float64(x.MaxVaporPressure), float64(x.ThrottleFlow), x.ThrottleK,
+		float64(x.MinVacuumRating)}
+	for i, v := range vals {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			t.Fatalf("value %d not finite: %+v", i, r)
+		}
+	}
+	running := r.Verdict != WillNotRun
+	for _, c := range [...]struct {
+		bad  bool
+		what string
+	}{
+		{r.Flow < 0 || r.Velocity < 0 || r.PrimingVolume <= 0 || (r.MaxCrestHeight <= 0 && r.Why != WarnBoiling), "wrong sign"},
+		{!running && (r.Flow != 0 || r.Why == 0 || x.Code == FixNone), "will not run but flows, or says not why or what to change"},
+		{running && (!(r.Flow > 0) || r.CrestPressure <= s.Fluid.VaporPressure || r.CrestPressure < r.RunningCrestPressure*(1-1e-9)),
+			"runs without flow or with the crest below its running limit"},
+		{(r.Verdict == Runs) != (x.Code == FixNone) || x.Code >= fixCount, "verdict and fix disagree"},
+		{r.Verdict == Runs && r.CrestMargin < 0, "runs with a negative margin"},
+		{s.MaxFlow > 0 && r.Flow > s.MaxFlow*(1+1e-9), "flow over the cap"},
+		{s.Hose.Vacuum == VacuumNone && running && r.CrestVacuum > 0, "lay-flat runs under vacuum"},
+	} {
+		if c.bad {
+			t.Fatalf("%s: %+v", c.what, r)
+		}
+	}
+	for _, w := range r.WarningList() {
+		if w.Message == "" || strings.Contains(w.Message, "NaN") || strings.Contains(w.Message, "Inf") {
+			t.Fatalf("message %q for %v", w.Message, w.Code)
+		}
+	}
 }
 
 var sinkResult Result
