@@ -72,8 +72,9 @@ func hoseRating(h Hose) (float64, bool) {
 		return 0, true
 	case VacuumFromWall:
 		return float64(RingBucklingPressure(h.Wall, h.Diameter)) / CollapseSafetyFactor, true
+	default: // VacuumNotRated
+		return 0, false
 	}
-	return 0, false
 }
 
 // staticVacuums returns the gauge vacuum at the crest of a hose full of
@@ -103,6 +104,7 @@ func validateHoseVacuum(h Hose) error {
 			return err
 		}
 		return checkRange(QuantityHoseWall, "hose wall Poisson's ratio", h.Wall.Poisson, 0, 0.5, "")
+	default: // VacuumNotRated, VacuumNone: nothing more to check
+		return nil
 	}
-	return nil
 }

@@ -164,6 +164,7 @@ func (p *planner) stopAtStart(plan *DrainPlan) (StopReason, bool) {
 		plan.WorkingLimitLevel, plan.WorkingLimitFound = h0, true
 	case RunsNearLimit:
 		plan.WorkingLimitLevel, plan.WorkingLimitFound = h0, true
+	case Runs:
 	}
 	return "", false
 }

@@ -221,6 +221,7 @@ func newIntakeModel(in Intake, g intakeGeom, base float64) intakeModel {
 		m.fixedAir = true
 	case IntakeSuctionPlate:
 		m.prime0, m.fixedPrime = m.top, true
+	default: // the opening's top plus the prime-lost depth
 	}
 	return m
 }

@@ -447,6 +447,7 @@ func (c *siphonCase) fixCode(r *Result) FixCode {
 		return FixThrottle
 	case Runs:
 		return FixNone
+	case WillNotRun: // by its reason, below
 	}
 	switch r.Why {
 	case WarnNoDrop:
@@ -464,6 +465,7 @@ func (c *siphonCase) fixCode(r *Result) FixCode {
 		return FixLowerIntake
 	case WarnHoseCollapse:
 		return FixSuctionHose
+	default: // no other code decides a WillNotRun verdict
+		return FixNone
 	}
-	return FixNone
 }

@@ -259,6 +259,7 @@ func TestSolveEnergyBalanceAndProperties(t *testing.T) {
 			if !testkit.Within(float64(r.CrestPressure), float64(r.RunningCrestPressure), 1e-9) || !(r.Flow < r.GravityFlow) {
 				t.Errorf("lift %g: choked with crest %v (limit %v), flow %v of %v", lift, r.CrestPressure, r.RunningCrestPressure, r.Flow, r.GravityFlow)
 			}
+		case WillNotRun:
 		}
 	}
 	for _, v := range []Verdict{Runs, RunsNearLimit, RunsChoked, WillNotRun} {

@@ -321,6 +321,8 @@ func stopReasonText(s string) string {
 		return "target level reached"
 	case calc.StopIntake:
 		return "intake would draw air: level at intake plus required submergence"
+	case calc.StopAir:
+		return "air drawn in at the intake would not be cleared"
 	case calc.StopCrest:
 		return "crest pressure limit reached as the lift grew"
 	case calc.StopEqual:

@@ -103,6 +103,8 @@ func verdictText(v calc.Verdict) (string, Status) {
 		return "RUNS", StatusOK
 	case calc.RunsNearLimit:
 		return "RUNS — NEAR LIMIT", StatusWarn
+	case calc.RunsChoked:
+		return "RUNS — CHOKED", StatusWarn
 	case calc.WillNotRun:
 		return "WILL NOT RUN", StatusBad
 	}
