@@ -91,7 +91,7 @@ func bandCases(s Siphon, tol Tolerance) (slow, fast Siphon, dz float64, err erro
 	if err = checkRange(QuantityRoughnessRange, "roughness, low end", eLo, 0, maxE, "m"); err != nil {
 		return
 	}
-	if err = checkRange(QuantityRoughnessRange, "roughness, high end", eHi, eLo, math.Inf(1), "m"); err != nil {
+	if err = checkRange(QuantityRoughnessRange, "roughness, high end", eHi, eLo, MaxDiameter, "m"); err != nil {
 		return
 	}
 	eHi = math.Min(eHi, maxE*0.999)

@@ -1,6 +1,5 @@
 package calc
 
-import "math"
 
 // VacuumClass says how a hose stands up to vacuum (its collapse rating).
 type VacuumClass uint8
@@ -82,9 +81,9 @@ func hoseRating(h Hose) (float64, bool) {
 // ρg(z_crest − z_outlet)) and while vacuum priming (the pump holds the
 // up-leg: ρg·lift), each at most p_atm − p_v (the column parts there).
 func staticVacuums(rho, patm, pv float64, g Geometry) (blocked, priming float64) {
-	lim := math.Max(patm-pv, 0)
-	blocked = math.Min(math.Max(rho*StandardGravity*float64(g.Crest-g.Outlet), 0), lim)
-	priming = math.Min(math.Max(rho*StandardGravity*float64(g.Lift()), 0), lim)
+	lim := max(patm-pv, 0)
+	blocked = min(max(rho*StandardGravity*float64(g.Crest-g.Outlet), 0), lim)
+	priming = min(max(rho*StandardGravity*float64(g.Lift()), 0), lim)
 	return blocked, priming
 }
 

@@ -1,6 +1,5 @@
 package calc
 
-import "math"
 
 // Crest pressure limits. Three absolute pressures bound the crest, from the
 // lowest:
@@ -57,7 +56,7 @@ func crestPressures(f Fluid, patm float64) (pRun, pWork float64) {
 // with f = friction at v. It is not negative.
 func throttleK(v, H, kSum, lOverD, reOverV, rr float64) float64 {
 	f := friction(reOverV*v, rr, 0)
-	return math.Max(2*StandardGravity*H/(v*v)-(1+kSum+f*lOverD), 0)
+	return max(2*StandardGravity*H/(v*v)-(1+kSum+f*lOverD), 0)
 }
 
 // FixCode names the one change a verdict points to first. The figures for it

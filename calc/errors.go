@@ -259,15 +259,22 @@ func rangeText(lo, hi float64, unit string) string {
 }
 
 // checkRange returns a *RangeError when v is not finite or lies outside
-// [lo, hi]. Use lo = 0 with positive = true for "strictly more than zero".
+// [lo, hi]; lo and hi must be finite (so that the test below also refuses
+// ±Inf; NaN fails every comparison). The in-range test comes first and is
+// small enough to inline: every solve checks some twenty inputs.
 func checkRange(what Quantity, quantity string, v, lo, hi float64, unit string) error {
+	if v >= lo && v <= hi {
+		return nil
+	}
+	return rangeError(what, quantity, v, lo, hi, unit)
+}
+
+// rangeError builds checkRange's error for v outside [lo, hi] or not finite.
+func rangeError(what Quantity, quantity string, v, lo, hi float64, unit string) error {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return &RangeError{What: what, Quantity: quantity, Value: v, Min: lo, Max: hi, Unit: unit, Err: ErrNotFinite}
 	}
-	if v < lo || v > hi {
-		return &RangeError{What: what, Quantity: quantity, Value: v, Min: lo, Max: hi, Unit: unit, Err: ErrOutOfRange}
-	}
-	return nil
+	return &RangeError{What: what, Quantity: quantity, Value: v, Min: lo, Max: hi, Unit: unit, Err: ErrOutOfRange}
 }
 
 // checkPositive is checkRange for quantities that must be strictly positive

@@ -170,9 +170,9 @@ func (c *siphonCase) init(s *Siphon, r *Result) {
 	c.lUp = float64(s.Hose.UpLegLength)
 	c.upLegAsLaid = c.lUp == 0
 	if c.lUp == 0 {
-		c.lUp = math.Max(float64(geo.Crest-geo.Intake), 0)
+		c.lUp = max(float64(geo.Crest-geo.Intake), 0)
 	}
-	c.lUp = math.Min(c.lUp, c.L)
+	c.lUp = min(c.lUp, c.L)
 	c.lDown = c.L - c.lUp
 	c.reOverV = c.rho * c.D / float64(s.Fluid.Viscosity)
 	c.rr = float64(s.Hose.Roughness) / c.D
@@ -204,8 +204,8 @@ func (c *siphonCase) init(s *Siphon, r *Result) {
 	if c.pv > NearBoilingFraction*c.patm {
 		r.Warnings.Add(WarnNearBoiling)
 	}
-	straightUp := math.Max(float64(geo.Crest-geo.Intake), 0)
-	straightDown := math.Max(float64(geo.Crest-geo.Outlet), 0)
+	straightUp := max(float64(geo.Crest-geo.Intake), 0)
+	straightDown := max(float64(geo.Crest-geo.Outlet), 0)
 	if c.L < straightUp+straightDown {
 		r.Warnings.Add(WarnHoseShort)
 	}
@@ -244,7 +244,7 @@ func (c *siphonCase) notRunning(r *Result, why WarnCode) {
 	// no flow: the crest holds its static pressure
 	r.CrestPressure = Pressure(c.patm - c.rho*StandardGravity*c.lift)
 	r.CrestVacuum = Pressure(c.patm) - r.CrestPressure
-	r.HoseVacuumWorst = Pressure(math.Max(math.Max(c.blockedVacuum, c.primeVacuum), float64(r.CrestVacuum)))
+	r.HoseVacuumWorst = Pressure(max(max(c.blockedVacuum, c.primeVacuum), float64(r.CrestVacuum)))
 }
 
 // solve runs the checks in order and fills r.
@@ -343,7 +343,7 @@ func (c *siphonCase) flow(r *Result, H, V, f, re float64) (float64, float64, flo
 // the hose collapses (the verdict is then set).
 func (c *siphonCase) collapse(r *Result) bool {
 	flowing := float64(r.CrestVacuum)
-	worst := math.Max(math.Max(c.blockedVacuum, c.primeVacuum), flowing)
+	worst := max(max(c.blockedVacuum, c.primeVacuum), flowing)
 	r.HoseVacuumWorst = Pressure(worst)
 	rating, rated := float64(r.HoseVacuumRating), r.HoseRated
 	switch {
@@ -397,7 +397,7 @@ func (c *siphonCase) fix(r *Result) {
 		// laid straight (UpLegLength 0) grows with the lift it climbs
 		ch := (c.patm-c.pWork)/rg - vh*kCrest
 		if c.upLegAsLaid {
-			a := vh * (1 + c.kUp + c.gravityF*math.Max(float64(c.geo.Surface-c.geo.Intake), 0)/c.D)
+			a := vh * (1 + c.kUp + c.gravityF*max(float64(c.geo.Surface-c.geo.Intake), 0)/c.D)
 			ch = ((c.patm-c.pWork)/rg - a) / (1 + vh*c.gravityF/c.D)
 		}
 		if ch > 0 {

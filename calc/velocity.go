@@ -71,7 +71,7 @@ func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
 	phi := func(v float64) float64 {
 		return v*v*(A+transitionFriction(c*v, rr, lo, hi)*B) - twoGH
 	}
-	v0, v1 := math.Max(ReLaminarMax/c, vTurb), math.Min(ReTurbulentMin/c, vLam)
+	v0, v1 := max(ReLaminarMax/c, vTurb), min(ReTurbulentMin/c, vLam)
 	p0, p1 := phi(v0), phi(v1)
 	if p0 > 0 {
 		v0 = ReLaminarMax / c
@@ -124,7 +124,7 @@ func airClearing(D, dz, l, slope float64) float64 {
 	if sin == 0 {
 		sin = 1
 		if l > 0 {
-			sin = math.Min(math.Max(dz/l, 0), 1)
+			sin = min(max(dz/l, 0), 1)
 		}
 	}
 	return math.Sqrt(StandardGravity*D) * (0.825 + 0.25*math.Sqrt(sin))
