@@ -1,6 +1,5 @@
 package calc
 
-
 // VacuumClass says how a hose stands up to vacuum (its collapse rating).
 type VacuumClass uint8
 

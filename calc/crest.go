@@ -1,6 +1,5 @@
 package calc
 
-
 // Crest pressure limits. Three absolute pressures bound the crest, from the
 // lowest:
 //
