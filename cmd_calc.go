@@ -51,7 +51,8 @@ var calcFlagDefs = []flagDef{
 	fieldFlag("upleg-length", model.FieldHoseUpLeg, "X", "hose length from intake to crest [intake depth + lift]"),
 	fieldFlag("intake-depth", model.FieldIntakeDepth, "X", "intake below the surface, without a tank [0.3m]"),
 	fieldFlag("roughness", model.FieldHoseRoughness, "X", "wall roughness [from --material]"),
-	fieldFlag("k-minor", model.FieldHoseKMinor, "X", "sum of entrance, bend and coupling K; overrides --fitting"),
+	fieldFlag("k-minor", model.FieldHoseKMinor, "X", "sum of the losses before the crest, entrance included; overrides --fitting and the intake's own K"),
+	fieldFlag("outlet-k", model.FieldOutletK, "K", "a valve or fitting at the outlet end, after the crest"),
 	fieldFlag("hoses", model.FieldHoseCount, "N", "identical hoses in parallel [1]"),
 	fieldFlag("lift", model.FieldLift, "X", "crest height above the liquid surface"),
 	fieldFlag("drop", model.FieldDrop, "X", "outlet (or receiving surface) below the liquid surface"),
@@ -69,8 +70,11 @@ var calcFlagDefs = []flagDef{
 	fieldFlag("cone-height", model.FieldTankCone, "X", "height of a cone bottom"),
 	fieldFlag("side-slope", model.FieldTankSlope, "X", "pit side slope, horizontal per vertical"),
 	fieldFlag("level", model.FieldTankLevel, "X", "liquid level above the tank floor"),
-	fieldFlag("target-level", model.FieldTankTarget, "X", "level to stop at [intake + submergence]"),
-	fieldFlag("intake-height", model.FieldIntakeHeight, "X", "intake above the tank floor [0.05m]"),
+	fieldFlag("target-level", model.FieldTankTarget, "X", "level to stop at [where the intake stops]"),
+	fieldFlag("intake-height", model.FieldIntakeHeight, "X", "hung end's mouth, or a strainer's base, above the tank floor [0.05m]"),
+	fieldFlag("intake", model.FieldIntakeKind, "KIND", "what is on the hose end, from `drawdown presets` ["+presets.DefaultIntake+"]"),
+	fieldFlag("max-flow", model.FieldMaxFlow, "RATE", "a permit's maximum discharge rate (L/s, gpm): the outlet valve setting is worked out"),
+	{name: "may-carry-oil", help: "the water may carry a floating film of oil: without a board the drain stops where air starts"},
 }
 
 // fieldFlag is a flag that sets one job field; a picker field completes
@@ -90,6 +94,7 @@ func calcFlagTable() []flagDef { return append([]flagDef(nil), calcFlagDefs...) 
 // calcOptions are the flags that are not job fields.
 type calcOptions struct {
 	json, curve, submerged, help bool
+	mayCarryOil                  bool
 	units                        model.System
 	hose, tankTable, tankPreset  string
 	receiver                     *model.ReceiverSpec
@@ -141,6 +146,8 @@ func calcValues(pf *parsedFlags) (map[model.FieldID]string, calcOptions, error) 
 			o.curve = true
 		case d.name == "outlet-submerged":
 			o.submerged = true
+		case d.name == "may-carry-oil":
+			o.mayCarryOil = true
 		case d.name == "units":
 			sys, err := model.ParseSystem(value)
 			if err != nil {
@@ -188,7 +195,7 @@ func calcUsage(w io.Writer) {
 // buildInputs validates each given flag against its field (so that the
 // message names the flag) and returns the job inputs.
 func buildInputs(vals map[model.FieldID]string, o calcOptions, cat *presets.Catalogue) (model.Inputs, error) {
-	in := model.Inputs{Values: vals, Units: o.units, Receiver: o.receiver}
+	in := model.Inputs{Values: vals, Units: o.units, Receiver: o.receiver, FilmRisk: o.mayCarryOil}
 	for _, step := range []func() error{
 		func() error { return checkReceiver(vals, o.receiver) },
 		func() error { return applyHose(vals, o.hose, cat) },
@@ -400,6 +407,12 @@ func jsonNum(v float64) float64 {
 	return r
 }
 
+// jsonPtr is jsonNum for a key that is null when it does not apply.
+func jsonPtr(v float64) *float64 {
+	r := jsonNum(v)
+	return &r
+}
+
 type jsonWarning struct {
 	Code    string `json:"code"`
 	Message string `json:"message"`
@@ -417,6 +430,8 @@ type jsonDrain struct {
 	StartFlowM3S     float64     `json:"start_flow_m3_s"`
 	ReceiverLevelM   *float64    `json:"receiver_level_m,omitempty"`
 	TargetLevelM     float64     `json:"target_level_m"`
+	AirStartsLevelM  float64     `json:"air_starts_level_m"`
+	PrimeLostLevelM  float64     `json:"prime_lost_level_m"`
 	Curve            []jsonPoint `json:"curve,omitempty"`
 }
 
@@ -431,6 +446,7 @@ type jsonPoint struct {
 type jsonResult struct {
 	Schema               string        `json:"schema"`
 	Verdict              string        `json:"verdict"`
+	Fix                  string        `json:"fix,omitempty"`
 	Liquid               string        `json:"liquid"`
 	TemperatureK         float64       `json:"temperature_k"`
 	AtmPressurePa        float64       `json:"atm_pressure_pa"`
@@ -453,6 +469,11 @@ type jsonResult struct {
 	Regime               string        `json:"regime"`
 	RequiredSubmergenceM float64       `json:"required_submergence_m"`
 	AirClearingVelocity  float64       `json:"air_clearing_velocity_m_s"`
+	OutletThrottleK      *float64      `json:"outlet_throttle_k"`
+	HoseVacuumWorstPa    float64       `json:"hose_vacuum_worst_pa"`
+	HoseVacuumRatingPa   *float64      `json:"hose_vacuum_rating_pa"`
+	AirStartsLevelM      float64       `json:"air_starts_level_m"`
+	PrimeLostLevelM      float64       `json:"prime_lost_level_m"`
 	PrimingVolumeM3      float64       `json:"priming_volume_m3"`
 	PumpStrokes          int           `json:"pump_strokes,omitempty"`
 	Warnings             []jsonWarning `json:"warnings"`
@@ -469,6 +490,7 @@ func jsonOf(p model.Plan, curve bool) jsonResult {
 	j := jsonResult{
 		Schema:               calcSchema,
 		Verdict:              r.Verdict.String(),
+		Fix:                  present.FixOf(r, p.Liquid, present.Figures{Sys: model.SI}),
 		Liquid:               p.Liquid.ID,
 		TemperatureK:         jsonNum(float64(p.Temperature)),
 		AtmPressurePa:        jsonNum(float64(s.AtmPressure)),
@@ -491,26 +513,37 @@ func jsonOf(p model.Plan, curve bool) jsonResult {
 		Regime:               r.Regime.String(),
 		RequiredSubmergenceM: jsonNum(float64(r.RequiredSubmergence)),
 		AirClearingVelocity:  jsonNum(float64(r.AirClearingVelocity)),
+		HoseVacuumWorstPa:    jsonNum(float64(r.HoseVacuumWorst)),
+		AirStartsLevelM:      jsonNum(float64(r.AirStartsLevel)),
+		PrimeLostLevelM:      jsonNum(float64(r.PrimeLostLevel)),
 		PrimingVolumeM3:      jsonNum(float64(r.PrimingVolume)),
 		PumpStrokes:          p.PumpStrokes,
 		Warnings:             []jsonWarning{},
 		Notes:                append([]string{}, p.Notes...),
 		Cautions:             present.Cautions(p),
 	}
+	if r.HasOutletThrottle {
+		j.OutletThrottleK = jsonPtr(r.OutletThrottleK)
+	}
+	if r.HoseRated {
+		j.HoseVacuumRatingPa = jsonPtr(float64(r.HoseVacuumRating))
+	}
 	for _, w := range present.WarningsOf(r, present.Figures{Sys: model.SI}) {
 		j.Warnings = append(j.Warnings, jsonWarning{Code: w.Code, Message: w.Long})
 	}
 	if d := p.Drain; d != nil {
 		jd := &jsonDrain{
-			TimeS:        jsonNum(float64(d.Time)),
-			TimeLowS:     jsonNum(float64(p.TimeLow)),
-			TimeHighS:    jsonNum(float64(p.TimeHigh)),
-			VolumeM3:     jsonNum(float64(d.Volume)),
-			StopLevelM:   jsonNum(float64(d.StopLevel)),
-			StopReason:   string(d.StopReason),
-			ResidualM3:   jsonNum(float64(d.Residual)),
-			StartFlowM3S: jsonNum(float64(d.StartFlow)),
-			TargetLevelM: jsonNum(float64(p.DrainIn.Target)),
+			TimeS:           jsonNum(float64(d.Time)),
+			TimeLowS:        jsonNum(float64(p.TimeLow)),
+			TimeHighS:       jsonNum(float64(p.TimeHigh)),
+			VolumeM3:        jsonNum(float64(d.Volume)),
+			StopLevelM:      jsonNum(float64(d.StopLevel)),
+			StopReason:      string(d.StopReason),
+			ResidualM3:      jsonNum(float64(d.Residual)),
+			StartFlowM3S:    jsonNum(float64(d.StartFlow)),
+			TargetLevelM:    jsonNum(float64(p.DrainIn.Target)),
+			AirStartsLevelM: jsonNum(float64(d.AirStartsLevel)),
+			PrimeLostLevelM: jsonNum(float64(d.PrimeLostLevel)),
 		}
 		if d.CrestLimitFound {
 			v := jsonNum(float64(d.CrestLimitLevel))

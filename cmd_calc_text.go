@@ -14,19 +14,12 @@ import (
 func writeText(w io.Writer, p model.Plan, o calcOptions) {
 	s := present.Build(p, o.units, p.Hazards)
 	f := present.Figures{Sys: o.units}
-	verdict := s.Verdict.Word
-	if s.Verdict.Reason != "" {
-		verdict += " — " + s.Verdict.Reason
-	}
-	fmt.Fprintf(w, "Siphon: %s\n", verdict)
+	fmt.Fprintf(w, "Siphon: %s\n", s.Verdict.Line())
 	row := func(label, text string) { fmt.Fprintf(w, "  %-10s %s\n", label, text) }
-	fact := func(label string) {
-		for _, x := range s.Facts {
-			if x.Label == label {
-				row(label, x.Text)
-			}
-		}
+	if s.Fix != "" {
+		row("Change", s.Fix)
 	}
+	fact := func(label string) { row(label, s.Fact(label)) }
 	fact("Liquid")
 	fact("Site")
 	fact("Hose")
@@ -48,6 +41,10 @@ func writeText(w io.Writer, p model.Plan, o calcOptions) {
 	row("Crest", c.Status.Symbol()+" "+c.Says[0])
 	row("", limits)
 	row("", "crest pressure "+s.CrestPressure)
+	fact("Vacuum")
+	if s.Throttle != "" {
+		row("Throttle", s.Throttle)
+	}
 	fact("Intake")
 	fact("Priming")
 
@@ -60,6 +57,9 @@ func writeText(w io.Writer, p model.Plan, o calcOptions) {
 		row("Time", tm)
 		row("Stops at", d.StopLevel+" above the floor: "+d.StopLong)
 		row("Moved", d.Volume+"; left in the tank "+d.Residual)
+		for _, line := range d.AirLines() {
+			row("Air", line)
+		}
 		if d.Receiver != "" {
 			row("Receiver", "level "+d.Receiver)
 		}

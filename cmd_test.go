@@ -78,8 +78,13 @@ func TestCalcDrainJSON(t *testing.T) {
 	if _, ok := m.Drain["crest_limit_level_m"]; !ok {
 		t.Error("drain.crest_limit_level_m missing (null when never)")
 	}
+	for _, k := range []string{"air_starts_level_m", "prime_lost_level_m"} {
+		if _, ok := m.Drain[k].(float64); !ok {
+			t.Errorf("drain.%s = %v", k, m.Drain[k])
+		}
+	}
 	switch m.Drain["stop_reason"] {
-	case "target", "intake", "crest", "equal":
+	case "target", "intake", "air", "crest", "equal":
 	default:
 		t.Errorf("stop_reason %v", m.Drain["stop_reason"])
 	}
@@ -97,7 +102,9 @@ func TestCalcBadInput(t *testing.T) {
 		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m"}, "--drop"},
 		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--temp", "1e400"}, "--temp"},
 		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--liquid", "lava"}, "--liquid"},
-		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--temp", "99C", "--altitude", "3000m"}, "--temp"},
+		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--intake", "sieve"}, "--intake"},
+		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--max-flow", "-1L/s"}, "--max-flow"},
+		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--outlet-k", "x"}, "--outlet-k"},
 		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--roughness", "9mm"}, "--roughness"},
 		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--frobnicate", "3"}, "--frobnicate"},
 		{[]string{"--hose-id", "25mm", "--hose-length", "12m", "--lift", "1.5m", "--drop", "2.5m", "--tank", "sphere"}, "--level"},

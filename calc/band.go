@@ -38,9 +38,9 @@ type Tolerance struct {
 	// m (e.g. the published range for its material). Both 0 means
 	// RoughnessFactorLow·ε … RoughnessFactorHigh·ε around the hose's ε.
 	RoughnessLow, RoughnessHigh Length
-	// KLow and KHigh are the range of the fittings' ΣK (entrance, up-leg and
-	// down-leg together; each is scaled in proportion). Both 0 means the
-	// entered ΣK … KFactorHigh·ΣK.
+	// KLow and KHigh are the range of the fittings' ΣK (entrance, intake
+	// device, up-leg, down-leg and outlet together; each is scaled in
+	// proportion). Both 0 means the entered ΣK … KFactorHigh·ΣK.
 	KLow, KHigh float64
 }
 
@@ -91,11 +91,11 @@ func bandCases(s Siphon, tol Tolerance) (slow, fast Siphon, dz float64, err erro
 	if err = checkRange(QuantityRoughnessRange, "roughness, low end", eLo, 0, maxE, "m"); err != nil {
 		return
 	}
-	if err = checkRange(QuantityRoughnessRange, "roughness, high end", eHi, eLo, math.Inf(1), "m"); err != nil {
+	if err = checkRange(QuantityRoughnessRange, "roughness, high end", eHi, eLo, MaxDiameter, "m"); err != nil {
 		return
 	}
 	eHi = math.Min(eHi, maxE*0.999)
-	k := s.Hose.KMinor()
+	k := s.Hose.KMinor() + s.Intake.K
 	kLo, kHi := tol.KLow, tol.KHigh
 	if kLo == 0 && kHi == 0 {
 		kLo, kHi = k, KFactorHigh*k
@@ -106,23 +106,28 @@ func bandCases(s Siphon, tol Tolerance) (slow, fast Siphon, dz float64, err erro
 	if err = checkRange(QuantityKRange, "fittings ΣK, high end", kHi, kLo, 3*MaxK, ""); err != nil {
 		return
 	}
-	scaleK := func(h *Hose, target float64) {
+	scaleK := func(s *Siphon, target float64) {
+		h := &s.Hose
 		if k > 0 {
 			f := target / k
 			h.KEntrance *= f
 			h.KUpLeg *= f
 			h.KDownLeg *= f
+			h.OutletK *= f
+			s.Intake.K *= f
 		} else {
 			h.KDownLeg = target
 		}
 		h.KEntrance = math.Min(h.KEntrance, MaxK)
 		h.KUpLeg = math.Min(h.KUpLeg, MaxK)
 		h.KDownLeg = math.Min(h.KDownLeg, MaxK)
+		h.OutletK = math.Min(h.OutletK, MaxK)
+		s.Intake.K = math.Min(s.Intake.K, MaxK)
 	}
 	slow, fast = s, s
 	slow.Hose.Roughness, fast.Hose.Roughness = Length(eHi), Length(eLo)
-	scaleK(&slow.Hose, kHi)
-	scaleK(&fast.Hose, kLo)
+	scaleK(&slow, kHi)
+	scaleK(&fast, kLo)
 	d := Length(dz)
 	slow.Geometry.Outlet += d
 	slow.Geometry.Crest += d

@@ -39,8 +39,10 @@ type DrainInput struct {
 	// Tank is the source vessel.
 	Tank Tank
 	// Target is the level at which to stop, m above the floor. Zero means
-	// none: the drain runs until the intake uncovers (intake + required
-	// submergence), the crest limit, or equal levels.
+	// none: the drain runs until the intake loses its prime (or air stops
+	// it), the crest limit, or equal levels. A target is always honoured:
+	// the plan never goes below it (DrainPlan.TargetBelowPrimeLost says when
+	// the intake stops it first).
 	Target Length
 	// Receiver, if not nil, makes the plan a transfer into it.
 	Receiver *Receiver
@@ -70,20 +72,55 @@ type DrainPlan struct {
 	StartFlow FlowRate // flow at the start (all hoses), m³/s
 	EndFlow   FlowRate // flow just before the stop, m³/s
 
-	// CrestLimitLevel is the source level at which the flowing crest
-	// pressure falls to the vapour pressure (the lift has grown to the
-	// flowing crest limit), searched from the start level down to the
-	// intake; CrestLimitFound is false when that never happens there (JSON
-	// null). It is reported even when the plan stops earlier for another
-	// reason.
+	// AirStartsLevel is the source level at which air starts to be drawn in
+	// at the intake (vortex onset at the intake face, see Intake), m above
+	// the floor; PrimeLostLevel the level at which the intake loses its
+	// prime. Both follow the flow, so each is where the falling level meets
+	// it; when the path ends first, each is the level the intake sets at the
+	// flow of the path's end. With a cover over the intake (or a floating
+	// intake) they are equal.
+	AirStartsLevel Length
+	PrimeLostLevel Length
+	// TargetBelowPrimeLost is true when a target was given below the
+	// prime-lost level: the intake stops the drain above it.
+	TargetBelowPrimeLost bool
+	// GulpTime is the time from where air starts to the stop (the siphon
+	// gulps air and slows), s; GulpTimeLost the part of it that the gulping
+	// costs over the same levels without air (see GulpVoidMax), s. Both 0
+	// when the plan stops before air starts.
+	GulpTime, GulpTimeLost Seconds
+
+	// CrestLimitLevel is the source level at which the lift grows to the
+	// running crest height (Result.RunningCrestHeight, less EqualHead):
+	// there the choked flow tapers to nothing and the plan stops for the
+	// crest. CrestLimitFound is false when the path from the start level to
+	// the intake never reaches it (JSON null). It is reported even when the
+	// plan stops earlier for another reason.
 	CrestLimitLevel Length
 	CrestLimitFound bool
+	// ChokeLevel is the level below which the siphon runs choked (the
+	// full-gravity flow would take the crest below its running limit; the
+	// up-leg limits the flow); ChokeFound is false when never. It is the
+	// start level when it runs choked from the start.
+	ChokeLevel Length
+	ChokeFound bool
 	// WorkingLimitLevel is the level below which the lift exceeds the
 	// working crest height (the gas-release allowance is used up: expect
 	// gas to gather at the crest); WorkingLimitFound is false when never.
 	// It is the start level when the crest is already past it.
 	WorkingLimitLevel Length
 	WorkingLimitFound bool
+	// AirGatherLevel is the level below which the down-leg velocity is
+	// under the air-clearing velocity: air gathers at the crest from there
+	// on; AirGatherFound is false when never. The start level when from the
+	// start.
+	AirGatherLevel Length
+	AirGatherFound bool
+	// CollapseLevel is the level below which the crest vacuum while flowing
+	// exceeds the hose's rating (the hose may collapse); CollapseFound is
+	// false when never or when the hose has no rating.
+	CollapseLevel Length
+	CollapseFound bool
 
 	// ReceiverLevel is the receiver's level above its floor at the stop
 	// (0 without a receiver).
@@ -91,7 +128,9 @@ type DrainPlan struct {
 	// EqualHead is the head used for the "equal" stop, m.
 	EqualHead Length
 
-	// Start is the steady solution at the start level.
+	// Start is the steady solution at the start level (with Siphon.MaxFlow:
+	// the capped one; the valve it needs, Start.MaxFlowThrottleK, stays set
+	// for the whole drain).
 	Start Result
 
 	// Curve holds the level and flow against time from the start to the
@@ -104,42 +143,46 @@ type DrainPlan struct {
 
 // PlanDrain plans a drain (or, with a Receiver, a transfer) quasi-steadily:
 // the flow at each moment is the steady flow Q of the siphon at the levels of
-// that moment. With v the volume moved out of the source,
+// that moment, as Solve gives it. With v the volume moved out of the source,
 //
-//	dv/dt = Q(H),  H = z_surface(v) − z_outlet(v)
-//	t = ∫₀^v_stop dv / Q(H(v))
+//	dv/dt = Q,  t = ∫₀^v_stop dv / Q
 //
 // and without a receiver, in the source level h (v = V(h₀) − V(h)),
 //
-//	dh/dt = −Q(h)/A(h),  t = ∫_{h_stop}^{h₀} A(h)/Q(h − z_outlet) dh
+//	dh/dt = −Q(h)/A(h),  t = ∫_{h_stop}^{h₀} A(h)/Q(h) dh
 //
 // (the quasi-steady tank-draining equation, as in Çengel & Cimbala, Fluid
 // Mechanics: Fundamentals and Applications, Ch. 5 example "Discharge of water
 // from a tank"; closed forms for cylinders and spheres in the project's
 // reference notes, shared/reference/hydraulics.md §7).
 //
-// Method. Q depends on the levels only through the head H (the lift enters
-// only the crest check), so Q(H), the required intake submergence S(H) and the
-// flowing crest limit C(H) are sampled from Solve at 6–24 heads spaced evenly
-// in ln H between the lowest reachable head and the start head (in a stand-in
-// geometry with the plan's smallest lift and the real up-leg), and
-// interpolated by local cubics in u = √H, Q as u·φ(u) (φ is constant for fixed
-// losses, linear in u for laminar flow). The stop is the first of:
+// Method. The full-gravity flow depends on the levels only through the head
+// H, so it and the flowing crest limit C(H) are solved (the energy equation
+// of Solve) at 6–24 heads spaced evenly in ln H and interpolated by local
+// cubics in u = √H, Q as u·φ(u) (φ is constant for fixed losses, linear in u
+// for laminar flow). Where the siphon runs choked the flow depends only on
+// the crest's headroom Δ = RunningCrestHeight − lift, and a second table in
+// √Δ holds it. At each level Q is the smaller of the two, with the head less
+// the gulping loss between the air-starts and prime-lost levels (see
+// Intake). The stop is the first of:
 //
 //   - target:  h = Target;
-//   - intake:  h − z_intake = S(H);
-//   - crest:   z_crest − h = C(H), where Solve's verdict flips to WillNotRun
-//     (located on the interpolant by Brent's method, then confirmed with
-//     Solve in the real geometry by bisection to 1e-7 m);
+//   - intake:  h = the prime-lost level at the flow there;
+//   - air:     h = the air-starts level, when a floating film may be drawn
+//     in with no cover over the intake, or, while gulping, where the
+//     down-leg no longer clears air (V < V_c);
+//   - crest:   lift = RunningCrestHeight − EqualHead (the choked flow
+//     tapers to nothing);
 //   - equal:   H = EqualHead;
 //   - receiver_full: the receiver holds its brim volume.
 //
-// The time integral is taken by composite 4-point Gauss–Lobatto quadrature
-// in a variable w with h − z_outlet = w² (transfers: v = v₀ − w², v₀ the
-// volume at which the levels would meet). Near equal levels Q ∝ √H, so
-// A/Q·dh has a 1/√H singularity in h but is smooth in w; the integral is
-// finite. Brent's method: R.P. Brent, Algorithms for Minimization without
-// Derivatives (1973), ch. 4.
+// Events that follow the flow are located on the interpolants by Brent's
+// method (R.P. Brent, Algorithms for Minimization without Derivatives, 1973,
+// ch. 4). The time integral is taken by composite 4-point Gauss–Lobatto
+// quadrature in a variable w with the path position x = x₀ − w², x₀ the
+// point where the flow vanishes (levels equal, or the crest's headroom gone);
+// near it Q ∝ √(x₀ − x), so the integrand has a 1/√ singularity in x but is
+// smooth in w and the integral is finite.
 //
 // Accuracy: the test suite checks the closed forms of
 // shared/reference/hydraulics.md §7 to 1e-6 and an independent fixed-step
@@ -147,8 +190,9 @@ type DrainPlan struct {
 //
 // Special cases:
 //   - a siphon that does not run at the start gives a plan of zero time whose
-//     StopReason says why (crest; equal for no drop; intake for an intake
-//     above the surface or too shallow);
+//     StopReason says why (crest for a crest too high, a boiling liquid or a
+//     collapsing hose; equal for no drop; intake for prime lost; air when
+//     air drawn in would not be cleared);
 //   - a head at the start of EqualHead or less: equal, zero time;
 //   - a receiver already full: receiver_full, zero time.
 //
@@ -172,9 +216,9 @@ func PlanDrain(in DrainInput) (DrainPlan, error) {
 }
 
 // planner holds one drain plan's fixed data: the start siphon, the tanks,
-// the path limits and the flow table sampled from Solve.
+// the path limits, the hose's constants and the flow tables.
 type planner struct {
-	s        Siphon // at the start
+	s        Siphon // at the start, with a MaxFlow valve set and MaxFlow cleared
 	src, rcv Tank
 	hasRcv   bool
 	points   int
@@ -183,17 +227,24 @@ type planner struct {
 	rcvFloor, vs0, vr0, vrCap  float64
 	target                     float64 // < 0: none
 	eps                        float64
-	allowance                  float64
-	lUp                        float64
+
+	// hose constants (see siphonCase)
+	c                   siphonCase
+	runHeight, runAllow float64 // RunningCrestHeight; (p_run − p_v)/(ρg)
+	workAllow           float64 // (p_work − p_v)/(ρg)
+	film                bool    // stop where air starts
+	rating              float64 // gauge vacuum the hose is rated for; < 0 none
 
 	// tank heights and brim volumes, and the last levels found (Newton's
 	// starting points for the next inverse of V(h) along a transfer)
 	srcTop, srcFull, rcvTop float64
 	lastHs, lastHr          float64
 
-	fixed *fixedLoss
-	tab   flowTable
-	start Result
+	fixed    *fixedLoss
+	tab      flowTable // full-gravity flow and crest limit in √H
+	chk      flowTable // choked flow in √Δ
+	hasChoke bool
+	start    Result
 }
 
 func (p *planner) init(in *DrainInput, points int) error {
@@ -217,17 +268,8 @@ func (p *planner) init(in *DrainInput, points int) error {
 		}
 		return err
 	}
-	if in.Target != 0 {
-		if err := checkRange(QuantityTarget, "target level", float64(in.Target), 0, p.h0, "m"); err != nil {
-			return err
-		}
-		if in.Target >= g.Surface {
-			return &RangeError{What: QuantityTarget, Quantity: "target level", Value: float64(in.Target), Min: 0, Max: p.h0, Unit: "m",
-				Err: ErrOutOfRange, Note: "the target must be below the start level"}
-		}
-		p.target = float64(in.Target)
-	} else {
-		p.target = -1
+	if err := p.initTarget(in.Target); err != nil {
+		return err
 	}
 	switch {
 	case points == 0:
@@ -244,26 +286,8 @@ func (p *planner) init(in *DrainInput, points int) error {
 	p.crest = float64(g.Crest)
 	p.hoseEnd = float64(g.Outlet)
 	p.vs0 = float64(in.Tank.Volume(g.Surface))
-	if r := in.Receiver; r != nil {
-		if r.Tank == nil {
-			return &RangeError{What: QuantityReceiverTank, Quantity: "receiving tank", Err: ErrNoTank, Min: math.Inf(-1), Max: math.Inf(1),
-				Note: "a transfer needs the receiver's shape and size"}
-		}
-		if err := checkRange(QuantityReceiverFloor, "receiver floor elevation", float64(r.Floor), -MaxElevation, MaxElevation, "m"); err != nil {
-			return err
-		}
-		if err := checkRange(QuantityReceiverLevel, "receiver level", float64(r.Level), 0, float64(r.Tank.Height()), "m"); err != nil {
-			return err
-		}
-		p.hasRcv = true
-		p.rcv = r.Tank
-		p.rcvFloor = float64(r.Floor)
-		p.vr0 = float64(r.Tank.Volume(r.Level))
-		p.vrCap = float64(r.Tank.Volume(r.Tank.Height()))
-		p.rcvTop = float64(r.Tank.Height())
-		p.srcTop = top
-		p.srcFull = float64(in.Tank.Volume(Length(top)))
-		p.lastHs, p.lastHr = -1, -1
+	if err := p.initReceiver(in.Receiver, top); err != nil {
+		return err
 	}
 	// Validate the siphon itself at the start.
 	start, err := p.solveAt(0)
@@ -272,16 +296,72 @@ func (p *planner) init(in *DrainInput, points int) error {
 	}
 	p.start = start
 	if p.fixed == nil {
-		// Solve's gas-release allowance, as it applies it
-		p.allowance = float64(start.FlowingCrestLimit - start.WorkingCrestHeight)
-		L := float64(p.s.Hose.Length)
-		p.lUp = float64(p.s.Hose.UpLegLength)
-		if p.lUp == 0 {
-			p.lUp = math.Max(p.crest-p.intake, 0)
-		}
-		p.lUp = math.Min(p.lUp, L)
+		p.initHose(start)
 	}
 	return nil
+}
+
+func (p *planner) initTarget(t Length) error {
+	p.target = -1
+	if t == 0 {
+		return nil
+	}
+	if err := checkRange(QuantityTarget, "target level", float64(t), 0, p.h0, "m"); err != nil {
+		return err
+	}
+	if float64(t) >= p.h0 {
+		return &RangeError{What: QuantityTarget, Quantity: "target level", Value: float64(t), Min: 0, Max: p.h0, Unit: "m",
+			Err: ErrOutOfRange, Note: "the target must be below the start level"}
+	}
+	p.target = float64(t)
+	return nil
+}
+
+func (p *planner) initReceiver(r *Receiver, top float64) error {
+	if r == nil {
+		return nil
+	}
+	if r.Tank == nil {
+		return &RangeError{What: QuantityReceiverTank, Quantity: "receiving tank", Err: ErrNoTank, Min: math.Inf(-1), Max: math.Inf(1),
+			Note: "a transfer needs the receiver's shape and size"}
+	}
+	if err := checkRange(QuantityReceiverFloor, "receiver floor elevation", float64(r.Floor), -MaxElevation, MaxElevation, "m"); err != nil {
+		return err
+	}
+	if err := checkRange(QuantityReceiverLevel, "receiver level", float64(r.Level), 0, float64(r.Tank.Height()), "m"); err != nil {
+		return err
+	}
+	p.hasRcv = true
+	p.rcv = r.Tank
+	p.rcvFloor = float64(r.Floor)
+	p.vr0 = float64(r.Tank.Volume(r.Level))
+	p.vrCap = float64(r.Tank.Volume(r.Tank.Height()))
+	p.rcvTop = float64(r.Tank.Height())
+	p.srcTop = top
+	p.srcFull = float64(p.src.Volume(Length(top)))
+	p.lastHs, p.lastHr = -1, -1
+	return nil
+}
+
+// initHose fixes the hose for the drain (a MaxFlow valve set at the start
+// stays set) and keeps the constants the tables and events need.
+func (p *planner) initHose(start Result) {
+	if p.s.MaxFlow > 0 {
+		p.s.Hose.OutletK += start.MaxFlowThrottleK
+		p.s.MaxFlow = 0
+	}
+	var r Result
+	p.c.init(&p.s, &r)
+	p.runHeight = float64(r.RunningCrestHeight)
+	rg := p.c.rho * StandardGravity
+	p.runAllow = (p.c.pRun - p.c.pv) / rg
+	p.workAllow = p.c.workAllow
+	in := p.s.Intake
+	p.film = in.FilmRisk && !in.Covered
+	p.rating = -1
+	if rating, ok := hoseRating(p.s.Hose); ok {
+		p.rating = rating
+	}
 }
 
 // state returns the source level, the receiver level above its floor, the
@@ -297,6 +377,14 @@ func (p *planner) state(x float64) (hs, hr, out, H float64) {
 	p.lastHs, p.lastHr = hs, hr
 	out = math.Max(p.hoseEnd, p.rcvFloor+hr)
 	return hs, hr, out, hs - out
+}
+
+// xAtLevel is the path position at which the source level is h.
+func (p *planner) xAtLevel(h float64) float64 {
+	if !p.hasRcv {
+		return p.h0 - h
+	}
+	return p.vs0 - float64(p.src.Volume(Length(h)))
 }
 
 // dvdx is the volume moved per unit of x.
@@ -337,114 +425,4 @@ func (p *planner) solveAt(x float64) (Result, error) {
 		return r, nil
 	}
 	return Solve(p.realSiphon(x))
-}
-
-// run plans the drain: the stops known at the start, then the flow table,
-// the events on it, the first stop and the time integral.
-func (p *planner) run() (DrainPlan, error) {
-	var plan DrainPlan
-	plan.EqualHead = Length(p.eps)
-	start := p.start
-	plan.Start = start
-	plan.StopLevel = Length(p.h0)
-	plan.Residual = Volume(p.vs0)
-	_, hr0, _, H0 := p.state(0)
-	plan.ReceiverLevel = Length(hr0)
-
-	stopNow := func(why StopReason) (DrainPlan, error) {
-		plan.StopReason = why
-		plan.StartFlow = start.Flow
-		plan.EndFlow = start.Flow
-		if p.points > 0 {
-			plan.Curve = []DrainPoint{{Level: Length(p.h0), Flow: start.Flow, ReceiverLevel: Length(hr0)}}
-		}
-		return plan, nil
-	}
-	if why, ok := p.stopAtStart(&plan); ok {
-		return stopNow(why)
-	}
-
-	xBottom, xTarget, xFull, xEqual, x0, haveX0 := p.geoLimits()
-	xMax := math.Min(math.Min(xBottom, xFull), xEqual)
-	if xMax <= 0 || H0 <= p.eps {
-		if p.hasRcv && xFull <= 0 {
-			return stopNow(StopReceiverFull)
-		}
-		return stopNow(StopEqual)
-	}
-	_, _, _, hLo := p.state(xMax)
-	hLo = math.Max(hLo, math.Min(p.eps, H0))
-	if err := p.build(hLo, H0); err != nil {
-		return plan, err
-	}
-
-	// Events on the interpolated flow table.
-	const scanN = 64
-	roots, found := p.scanRoots(newXmap(x0, haveX0, xMax), scanN, p.xTol(0))
-	p.reportLimits(&plan, roots, found)
-
-	xStop, why := xMax, StopEqual
-	first := func(x float64, ok bool, r StopReason) {
-		if ok && x <= xStop {
-			xStop, why = x, r
-		}
-	}
-	first(xBottom, xBottom < xEqual, StopIntake)
-	first(xFull, true, StopReceiverFull)
-	first(xTarget, true, StopTarget)
-	first(roots[evIntake], found[evIntake], StopIntake)
-	first(roots[evCrest], found[evCrest], StopCrest)
-	if why == StopCrest && p.fixed == nil {
-		var err error
-		if xStop, err = p.polishCrest(xStop, xMax); err != nil {
-			return plan, err
-		}
-		hs, _, _, _ := p.state(xStop)
-		plan.CrestLimitLevel = Length(hs)
-	}
-	if xStop <= 0 {
-		return stopNow(why)
-	}
-	plan.StopReason = why
-	p.integrate(&plan, newXmap(x0, haveX0, xStop))
-	plan.StartFlow = start.Flow
-	return plan, nil
-}
-
-// stopAtStart reports the stop of a siphon that does not drain at all from
-// the start level, and fills the crest and working limits known there.
-func (p *planner) stopAtStart(plan *DrainPlan) (StopReason, bool) {
-	start := p.start
-	if start.Verdict == WillNotRun {
-		switch start.Why {
-		case WarnCannotRun:
-			plan.CrestLimitLevel, plan.CrestLimitFound = Length(p.h0), true
-			plan.WorkingLimitLevel, plan.WorkingLimitFound = Length(p.h0), true
-			return StopCrest, true
-		case WarnIntakeShallow:
-			return StopIntake, true
-		default: // WarnNoDrop: the levels are already equal or reversed
-		}
-		return StopEqual, true
-	}
-	if start.Verdict == RunsNearLimit {
-		plan.WorkingLimitLevel, plan.WorkingLimitFound = Length(p.h0), true
-	}
-	if start.Warnings.Has(WarnIntakeShallow) {
-		return StopIntake, true
-	}
-	return "", false
-}
-
-// reportLimits fills the levels at which the crest and working limits are
-// reached, from the event roots.
-func (p *planner) reportLimits(plan *DrainPlan, roots [3]float64, found [3]bool) {
-	if found[evCrest] {
-		hs, _, _, _ := p.state(roots[evCrest])
-		plan.CrestLimitLevel, plan.CrestLimitFound = Length(hs), true
-	}
-	if !plan.WorkingLimitFound && found[evWorking] {
-		hs, _, _, _ := p.state(roots[evWorking])
-		plan.WorkingLimitLevel, plan.WorkingLimitFound = Length(hs), true
-	}
 }

@@ -123,6 +123,28 @@ const (
 	QuantityReidVaporPressure
 	// QuantityBarbRatio: bore ratio of a hose barb (presets).
 	QuantityBarbRatio
+	// QuantityOutletK: outlet valve or fitting loss coefficient.
+	QuantityOutletK
+	// QuantityMaxFlow: maximum discharge rate (a permit's cap).
+	QuantityMaxFlow
+	// QuantityIntakeKind: intake kind.
+	QuantityIntakeKind
+	// QuantityIntakeSize: intake face diameter.
+	QuantityIntakeSize
+	// QuantityIntakeHeight: height of the intake's opening.
+	QuantityIntakeHeight
+	// QuantityIntakeOpenArea: intake open area.
+	QuantityIntakeOpenArea
+	// QuantityIntakeK: intake device loss coefficient.
+	QuantityIntakeK
+	// QuantityFloatDepth: floating intake depth.
+	QuantityFloatDepth
+	// QuantityVacuumRating: hose vacuum rating or class.
+	QuantityVacuumRating
+	// QuantityHoseWall: hose wall (thickness, modulus, Poisson's ratio).
+	QuantityHoseWall
+	// QuantityDownLegSlope: steepest down-leg slope after the crest.
+	QuantityDownLegSlope
 	quantityCount
 )
 
@@ -169,6 +191,17 @@ var quantityCodes = [...]string{
 	"salinity",
 	"reid_vapor_pressure",
 	"barb_ratio",
+	"outlet_k",
+	"max_flow",
+	"intake_kind",
+	"intake_size",
+	"intake_height",
+	"intake_open_area",
+	"intake_k",
+	"float_depth",
+	"vacuum_rating",
+	"hose_wall",
+	"down_leg_slope",
 }
 
 // String returns the stable lowercase code of q, e.g. "hose_diameter".
@@ -226,15 +259,22 @@ func rangeText(lo, hi float64, unit string) string {
 }
 
 // checkRange returns a *RangeError when v is not finite or lies outside
-// [lo, hi]. Use lo = 0 with positive = true for "strictly more than zero".
+// [lo, hi]; lo and hi must be finite (so that the test below also refuses
+// ±Inf; NaN fails every comparison). The in-range test comes first and is
+// small enough to inline: every solve checks some twenty inputs.
 func checkRange(what Quantity, quantity string, v, lo, hi float64, unit string) error {
+	if v >= lo && v <= hi {
+		return nil
+	}
+	return rangeError(what, quantity, v, lo, hi, unit)
+}
+
+// rangeError builds checkRange's error for v outside [lo, hi] or not finite.
+func rangeError(what Quantity, quantity string, v, lo, hi float64, unit string) error {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return &RangeError{What: what, Quantity: quantity, Value: v, Min: lo, Max: hi, Unit: unit, Err: ErrNotFinite}
 	}
-	if v < lo || v > hi {
-		return &RangeError{What: what, Quantity: quantity, Value: v, Min: lo, Max: hi, Unit: unit, Err: ErrOutOfRange}
-	}
-	return nil
+	return &RangeError{What: what, Quantity: quantity, Value: v, Min: lo, Max: hi, Unit: unit, Err: ErrOutOfRange}
 }
 
 // checkPositive is checkRange for quantities that must be strictly positive

@@ -2,25 +2,41 @@ package calc
 
 import "math"
 
-// xmap maps s ∈ [0, 1] to the path variable x (source level fallen, or volume
-// moved) either linearly or through w with x = x0 − w².
+// xmap maps s ∈ [0, 1] to the path position x ∈ [xa, xe] (source level
+// fallen, or volume moved), either linearly or, when the flow vanishes at a
+// point x0 at or beyond xe, through w with x = x0 − w², in which the
+// integrand A/Q of a flow Q ∝ √(x0 − x) is smooth.
 type xmap struct {
 	sq         bool
 	x0, wa, wb float64
-	xe         float64
+	xa, xe     float64
 }
 
-func newXmap(x0 float64, haveX0 bool, xe float64) xmap {
-	if haveX0 && x0 >= xe && x0 > 0 {
-		return xmap{sq: true, x0: x0, wa: math.Sqrt(x0), wb: math.Sqrt(math.Max(x0-xe, 0)), xe: xe}
+func newXmap(x0 float64, haveX0 bool, xa, xe float64) xmap {
+	if haveX0 && x0 >= xe && x0 > xa {
+		return xmap{sq: true, x0: x0, wa: math.Sqrt(x0 - xa), wb: math.Sqrt(max(x0-xe, 0)), xa: xa, xe: xe}
 	}
-	return xmap{xe: xe}
+	return xmap{xa: xa, xe: xe}
+}
+
+// sOf inverts at: the s at which x(s) = x.
+func (m xmap) sOf(x float64) float64 {
+	if !m.sq {
+		if m.xe == m.xa {
+			return 0
+		}
+		return (x - m.xa) / (m.xe - m.xa)
+	}
+	if m.wb == m.wa {
+		return 0
+	}
+	return (m.wa - math.Sqrt(max(m.x0-x, 0))) / (m.wa - m.wb)
 }
 
 // at returns x(s) and dx/ds.
 func (m xmap) at(s float64) (x, dxds float64) {
 	if !m.sq {
-		return s * m.xe, m.xe
+		return m.xa + s*(m.xe-m.xa), m.xe - m.xa
 	}
 	w := m.wa + s*(m.wb-m.wa)
 	x = m.x0 - w*w

@@ -5,7 +5,8 @@ package calc
 // case). All in metres, up positive.
 //
 //	Surface  source liquid surface
-//	Intake   hose opening; must stay below Surface by the required submergence
+//	Intake   the intake: a bare hose end's mouth, or the base of the intake
+//	         device (see Intake for where its opening is)
 //	Crest    highest point of the hose route
 //	Outlet   hose end (free outlet), or the receiving surface when submerged
 //
@@ -17,6 +18,11 @@ type Geometry struct {
 	// surface; Outlet is then that surface. The exit loss (K = 1) replaces the
 	// outlet velocity head, so the head balance is the same number.
 	OutletSubmerged bool
+	// DownLegSlope is the sine of the angle below horizontal of the
+	// steepest down-leg section just after the crest, 0 … 1, for the
+	// air-clearing check; 0 means the mean slope of the down-leg,
+	// (Crest − Outlet)/(down-leg length).
+	DownLegSlope float64
 }
 
 // Lift is the crest height above the source surface, Crest − Surface.
@@ -42,13 +48,26 @@ type Hose struct {
 	KEntrance float64
 	// KUpLeg sums fittings between intake and crest (bends, couplings).
 	KUpLeg float64
-	// KDownLeg sums fittings between crest and outlet (bends, couplings,
-	// valves). The exit loss is not included: the solver adds it.
+	// KDownLeg sums fittings between crest and outlet (bends, couplings).
+	// The exit loss is not included: the solver adds it.
 	KDownLeg float64
+	// OutletK is a valve or fitting at the outlet end, after the crest: a
+	// part-closed valve there throttles the flow and raises the crest
+	// pressure. (A throttle before the crest lowers it: never throttle at
+	// the intake or on the up-leg.)
+	OutletK float64
+	// Vacuum is how the hose stands up to vacuum; VacuumRating the gauge
+	// vacuum a VacuumRated hose is rated for, Pa (positive); Wall the tube
+	// wall of a VacuumFromWall hose.
+	Vacuum       VacuumClass
+	VacuumRating Pressure
+	Wall         Wall
 }
 
-// KMinor is the sum of all fitting coefficients, ΣK, without the exit.
-func (h Hose) KMinor() float64 { return h.KEntrance + h.KUpLeg + h.KDownLeg }
+// KMinor is the sum of the hose's fitting coefficients, ΣK, without the
+// exit: entrance, up-leg, down-leg and outlet (an intake device's
+// Intake.K is added by Solve).
+func (h Hose) KMinor() float64 { return h.KEntrance + h.KUpLeg + h.KDownLeg + h.OutletK }
 
 // Siphon is one steady case: a liquid, a site, a hose run and its geometry.
 type Siphon struct {
@@ -57,6 +76,14 @@ type Siphon struct {
 	Hose        Hose
 	Hoses       int // identical hoses in parallel, sharing the head; ≥ 1
 	Geometry    Geometry
+	// Intake is the suction end (the zero value: a bare end hung at
+	// Geometry.Intake).
+	Intake Intake
+	// MaxFlow is a cap on the discharge (all hoses, m³/s), e.g. a permit's;
+	// 0 means none. Solve meets it with an outlet valve (see
+	// Result.MaxFlowThrottleK); PlanDrain sets that valve at the start,
+	// where the head is highest, and keeps it for the drain.
+	MaxFlow FlowRate
 }
 
 // Regime is the flow regime in the hose.

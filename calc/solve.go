@@ -35,8 +35,11 @@ const (
 	MaxRelativeRoughness = 0.1
 )
 
-// Solve computes the steady flow of a siphon and checks its crest, down-leg
-// and intake.
+// MaxFlowRate bounds Siphon.MaxFlow, m³/s.
+const MaxFlowRate = 100.0
+
+// Solve computes the steady flow of a siphon and checks its crest, intake,
+// down-leg and hose.
 //
 // Energy equation from the source surface to the outlet, per hose
 // (Darcy–Weisbach with minor losses):
@@ -44,51 +47,81 @@ const (
 //	H = z_surface − z_outlet = (V²/2g) · (1 + ΣK + f·L/D)
 //
 // where the 1 is the velocity head leaving a free outlet (or the exit loss
-// K = 1 into a receiving surface), ΣK = K_entrance + K_up-leg + K_down-leg,
-// and f = friction(ρVD/μ, ε/D) (see friction.go: Hagen–Poiseuille,
-// Colebrook–White, and a shifted Churchill curve between). N identical hoses
-// in parallel share H; the total flow is N·V·πD²/4. The equation is solved for V by fixed-point
-// branch: closed form when laminar, Newton's method on 1/√f when turbulent,
-// bracketing in the transition (see solveVelocity); the result satisfies the
-// energy equation to about 1e-12 relative.
+// K = 1 into a receiving surface), ΣK = K_entrance + K_intake + K_up-leg +
+// K_down-leg + K_outlet, and f = friction(ρVD/μ, ε/D) (see friction.go:
+// Hagen–Poiseuille, Colebrook–White, and a shifted Churchill curve between).
+// N identical hoses in parallel share H; the total flow is N·V·πD²/4. The
+// equation is solved for V branch by branch (see solveVelocity); the result
+// satisfies it to about 1e-12 relative.
 //
-// Crest pressure while flowing (absolute), energy equation surface → crest:
+// Crest pressure while flowing (absolute), energy equation surface → crest;
+// only the losses before the crest count (entrance, intake device, up-leg),
+// so a valve at the outlet raises the crest pressure:
 //
-//	p_crest = p_atm − ρg(z_crest − z_surface) − (ρV²/2)(1 + K_entrance + K_up-leg + f·L_up/D)
+//	p_crest = p_atm − ρg(z_crest − z_surface) − (ρV²/2)(1 + K_ent + K_intake + K_up + f·L_up/D)
 //
-// Crest heights above the surface reported in Result:
+// Crest limits (see crest.go): the running limit p_run and the working limit
+// p_work above the vapour pressure p_v. Heights above the surface reported:
 //
-//	MaxCrestHeight     = (p_atm − p_v)/(ρg)                       (zero flow)
-//	FlowingCrestLimit  = MaxCrestHeight − (V²/2g)(1 + K_ent + K_up + f·L_up/D)
-//	WorkingCrestHeight = FlowingCrestLimit − GasAllowanceFraction·p_atm/(ρg)
+//	MaxCrestHeight     = (p_atm − p_v)/(ρg)                        (zero flow)
+//	RunningCrestHeight = (p_atm − p_run)/(ρg)                      (zero flow)
+//	FlowingCrestLimit  = MaxCrestHeight − (V²/2g)(1 + K_ent + K_intake + K_up + f·L_up/D)
+//	WorkingCrestHeight = FlowingCrestLimit − (p_work − p_v)/(ρg)
 //
 // (ASDSO Dam Safety Toolbox, "Siphons": the lift cannot exceed the local
 // atmospheric pressure adjusted for vapour pressure and friction losses.)
 //
+// Choked running: when the full-gravity flow would take p_crest below p_run,
+// the up-leg limits the flow: the crest sits at p_run and
+//
+//	RunningCrestHeight − lift = (V²/2g)(1 + K_ent + K_intake + K_up + f·L_up/D)
+//
+// gives V; the verdict is RunsChoked and OutletThrottleK the outlet valve
+// that makes the whole hose carry that V (energy equation above with K_outlet
+// added). The head the valve does not take is lost at the crest in a pocket
+// of vapour and gas, which is why the valve is the steady way to run it.
+//
+// A maximum discharge (Siphon.MaxFlow) is met by an outlet valve: its K
+// comes from the energy equation at the capped V (MaxFlowThrottleK), and the
+// capped flow is then checked like any other.
+//
+// Intake (see Intake): air starts at the depth Gordon (1970) gives at the
+// intake face, AirStartsSubmergence; prime is lost at the prime-lost depth
+// over the opening (intake.go). Between the two the siphon gulps air: the
+// void fraction grows to
+// GulpVoidMax and the head falls by GulpHeadLoss; the flow is solved with
+// that head. It runs on while the down-leg clears the air, and will not run
+// (WarnAirDrawn) when it does not or when Intake.FilmRisk is set without a
+// cover. ANSI/HI 9.8 is reported (SubmergenceHI) but never stops a hose end.
+//
 // Air at the crest: bubbles and pockets are carried down the down-leg only
 // when the velocity reaches (Wisner, Mohsen & Kouwen 1975, J. Hydraulics Div.
-// ASCE 101(HY2), as given in Sanks, Pumping Station Design)
+// ASCE 101(HY2), as given in Sanks, Pumping Station Design; small-pipe tests
+// at 25 and 38 mm found the same trend, May, Allen & Nelson 2018, Int. J.
+// Hydraulic Eng. 7(3):51–57, doi:10.5923/j.ijhe.20180703.02)
 //
 //	V_c = √(gD) · (0.825 + 0.25 √(sin θ))
 //
-// with θ the mean down-leg slope, sin θ = (z_crest − z_outlet)/L_down,
-// clamped to [0, 1]. Below it, WarnAirCollects.
+// with θ the steepest down-leg slope (Geometry.DownLegSlope) or, without
+// one, the mean slope (z_crest − z_outlet)/L_down, clamped to [0, 1]. Below
+// it, WarnAirCollects.
 //
-// Intake submergence against air-drawing vortices (ANSI/HI 9.8, Rotodynamic
-// Pumps for Pump Intake Design):
+// Hose collapse (see collapse.go): the worst gauge vacuum of flowing, a
+// blocked intake and vacuum priming is compared with the hose's rating. A
+// crest vacuum while flowing beyond the rating (for lay-flat hose: any
+// vacuum) is WillNotRun (WarnHoseCollapse); a worst case beyond it is
+// WarnHoseVacuum; an unrated hose under vacuum is WarnHoseNotRated.
 //
-//	S = D (1 + 2.3 F_D),  F_D = V/√(gD)
+// Verdicts, in order: WillNotRun (Why says why), RunsChoked, RunsNearLimit
+// (CrestMargin < 0), Runs. Result.Fix names the change and its figures.
 //
-// An intake shallower than S earns WarnIntakeShallow; an intake above the
-// surface cannot run.
-//
-// Special cases:
-//   - H ≤ 0 (outlet at or above the surface): WillNotRun, WarnNoDrop, no flow.
-//   - lift ≥ MaxCrestHeight, or p_crest ≤ p_v at the solved flow:
-//     WillNotRun, WarnCannotRun, no flow (the liquid boils at the crest and the
-//     column breaks).
-//   - intake above the surface: WillNotRun, WarnIntakeShallow.
-//   - p_v ≥ p_atm: error wrapping ErrBoiling.
+// Special cases (each WillNotRun with no flow):
+//   - p_v ≥ p_atm: WarnBoiling (the liquid boils at the site; a verdict, not
+//     an input error).
+//   - H ≤ 0 (outlet at or above the surface): WarnNoDrop.
+//   - lift ≥ RunningCrestHeight: WarnCannotRun (even at vanishing flow the
+//     crest would not hold).
+//   - surface at or below the prime-lost level: WarnPrimeLost.
 //
 // Solve does not allocate.
 func Solve(s Siphon) (Result, error) {
@@ -96,291 +129,359 @@ func Solve(s Siphon) (Result, error) {
 	if err := validateSiphon(&s); err != nil {
 		return r, err
 	}
-	rho := float64(s.Fluid.Density)
-	mu := float64(s.Fluid.Viscosity)
-	pv := float64(s.Fluid.VaporPressure)
-	patm := float64(s.AtmPressure)
-	D := float64(s.Hose.Diameter)
-	L := float64(s.Hose.Length)
-	g := StandardGravity
+	var c siphonCase
+	c.init(&s, &r)
+	c.solve(&r)
+	c.fix(&r)
+	return r, nil
+}
+
+// siphonCase holds one Solve's inputs in float64 and what follows from them.
+type siphonCase struct {
+	in                         Intake
+	geo                        Geometry
+	maxFlow                    float64
+	volatile                   bool
+	rho, pv, patm, D, L, area  float64
+	lift, H, lUp, lDown, n     float64
+	reOverV, rr                float64
+	kUp, kSum                  float64 // before the crest (with entrance and intake); all (no exit)
+	pRun, pWork, workAllow     float64
+	ig                         intakeGeom
+	im                         intakeModel
+	gravityV, gravityF         float64 // full-gravity solution (no cap, no choke)
+	flowSolved, upLegAsLaid    bool
+	vC                         float64 // air-clearing velocity
+	blockedVacuum, primeVacuum float64
+}
+
+func (c *siphonCase) init(s *Siphon, r *Result) {
+	c.in, c.geo, c.maxFlow, c.volatile = s.Intake, s.Geometry, float64(s.MaxFlow), s.Fluid.Volatile
+	c.rho = float64(s.Fluid.Density)
+	c.pv = float64(s.Fluid.VaporPressure)
+	c.patm = float64(s.AtmPressure)
+	c.D = float64(s.Hose.Diameter)
+	c.L = float64(s.Hose.Length)
+	c.n = float64(s.Hoses)
 	geo := s.Geometry
-	lift := float64(geo.Lift())
-	H := float64(geo.Drop())
-	area := math.Pi * D * D / 4
-
-	lUp := float64(s.Hose.UpLegLength)
-	if lUp == 0 {
-		lUp = math.Max(float64(geo.Crest-geo.Intake), 0)
+	c.lift = float64(geo.Lift())
+	c.H = float64(geo.Drop())
+	c.area = math.Pi * c.D * c.D / 4
+	c.lUp = float64(s.Hose.UpLegLength)
+	c.upLegAsLaid = c.lUp == 0
+	if c.lUp == 0 {
+		c.lUp = max(float64(geo.Crest-geo.Intake), 0)
 	}
-	lUp = math.Min(lUp, L)
-	lDown := L - lUp
+	c.lUp = min(c.lUp, c.L)
+	c.lDown = c.L - c.lUp
+	c.reOverV = c.rho * c.D / float64(s.Fluid.Viscosity)
+	c.rr = float64(s.Hose.Roughness) / c.D
+	h := s.Hose
+	c.kUp = h.KEntrance + s.Intake.K + h.KUpLeg
+	c.kSum = c.kUp + h.KDownLeg + h.OutletK
+	c.pRun, c.pWork = crestPressures(s.Fluid, c.patm)
+	c.workAllow = (c.pWork - c.pv) / (c.rho * StandardGravity)
+	c.ig = resolveIntake(s.Intake, c.D)
+	c.im = newIntakeModel(s.Intake, c.ig, float64(s.Geometry.Intake))
 
-	r.Head = Length(H)
-	r.PrimingVolume = Volume(float64(s.Hoses) * area * L)
-	r.MaxCrestHeight = Length((patm - pv) / (rho * g))
-	r.RequiredSubmergence = Length(D)
-	r.AirClearingVelocity = Velocity(airClearing(D, float64(geo.Crest-geo.Outlet), lDown))
+	rg := c.rho * StandardGravity
+	r.Head = Length(c.H)
+	r.PrimingVolume = Volume(c.n * c.area * c.L)
+	r.MaxCrestHeight = Length((c.patm - c.pv) / rg)
+	r.RunningCrestHeight = Length((c.patm - c.pRun) / rg)
+	r.RunningCrestPressure, r.WorkingCrestPressure = Pressure(c.pRun), Pressure(c.pWork)
+	c.vC = airClearing(c.D, float64(geo.Crest-geo.Outlet), c.lDown, geo.DownLegSlope)
+	r.AirClearingVelocity = Velocity(c.vC)
+	c.blockedVacuum, c.primeVacuum = staticVacuums(c.rho, c.patm, c.pv, geo)
+	r.HoseVacuumBlocked, r.HoseVacuumPriming = Pressure(c.blockedVacuum), Pressure(c.primeVacuum)
+	rating, rated := hoseRating(h)
+	r.HoseVacuumRating, r.HoseRated = Pressure(rating), rated
+	// the intake's levels at zero flow, until a flow is solved
+	air, prime := c.im.levels(0)
+	r.AirStartsLevel, r.PrimeLostLevel = Length(air), Length(prime)
+	r.IntakeTop = Length(c.im.top)
 
-	if pv > NearBoilingFraction*patm {
+	if c.pv > NearBoilingFraction*c.patm {
 		r.Warnings.Add(WarnNearBoiling)
 	}
-	straightUp := math.Max(float64(geo.Crest-geo.Intake), 0)
-	straightDown := math.Max(float64(geo.Crest-geo.Outlet), 0)
-	if L < straightUp+straightDown {
+	straightUp := max(float64(geo.Crest-geo.Intake), 0)
+	straightDown := max(float64(geo.Crest-geo.Outlet), 0)
+	if c.L < straightUp+straightDown {
 		r.Warnings.Add(WarnHoseShort)
 	}
+}
 
-	allowance := GasAllowanceFraction * patm / (rho * g)
-	notRunning := func(why WarnCode) (Result, error) {
-		r.Verdict = WillNotRun
-		r.Why = why
-		r.Warnings.Add(why)
-		r.Regime = NoFlow
-		r.FlowingCrestLimit = r.MaxCrestHeight
-		r.WorkingCrestHeight = r.MaxCrestHeight - Length(allowance)
-		r.CrestMargin = r.WorkingCrestHeight - Length(lift)
-		r.CrestPressure = Pressure(patm - rho*g*lift)
-		return r, nil
+// velocity solves the energy equation for head H with the fittings kSum.
+func (c *siphonCase) velocity(H, kSum float64) (V, f, re float64) {
+	return solveVelocity(H, kSum, c.L/c.D, c.reOverV, c.rr)
+}
+
+// crestAt fills the crest figures of r for hose velocity V with friction f.
+func (c *siphonCase) crestAt(r *Result, V, f float64) {
+	kCrest := 1 + c.kUp + f*c.lUp/c.D
+	r.FlowingCrestLimit = r.MaxCrestHeight - Length(kCrest*V*V/(2*StandardGravity))
+	r.WorkingCrestHeight = r.FlowingCrestLimit - Length(c.workAllow)
+	r.CrestMargin = r.WorkingCrestHeight - Length(c.lift)
+	r.CrestPressure = Pressure(crestPressure(c.patm, c.rho, c.lift, V, kCrest))
+	r.CrestVacuum = Pressure(c.patm) - r.CrestPressure
+}
+
+// notRunning sets r to the verdict WillNotRun for why. The flowing crest
+// figures stay those at the full-gravity flow when one was solved.
+func (c *siphonCase) notRunning(r *Result, why WarnCode) {
+	r.Verdict = WillNotRun
+	r.Why = why
+	r.Warnings.Add(why)
+	r.Regime = NoFlow
+	r.Flow, r.FlowPerHose, r.Velocity, r.Reynolds, r.FrictionFactor = 0, 0, 0, 0, 0
+	r.GulpVoid, r.GulpHead = 0, 0
+	r.HasOutletThrottle, r.OutletThrottleK = false, 0
+	if c.flowSolved {
+		c.crestAt(r, c.gravityV, c.gravityF)
+	} else {
+		c.crestAt(r, 0, 0)
 	}
+	// no flow: the crest holds its static pressure
+	r.CrestPressure = Pressure(c.patm - c.rho*StandardGravity*c.lift)
+	r.CrestVacuum = Pressure(c.patm) - r.CrestPressure
+	r.HoseVacuumWorst = Pressure(max(max(c.blockedVacuum, c.primeVacuum), float64(r.CrestVacuum)))
+}
+
+// solve runs the checks in order and fills r.
+func (c *siphonCase) solve(r *Result) {
+	geo := c.geo
 	switch {
-	case geo.Intake > geo.Surface:
-		return notRunning(WarnIntakeShallow)
-	case H <= 0:
-		return notRunning(WarnNoDrop)
-	case lift >= float64(r.MaxCrestHeight):
-		return notRunning(WarnCannotRun)
+	case c.pv >= c.patm:
+		c.notRunning(r, WarnBoiling)
+		return
+	case c.H <= 0:
+		c.notRunning(r, WarnNoDrop)
+		return
 	}
-
-	kSum := s.Hose.KMinor()
-	rr := float64(s.Hose.Roughness) / D
-	V, f, re := solveVelocity(H, kSum, L/D, rho*D/mu, rr)
-
-	kCrest := 1 + s.Hose.KEntrance + s.Hose.KUpLeg + f*lUp/D
-	velHead := V * V / (2 * g)
-	r.FlowingCrestLimit = r.MaxCrestHeight - Length(kCrest*velHead)
-	r.WorkingCrestHeight = r.FlowingCrestLimit - Length(allowance)
-	r.CrestMargin = r.WorkingCrestHeight - Length(lift)
-	r.CrestPressure = Pressure(crestPressure(patm, rho, lift, V, kCrest))
-	if float64(r.CrestPressure) <= pv {
-		return notRunning(WarnCannotRun)
+	var gRe float64
+	c.gravityV, c.gravityF, gRe = c.velocity(c.H, c.kSum)
+	c.flowSolved = true
+	r.GravityFlow = FlowRate(c.n * c.gravityV * c.area)
+	switch {
+	case float64(geo.Surface) <= float64(r.PrimeLostLevel):
+		c.notRunning(r, WarnPrimeLost) // the opening is out of the liquid
+		return
+	case c.lift >= float64(r.RunningCrestHeight):
+		c.notRunning(r, WarnCannotRun)
+		return
 	}
-
+	V, f, re := c.flow(r, c.H, c.gravityV, c.gravityF, gRe)
+	// intake: levels at this flow, gulping between them
+	air, prime := c.im.levels(V * c.area)
+	r.AirStartsLevel, r.PrimeLostLevel = Length(air), Length(prime)
+	r.RequiredSubmergence = Length(air - c.im.top)
+	r.SubmergenceHI = SubmergenceHI(FlowRate(V*c.area), Length(c.ig.face))
+	r.FaceVelocity = Velocity(V * c.area / (math.Pi * c.ig.face * c.ig.face / 4))
+	h := float64(geo.Surface)
+	if h <= prime {
+		c.notRunning(r, WarnPrimeLost)
+		return
+	}
+	if h < air {
+		if c.in.FilmRisk && !c.in.Covered {
+			c.notRunning(r, WarnAirDrawn)
+			return
+		}
+		r.GulpVoid = gulpVoid(h, air, prime)
+		r.GulpHead = GulpHeadLoss(r.GulpVoid, geo.Intake, geo.Outlet)
+		he := c.H - float64(r.GulpHead)
+		V, f, re = c.velocity(he, c.kSum)
+		V, f, re = c.flow(r, he, V, f, re)
+		r.Warnings.Add(WarnIntakeShallow)
+		if V < c.vC {
+			c.notRunning(r, WarnAirDrawn)
+			return
+		}
+	}
 	r.Velocity = Velocity(V)
-	r.FlowPerHose = FlowRate(V * area)
-	r.Flow = FlowRate(V * area * float64(s.Hoses))
+	r.FlowPerHose = FlowRate(V * c.area)
+	r.Flow = FlowRate(V * c.area * c.n)
 	r.Reynolds = re
 	r.FrictionFactor = f
+	c.crestAt(r, V, f)
+	if c.collapse(r) {
+		return
+	}
+	c.verdict(r, V)
+}
+
+// flow takes the full-gravity solution V, f, re for driving head H through
+// the cap, then the crest (choked running). It sets the throttle figures of
+// r.
+func (c *siphonCase) flow(r *Result, H, V, f, re float64) (float64, float64, float64) {
+	r.MaxFlowThrottleK, r.OutletThrottleK, r.HasOutletThrottle = 0, 0, false
+	r.Verdict = Runs
+	throttled := false
+	if q := c.maxFlow; q > 0 && c.n*V*c.area > q {
+		V = q / (c.n * c.area)
+		re = c.reOverV * V
+		f = friction(re, c.rr, 0)
+		r.MaxFlowThrottleK = throttleK(V, H, c.kSum, c.L/c.D, c.reOverV, c.rr)
+		throttled = true
+	}
+	if crestPressure(c.patm, c.rho, c.lift, V, 1+c.kUp+f*c.lUp/c.D) < c.pRun {
+		// choked: the up-leg carries what the crest can hold at p_run
+		dh := float64(r.RunningCrestHeight) - c.lift
+		V, f, re = solveVelocity(dh, c.kUp, c.lUp/c.D, c.reOverV, c.rr)
+		r.Verdict = RunsChoked
+		throttled = true
+	}
+	if throttled {
+		r.OutletThrottleK = throttleK(V, H, c.kSum, c.L/c.D, c.reOverV, c.rr)
+		r.HasOutletThrottle = true
+		r.Warnings.Add(WarnThrottleOutlet)
+	}
+	return V, f, re
+}
+
+// collapse checks the hose against its vacuum rating; it reports whether
+// the hose collapses (the verdict is then set).
+func (c *siphonCase) collapse(r *Result) bool {
+	flowing := float64(r.CrestVacuum)
+	worst := max(max(c.blockedVacuum, c.primeVacuum), flowing)
+	r.HoseVacuumWorst = Pressure(worst)
+	rating, rated := float64(r.HoseVacuumRating), r.HoseRated
 	switch {
-	case re <= ReLaminarMax:
+	case !rated:
+		if worst > 0 {
+			r.Warnings.Add(WarnHoseNotRated)
+		}
+	case flowing > rating:
+		c.notRunning(r, WarnHoseCollapse)
+		return true
+	case worst > rating:
+		r.Warnings.Add(WarnHoseVacuum)
+	}
+	return false
+}
+
+// verdict sets the running verdict and its warnings for hose velocity V.
+func (c *siphonCase) verdict(r *Result, V float64) {
+	switch {
+	case r.Reynolds <= ReLaminarMax:
 		r.Regime = Laminar
 		r.Warnings.Add(WarnLaminar)
-	case re < ReTurbulentMin:
+	case r.Reynolds < ReTurbulentMin:
 		r.Regime = Transitional
 		r.Warnings.Add(WarnTransitional)
 	default:
 		r.Regime = Turbulent
 	}
-	r.RequiredSubmergence = Length(D * (1 + 2.3*V/math.Sqrt(g*D)))
-	if geo.IntakeDepth() < r.RequiredSubmergence {
-		r.Warnings.Add(WarnIntakeShallow)
-	}
-	if V < float64(r.AirClearingVelocity) {
+	if V < c.vC {
 		r.Warnings.Add(WarnAirCollects)
 	}
-	if r.CrestMargin < 0 {
+	switch {
+	case r.Verdict == RunsChoked:
+		r.Warnings.Add(WarnChoked)
+	case r.CrestMargin < 0:
 		r.Verdict = RunsNearLimit
 		r.Warnings.Add(WarnCrestNearLimit)
 	}
-	return r, nil
 }
 
-// solveVelocity solves the energy equation
-//
-//	φ(V) = V²·(A + f(cV)·B) − 2gH = 0,  A = 1 + ΣK, B = L/D, c = ρD/μ
-//
-// for the hose velocity V. φ increases with V in every regime (f·V² grows
-// with V), so the root is unique and is found branch by branch:
-//
-//   - laminar: with f = 64/Re, φ is the quadratic A·V² + (64B/c)·V − 2gH,
-//     solved in closed form; accepted when its Re ≤ 2000;
-//   - turbulent: substituting V(x) = √(2gH/(A + B/x²)) with x = 1/√f into
-//     Colebrook–White leaves one equation in x,
-//     R(x) = x + 2 log10( ε/(3.7D) + 2.51·√(A x² + B)/(c √(2gH)) ) = 0,
-//     with R′ > 1, solved by Newton's method; accepted when its Re ≥ 4000;
-//   - otherwise the root lies in 2000 < Re < 4000 and is bracketed there;
-//     the Illinois variant of regula falsi finds it.
-//
-// It returns V, the Darcy f and Re; f is friction at that Re, the same
-// function the friction checks test.
-func solveVelocity(H, k, lOverD, reOverV, rr float64) (V, f, re float64) {
-	twoGH := 2 * StandardGravity * H
-	A := 1 + k
-	B := lOverD
-	c := reOverV
-
-	// Laminar branch, closed form (the cancellation-free root of the quadratic).
-	bl := 64 * B / c
-	V = 2 * twoGH / (bl + math.Sqrt(bl*bl+4*A*twoGH))
-	if re = c * V; re <= ReLaminarMax {
-		return V, friction(re, rr, 0), re
-	}
-	// Above Re 2000 the transitional f exceeds 64/Re, so the laminar root
-	// is an upper bound for the transitional one.
-	vLam := V
-
-	// Turbulent branch, Newton on x = 1/√f.
-	a := rr / 3.7
-	beta := 2.51 / (c * math.Sqrt(twoGH))
-	const k10 = 2 / math.Ln10
-	x := 7.0 // f ≈ 0.02
-	for i := 0; i < 60; i++ {
-		q := math.Sqrt(A*x*x + B)
-		s := a + beta*q
-		r := x + k10*math.Log(s)
-		d := r / (1 + k10*beta*A*x/(q*s))
-		x -= d
-		if x <= 0 {
-			x = 1e-3
+// fix fills r.Fix: the figures for each change and the one named first.
+func (c *siphonCase) fix(r *Result) {
+	x := &r.Fix
+	rg := c.rho * StandardGravity
+	x.CrestHeightThrottled = Length((c.patm - c.pWork) / rg)
+	x.NeedsPump = c.H <= 0 || x.CrestHeightThrottled <= 0
+	if c.flowSolved {
+		kCrest := 1 + c.kUp + c.gravityF*c.lUp/c.D
+		vh := c.gravityV * c.gravityV / (2 * StandardGravity)
+		// lift + vh·(1 + kUp + f·L_up/D) = (p_atm − p_work)/(ρg); an up-leg
+		// laid straight (UpLegLength 0) grows with the lift it climbs
+		ch := (c.patm-c.pWork)/rg - vh*kCrest
+		if c.upLegAsLaid {
+			a := vh * (1 + c.kUp + c.gravityF*max(float64(c.geo.Surface-c.geo.Intake), 0)/c.D)
+			ch = ((c.patm-c.pWork)/rg - a) / (1 + vh*c.gravityF/c.D)
 		}
-		// Newton converges quadratically: after a step of 1e-7·x the
-		// error left is of order 1e-14·x, and friction() below confirms
-		// x against Colebrook–White itself.
-		if math.Abs(d) <= 1e-7*x {
-			break
+		if ch > 0 {
+			x.CrestHeight, x.HasCrestHeight = Length(ch), true
 		}
-	}
-	V = math.Sqrt(twoGH / (A + B/(x*x)))
-	if re = c * V; re >= ReTurbulentMin {
-		return V, friction(re, rr, x), re
-	}
-
-	// Transitional band: Illinois regula falsi on V. Colebrook–White lies
-	// above the shifted Churchill curve in the band (they meet at 4000), so
-	// the turbulent root is a lower bound, as the laminar root is an upper
-	// one; each bound is checked and replaced by the band's end if it fails.
-	vTurb := V
-	lo, hi := transitionShift(rr)
-	phi := func(v float64) float64 {
-		return v*v*(A+transitionFriction(c*v, rr, lo, hi)*B) - twoGH
-	}
-	v0, v1 := math.Max(ReLaminarMax/c, vTurb), math.Min(ReTurbulentMin/c, vLam)
-	p0, p1 := phi(v0), phi(v1)
-	if p0 > 0 {
-		v0 = ReLaminarMax / c
-		p0 = phi(v0)
-	}
-	if p1 < 0 {
-		v1 = ReTurbulentMin / c
-		p1 = phi(v1)
-	}
-	side := 0
-	V = v0
-	for i := 0; i < 200 && p0 != p1; i++ {
-		V = (v0*p1 - v1*p0) / (p1 - p0)
-		p := phi(V)
-		if p == 0 || math.Abs(v1-v0) <= 1e-11*V || math.Abs(p) <= 1e-12*twoGH {
-			break
-		}
-		if (p > 0) == (p1 > 0) {
-			v1, p1 = V, p
-			if side == -1 {
-				p0 /= 2
+		// the vapour pressure that puts the full-gravity crest at p_work
+		c.coolTo(x, Pressure(crestPressure(c.patm, c.rho, c.lift, c.gravityV, kCrest)))
+		// the throttle that holds the crest at p_work (only asked for when
+		// the crest is past it)
+		if dh := float64(x.CrestHeightThrottled) - c.lift; dh > 0 && r.Verdict != Runs {
+			vw, _, _ := solveVelocity(dh, c.kUp, c.lUp/c.D, c.reOverV, c.rr)
+			if vw < c.gravityV {
+				x.ThrottleFlow = FlowRate(c.n * vw * c.area)
+				x.ThrottleK = throttleK(vw, c.H, c.kSum, c.L/c.D, c.reOverV, c.rr)
+				x.HasThrottle = true
 			}
-			side = -1
-		} else {
-			v0, p0 = V, p
-			if side == 1 {
-				p1 /= 2
-			}
-			side = 1
 		}
+	} else if c.H > 0 {
+		// no flow was solved (the liquid boils at the site): the crest
+		// pressure at zero flow bounds the cooling from above (any flow
+		// lowers the crest pressure)
+		c.coolTo(x, Pressure(c.patm-rg*c.lift))
 	}
-	re = c * V
-	// friction(re, rr, 0) in this band, with the shift already computed
-	return V, transitionFriction(re, rr, lo, hi), re
+	if r.Verdict == RunsChoked && r.HasOutletThrottle {
+		// choked, the throttle to name is the one that holds the running
+		// flow steadily (the crest at its running limit)
+		x.ThrottleFlow, x.ThrottleK, x.HasThrottle = r.Flow, r.OutletThrottleK, true
+	}
+	rating := float64(r.HoseVacuumRating)
+	if r.Why == WarnHoseCollapse || r.Warnings.Has(WarnHoseVacuum) || (r.HoseRated && rating == 0 && r.HoseVacuumWorst > 0) {
+		x.NeedsSuctionHose, x.MinVacuumRating = true, r.HoseVacuumWorst
+	}
+	x.Code = c.fixCode(r)
 }
 
-// crestPressure is the absolute crest pressure while flowing (Bernoulli with
-// losses, source surface → crest): p_atm − ρg·lift − kCrest·ρV²/2, where
-// kCrest = 1 + K_entrance + K_up-leg + f·L_up/D.
-func crestPressure(patm, rho, lift, v, kCrest float64) float64 {
-	return patm - rho*StandardGravity*lift - kCrest*rho*v*v/2
+// coolTo sets the highest vapour pressure that keeps a crest at pressure pc
+// (absolute, Pa) at its working limit: the dissolved-gas allowance below
+// it, or the bubble-point margin for a volatile liquid (crest.go).
+func (c *siphonCase) coolTo(x *Fix, pc Pressure) {
+	pvMax := float64(pc) - GasAllowanceFraction*c.patm
+	if c.volatile {
+		pvMax = float64(pc) / (1 + BubbleWorkMargin)
+	}
+	if pvMax > 0 {
+		x.MaxVaporPressure, x.HasMaxVaporPressure = Pressure(pvMax), true
+	}
 }
 
-// airClearing is the Wisner et al. (1975) air-clearing velocity for inside
-// diameter D (m), fall from crest to outlet dz (m) over down-leg length l (m).
-func airClearing(D, dz, l float64) float64 {
-	sin := 1.0
-	if l > 0 {
-		sin = math.Min(math.Max(dz/l, 0), 1)
+// fixCode picks the change a verdict names first.
+func (c *siphonCase) fixCode(r *Result) FixCode {
+	x := &r.Fix
+	lower := FixLowerCrest
+	if x.NeedsPump {
+		lower = FixPump
 	}
-	return math.Sqrt(StandardGravity*D) * (0.825 + 0.25*math.Sqrt(sin))
-}
-
-func validateSiphon(s *Siphon) error {
-	if err := s.Fluid.Validate(); err != nil {
-		return err
-	}
-	if err := checkRange(QuantityAtmPressure, "barometric pressure", float64(s.AtmPressure), MinAtmPressure, MaxAtmPressure, "Pa"); err != nil {
-		return err
-	}
-	if s.Fluid.VaporPressure >= s.AtmPressure {
-		return &RangeError{What: QuantityVaporPressure, Quantity: "liquid vapour pressure", Value: float64(s.Fluid.VaporPressure),
-			Min: 0, Max: float64(s.AtmPressure), Unit: "Pa", Err: ErrBoiling,
-			Note: "the liquid boils at this site's barometric pressure"}
-	}
-	h := s.Hose
-	if err := checkPositive(QuantityHoseDiameter, "hose inside diameter", float64(h.Diameter), MaxDiameter, "m"); err != nil {
-		return err
-	}
-	if err := checkPositive(QuantityHoseLength, "hose length", float64(h.Length), MaxHoseLength, "m"); err != nil {
-		return err
-	}
-	if err := checkRange(QuantityRoughness, "hose roughness", float64(h.Roughness), 0, MaxRelativeRoughness*float64(h.Diameter), "m"); err != nil {
-		if re, ok := err.(*RangeError); ok && re.Err == ErrOutOfRange && h.Roughness > 0 {
-			re.Err = ErrGeometry
-			re.Note = "roughness must be under a tenth of the inside diameter; the Moody chart ends at ε/D = 0.05"
+	switch r.Verdict {
+	case RunsChoked:
+		return FixThrottle
+	case RunsNearLimit:
+		if x.HasCrestHeight {
+			return FixLowerCrest
 		}
-		return err
+		return FixThrottle
+	case Runs:
+		return FixNone
+	case WillNotRun: // by its reason, below
 	}
-	if err := checkRange(QuantityUpLegLength, "up-leg length", float64(h.UpLegLength), 0, float64(h.Length), "m"); err != nil {
-		if re, ok := err.(*RangeError); ok && re.Err == ErrOutOfRange {
-			re.Err = ErrGeometry
-			re.Note = "the up-leg is part of the hose"
+	switch r.Why {
+	case WarnNoDrop:
+		return FixPump
+	case WarnBoiling:
+		return FixCool
+	case WarnCannotRun:
+		return lower
+	case WarnPrimeLost:
+		return FixLowerIntake
+	case WarnAirDrawn:
+		if c.in.FilmRisk && !c.in.Covered {
+			return FixCoverIntake
 		}
-		return err
+		return FixLowerIntake
+	case WarnHoseCollapse:
+		return FixSuctionHose
+	default: // no other code decides a WillNotRun verdict
+		return FixNone
 	}
-	for _, k := range [...]struct {
-		what Quantity
-		name string
-		v    float64
-	}{{QuantityKEntrance, "entrance loss coefficient", h.KEntrance}, {QuantityKUpLeg, "up-leg fittings loss coefficient", h.KUpLeg},
-		{QuantityKDownLeg, "down-leg fittings loss coefficient", h.KDownLeg}} {
-		if err := checkRange(k.what, k.name, k.v, 0, MaxK, ""); err != nil {
-			return err
-		}
-	}
-	if err := checkRange(QuantityHoses, "number of hoses", float64(s.Hoses), 1, MaxHoses, ""); err != nil {
-		return err
-	}
-	g := s.Geometry
-	for _, z := range [...]struct {
-		what Quantity
-		name string
-		v    Length
-	}{{QuantitySurface, "source surface elevation", g.Surface}, {QuantityIntake, "intake elevation", g.Intake},
-		{QuantityCrest, "crest elevation", g.Crest}, {QuantityOutlet, "outlet elevation", g.Outlet}} {
-		if err := checkRange(z.what, z.name, float64(z.v), -MaxElevation, MaxElevation, "m"); err != nil {
-			return err
-		}
-	}
-	if g.Crest < g.Intake {
-		return &RangeError{What: QuantityCrest, Quantity: "crest elevation", Value: float64(g.Crest), Min: float64(g.Intake), Max: MaxElevation,
-			Unit: "m", Err: ErrGeometry, Note: "the crest is the highest point of the hose, so not below the intake"}
-	}
-	if !g.OutletSubmerged && g.Crest < g.Outlet {
-		return &RangeError{What: QuantityCrest, Quantity: "crest elevation", Value: float64(g.Crest), Min: float64(g.Outlet), Max: MaxElevation,
-			Unit: "m", Err: ErrGeometry, Note: "the crest is the highest point of the hose, so not below the outlet"}
-	}
-	return nil
 }

@@ -10,11 +10,19 @@ type StopReason string
 const (
 	// StopTarget: the source level reached the target level.
 	StopTarget StopReason = "target"
-	// StopIntake: the level reached intake + required submergence; below it
-	// the intake draws air (vortices) and the siphon breaks.
+	// StopIntake: the level fell to where the intake loses its prime (its
+	// opening draws air; see Intake); the siphon breaks.
 	StopIntake StopReason = "intake"
-	// StopCrest: as the level fell the lift grew until the flowing crest
-	// pressure reached the vapour pressure; the column breaks at the crest.
+	// StopAir: stopped where air starts to be drawn in at the intake,
+	// because the air would not be carried over the crest (the down-leg is
+	// too slow to clear it) or a vortex would draw a floating film in with
+	// no cover over the intake.
+	StopAir StopReason = "air"
+	// StopCrest: as the level fell the lift grew to the running crest
+	// height; the choked flow tapers to nothing and the column breaks at
+	// the crest. Also the stop at once of a siphon whose liquid boils at the
+	// site or whose hose collapses under the crest vacuum (Start.Why says
+	// which).
 	StopCrest StopReason = "crest"
 	// StopEqual: the levels came within EqualHead of each other (the source
 	// surface and the outlet, or the receiving surface); the flow tapers to
@@ -31,9 +39,11 @@ func (r StopReason) Text() string {
 	case StopTarget:
 		return "the target level is reached"
 	case StopIntake:
-		return "the intake draws air: the level is down to intake + the submergence needed against vortices"
+		return "the intake loses its prime: its opening draws air"
+	case StopAir:
+		return "air starts to be drawn in at the intake and would not be carried over the crest"
 	case StopCrest:
-		return "the crest pressure falls to the vapour pressure as the lift grows; the column breaks at the crest"
+		return "the lift grows to the crest's running limit; the flow tapers to nothing and the column breaks at the crest"
 	case StopEqual:
 		return "the levels come within " + strconv.FormatFloat(float64(EqualHead)*100, 'g', 3, 64) + " cm of each other; the flow tapers to nothing"
 	case StopReceiverFull:

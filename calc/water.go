@@ -341,6 +341,12 @@ func waterMu(T, rho float64) float64 {
 //	    water boils at any temperature and the quantity is "absolute
 //	    pressure" with Min = p_v(T).
 //
+// With the ErrBoiling error Water also returns the saturated liquid's
+// properties at T (density and viscosity at p_v(T), and p_v), so that a
+// caller can still ask Solve for the verdict: boiling at the site is a
+// verdict (WillNotRun, WarnBoiling), not an input error. With any other
+// error the Fluid is zero.
+//
 // Water does not allocate unless it returns an error.
 func Water(T Temperature, p Pressure) (Fluid, error) {
 	if err := checkRange(QuantityTemperature, "water temperature", float64(T), waterMinTemperature, waterToolMaxTemperature, "K"); err != nil {
@@ -352,7 +358,10 @@ func Water(T Temperature, p Pressure) (Fluid, error) {
 	t, pp := float64(T), float64(p)
 	pv := waterSatPressure(t)
 	if pp < pv {
-		return Fluid{}, waterBoilingError(t, pp, pv)
+		// the saturated liquid at T, for a boiling verdict (see the doc)
+		rho := waterRegion1Density(t, pv)
+		return Fluid{Density: Density(rho), Viscosity: Viscosity(waterMu(t, rho)), VaporPressure: Pressure(pv)},
+			waterBoilingError(t, pp, pv)
 	}
 	rho := waterRegion1Density(t, pp)
 	return Fluid{

@@ -460,6 +460,16 @@ func TestWaterBoilsAtAltitude(t *testing.T) {
 	if re.Max != float64(ts) || ts.Celsius() < 93 || ts.Celsius() > 94 {
 		t.Errorf("boiling point at 2000 m: Max = %g K, T_s = %v, want about 93.3 °C", re.Max, ts)
 	}
+	// With the error comes the saturated liquid, for Solve's verdict.
+	fl, _ := Water(Celsius(100), p)
+	if pv, _ := WaterSaturationPressure(Celsius(100)); fl.VaporPressure != pv || fl.Validate() != nil || !(fl.Density > 950) {
+		t.Errorf("boiling water's fluid %+v", fl)
+	}
+	s := Siphon{Fluid: fl, AtmPressure: p, Hoses: 1, Hose: Hose{Diameter: 0.025, Length: 10},
+		Geometry: Geometry{Surface: 0, Intake: -0.3, Crest: 1, Outlet: -2}}
+	if r, err := Solve(s); err != nil || r.Verdict != WillNotRun || r.Why != WarnBoiling {
+		t.Errorf("Solve with boiling water: %v %v %v", r.Verdict, r.Why, err)
+	}
 	// Just below the boiling point it is liquid; just above it boils.
 	if _, err := Water(ts-0.01, p); err != nil {
 		t.Errorf("Water(T_s − 0.01 K) = %v, want liquid", err)

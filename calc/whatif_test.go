@@ -119,3 +119,28 @@ func BenchmarkWhatIf7x5(b *testing.B) {
 		sinkGrid, _ = WhatIf(in, ls, ds)
 	}
 }
+
+// TestWhatIfRanksBoresOnTheBund: on the demo bund (issue 11) a larger bore is
+// never slower to the same target, in every row of the grid, and moves more
+// at the start; no cell stops at once.
+func TestWhatIfRanksBoresOnTheBund(t *testing.T) {
+	s := bundSiphon(t)
+	s.Geometry.Intake = 0
+	s.Intake = strainerOnFloor
+	in := DrainInput{Tank: bundTank(t), Siphon: s, Target: 0.1}
+	ls, ds := AroundChoice(s.Hose.Length, s.Hose.Diameter)
+	g, err := WhatIf(in, ls, ds)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, row := range g.Cells {
+		for j, c := range row {
+			if c.Err != nil || c.Verdict == WillNotRun || !(c.Time > 0) || c.StopReason != StopTarget {
+				t.Fatalf("cell %d,%d: %+v", i, j, c)
+			}
+			if j > 0 && (c.Time > row[j-1].Time || !(c.Flow > row[j-1].Flow)) {
+				t.Errorf("length %v: %v mm takes %v, %v mm %v", c.Length, c.Diameter*1000, c.Time, row[j-1].Diameter*1000, row[j-1].Time)
+			}
+		}
+	}
+}

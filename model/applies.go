@@ -21,7 +21,15 @@ func Applies(values map[FieldID]string, id FieldID) bool {
 	switch id {
 	case FieldIntakeDepth:
 		return !tank
-	case FieldIntakeHeight, FieldTankLevel, FieldTankTarget:
+	case FieldIntakeHeight:
+		// An end lying on the floor, a suction plate and a floating
+		// intake sit on (or ground at) the floor.
+		switch normChoice(values[FieldIntakeKind]) {
+		case "bare-floor", "suction-plate", "floating":
+			return false
+		}
+		return tank
+	case FieldTankLevel, FieldTankTarget:
 		return tank
 	case FieldTankHeight:
 		return tank && shape != "horizontal-cylinder" && shape != "sphere" && shape != "table"

@@ -24,6 +24,7 @@ const (
 	FieldHoseCount     FieldID = "hose.count"
 	FieldHoseKMinor    FieldID = "hose.kminor"
 	FieldHoseRoughness FieldID = "hose.roughness"
+	FieldOutletK       FieldID = "outlet.k"
 	FieldPriming       FieldID = "priming.method"
 	FieldPumpStroke    FieldID = "pump.stroke"
 
@@ -31,6 +32,8 @@ const (
 	FieldDrop            FieldID = "drop"
 	FieldIntakeDepth     FieldID = "intake.depth"
 	FieldIntakeHeight    FieldID = "intake.height"
+	FieldIntakeKind      FieldID = "intake.kind"
+	FieldMaxFlow         FieldID = "max.flow"
 	FieldOutletSubmerged FieldID = "outlet.submerged"
 	FieldTolHeight       FieldID = "tol.height"
 
@@ -115,8 +118,10 @@ type FieldSpec struct {
 	// roughness below the bore) when the plan is computed.
 	Min, Max float64
 	// Optional fields may be left empty; a field with a Default takes it
-	// when empty.
+	// when empty. Blank is what an empty optional field means, in a word
+	// or two ("none", "no cap"); "" means "auto" (worked out).
 	Optional bool
+	Blank    string
 	// Default is the text assumed when the field is empty ("" for none). It
 	// carries its unit so it reads the same in either unit system.
 	Default string

@@ -20,6 +20,7 @@ var contractIDs = []FieldID{
 	"tank.slope", "tank.level", "tank.target", "priming.method", "pump.stroke", "tol.height",
 	"receiver.shape", "receiver.diameter", "receiver.length", "receiver.width", "receiver.height",
 	"receiver.cone-height", "receiver.side-slope", "receiver.floor", "receiver.level",
+	"intake.kind", "max.flow", "outlet.k", // issue 11
 }
 
 func TestFieldTable(t *testing.T) {

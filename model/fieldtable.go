@@ -28,6 +28,8 @@ var fieldTable = []FieldSpec{
 		Help:    "Intake screen, couplings, valves and bends on the run; comma-separated."},
 	{ID: FieldHoseCount, Pane: PaneHose, Label: "Hoses in parallel", Dim: DimNumber, Min: 1, Max: 20, Default: "1", Integer: true,
 		Help: "Identical hoses over the same crest, each primed on its own."},
+	{ID: FieldOutletK, Pane: PaneHose, Label: "Outlet valve K", Dim: DimNumber, Min: 0, Max: 1000, Optional: true, Blank: "none",
+		Help: "A valve or fitting at the outlet end, after the crest: a part-closed valve here raises the crest pressure."},
 	{ID: FieldHoseKMinor, Pane: PaneHose, Label: "Minor-loss sum ΣK", Dim: DimNumber, Min: 0, Max: 200, Optional: true,
 		Help: "Overrides the fittings list: entrance, bends, couplings and valves added up."},
 	{ID: FieldHoseRoughness, Pane: PaneHose, Label: "Wall roughness", Dim: DimRoughness, Min: 0, Max: 10 * mm, Optional: true,
@@ -45,11 +47,16 @@ var fieldTable = []FieldSpec{
 		Help: "Source surface down to the hose end, or to the receiving surface if the end is submerged."},
 	{ID: FieldIntakeDepth, Pane: PaneLift, Label: "Intake depth", Dim: DimLength, Min: 0, Max: 100, Default: "0.3 m",
 		Help: "Hose opening below the source surface (used when no tank is given)."},
+	{ID: FieldIntakeKind, Pane: PaneLift, Label: "Intake", Dim: DimNumber, Default: presets.DefaultIntake,
+		Choices: intakeChoices,
+		Help:    "What is on the hose end in the liquid: it sets where air starts to be drawn in and where the prime is lost."},
 	{ID: FieldIntakeHeight, Pane: PaneLift, Label: "Intake height above floor", Dim: DimLength, Min: 0, Max: 1000, Default: "0.05 m",
-		Help: "Hose opening above the tank floor (used with a tank)."},
+		Help: "The mouth of a hung hose end, or the base of a strainer or foot valve, above the tank floor."},
 	{ID: FieldOutletSubmerged, Pane: PaneLift, Label: "Outlet end", Dim: DimNumber, Default: "no",
 		Choices: outletChoices,
 		Help:    "Free: the end discharges into air. Submerged: it sits below the receiving surface."},
+	{ID: FieldMaxFlow, Pane: PaneLift, Label: "Permit's max rate", Dim: DimFlow, Min: 1e-6, Max: 1, Optional: true, Blank: "no cap",
+		Help: "The most the discharge may run at: the outlet valve setting that meets it is worked out."},
 	{ID: FieldTolHeight, Pane: PaneLift, Label: "Height tolerance", Dim: DimLength, Min: 0, Max: 1, Default: "3 cm",
 		Help: "How far each measured height may be off (±); sets the low and high band."},
 	{ID: FieldReceiverShape, Pane: PaneLift, Label: "Receiving vessel", Dim: DimNumber, Default: "none",
@@ -164,6 +171,17 @@ func outletChoices(*presets.Catalogue) []Choice {
 		{ID: "no", Label: "Free (discharges into air)"},
 		{ID: "yes", Label: "Submerged (below the receiving surface)"},
 	}
+}
+
+func intakeChoices(c *presets.Catalogue) []Choice {
+	if c == nil {
+		return []Choice{}
+	}
+	var out []Choice
+	for _, in := range c.Intakes() {
+		out = append(out, Choice{ID: in.ID, Label: in.Name, Note: in.Note})
+	}
+	return out
 }
 
 func tankPresetChoices(c *presets.Catalogue) []Choice {

@@ -1,17 +1,13 @@
 package model
 
 import (
+	"errors"
 	"math"
 	"strings"
 
 	"drawdown/calc"
 	"drawdown/presets"
 )
-
-// DefaultEntranceK is the entrance loss assumed when no entrance fitting is
-// chosen: a plain hose end dropped into the liquid is a re-entrant
-// (inward-projecting) inlet, K = 0.78 (Crane TP-410, 2009).
-const DefaultEntranceK = 0.78
 
 // DefaultMaterial is the hose wall assumed when none is chosen.
 const DefaultMaterial = "rubber-smooth"
@@ -31,6 +27,10 @@ type Inputs struct {
 	TankTable []TablePoint
 	// Receiver, when set, makes the drain a transfer into that vessel.
 	Receiver *ReceiverSpec
+	// FilmRisk: the water may carry a floating film (the crew's "water may
+	// carry oil"): without a board over the intake the drain stops where
+	// air starts to be drawn in.
+	FilmRisk bool
 }
 
 // ReceiverSpec describes a receiving vessel for a transfer: its level rises
@@ -82,6 +82,7 @@ type Plan struct {
 	Liquid      presets.Liquid
 	Hazards     presets.Hazards // at the job's temperature
 	Material    presets.Material
+	Intake      presets.Intake
 	Temperature calc.Temperature
 	// AtmPressure is the barometer reading when one is given, else the
 	// U.S. Standard Atmosphere 1976 pressure at the site altitude.
@@ -102,8 +103,12 @@ type Plan struct {
 	Receiver *calc.Receiver // nil unless the job is a transfer
 	Drain    *calc.DrainPlan
 	DrainIn  calc.DrainInput
-	TimeLow  calc.Seconds
-	TimeHigh calc.Seconds
+	// BoardDrain is the same drain with a board floated over the intake,
+	// when the drain stops where air starts for fear of a floating film
+	// (nil otherwise).
+	BoardDrain *calc.DrainPlan
+	TimeLow    calc.Seconds
+	TimeHigh   calc.Seconds
 	// SlowMayNotStart is true when, at the slow end of the tolerances, the
 	// siphon would not run at all: TimeHigh then has no upper bound.
 	SlowMayNotStart bool
@@ -122,7 +127,7 @@ func (p Plan) OK() bool { return p.Err == nil }
 
 // Compute computes the plan of a job (see ComputeInputs).
 func Compute(j Job, cat *presets.Catalogue) Plan {
-	return ComputeInputs(Inputs{Values: j.Inputs, Units: j.Units}, cat)
+	return ComputeInputs(Inputs{Values: j.Inputs, Units: j.Units, FilmRisk: j.Facts.MayCarryOil}, cat)
 }
 
 // ComputeInputs turns a job's inputs into calc inputs and results. It is
@@ -141,6 +146,9 @@ type computer struct {
 	in  Inputs
 	cat *presets.Catalogue
 	p   Plan
+	// entranceListed: the fittings list names an entrance shape, strainer
+	// or foot valve; its K stands in for the intake's own.
+	entranceListed bool
 }
 
 func (c *computer) text(id FieldID) string {
@@ -204,7 +212,12 @@ func (c *computer) run() {
 	fluid := c.fluid()
 	hose, hoses := c.hose()
 	geo := c.geometry()
-	p.Siphon = calc.Siphon{Fluid: fluid, AtmPressure: p.AtmPressure, Hose: hose, Hoses: hoses, Geometry: geo}
+	_, kOverride := c.num(FieldHoseKMinor)
+	p.Siphon = calc.Siphon{Fluid: fluid, AtmPressure: p.AtmPressure, Hose: hose, Hoses: hoses, Geometry: geo,
+		Intake: c.intake(hose.Diameter, kOverride)}
+	if v, ok := c.num(FieldMaxFlow); ok {
+		p.Siphon.MaxFlow = calc.FlowRate(v)
+	}
 	if p.Err != nil {
 		return
 	}
@@ -248,11 +261,14 @@ func (c *computer) fluid() calc.Fluid {
 	var fluid calc.Fluid
 	if p.Liquid.Valid() && okT && p.AtmPressure > 0 {
 		fl, err := p.Liquid.Fluid(p.Temperature, p.AtmPressure)
-		if err != nil {
+		// A liquid that boils at the site's pressure is a verdict (it will
+		// not run), not an input error: its properties come with the error.
+		if err != nil && !errors.Is(err, calc.ErrBoiling) {
 			c.fail(FieldTemp, c.calcFieldError(FieldTemp, err))
 		}
 		fluid = fl
 		p.Hazards = p.Liquid.HazardsAt(p.Temperature)
+		fluid.Volatile = p.Hazards.Has(presets.Volatile)
 	}
 	if v, ok := c.num(FieldDensity); ok {
 		fluid.Density = calc.Density(v)
@@ -293,6 +309,7 @@ func (c *computer) hose() (calc.Hose, int) {
 		p.Material = m
 		hose.Roughness = m.Roughness
 		p.RoughLow, p.RoughHigh = m.RoughnessLow, m.RoughnessHigh
+		vacuum(&hose, m)
 	}
 	if v, ok := c.num(FieldHoseRoughness); ok {
 		hose.Roughness = calc.Length(v)

@@ -26,7 +26,6 @@ func (c *computer) fittings(h *calc.Hose) {
 		return
 	}
 	ids := c.choice(FieldHoseFittings)
-	entrance := false
 	for _, id := range strings.Split(ids, ",") {
 		id = strings.TrimSpace(id)
 		if id == "" {
@@ -40,7 +39,7 @@ func (c *computer) fittings(h *calc.Hose) {
 		switch f.Where {
 		case presets.AtEntrance:
 			h.KEntrance += k.Central
-			entrance = true
+			c.entranceListed = true
 		case presets.DownLeg:
 			h.KDownLeg += k.Central
 		default:
@@ -49,11 +48,76 @@ func (c *computer) fittings(h *calc.Hose) {
 		p.KLow += k.Low
 		p.KHigh += k.High
 	}
-	if !entrance {
-		h.KEntrance += DefaultEntranceK
-		p.KLow += DefaultEntranceK
-		p.KHigh += DefaultEntranceK
-		c.note("entrance loss K 0.78 assumed: a plain hose end in the liquid (Crane TP-410)")
+	if v, ok := c.num(FieldOutletK); ok {
+		h.OutletK = v
+		p.KLow += v
+		p.KHigh += v
+	}
+}
+
+// intake reads the intake kind from the catalogue and sizes it for the
+// hose: its face and the top of its opening, its open area, its entrance
+// loss (unless ΣK is typed or the fittings list names an entrance), a floating intake's depth,
+// a board over it, and whether the water may carry a floating film (the
+// crew's "water may carry oil", or rain water from an oil bund).
+func (c *computer) intake(bore calc.Length, kOverride bool) calc.Intake {
+	p := &c.p
+	id := c.choice(FieldIntakeKind)
+	if id == "" {
+		id = presets.DefaultIntake
+	}
+	in, ok := c.cat.Intake(id)
+	if !ok {
+		c.fail(FieldIntakeKind, &FieldError{ID: FieldIntakeKind, Label: "Intake", Text: id, Detail: `"` + id + `" is not in the catalogue`, Err: ErrNotAChoice})
+		return calc.Intake{}
+	}
+	p.Intake = in
+	out := calc.Intake{FaceDiameter: in.FaceDiameter(bore), K: in.K.Central,
+		FilmRisk: c.in.FilmRisk || p.Liquid.ID == "bund-water"}
+	switch in.Kind {
+	case presets.BareHung:
+		out.Kind, out.FaceDiameter = calc.IntakeBareHung, 0 // the mouth is the intake height
+	case presets.BoardIntake:
+		out.Kind, out.FaceDiameter, out.Covered = calc.IntakeBareHung, 0, true
+	case presets.BareFloor:
+		out.Kind, out.FaceDiameter = calc.IntakeBareFloor, 0
+	case presets.StrainerIntake, presets.FootValveIntake:
+		out.Kind = calc.IntakeStrainer
+		if in.Kind == presets.FootValveIntake {
+			out.Kind = calc.IntakeFootValve
+		}
+		out.Height = in.MouthHeight(bore)
+		if in.OpenRatio > 0 {
+			f := float64(out.FaceDiameter)
+			out.OpenArea = calc.Area(in.OpenRatio * math.Pi * f * f / 4)
+		}
+	case presets.SuctionPlate:
+		out.Kind, out.Height = calc.IntakeSuctionPlate, in.DrawDown
+	case presets.FloatingIntake:
+		out.Kind, out.FloatDepth = calc.IntakeFloating, in.Depth
+	}
+	switch {
+	case kOverride:
+		out.K = 0 // ΣK as typed already holds the entrance
+	case c.entranceListed:
+		out.K = 0
+		c.note("entrance loss from the fittings list, in place of the intake's own")
+	default:
+		p.KLow += in.K.Low
+		p.KHigh += in.K.High
+	}
+	return out
+}
+
+// vacuum sets the hose's vacuum rating from its wall (presets.Material).
+func vacuum(h *calc.Hose, m presets.Material) {
+	switch m.VacuumClass {
+	case presets.VacuumRated:
+		h.Vacuum, h.VacuumRating = calc.VacuumRated, m.Vacuum
+	case presets.VacuumNone:
+		h.Vacuum = calc.VacuumNone
+	default:
+		h.Vacuum = calc.VacuumNotRated
 	}
 }
 
@@ -235,4 +299,12 @@ func (c *computer) drain() {
 	}
 	p.Drain = &d
 	c.drainBand()
+	if d.StopReason == calc.StopAir && in.Siphon.Intake.FilmRisk && !in.Siphon.Intake.Covered {
+		// the trade's answer to a film: a board over the intake; plan it
+		// too, so the hint can say what it gains
+		in.Siphon.Intake.Covered = true
+		if b, err := calc.PlanDrain(in); err == nil {
+			p.BoardDrain = &b
+		}
+	}
 }

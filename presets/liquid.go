@@ -97,13 +97,18 @@ func (l Liquid) Fluid(T calc.Temperature, p calc.Pressure) (calc.Fluid, error) {
 		if errors.As(err, &re) && re.Unit == "K" {
 			c := *re
 			c.Quantity = l.quantity()
+			if errors.Is(err, calc.ErrBoiling) {
+				return f, &c // the saturated liquid goes with it: a boiling verdict, not a dead end
+			}
 			return calc.Fluid{}, &c
 		}
 		return calc.Fluid{}, err
 	}
 	if float64(f.VaporPressure) >= pp {
 		tb := l.boilingAt(pp)
-		return calc.Fluid{}, &calc.RangeError{What: calc.QuantityTemperature, Quantity: l.quantity(), Value: t, Min: float64(l.Min), Max: tb, Unit: "K", Err: calc.ErrBoiling,
+		// The liquid's properties go with the error, so that the caller can
+		// give a verdict (it boils: it will not run) rather than refuse.
+		return f, &calc.RangeError{What: calc.QuantityTemperature, Quantity: l.quantity(), Value: t, Min: float64(l.Min), Max: tb, Unit: "K", Err: calc.ErrBoiling,
 			Note: l.ID + " vapour pressure " + num(float64(f.VaporPressure)) + " Pa reaches the pressure " + num(pp) + " Pa"}
 	}
 	if err := f.Validate(); err != nil {
@@ -139,6 +144,17 @@ func (l Liquid) vaporPressure(T float64) float64 {
 		return math.Inf(1)
 	}
 	return float64(f.VaporPressure)
+}
+
+// VaporTemperature is the temperature at which the liquid's vapour pressure
+// is pv, within its valid range (by bisection; vapour pressure rises with
+// temperature): the temperature it must cool to for a vapour pressure of at
+// most pv. ok is false when even its lowest temperature is above pv.
+func (l Liquid) VaporTemperature(pv calc.Pressure) (calc.Temperature, bool) {
+	if l.model == nil || l.vaporPressure(float64(l.Min)) > float64(pv) {
+		return 0, false
+	}
+	return calc.Temperature(l.boilingAt(float64(pv))), true
 }
 
 // boilingAt returns the lowest temperature in [Min, Max] at which the vapour

@@ -285,11 +285,12 @@ func TestTypedScenario(t *testing.T) {
 	if sh := present.Build(p, model.SI, p.Hazards); m.st.sheet.Flow != sh.Flow || m.st.sheet.Drain.Time != sh.Drain.Time {
 		t.Errorf("shown flow %s, time %s; Compute gives %s, %s", m.st.sheet.Flow, m.st.sheet.Drain.Time, sh.Flow, sh.Drain.Time)
 	}
-	// Analytic: H = V²/(2g)·(1 + ΣK + f·L/D) (Darcy–Weisbach, design §3).
+	// Analytic: H = V²/(2g)·(1 + ΣK + f·L/D) (Darcy–Weisbach, design §3),
+	// ΣK the hose's fittings and the intake's own entrance loss.
 	s := p.Siphon
 	v := float64(r.Velocity)
 	h := v * v / (2 * calc.StandardGravity) *
-		(1 + s.Hose.KMinor() + r.FrictionFactor*float64(s.Hose.Length)/float64(s.Hose.Diameter))
+		(1 + s.Hose.KMinor() + s.Intake.K + r.FrictionFactor*float64(s.Hose.Length)/float64(s.Hose.Diameter))
 	if math.Abs(h-float64(r.Head))/float64(r.Head) > 0.01 {
 		t.Errorf("energy balance: V²/2g(1+ΣK+fL/D) = %g m, head %g m", h, float64(r.Head))
 	}

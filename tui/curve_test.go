@@ -89,7 +89,7 @@ func TestCurveViewMessages(t *testing.T) {
 	c.StopReason = "intake"
 	v.setCurve(c)
 	got := ansi.Strip(v.View())
-	for _, want := range []string{"intake draws air", "■", "min", "m ┤"} {
+	for _, want := range []string{"intake loses its prime", "■", "min", "m ┤"} {
 		if !strings.Contains(got, want) {
 			t.Errorf("frame lacks %q:\n%s", want, got)
 		}

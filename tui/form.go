@@ -102,6 +102,8 @@ func NewFormPane(p model.Pane, cat *presets.Catalogue, st Styles, km KeyMap) For
 			switch {
 			case spec.Default != "":
 				ti.Placeholder = spec.Default
+			case spec.Optional && spec.Blank != "":
+				ti.Placeholder = spec.Blank
 			case spec.Optional:
 				ti.Placeholder = "auto"
 			}

@@ -84,6 +84,14 @@ func (r *ResultPane) content() []string {
 			add(vp.Render("  " + l))
 		}
 	}
+	if s.Fix != "" {
+		for i, l := range wrapText("→ "+s.Fix, iw, 3) {
+			if i > 0 {
+				l = "  " + l
+			}
+			add(vp.Render(l))
+		}
+	}
 	if s.Runs {
 		add(st.fast.Muted.Render(padRight("Flow", labelW)) + st.fast.Big.Render(s.Flow))
 		if s.FlowRange != "" {
@@ -102,6 +110,12 @@ func (r *ResultPane) content() []string {
 		}
 		row("", d.StopShort)
 		row("", "at "+d.StopLevel+", "+d.Residual+" left")
+		if d.AirShort != "" {
+			row("", d.AirShort)
+		}
+	}
+	if s.Throttle != "" {
+		row("Throttle", s.ThrottleShort)
 	}
 	c := s.Crest
 	row("Crest", "lift "+c.Lift)

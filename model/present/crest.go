@@ -41,6 +41,13 @@ func CrestOf(r calc.Result, lift calc.Length, f Figures) Crest {
 			"crest " + over(r.FlowingCrestLimit) + " above the limit",
 			"crest above the limit",
 		}
+	case r.Verdict == calc.RunsChoked:
+		c.Status = Warn
+		c.Says = []string{
+			"crest held at its running limit: the up-leg limits the flow",
+			"crest at its running limit: choked",
+			"choked at the crest",
+		}
 	case r.CrestMargin < 0:
 		c.Status = Warn
 		c.Says = []string{

@@ -34,9 +34,30 @@ func TestWarningWords(t *testing.T) {
 	}
 }
 
+// Every fix calc can name is worded with its figure in both unit systems
+// and with no NaN or Inf; RUNS has none.
+func TestFixWords(t *testing.T) {
+	water, _ := presets.Builtin().Liquid("water")
+	x := calc.Fix{CrestHeight: 3.36, HasCrestHeight: true, CrestHeightThrottled: 6.7, MaxVaporPressure: 37e3, HasMaxVaporPressure: true,
+		ThrottleFlow: 1.19e-3, ThrottleK: 12.3, HasThrottle: true, MinVacuumRating: 34e3}
+	for c := calc.FixCode(1); c.String() != "unknown"; c++ {
+		x.Code = c
+		r := calc.Result{Verdict: calc.WillNotRun, Fix: x}
+		for _, sys := range []model.System{model.SI, model.US} {
+			w := FixOf(r, water, Figures{Sys: sys})
+			if w == "" || strings.Contains(w, "NaN") || strings.Contains(w, "Inf") || w == c.String() {
+				t.Errorf("%v %v: %q", sys, c, w)
+			}
+		}
+	}
+	if w := FixOf(calc.Result{Verdict: calc.Runs}, water, Figures{}); w != "" {
+		t.Errorf("runs: fix %q", w)
+	}
+}
+
 // Every stop reason has its words, and none is the bare JSON code.
 func TestStopWords(t *testing.T) {
-	for _, r := range []calc.StopReason{calc.StopTarget, calc.StopIntake, calc.StopCrest, calc.StopEqual, calc.StopReceiverFull, ""} {
+	for _, r := range []calc.StopReason{calc.StopTarget, calc.StopIntake, calc.StopAir, calc.StopCrest, calc.StopEqual, calc.StopReceiverFull, ""} {
 		if s, l := StopShort(r), StopLong(r); s == "" || l == "" || (r != "" && (s == string(r) || l == string(r))) {
 			t.Errorf("%q: short %q, long %q", r, s, l)
 		}
@@ -75,7 +96,7 @@ func TestFiguresMinus(t *testing.T) {
 // The one crest status against the verdict, over lifts from 0 to past the
 // theoretical limit for water at 10 °C at sea level ((p_atm − p_v)/(ρg)
 // ≈ 10.2 m): Bad exactly when the siphon will not run for its crest, Warn
-// exactly when it runs near the limit, OK otherwise. This is the rule the
+// exactly when it runs near the limit or choked, OK otherwise. This is the rule the
 // Result pane and the side view both show (they used to decide it twice).
 func TestCrestStatusFollowsVerdict(t *testing.T) {
 	cat := presets.Builtin()
@@ -93,7 +114,7 @@ func TestCrestStatusFollowsVerdict(t *testing.T) {
 		switch {
 		case r.Verdict == calc.WillNotRun && r.Why == calc.WarnCannotRun:
 			want = Bad
-		case r.Verdict == calc.RunsNearLimit:
+		case r.Verdict == calc.RunsNearLimit, r.Verdict == calc.RunsChoked:
 			want = Warn
 		}
 		if s.Crest.Status != want {

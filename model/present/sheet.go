@@ -20,6 +20,8 @@ type Sheet struct {
 	Problem string
 
 	Verdict Verdict
+	// Fix is what to change, with its figure ("" when it simply runs).
+	Fix string
 	// Runs is false for WILL NOT RUN: the flow rows are then left out.
 	Runs bool
 
@@ -31,7 +33,17 @@ type Sheet struct {
 	Drain *Drain
 
 	Crest Crest
-	Prime string // "13.6 L, 46 strokes"
+	// Vacuum is the crest's gauge vacuum as hoses are rated, with the
+	// hose's rating ("63 kPa (18.6 inHg); hose rated 75 kPa (22 inHg)").
+	Vacuum string
+	// Throttle is the outlet valve setting that holds the crest or meets
+	// the permit's cap ("" when none is needed); ThrottleShort the same on
+	// a narrow line.
+	Throttle, ThrottleShort string
+	// Intake words where air starts and where the prime is lost, above the
+	// floor with a tank ("air starts 0.08 m, prime lost 0.03 m").
+	Intake string
+	Prime  string // "13.6 L, 46 strokes"
 
 	// Hazards are short words for the hazards the checklist is built for;
 	// HazardLine the caution line that goes with them ("" without hazards).
@@ -54,6 +66,16 @@ type Sheet struct {
 	Facts []Fact
 }
 
+// Fact returns the text of the fact labelled label ("" when there is none).
+func (s Sheet) Fact(label string) string {
+	for _, x := range s.Facts {
+		if x.Label == label {
+			return x.Text
+		}
+	}
+	return ""
+}
+
 // Fact is one labelled line of the inputs as read.
 type Fact struct{ Label, Text string }
 
@@ -73,6 +95,17 @@ type Drain struct {
 	Receiver string
 	// CrestBoils says at which level the crest would boil, "" when never.
 	CrestBoils string
+	// AirStarts and PrimeLost are the levels above the floor where air
+	// starts to be drawn in and the intake loses its prime; Gulping what
+	// the gulping between them costs ("" when the plan stops before air
+	// starts); TargetNote a word when the target lies below prime lost.
+	AirStarts, PrimeLost, Gulping, TargetNote string
+	// AirShort is the gulping on a narrow line ("" when it does not gulp).
+	AirShort string
+	// AirGathers, Chokes and Collapses are the levels below which air
+	// gathers at the crest, the siphon runs choked and the hose may
+	// flatten ("" when never).
+	AirGathers, Chokes, Collapses string
 }
 
 // Build words plan p in unit system sys. hz are the hazards the checklist is
@@ -87,6 +120,7 @@ func Build(p model.Plan, sys model.System, hz presets.Hazards) Sheet {
 	r := p.Result
 	g := p.Siphon.Geometry
 	s.Verdict = VerdictOf(r)
+	s.Fix = FixOf(r, p.Liquid, f)
 	s.Runs = r.Verdict != calc.WillNotRun
 	if s.Runs {
 		s.Flow = f.Of(model.DimFlow, float64(r.Flow))
@@ -99,6 +133,16 @@ func Build(p model.Plan, sys model.System, hz presets.Hazards) Sheet {
 		s.Speed = f.Of(model.DimVelocity, float64(r.Velocity)) + ", " + r.Regime.String()
 	}
 	s.Crest = CrestOf(r, g.Lift(), f)
+	s.Vacuum = crestVacuumText(r, f)
+	if r.HasOutletThrottle {
+		k := strconv.FormatFloat(r.OutletThrottleK, 'f', 1, 64)
+		s.Throttle = "outlet valve K " + k + " (part-closed at the outlet only)"
+		s.ThrottleShort = "outlet valve K " + k
+		if r.MaxFlowThrottleK > 0 {
+			s.Throttle = "outlet valve K " + k + " meets the permit's maximum rate at the start (part-closed at the outlet only)"
+		}
+	}
+	s.Intake = intakeLevels(p, f)
 	s.Prime = f.Of(model.DimVolume, float64(r.PrimingVolume))
 	if p.PumpStrokes > 0 {
 		s.Prime += ", " + strconv.Itoa(p.PumpStrokes) + " strokes"
@@ -106,11 +150,7 @@ func Build(p model.Plan, sys model.System, hz presets.Hazards) Sheet {
 	s.Hazards = HazardWords(hz)
 	s.HazardLine = HazardLine(hz)
 	s.Warnings = WarningsOf(r, f)
-	if d := p.Drain; d != nil && d.StopReason == calc.StopIntake && d.Residual > d.Volume {
-		s.Hints = append(s.Hints, Line{Code: "most_left", Status: Info,
-			Short: "most left: float a board over the intake (common practice)",
-			Long:  "more is left than moved: a board or raft floated over the intake lets the level go lower (common practice)"})
-	}
+	s.Hints = hintsOf(p, f)
 	s.Notes = append([]string(nil), p.Notes...)
 	s.Cautions = Cautions(p)
 	s.Head = f.Of(model.DimLength, float64(r.Head))
@@ -146,7 +186,36 @@ func drainOf(p model.Plan, f Figures) *Drain {
 	if d.CrestLimitFound {
 		out.CrestBoils = L(d.CrestLimitLevel)
 	}
+	out.AirStarts, out.PrimeLost = L(d.AirStartsLevel), L(d.PrimeLostLevel)
+	if d.GulpTime > 0 {
+		out.Gulping = "gulps air for the last " + Duration(float64(d.GulpTime)) + ", which costs " + Duration(float64(d.GulpTimeLost))
+		out.AirShort = "gulps air below " + out.AirStarts + " (+" + Duration(float64(d.GulpTimeLost)) + ")"
+	}
+	if d.TargetBelowPrimeLost {
+		out.TargetNote = "the target is below where the intake loses its prime: the drain stops above it"
+	}
+	if d.AirGatherFound {
+		out.AirGathers = L(d.AirGatherLevel)
+	}
+	if d.ChokeFound {
+		out.Chokes = L(d.ChokeLevel)
+	}
+	if d.CollapseFound {
+		out.Collapses = L(d.CollapseLevel)
+	}
 	return out
+}
+
+// crestVacuumText is the crest's gauge vacuum with the hose's rating.
+func crestVacuumText(r calc.Result, f Figures) string {
+	s := Vacuum(r.CrestVacuum, f.Sys) + " at the crest; worst " + Vacuum(r.HoseVacuumWorst, f.Sys)
+	switch {
+	case !r.HoseRated:
+		return s + "; hose not rated"
+	case r.HoseVacuumRating <= 0:
+		return s + "; the hose holds none (it flattens)"
+	}
+	return s + "; hose rated " + Vacuum(r.HoseVacuumRating, f.Sys)
 }
 
 // factsOf lists the inputs as read: liquid, site, hose, heights, intake and
@@ -162,7 +231,7 @@ func factsOf(p model.Plan, f Figures) []Fact {
 	}
 	hose := strconv.Itoa(s.Hoses) + " × " + f.Of(model.DimDiameter, float64(s.Hose.Diameter)) + " bore, " +
 		L(s.Hose.Length) + " long, " + Clean(p.Material.Name) + " (roughness " + f.Of(model.DimRoughness, float64(s.Hose.Roughness)) +
-		"), ΣK " + strconv.FormatFloat(s.Hose.KMinor(), 'f', 2, 64)
+		"), " + lossesText(s)
 	prime := f.Of(model.DimVolume, float64(r.PrimingVolume)) + " to fill the hose"
 	if s.Hoses > 1 {
 		prime += "s"
@@ -178,7 +247,85 @@ func factsOf(p model.Plan, f Figures) []Fact {
 		{"Hose", hose},
 		{"Heights", "lift " + L(g.Lift()) + " over the crest, drop " + L(g.Drop()) + " to the outlet, intake " +
 			L(g.IntakeDepth()) + " below the surface"},
-		{"Intake", "needs " + L(r.RequiredSubmergence) + " of liquid over it against vortices; it is " + L(g.IntakeDepth()) + " deep"},
+		{"Intake", intakeName(p) + ": " + intakeLevels(p, f) + " (face velocity " + f.Of(model.DimVelocity, float64(r.FaceVelocity)) + ")"},
+		{"Vacuum", crestVacuumText(r, f)},
 		{"Priming", prime},
 	}
+}
+
+// lossesText words the minor losses: ΣK before the crest (the intake's own
+// included) and after it.
+func lossesText(s calc.Siphon) string {
+	k := func(v float64) string { return strconv.FormatFloat(v, 'f', 2, 64) }
+	h := s.Hose
+	return "ΣK " + k(h.KEntrance+s.Intake.K+h.KUpLeg) + " before the crest, " + k(h.KDownLeg+h.OutletK) + " after"
+}
+
+// intakeLevels words where air starts to be drawn in and where the prime is
+// lost at the present flow: above the floor with a tank, else as the depth
+// of liquid over the top of the intake's opening.
+func intakeLevels(p model.Plan, f Figures) string {
+	r := p.Result
+	L := func(v calc.Length) string { return f.Of(model.DimLength, float64(v)) }
+	if p.Tank != nil {
+		return "air starts at " + L(r.AirStartsLevel) + ", prime lost at " + L(r.PrimeLostLevel) + " above the floor"
+	}
+	return "air starts with " + L(max(r.AirStartsLevel-r.IntakeTop, 0)) + " over the opening, prime lost with " +
+		L(max(r.PrimeLostLevel-r.IntakeTop, 0)) + " over it"
+}
+
+// hintsOf is the trade's advice that follows from where the drain stops.
+func hintsOf(p model.Plan, f Figures) []Line {
+	d := p.Drain
+	if d == nil {
+		return nil
+	}
+	L := func(v calc.Length) string { return f.Of(model.DimLength, float64(v)) }
+	switch {
+	case d.StopReason == calc.StopAir && p.BoardDrain != nil:
+		b := p.BoardDrain
+		more := f.Of(model.DimVolume, float64(b.Volume-d.Volume))
+		return []Line{{Code: "board_over_intake", Status: Info,
+			Short: "a board over the intake: on to " + L(b.StopLevel) + ", " + more + " more",
+			Long: "the water may carry a floating film, so the plan stops where air starts; a board or raft floated over the intake " +
+				"stops the vortex and lets the drain go on to " + L(b.StopLevel) + ", moving " + more + " more in " +
+				Duration(float64(b.Time-d.Time)) + " (common practice)"}}
+	case d.StopReason == calc.StopIntake && d.Residual > d.Volume:
+		return []Line{{Code: "most_left", Status: Info,
+			Short: "most left: a lower intake drains further",
+			Long:  "more is left than moved: an intake that draws lower (a flat strainer or a low-level suction plate on the floor) drains closer to the floor (common practice)"}}
+	}
+	return nil
+}
+
+// intakeName is the intake's catalogue name, cleaned (a user's presets may
+// name it).
+func intakeName(p model.Plan) string {
+	if p.Intake.Name == "" {
+		return "Intake"
+	}
+	return Clean(p.Intake.Name)
+}
+
+// AirLines are the drain's air and hose events, one sentence each, in the
+// order the level meets them: where air starts and what gulping costs, a
+// target below prime lost, air gathering at the crest, choked running and
+// a flattening hose.
+func (d *Drain) AirLines() []string {
+	var out []string
+	add := func(ok bool, s string) {
+		if ok {
+			out = append(out, s)
+		}
+	}
+	gulp := ""
+	if d.Gulping != "" {
+		gulp = "; it " + d.Gulping
+	}
+	out = append(out, "air starts to be drawn in at "+d.AirStarts+", the prime is lost at "+d.PrimeLost+gulp)
+	add(d.TargetNote != "", d.TargetNote)
+	add(d.AirGathers != "", "air will gather at the crest below "+d.AirGathers)
+	add(d.Chokes != "", "the flow runs choked below "+d.Chokes)
+	add(d.Collapses != "", "the hose may flatten below "+d.Collapses)
+	return out
 }

@@ -12,7 +12,9 @@ func StopShort(r calc.StopReason) string {
 	case calc.StopTarget:
 		return "target level reached"
 	case calc.StopIntake:
-		return "intake draws air"
+		return "intake loses its prime"
+	case calc.StopAir:
+		return "air starts at the intake"
 	case calc.StopCrest:
 		return "crest limit reached"
 	case calc.StopEqual:
@@ -32,7 +34,9 @@ func StopLong(r calc.StopReason) string {
 	case calc.StopTarget:
 		return "the target level is reached"
 	case calc.StopIntake:
-		return "the intake draws air: the level is down to the intake plus the submergence needed against vortices"
+		return "the intake loses its prime: the level is down to the top of its opening"
+	case calc.StopAir:
+		return "air starts to be drawn in at the intake and would not be cleared (or would draw a floating film in): the drain stops there"
 	case calc.StopCrest:
 		return "the crest pressure falls to the vapour pressure as the lift grows; the column breaks at the crest"
 	case calc.StopEqual:

@@ -23,7 +23,8 @@ func WarningsOf(r calc.Result, f Figures) []Warning {
 	for _, c := range r.Warnings.Codes() {
 		w := Warning{Line: warningLine(r, c, f)}
 		w.Decides = (r.Verdict == calc.WillNotRun && c == r.Why) ||
-			(r.Verdict == calc.RunsNearLimit && c == calc.WarnCrestNearLimit)
+			(r.Verdict == calc.RunsNearLimit && c == calc.WarnCrestNearLimit) ||
+			(r.Verdict == calc.RunsChoked && c == calc.WarnChoked)
 		out = append(out, w)
 	}
 	return out
@@ -49,8 +50,8 @@ func warningLine(r calc.Result, c calc.WarnCode, f Figures) Line {
 	case calc.WarnCannotRun:
 		l.Status = Bad
 		l.Short = "crest too high: the liquid boils there"
-		l.Long = "the crest is too high: the liquid would boil there (limit " + L(r.FlowingCrestLimit) +
-			" above the surface at this flow, " + L(r.MaxCrestHeight) + " at zero flow); the siphon will not run"
+		l.Long = "the crest is too high: even at vanishing flow it would fall below its running limit (" + L(r.RunningCrestHeight) +
+			" above the surface; the liquid boils at " + L(r.MaxCrestHeight) + "); the siphon will not run"
 	case calc.WarnNoDrop:
 		l.Status = Bad
 		l.Short = "outlet not below the surface"
@@ -66,15 +67,42 @@ func warningLine(r calc.Result, c calc.WarnCode, f Figures) Line {
 		l.Short = "hose shorter than the route: check length and heights"
 		l.Long = "the hose is shorter than the straight route from the intake over the crest to the outlet: check the hose length and the heights"
 	case calc.WarnIntakeShallow:
-		if r.Verdict == calc.WillNotRun && r.Why == calc.WarnIntakeShallow {
-			l.Status = Bad
-			l.Short = "intake above the surface"
-			l.Long = "the intake is above the liquid surface: it draws air and the siphon will not run"
-			break
-		}
-		l.Short = "intake too shallow: a vortex will draw air"
-		l.Long = "the intake is shallower than the " + L(r.RequiredSubmergence) +
-			" needed against air-drawing vortices: lower the intake or cover it with a board"
+		l.Short = "air is drawn in at the intake: it gulps and slows"
+		l.Long = "the surface is below where air starts (" + L(r.AirStartsLevel) + "): a vortex draws air in and the siphon gulps and slows (" +
+			L(r.GulpHead) + " of head lost); a board or raft over the intake stops the vortex"
+	case calc.WarnBoiling:
+		l.Status = Bad
+		l.Short = "the liquid boils at this site's pressure"
+		l.Long = "the liquid boils at this site's barometric pressure: no siphon can run; let it cool"
+	case calc.WarnPrimeLost:
+		l.Status = Bad
+		l.Short = "the intake has lost its prime"
+		l.Long = "the surface is down to where the intake loses its prime (" + L(r.PrimeLostLevel) + "): its opening draws air and the siphon will not run"
+	case calc.WarnAirDrawn:
+		l.Status = Bad
+		l.Short = "air drawn in would not be cleared"
+		l.Long = "air drawn in at the intake would not be carried over the crest, or a vortex would draw a floating film in: the siphon will not run from this level"
+	case calc.WarnChoked:
+		l.Short = "runs choked: throttle at the outlet"
+		l.Long = "the full-gravity flow would take the crest below its running limit: the siphon runs choked, the up-leg limits the flow; part-close a valve at the outlet (K " +
+			strconv.FormatFloat(r.OutletThrottleK, 'f', 1, 64) + ") to hold it steadily"
+	case calc.WarnHoseCollapse:
+		l.Status = Bad
+		l.Short = "the hose would flatten: use suction hose"
+		l.Long = "the crest vacuum (" + Vacuum(r.CrestVacuum, f.Sys) + ") is more than the hose is rated for (" + Vacuum(r.HoseVacuumRating, f.Sys) +
+			"): it would collapse; use suction hose"
+	case calc.WarnHoseVacuum:
+		l.Short = "blocked or vacuum-primed, the hose may flatten"
+		l.Long = "with the intake blocked or while vacuum priming the hose sees " + Vacuum(r.HoseVacuumWorst, f.Sys) + " of vacuum, more than its rating of " +
+			Vacuum(r.HoseVacuumRating, f.Sys)
+	case calc.WarnHoseNotRated:
+		l.Status = Info
+		l.Short = "hose vacuum rating unknown: check it"
+		l.Long = "the hose sees up to " + Vacuum(r.HoseVacuumWorst, f.Sys) + " of vacuum and has no known rating: check it will not flatten"
+	case calc.WarnThrottleOutlet:
+		l.Status = Info
+		l.Short = "throttle at the outlet only"
+		l.Long = "throttle at the outlet only: a valve at the intake or on the up-leg lowers the crest pressure"
 	default:
 		l.Short, l.Long = c.String(), c.String()
 	}

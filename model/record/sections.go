@@ -5,7 +5,6 @@ import (
 	"strconv"
 	"strings"
 
-	"drawdown/calc"
 	"drawdown/model"
 	"drawdown/model/present"
 	"drawdown/presets"
@@ -66,46 +65,48 @@ func (rw *recWriter) plan(p model.Plan) {
 		rw.line("")
 		return
 	}
-	r := p.Result
+	s := present.Build(p, rw.sys, p.Hazards)
 	rw.line("| Item | Value |")
 	rw.line("| --- | --- |")
-	v := present.VerdictOf(r)
-	verdict := v.Word
-	if v.Reason != "" {
-		verdict += ": " + v.Reason
+	rw.row("Verdict", s.Verdict.Line())
+	if s.Fix != "" {
+		rw.row("What to change", s.Fix)
 	}
-	rw.row("Verdict", verdict)
-	baro := " (standard atmosphere at the site altitude)"
-	if p.FromBaro {
-		baro = " (barometer reading)"
+	for _, label := range []string{"Site", "Hose", "Heights"} {
+		rw.row(label, s.Fact(label))
 	}
-	rw.row("Barometric pressure", rw.f(model.DimPressure, float64(p.AtmPressure))+baro)
-	if r.Verdict != calc.WillNotRun {
-		flow := rw.f(model.DimFlow, float64(r.Flow))
-		if p.FlowLow > 0 && p.FlowHigh > 0 {
-			flow += " (range " + rw.f(model.DimFlow, float64(p.FlowLow)) + " to " + rw.f(model.DimFlow, float64(p.FlowHigh)) + ")"
+	if s.Runs {
+		flow := s.Flow
+		if s.FlowRange != "" {
+			flow += " (range " + s.FlowRange + ")"
 		}
 		rw.row("Flow at the start", flow)
-		rw.row("Flow regime", r.Regime.String())
+		rw.row("Velocity", s.Speed)
 	}
-	rw.row("Driving head (drop)", rw.f(model.DimLength, float64(r.Head)))
-	rw.row("Working crest height above the surface", rw.f(model.DimLength, float64(r.WorkingCrestHeight)))
-	rw.row("Crest margin (working height less lift)", rw.f(model.DimLength, float64(r.CrestMargin)))
-	rw.row("Hose volume to prime", rw.f(model.DimVolume, float64(r.PrimingVolume)))
-	if p.PumpStrokes > 0 {
-		rw.row("Hand-pump strokes to prime", strconv.Itoa(p.PumpStrokes))
+	c := s.Crest
+	rw.row("Crest", c.Status.Symbol()+" "+c.Says[0])
+	rw.row("Working crest height above the surface", c.Working)
+	rw.row("Crest margin (working height less lift)", c.Margin)
+	rw.row("Hose vacuum", s.Vacuum)
+	if s.Throttle != "" {
+		rw.row("Outlet throttle", s.Throttle)
 	}
-	if d := p.Drain; d != nil {
-		tm := present.Duration(float64(d.Time))
-		if p.TimeLow > 0 && p.TimeHigh > 0 {
-			tm += " (range " + present.Duration(float64(p.TimeLow)) + " to " + present.Duration(float64(p.TimeHigh)) + ")"
+	rw.row("Intake", s.Fact("Intake"))
+	rw.row("Priming", s.Fact("Priming"))
+	if d := s.Drain; d != nil {
+		tm := d.Time
+		if d.TimeRange != "" {
+			tm += " (range " + d.TimeRange + ")"
 		}
 		rw.row("Start level", rw.f(model.DimLength, float64(p.Siphon.Geometry.Surface)))
 		rw.row("Time to the stop", tm)
-		rw.row("Stop level", rw.f(model.DimLength, float64(d.StopLevel)))
-		rw.row("Stop reason", present.StopLong(d.StopReason))
-		rw.row("Volume to move", rw.f(model.DimVolume, float64(d.Volume)))
-		rw.row("Volume left in the source", rw.f(model.DimVolume, float64(d.Residual)))
+		rw.row("Stop level", d.StopLevel)
+		rw.row("Stop reason", d.StopLong)
+		rw.row("Volume to move", d.Volume)
+		rw.row("Volume left in the source", d.Residual)
+		for _, line := range d.AirLines() {
+			rw.row("Air and hose", line)
+		}
 	}
 	rw.line("")
 }
