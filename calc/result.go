@@ -210,6 +210,9 @@ type WarnSet uint32
 // Add puts c in the set.
 func (s *WarnSet) Add(c WarnCode) { *s |= 1 << c }
 
+// Remove takes c out of the set.
+func (s *WarnSet) Remove(c WarnCode) { *s &^= 1 << c }
+
 // Has reports whether c is in the set.
 func (s WarnSet) Has(c WarnCode) bool { return s&(1<<c) != 0 }
 

@@ -235,7 +235,8 @@ func (c *siphonCase) notRunning(r *Result, why WarnCode) {
 	r.Regime = NoFlow
 	r.Flow, r.FlowPerHose, r.Velocity, r.Reynolds, r.FrictionFactor = 0, 0, 0, 0, 0
 	r.GulpVoid, r.GulpHead = 0, 0
-	r.HasOutletThrottle, r.OutletThrottleK = false, 0
+	r.HasOutletThrottle, r.OutletThrottleK, r.MaxFlowThrottleK = false, 0, 0
+	r.Warnings.Remove(WarnThrottleOutlet) // no valve setting for a siphon that does not run
 	if c.flowSolved {
 		c.crestAt(r, c.gravityV, c.gravityF)
 	} else {
@@ -475,7 +476,9 @@ func (c *siphonCase) fixCode(r *Result) FixCode {
 	case WarnPrimeLost:
 		return FixLowerIntake
 	case WarnAirDrawn:
-		if c.in.FilmRisk && !c.in.Covered {
+		// a board stops the vortex, not the opening drawing air: it helps
+		// only while the surface stands above where the prime is lost
+		if c.in.FilmRisk && !c.in.Covered && r.PrimeLostLevel < c.geo.Surface {
 			return FixCoverIntake
 		}
 		return FixLowerIntake

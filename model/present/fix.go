@@ -51,7 +51,7 @@ func FixOf(r calc.Result, liq presets.Liquid, f Figures) string {
 	case calc.FixLowerIntake:
 		return "lower the intake or use a low-level suction plate"
 	case calc.FixCoverIntake:
-		return "float a board or raft over the intake, or stop where air starts"
+		return "float a board or raft over the intake, so that no vortex draws a floating film in"
 	default:
 	}
 	return ""

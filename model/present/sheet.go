@@ -150,7 +150,9 @@ func Build(p model.Plan, sys model.System, hz presets.Hazards) Sheet {
 	s.Hazards = HazardWords(hz)
 	s.HazardLine = HazardLine(hz)
 	s.Warnings = WarningsOf(r, f)
-	s.Hints = hintsOf(p, f)
+	if s.Runs {
+		s.Hints = hintsOf(p, f)
+	}
 	s.Notes = append([]string(nil), p.Notes...)
 	s.Cautions = Cautions(p)
 	s.Head = f.Of(model.DimLength, float64(r.Head))
@@ -262,13 +264,14 @@ func lossesText(s calc.Siphon) string {
 }
 
 // intakeLevels words where air starts to be drawn in and where the prime is
-// lost at the present flow: above the floor with a tank, else as the depth
-// of liquid over the top of the intake's opening.
+// lost: with a drain, the levels the falling surface meets them at (the flow
+// has slowed by then, so they lie lower than at the start); else at the
+// present flow, as the depth of liquid over the top of the intake's opening.
 func intakeLevels(p model.Plan, f Figures) string {
 	r := p.Result
 	L := func(v calc.Length) string { return f.Of(model.DimLength, float64(v)) }
-	if p.Tank != nil {
-		return "air starts at " + L(r.AirStartsLevel) + ", prime lost at " + L(r.PrimeLostLevel) + " above the floor"
+	if d := p.Drain; d != nil {
+		return "air starts at " + L(d.AirStartsLevel) + ", prime lost at " + L(d.PrimeLostLevel) + " above the floor as the drain slows"
 	}
 	return "air starts with " + L(max(r.AirStartsLevel-r.IntakeTop, 0)) + " over the opening, prime lost with " +
 		L(max(r.PrimeLostLevel-r.IntakeTop, 0)) + " over it"
@@ -282,7 +285,7 @@ func hintsOf(p model.Plan, f Figures) []Line {
 	}
 	L := func(v calc.Length) string { return f.Of(model.DimLength, float64(v)) }
 	switch {
-	case d.StopReason == calc.StopAir && p.BoardDrain != nil:
+	case d.StopReason == calc.StopAir && p.BoardDrain != nil && p.BoardDrain.Volume > d.Volume+0.001:
 		b := p.BoardDrain
 		more := f.Of(model.DimVolume, float64(b.Volume-d.Volume))
 		return []Line{{Code: "board_over_intake", Status: Info,
