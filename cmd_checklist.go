@@ -93,7 +93,14 @@ func runChecklist(args []string, stdout, stderr io.Writer) int {
 // --air-temp.
 func checklistFlagTable() []flagDef {
 	defs := calcFlagTable()
+	have := map[string]bool{}
+	for _, d := range defs {
+		have[d.name] = true
+	}
 	for _, f := range model.Flags() {
+		if have[string(f)] {
+			continue // --may-carry-oil is a calc flag too: the same fact
+		}
 		defs = append(defs, flagDef{name: string(f), help: "site fact: " + strings.ToLower(f.Label()[:1]) + f.Label()[1:]})
 	}
 	var kinds []string

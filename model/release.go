@@ -44,6 +44,12 @@ type Sample struct {
 	At     time.Time `json:"at,omitzero"`
 }
 
+// Recorded reports whether anything of a release is recorded.
+func (r Release) Recorded() bool {
+	return r.ValveID != "" || r.SealNumber != "" || r.OpenedBy != "" || r.ResealedBy != "" || r.NewSeal != "" ||
+		r.Weather != "" || r.Rain != "" || r.VolumeBasis != "" || len(r.Photos) > 0 || len(r.Samples) > 0
+}
+
 // ReleaseField names one of the release record's text entries.
 type ReleaseField string
 

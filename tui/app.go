@@ -52,6 +52,7 @@ type Model struct {
 	whatif    *WhatIfView
 	checklist *ChecklistView
 	log       *LogPane
+	jobp      *JobPane
 	result    ResultPane
 
 	// whatIfSeq tags the What-if grid computations (a reply for an older
@@ -141,9 +142,10 @@ func (m *Model) buildPanes(loc *time.Location) {
 	whatif := NewWhatIfView(st, m.job.Units, km)
 	checklist := NewChecklistView(st, km, nil)
 	logp := NewLogPane(st, km, loc)
-	m.side, m.curve, m.whatif, m.checklist, m.log = &side, &curve, &whatif, &checklist, &logp
+	jobp := NewJobPane(st, km, loc)
+	m.side, m.curve, m.whatif, m.checklist, m.log, m.jobp = &side, &curve, &whatif, &checklist, &logp, &jobp
 	m.panes[PaneSide], m.panes[PaneCurve], m.panes[PaneWhatIf] = m.side, m.curve, m.whatif
-	m.panes[PaneChecklist], m.panes[PaneLog] = m.checklist, m.log
+	m.panes[PaneChecklist], m.panes[PaneLog], m.panes[PaneJob] = m.checklist, m.log, m.jobp
 	m.checklist.SetChecklist(m.job.Checklist)
 	m.checklist.SetCurrent(m.job.Resume.StepID)
 	m.result = NewResultPane(st)
@@ -225,6 +227,8 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 		return m.mark(msg)
 	case ChecklistNoteMsg:
 		return m.note(msg)
+	case JobEditMsg:
+		return m.jobEdit(msg)
 	case ChecklistStepMsg:
 		m.job.Resume.StepID = msg.ID
 		m.job.Resume.Step = m.job.Checklist.Index(msg.ID)

@@ -10,7 +10,6 @@ import (
 	"drawdown/calc"
 	"drawdown/model"
 	"drawdown/model/present"
-	"drawdown/presets"
 )
 
 // Changes to the job. Each one changes m.job, recomputes the plan when an
@@ -69,7 +68,9 @@ func (m *Model) recompute() {
 			m.st.problem = p.Err.Error() // no field to blame: the plan's own error
 		}
 		if in, ok := m.job.LastGoodInputs(p.FieldErrors); ok {
-			if lp := model.ComputeInputs(model.Inputs{Values: in, Units: m.job.Units}, m.cat); lp.OK() {
+			last := m.job // the same job and facts, with each wrong field's last valid text
+			last.Inputs = in
+			if lp := model.Compute(last, m.cat); lp.OK() {
 				p = lp
 			}
 		}
@@ -79,7 +80,7 @@ func (m *Model) recompute() {
 		// plan after every compute (model.ContextFor): nothing in it sticks.
 		m.job.RebuildChecklist(p)
 		m.st.plan, m.st.hasPlan = p, true
-		m.st.sheet = present.Build(p, m.job.Units, m.checklistHazards(p))
+		m.st.sheet = present.ForJob(m.job, p, m.job.Units)
 		m.planGen++
 	} else if !m.st.hasPlan {
 		m.st.sheet = present.Build(p, m.job.Units, 0)
@@ -93,12 +94,6 @@ func (m *Model) commit(id model.FieldID) {
 	if id != "" && m.job.Commit(id, m.cat) {
 		m.st.gen++
 	}
-}
-
-// checklistHazards are the hazards the checklist is built for
-// (model.ContextFor).
-func (m *Model) checklistHazards(p model.Plan) presets.Hazards {
-	return model.ContextFor(m.job, p).Hazards
 }
 
 func (m *Model) toggleUnits() tea.Cmd {
@@ -153,6 +148,21 @@ func (m *Model) mark(c ChecklistMarkMsg) tea.Cmd {
 		m.job.Resume.Step = m.job.Checklist.Index(c.Current)
 	}
 	m.touch()
+	return m.save()
+}
+
+// jobEdit makes a change to the job from the Job pane with the root's
+// clock: the model's setter checks the text and logs the change. A site
+// fact can change the checklist and the plan (water that may carry oil
+// stops the drain where air starts), so the plan is computed again.
+func (m *Model) jobEdit(e JobEditMsg) tea.Cmd {
+	if err := e.Do(&m.job, m.now()); err != nil {
+		m.jobp.Refused(err.Error())
+		return nil
+	}
+	m.jobp.Taken()
+	m.flash = "saved: " + e.What
+	m.recompute()
 	return m.save()
 }
 

@@ -164,6 +164,7 @@ func TestScreen(t *testing.T) {
 		{"whatif_80x24", 80, 24, []string{"7"}},
 		{"checklist_80x24", 80, 24, []string{"8"}},
 		{"log_80x24", 80, 24, []string{"9"}},
+		{"job_80x24", 80, 24, []string{"0"}},
 		{"help_80x24", 80, 24, []string{"?"}},
 		{"typing_80x24", 80, 24, []string{"down", "enter"}},
 		{"us_units_80x24", 80, 24, []string{"u"}},
@@ -173,6 +174,7 @@ func TestScreen(t *testing.T) {
 		{"whatif_120x40", 120, 40, []string{"7"}},
 		{"checklist_120x40", 120, 40, []string{"8"}},
 		{"log_120x40", 120, 40, []string{"9"}},
+		{"job_120x40", 120, 40, []string{"0"}},
 		{"too_small_79x24", 79, 24, nil},
 		{"too_small_40x10", 40, 10, nil},
 	}
@@ -656,7 +658,7 @@ func TestJobList(t *testing.T) {
 	if !m.jobs.open || len(m.jobs.jobs) != 1 {
 		t.Fatalf("job list: open %v, %d jobs", m.jobs.open, len(m.jobs.jobs))
 	}
-	if !strings.Contains(frame(m), "Open a job") {
+	if !strings.Contains(frame(m), "Jobs  enter open") {
 		t.Errorf("no job list on screen:\n%s", frame(m))
 	}
 	m = press(t, m, "d")

@@ -111,7 +111,10 @@ func (m *Model) cursor() *tea.Cursor {
 
 // typing reports whether keys go into a text input (letters are text).
 func (m *Model) typing() bool {
-	if m.jobs.open || m.showHelp {
+	if m.jobs.open {
+		return m.jobs.mode == listName || m.jobs.mode == listCopyName
+	}
+	if m.showHelp {
 		return false
 	}
 	return m.panes[m.focus].Typing()
@@ -140,7 +143,11 @@ func (m *Model) headerView() string {
 	right := st.fast.Title.Render(m.job.Units.String()) + "  " + save + " " + mode
 	left := st.fast.Title.Render("drawdown") + st.fast.Muted.Render(" · ")
 	room := m.lay.W - cellWidth(left) - cellWidth(right) - 1
-	left += st.fast.Value.Render(clip(jobName(m.job.Name), max(room, 0)))
+	title := jobName(m.job.Name)
+	if site := strings.TrimSpace(present.Clean(m.job.Site)); site != "" {
+		title += " · " + site
+	}
+	left += st.fast.Value.Render(clip(title, max(room, 0)))
 	gap := max(m.lay.W-cellWidth(left)-cellWidth(right), 0)
 	return fitBlock([]string{left + strings.Repeat(" ", gap) + right}, m.lay.W, 1)
 }
@@ -170,10 +177,23 @@ func (m *Model) tabLabel(p PaneID) string {
 // tabSpan is where a tab is drawn on the tab line, [x0, x1).
 type tabSpan struct{ x0, x1 int }
 
-// tabSpans places the tabs as tabsView draws them: each tab is its label
-// with one cell either side, and a bar before the views.
+// tabsCompact reports whether the tabs share their separators: each tab
+// is its label with one cell either side, and on a screen too narrow for
+// that, neighbours share the cell between them. Either way a tab stays
+// where it is when another is chosen (nothing shifts on a pane key).
+func (m *Model) tabsCompact() bool {
+	w := 1 // the bar before the views
+	for i := PaneID(0); i < paneCount; i++ {
+		w += cellWidth(m.tabLabel(i)) + 2
+	}
+	return w > m.lay.W
+}
+
+// tabSpans places the tabs as tabsView draws them, each with the cells
+// around its label.
 func (m *Model) tabSpans() []tabSpan {
 	out := make([]tabSpan, paneCount)
+	compact := m.tabsCompact()
 	x := 0
 	for i := PaneID(0); i < paneCount; i++ {
 		if i == PaneSide {
@@ -182,6 +202,9 @@ func (m *Model) tabSpans() []tabSpan {
 		w := cellWidth(m.tabLabel(i)) + 2
 		out[i] = tabSpan{x, x + w}
 		x += w
+		if compact && i+1 != PaneSide {
+			x-- // the next tab starts on this one's closing cell
+		}
 	}
 	return out
 }
@@ -190,6 +213,9 @@ func (m *Model) tabSpans() []tabSpan {
 // (reverse) display and brackets (legible without colour).
 func (m *Model) tabsView() string {
 	st := m.styles
+	if m.tabsCompact() {
+		return m.compactTabsView()
+	}
 	var b strings.Builder
 	for i := PaneID(0); i < paneCount; i++ {
 		if i == PaneSide {
@@ -204,6 +230,47 @@ func (m *Model) tabsView() string {
 		default:
 			b.WriteString(st.fast.Tab.Render(" " + label + " "))
 		}
+	}
+	return fitBlock([]string{b.String()}, m.lay.W, 1)
+}
+
+// compactTabsView draws the tabs with one shared cell between neighbours:
+// the chosen tab's brackets stand in those cells.
+func (m *Model) compactTabsView() string {
+	st := m.styles
+	var b strings.Builder
+	sep := func(i PaneID) string { // the cell before tab i
+		switch {
+		case i == m.focus:
+			return "["
+		case i > 0 && i-1 == m.focus && i != PaneSide:
+			return "]"
+		}
+		return " "
+	}
+	for i := PaneID(0); i < paneCount; i++ {
+		if i == PaneSide {
+			if i-1 == m.focus {
+				b.WriteString(st.fast.TabActive.Render("]"))
+			} else {
+				b.WriteString(" ")
+			}
+			b.WriteString(st.fast.Muted.Render("│"))
+		}
+		c := sep(i)
+		if c == " " {
+			b.WriteString(c)
+		} else {
+			b.WriteString(st.fast.TabActive.Render(c))
+		}
+		if i == m.focus {
+			b.WriteString(st.fast.TabActive.Render(m.tabLabel(i)))
+		} else {
+			b.WriteString(st.fast.Tab.Render(m.tabLabel(i)))
+		}
+	}
+	if paneCount-1 == m.focus {
+		b.WriteString(st.fast.TabActive.Render("]"))
 	}
 	return fitBlock([]string{b.String()}, m.lay.W, 1)
 }

@@ -59,6 +59,7 @@ type formField struct {
 	spec    model.FieldSpec
 	input   textinput.Model // typed fields
 	choices []model.Choice  // pickers
+	base    []model.Choice  // the priming picker's choices before markUnsuited
 	sub     int             // highlighted choice of a multi picker
 
 	// Derived in SetJob (never in View).
@@ -183,6 +184,9 @@ func (f *FormPane) SetJob(j *model.Job, errs map[model.FieldID]error) {
 		if err := errs[ff.spec.ID]; err != nil && ff.used {
 			ff.errText = present.FieldProblem(ff.spec, err)
 		}
+		if ff.spec.ID == model.FieldPriming {
+			ff.markUnsuited(j.Checklist.Context)
+		}
 		if !ff.described || ff.descRaw != ff.raw || ff.descSys != f.sys {
 			ff.shown = present.Clean(ff.describe(f.sys)) // choice labels may come from a user's presets
 			ff.described, ff.descRaw, ff.descSys = true, ff.raw, f.sys
@@ -196,6 +200,25 @@ func (f *FormPane) SetJob(j *model.Job, errs map[model.FieldID]error) {
 	}
 	// The rows are drawn when the form is on screen (the root calls
 	// renderRows for the visible form), not for all four on each keystroke.
+}
+
+// markUnsuited marks the priming methods that do not suit the job in the
+// picker, with why (model.MethodSuits): they stay choosable, never
+// silently listed.
+func (ff *formField) markUnsuited(ctx model.ChecklistContext) {
+	if ff.base == nil {
+		ff.base = ff.choices
+	}
+	out := make([]model.Choice, len(ff.base))
+	for i, c := range ff.base {
+		if ok, why := model.MethodSuits(model.PrimingMethod(c.ID), ctx); !ok {
+			c.Label += " — unsuited here"
+			c.Note = "Unsuited here: " + why + "."
+		}
+		out[i] = c
+	}
+	ff.choices = out
+	ff.described = false
 }
 
 // describe is the value as read, shown beside the raw text.

@@ -59,6 +59,20 @@ type KeyMap struct {
 	Checklist ChecklistKeys
 	WhatIf    WhatIfKeys
 	Jobs      JobListKeys
+	Job       JobKeys
+}
+
+// JobKeys are the Job pane's keys.
+type JobKeys struct {
+	Up, Down   key.Binding
+	Edit       key.Binding // enter: type the entry
+	Flip       key.Binding // enter or space: yes / no
+	Choose     key.Binding // enter: browse the choices
+	Act        key.Binding // enter: do the row's action
+	Remove     key.Binding // d: remove a listed entry
+	Next, Prev key.Binding // →/← over the choices
+	Submit     key.Binding // enter while typing or choosing
+	Cancel     key.Binding // esc while typing or choosing
 }
 
 // ChecklistKeys are the Checklist pane's keys.
@@ -80,7 +94,7 @@ type WhatIfKeys struct {
 
 // JobListKeys are the keys of the open-job overlay.
 type JobListKeys struct {
-	Open, Demo, Back key.Binding
+	Open, New, Copy, Demo, Back key.Binding
 }
 
 // paneKeyNames are the keys that select panes, in tab order: the digits,
@@ -113,7 +127,7 @@ func DefaultKeyMap() KeyMap {
 		QuitNav:  key.NewBinding(key.WithKeys("q"), key.WithHelp("q", "save and quit")),
 		Units:    key.NewBinding(key.WithKeys("u"), key.WithHelp("u", "SI ⇄ US")),
 		Save:     key.NewBinding(key.WithKeys("s"), key.WithHelp("s", "save")),
-		Open:     key.NewBinding(key.WithKeys("o"), key.WithHelp("o", "open a job")),
+		Open:     key.NewBinding(key.WithKeys("o"), key.WithHelp("o", "jobs: open, new, copy")),
 		Mouse:    key.NewBinding(key.WithKeys("m"), key.WithHelp("m", "mouse on/off")),
 		PrevPane: key.NewBinding(key.WithKeys("["), key.WithHelp("[", "prev pane")),
 		NextPane: key.NewBinding(key.WithKeys("]"), key.WithHelp("]", "next pane")),
@@ -141,8 +155,23 @@ func DefaultKeyMap() KeyMap {
 			Right: key.NewBinding(key.WithKeys("right", "l"), key.WithHelp("→/l", "larger bore")),
 			Adopt: key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "use this hose")),
 		},
+		Job: JobKeys{
+			Up:     key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "up")),
+			Down:   key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "down")),
+			Edit:   key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "type it")),
+			Flip:   key.NewBinding(key.WithKeys("enter", "space"), key.WithHelp("enter", "yes ⇄ no")),
+			Choose: key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "choose")),
+			Act:    key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "record it")),
+			Remove: key.NewBinding(key.WithKeys("d", "delete"), key.WithHelp("d", "remove")),
+			Next:   key.NewBinding(key.WithKeys("right", "l"), key.WithHelp("→", "next choice")),
+			Prev:   key.NewBinding(key.WithKeys("left", "h"), key.WithHelp("←", "prev choice")),
+			Submit: key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "save")),
+			Cancel: key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "cancel")),
+		},
 		Jobs: JobListKeys{
 			Open: key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "open")),
+			New:  key.NewBinding(key.WithKeys("n"), key.WithHelp("n", "new job")),
+			Copy: key.NewBinding(key.WithKeys("c"), key.WithHelp("c", "copy this job")),
 			Demo: key.NewBinding(key.WithKeys("d"), key.WithHelp("d", "new demo job")),
 			Back: key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "back")),
 		},
@@ -222,5 +251,6 @@ func (k KeyMap) viewHelp() []viewKeys {
 		{paneTable[PaneChecklist].name, []key.Binding{c.Done, c.Skip, c.NotApplies, c.Note, c.Reopen}},
 		{paneTable[PaneWhatIf].name, []key.Binding{w.Up, w.Down, w.Left, w.Right, w.Adopt}},
 		{paneTable[PaneLog].name, []key.Binding{k.AddReading, k.WriteRecord, k.ScrollUp, k.ScrollDown}},
+		{paneTable[PaneJob].name, []key.Binding{k.Job.Edit, k.Job.Flip, k.Job.Remove, k.Job.Cancel}},
 	}
 }

@@ -74,6 +74,7 @@ const (
 	PaneWhatIf
 	PaneChecklist
 	PaneLog
+	PaneJob
 	paneCount
 )
 
@@ -100,6 +101,7 @@ var paneTable = [paneCount]paneSpec{
 	PaneWhatIf:    {name: "What-if", short: "What-if", lower: true},
 	PaneChecklist: {name: "Checklist", short: "Checks", lower: true},
 	PaneLog:       {name: "Log", short: "Log", lower: true},
+	PaneJob:       {name: "Job", short: "Job", lower: true},
 }
 
 func (p PaneID) String() string {

@@ -63,7 +63,11 @@ func Write(w io.Writer, r Input) error {
 	rw.row("Job", name)
 	rw.row("Site", orDash(j.Site))
 	rw.row("Location", orDash(j.Location))
-	rw.row("Crew", orDash(j.CrewText()))
+	rw.row("Date of the work", orDash(j.Date))
+	rw.row("Crew (role)", orDash(j.CrewText()))
+	rw.row("Responsible supervisor", orDash(j.Supervisor))
+	rw.row("Source vessel", orDash(j.Source))
+	rw.row("Where it goes", orDash(j.Receiver))
 	if p.Liquid.Name != "" {
 		rw.row("Liquid", p.Liquid.Name)
 	} else {
@@ -104,12 +108,15 @@ func Write(w io.Writer, r Input) error {
 	rw.line("")
 
 	rw.inputs(j, p)
-	rw.plan(p)
-	rw.warnings(p)
+	rw.plan(j, p)
+	rw.warnings(j, p)
 	rw.checklist(j.Checklist)
 	fit, fitErr := r.fit()
 	rw.readings(j, p, started, fit, fitErr)
 	rw.volume(j, p)
+	if ctx.OilCheck || j.Release.Recorded() {
+		rw.release(j)
+	}
 	rw.log(j)
 
 	rw.line("## Notes")

@@ -52,7 +52,7 @@ func (rw *recWriter) inputs(j model.Job, p model.Plan) {
 	}
 }
 
-func (rw *recWriter) plan(p model.Plan) {
+func (rw *recWriter) plan(j model.Job, p model.Plan) {
 	rw.line("## Plan")
 	rw.line("")
 	if p.Err != nil {
@@ -65,7 +65,7 @@ func (rw *recWriter) plan(p model.Plan) {
 		rw.line("")
 		return
 	}
-	s := present.Build(p, rw.sys, p.Hazards)
+	s := present.ForJob(j, p, rw.sys)
 	rw.line("| Item | Value |")
 	rw.line("| --- | --- |")
 	rw.row("Verdict", s.Verdict.Line())
@@ -115,12 +115,16 @@ func (rw *recWriter) plan(p model.Plan) {
 // hose) from a zero Plan.
 func planComputed(p model.Plan) bool { return p.Err == nil && p.Siphon.Hoses >= 1 }
 
-func (rw *recWriter) warnings(p model.Plan) {
+func (rw *recWriter) warnings(j model.Job, p model.Plan) {
 	rw.line("## Warnings")
 	rw.line("")
-	var ws []present.Warning
+	var ws []present.Line
 	if planComputed(p) {
-		ws = present.WarningsOf(p.Result, present.Figures{Sys: rw.sys})
+		s := present.ForJob(j, p, rw.sys)
+		for _, w := range s.Warnings {
+			ws = append(ws, w.Line)
+		}
+		ws = append(ws, s.Hints...)
 	}
 	if len(ws) == 0 {
 		rw.line("None from the plan.")
