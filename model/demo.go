@@ -88,6 +88,9 @@ func FromTemplate(id, name string, now time.Time) (Job, error) {
 		}
 		return Job{}, &InputError{Field: "Template", Detail: "“" + id + "” is not a template; accepted " + strings.Join(ids, ", ")}
 	}
+	if !now.IsZero() {
+		j.Date = now.Local().Format(dateLayout) // the day of the work, until the crew says otherwise
+	}
 	j.Checklist = Checklist{}
 	j.RebuildChecklist(Compute(j, cat))
 	return j, nil
