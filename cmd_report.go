@@ -66,11 +66,9 @@ func runReport(args []string, stdout, stderr io.Writer) int {
 	}
 	cat := loadCatalogue(stderr)
 	p := model.Compute(j, cat)
-	if p.OK() {
-		// the checklist as the screen shows it for this plan and these
-		// facts (marks kept), so the record and the screen agree
-		j.RebuildChecklist(p)
-	}
+	// the checklist as the screen shows it for this plan and these facts
+	// (marks kept), so the record and the screen agree
+	j.RebuildChecklist(p)
 	in := record.Input{Job: j, Plan: p, Now: reportNow()}
 	var md, csv bytes.Buffer
 	if err := record.Write(&md, in); err != nil {

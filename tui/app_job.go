@@ -59,6 +59,12 @@ func (m *Model) restoreField() tea.Cmd {
 // LastGood, kept in the job file) stands in, marked stale.
 func (m *Model) recompute() {
 	p := model.Compute(m.job, m.cat)
+	// The checklist's context is derived again from the job as it stands
+	// and this plan after every compute (model.ContextFor): nothing in it
+	// sticks, and a wrong field never leaves the checklist built for the
+	// last valid liquid (glycol at a temperature outside its data still
+	// gets its toxic step).
+	m.job.RebuildChecklist(p)
 	m.st.errs = p.FieldErrors
 	m.st.stale = !p.OK()
 	m.st.problem = ""
@@ -76,9 +82,6 @@ func (m *Model) recompute() {
 		}
 	}
 	if p.OK() {
-		// The checklist's context is derived again from the job and this
-		// plan after every compute (model.ContextFor): nothing in it sticks.
-		m.job.RebuildChecklist(p)
 		m.st.plan, m.st.hasPlan = p, true
 		m.st.sheet = present.ForJob(m.job, p, m.job.Units)
 		m.planGen++

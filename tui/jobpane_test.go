@@ -209,3 +209,33 @@ func TestUnsuitedMethodShown(t *testing.T) {
 		t.Errorf("the picker's help does not say why:\n%s", got)
 	}
 }
+
+// Stepping the liquid picker through every liquid and back on the screen
+// leaves the checklist as a fresh job with that liquid gets: no hazard
+// sticks (issue 12 §3, the screen's path).
+func TestScreenLiquidWalk(t *testing.T) {
+	m := newTestModel(t, 80, 24)
+	m = selectField(t, m, model.FieldLiquid)
+	n := len(m.cat.Liquids())
+	ids := func(c model.Checklist) string {
+		var out []string
+		for _, s := range c.Steps {
+			out = append(out, s.ID)
+		}
+		return strings.Join(out, " ")
+	}
+	for i := range 2 * n {
+		dir := "right"
+		if i >= n {
+			dir = "left"
+		}
+		m = press(t, m, dir)
+		fresh := m.job.Clone()
+		fresh.Checklist = model.Checklist{}
+		fresh.RebuildChecklist(model.Compute(fresh, m.cat))
+		if got, want := ids(m.job.Checklist), ids(fresh.Checklist); got != want {
+			t.Fatalf("step %d (%s): the screen's checklist differs from a fresh build:\n got %s\nwant %s",
+				i, m.job.Inputs[model.FieldLiquid], got, want)
+		}
+	}
+}
