@@ -21,7 +21,11 @@ func HazardWords(h presets.Hazards) []string {
 	add(!h.Has(presets.Flammable) && h.Has(presets.Combustible), "combustible")
 	add(h.Has(presets.Toxic), "toxic")
 	add(h.Has(presets.Biohazard), "sewage/biohazard")
-	add(h.Has(presets.Environmental), "inspect before release")
+	// Environmental: water that may carry oil is inspected before it is
+	// let go; a product harmful to water (a fuel, glycol) is never let go.
+	product := h.Has(presets.Flammable) || h.Has(presets.Combustible) || h.Has(presets.Toxic)
+	add(h.Has(presets.Environmental) && !product, "inspect before release")
+	add(h.Has(presets.Environmental) && product, "keep out of drains and water")
 	add(h.Has(presets.Hot), "hot")
 	add(h.Has(presets.FreezingRisk), "may freeze")
 	return out
