@@ -66,15 +66,18 @@ type Model struct {
 	fit    *model.Fit
 	fitErr error
 
-	showHelp  bool
-	mouse     bool // mouse clicks select panes, fields, steps and cells
-	jobs      jobList
-	flash     string // one-shot hint on the help line, cleared by the next key
-	width     int
-	height    int
-	lay       layout
-	startNote string
-	firstSave bool // a fresh job waits for its first save
+	showHelp bool
+	// showResult: the narrow layout shows the Result in place of the
+	// focused pane (= toggles it; a pane key ends it).
+	showResult bool
+	mouse      bool // mouse clicks select panes, fields, steps and cells
+	jobs       jobList
+	flash      string // one-shot hint on the help line, cleared by the next key
+	width      int
+	height     int
+	lay        layout
+	startNote  string
+	firstSave  bool // a fresh job waits for its first save
 
 	// Saving: one save in flight at a time; a change during a save marks
 	// the job dirty and another save follows.

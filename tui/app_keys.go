@@ -28,6 +28,21 @@ func (m *Model) key(msg tea.KeyPressMsg) tea.Cmd {
 	if m.jobs.open {
 		return m.jobKey(msg)
 	}
+	if m.showResult && m.lay.Narrow {
+		// The Result fills the narrow screen: = or esc goes back to the
+		// pane, and the root's commands work; nothing reaches the pane
+		// hidden under it.
+		if key.Matches(msg, k.Result, k.Leave) {
+			m.showResult = false
+			m.st.gen++
+			return nil
+		}
+		if cmd, ok := m.command(msg); ok {
+			return cmd
+		}
+		m.flash = "= or esc goes back to the pane"
+		return nil
+	}
 	p := m.panes[m.focus]
 	if m.focus.isForm() {
 		return m.formKey(msg)
@@ -41,7 +56,7 @@ func (m *Model) key(msg tea.KeyPressMsg) tea.Cmd {
 	}
 	cmd, _ := p.Key(msg)
 	if msg.Text != "" && !key.Matches(msg, k.Up, k.Down) {
-		m.flash = "“" + msg.Text + "” does nothing here. Keys: 1–4 forms, 5–9 views, ? all keys"
+		m.flash = "“" + msg.Text + "” does nothing here. Keys: 1–4 forms, 5–9 and 0 views, ? all keys"
 	}
 	return cmd
 }
@@ -72,6 +87,9 @@ func (m *Model) command(msg tea.KeyPressMsg) (tea.Cmd, bool) {
 		m.jobs.open = true
 		m.jobs.loading = true
 		return listJobsCmd(m.dir), true
+	case key.Matches(msg, k.Result) && m.lay.Narrow && !m.typing():
+		m.showResult = !m.showResult
+		return nil, true
 	case key.Matches(msg, k.NextPane):
 		return m.setFocus((m.focus + 1) % paneCount), true
 	case key.Matches(msg, k.PrevPane):
@@ -195,6 +213,7 @@ func (m *Model) setFocus(p PaneID) tea.Cmd {
 		m.endEdit()
 	}
 	m.focus = p
+	m.showResult = false
 	if paneTable[p].lower {
 		m.lower = p
 	}
@@ -233,6 +252,15 @@ func (m *Model) paste(text string) tea.Cmd {
 func (m *Model) click(ms tea.Mouse) tea.Cmd {
 	if !m.mouse || ms.Button != tea.MouseLeft || m.lay.TooSmall || m.showHelp || m.jobs.open {
 		return nil
+	}
+	if m.lay.Narrow {
+		switch {
+		case ms.Y == m.lay.Verdict.Y || ms.Y == m.lay.Tabs.Y:
+			m.showResult = !m.showResult // a tap on the answer opens it, or closes it
+			return nil
+		case m.showResult:
+			return nil
+		}
 	}
 	if ms.Y == m.lay.Tabs.Y {
 		for i, sp := range m.tabSpans() {

@@ -175,7 +175,12 @@ func TestScreen(t *testing.T) {
 		{"checklist_120x40", 120, 40, []string{"8"}},
 		{"log_120x40", 120, 40, []string{"9"}},
 		{"job_120x40", 120, 40, []string{"0"}},
-		{"too_small_79x24", 79, 24, nil},
+		{"narrow_79x24", 79, 24, nil},
+		{"narrow_50x30", 50, 30, nil},
+		{"narrow_result_50x30", 50, 30, []string{"="}},
+		{"narrow_checklist_40x20", 40, 20, []string{"8"}},
+		{"narrow_job_40x20", 40, 20, []string{"0"}},
+		{"too_small_39x20", 39, 20, nil},
 		{"too_small_40x10", 40, 10, nil},
 	}
 	for _, c := range cases {
@@ -351,7 +356,8 @@ func TestNoNaNInf(t *testing.T) {
 }
 
 // TestResize shrinks the screen from 120×40 to 1×1 and back; every frame is
-// exactly the terminal's size and below 80×24 says so.
+// exactly the terminal's size, from 40×20 to 80×24 the narrow layout keeps
+// the verdict on screen, and below 40×20 it says the terminal is too small.
 func TestResize(t *testing.T) {
 	m := newTestModel(t, 120, 40)
 	m = press(t, m, "down", "enter") // typing, so a cursor is placed
@@ -363,9 +369,12 @@ func TestResize(t *testing.T) {
 		if s[0] > 0 && s[1] > 0 {
 			paneCheckFrame(t, plain, s[0], s[1])
 		}
-		small := s[0] < MinWidth || s[1] < MinHeight
+		small := s[0] < NarrowMinWidth || s[1] < NarrowMinHeight
 		if small && s[0] >= 20 && s[1] >= 5 && !strings.Contains(plain, "Terminal too small") {
 			t.Errorf("%dx%d: no size message:\n%s", s[0], s[1], plain)
+		}
+		if narrow := !small && (s[0] < MinWidth || s[1] < MinHeight); narrow && !strings.Contains(plain, "RUNS") {
+			t.Errorf("%dx%d: narrow layout without the verdict:\n%s", s[0], s[1], plain)
 		}
 		if small && v.Cursor != nil {
 			t.Errorf("%dx%d: cursor placed on the size message", s[0], s[1])

@@ -57,6 +57,20 @@ func (m *Model) View() tea.View {
 		return v
 	}
 	rows := make([]string, 0, l.H)
+	if l.Narrow {
+		rows = append(rows, m.headerView(), m.verdictLine(), m.tabsView())
+		if m.showHelp {
+			rows = append(rows, strings.Split(m.fullHelpView(l.W, l.Main.H), "\n")...)
+		} else {
+			rows = append(rows, strings.Split(m.mainView(), "\n")...)
+		}
+		rows = append(rows, m.helpLine())
+		v.SetContent(strings.Join(rows, "\n"))
+		if c := m.cursor(); c != nil {
+			v.Cursor = c
+		}
+		return v
+	}
 	rows = append(rows, m.headerView(), m.tabsView())
 	if m.showHelp {
 		rows = append(rows, strings.Split(m.fullHelpView(l.W, l.H-3), "\n")...)
@@ -84,6 +98,9 @@ func (m *Model) mainView() string {
 	if m.jobs.open {
 		return m.jobs.View()
 	}
+	if m.lay.Narrow && m.showResult {
+		return m.result.View()
+	}
 	if m.lay.Wide && !m.focus.isForm() {
 		return m.forms[m.form].View()
 	}
@@ -93,6 +110,9 @@ func (m *Model) mainView() string {
 // cursor is the real terminal cursor in the input being typed in.
 func (m *Model) cursor() *tea.Cursor {
 	if m.showHelp || m.jobs.open {
+		return nil
+	}
+	if m.lay.Narrow && m.showResult {
 		return nil
 	}
 	c := m.panes[m.focus].CursorPos()
@@ -141,6 +161,12 @@ func (m *Model) headerView() string {
 		save = st.fast.Muted.Render("· unchanged")
 	}
 	right := st.fast.Title.Render(m.job.Units.String()) + "  " + save + " " + mode
+	if m.lay.Narrow {
+		right = st.fast.Title.Render(m.job.Units.String()) + " " + save
+		if m.typing() {
+			right += " " + mode // only the mode that changes what letters do
+		}
+	}
 	left := st.fast.Title.Render("drawdown") + st.fast.Muted.Render(" · ")
 	room := m.lay.W - cellWidth(left) - cellWidth(right) - 1
 	title := jobName(m.job.Name)
@@ -213,6 +239,9 @@ func (m *Model) tabSpans() []tabSpan {
 // (reverse) display and brackets (legible without colour).
 func (m *Model) tabsView() string {
 	st := m.styles
+	if m.lay.Narrow {
+		return m.narrowTabsView()
+	}
 	if m.tabsCompact() {
 		return m.compactTabsView()
 	}
@@ -232,6 +261,40 @@ func (m *Model) tabsView() string {
 		}
 	}
 	return fitBlock([]string{b.String()}, m.lay.W, 1)
+}
+
+// narrowTabsView is the pane selector of the narrow layout: the pane on
+// screen, and how to reach the others.
+func (m *Model) narrowTabsView() string {
+	st := m.styles
+	cur := "[" + m.tabLabel(m.focus) + "]"
+	if m.showResult {
+		cur = "[= Result]"
+	}
+	rest := "  0-9 · [ ] panes · = result"
+	return fitBlock([]string{st.fast.TabActive.Render(cur) + st.fast.Muted.Render(rest)}, m.lay.W, 1)
+}
+
+// verdictLine is the narrow layout's answer, always on screen: the verdict
+// with its symbol, the flow and the time to the stop (from the Sheet).
+func (m *Model) verdictLine() string {
+	st := m.styles
+	s := m.st.sheet
+	if !s.Valid {
+		return fitBlock([]string{st.fast.Warning.Render("? NO RESULT YET: fix the ✗ field")}, m.lay.W, 1)
+	}
+	v := s.Verdict
+	text := v.Status.Symbol() + " " + v.Word
+	if m.st.stale {
+		text += " (last valid)"
+	}
+	if s.Runs {
+		text += " · " + s.Flow
+	}
+	if d := s.Drain; d != nil && !d.AtOnce {
+		text += " · " + d.Time
+	}
+	return fitBlock([]string{st.fastStyle(v.Status).Render(clip(text, m.lay.W))}, m.lay.W, 1)
 }
 
 // compactTabsView draws the tabs with one shared cell between neighbours:
@@ -289,6 +352,9 @@ func (m *Model) helpLine() string {
 		b = []key.Binding{m.keys.CloseHelp}
 	case m.jobs.open:
 		b = m.jobs.ShortHelp()
+	case m.lay.Narrow && m.showResult:
+		back := key.NewBinding(key.WithKeys("="), key.WithHelp("=/esc", "back to the pane"))
+		b = []key.Binding{back, m.keys.Panes, m.keys.Help, m.keys.QuitNav}
 	default:
 		p := m.panes[m.focus]
 		b = p.ShortHelp()
@@ -325,7 +391,7 @@ func tooSmall(w, h int) string {
 	if w <= 0 || h <= 0 {
 		return ""
 	}
-	msg := "Terminal too small: need at least " + strconv.Itoa(MinWidth) + "×" + strconv.Itoa(MinHeight) +
+	msg := "Terminal too small: need at least " + strconv.Itoa(NarrowMinWidth) + "×" + strconv.Itoa(NarrowMinHeight) +
 		", now " + strconv.Itoa(w) + "×" + strconv.Itoa(h) + ". Enlarge the window, or use drawdown calc. ctrl+c quits."
 	return fitBlock(wrapText(msg, w, h), w, h)
 }

@@ -44,6 +44,7 @@ type KeyMap struct {
 	Save     key.Binding // s
 	Open     key.Binding // o
 	Mouse    key.Binding // m: mouse on / off
+	Result   key.Binding // =: the Result in place of the pane (narrow screen)
 	PrevPane key.Binding // [
 	NextPane key.Binding // ]
 	Panes    key.Binding // the pane keys as one help entry
@@ -129,6 +130,7 @@ func DefaultKeyMap() KeyMap {
 		Save:     key.NewBinding(key.WithKeys("s"), key.WithHelp("s", "save")),
 		Open:     key.NewBinding(key.WithKeys("o"), key.WithHelp("o", "jobs: open, new, copy")),
 		Mouse:    key.NewBinding(key.WithKeys("m"), key.WithHelp("m", "mouse on/off")),
+		Result:   key.NewBinding(key.WithKeys("="), key.WithHelp("=", "result (narrow screen)")),
 		PrevPane: key.NewBinding(key.WithKeys("["), key.WithHelp("[", "prev pane")),
 		NextPane: key.NewBinding(key.WithKeys("]"), key.WithHelp("]", "next pane")),
 
@@ -231,7 +233,7 @@ func (k KeyMap) fullHelp() [][]key.Binding {
 	return [][]key.Binding{
 		{k.NextField, k.PrevField, k.Up, k.Down, k.Edit, k.Leave, k.Clear, k.Prev, k.Next, k.Toggle, k.Restore},
 		panes,
-		{k.QuitNav, k.Units, k.Save, k.Open, k.Mouse, k.Help, k.Quit, k.SaveNow, k.UnitsAny},
+		{k.QuitNav, k.Units, k.Save, k.Open, k.Mouse, k.Result, k.Help, k.Quit, k.SaveNow, k.UnitsAny},
 	}
 }
 

@@ -1,9 +1,15 @@
 package tui
 
-// Minimum terminal size that must work fully.
+// Minimum terminal size for the full layout (form and Result side by
+// side). Below it, down to NarrowMinWidth×NarrowMinHeight (a phone's SSH
+// client in portrait), the narrow layout shows one pane at a time under an
+// always-visible verdict line.
 const (
 	MinWidth  = 80
 	MinHeight = 24
+
+	NarrowMinWidth  = 40
+	NarrowMinHeight = 20
 )
 
 // Wide layout: from this size the side view sits beside the result and a
@@ -30,21 +36,35 @@ type layout struct {
 	W, H     int
 	TooSmall bool
 	Wide     bool
+	// Narrow: one column, one pane at a time (the Result is a pane of its
+	// own), the verdict on its own line under the header.
+	Narrow bool
 
-	Header rect // job, mode, save state
-	Tabs   rect // pane selector
-	Main   rect // compact: the active pane; wide: the active form
-	Result rect // always on screen, right of Main
-	Side   rect // wide only: side view beside the result
-	Lower  rect // wide only: the selected lower view
-	Help   rect // one help line
+	Header  rect // job, mode, save state
+	Verdict rect // narrow only: the verdict, flow and time on one line
+	Tabs    rect // pane selector
+	Main    rect // compact: the active pane; wide: the active form
+	Result  rect // always on screen, right of Main
+	Side    rect // wide only: side view beside the result
+	Lower   rect // wide only: the selected lower view
+	Help    rect // one help line
 }
 
 // newLayout measures the panes for a w×h terminal.
 func newLayout(w, h int) layout {
 	l := layout{W: w, H: h}
-	if w < MinWidth || h < MinHeight {
+	if w < NarrowMinWidth || h < NarrowMinHeight {
 		l.TooSmall = true
+		return l
+	}
+	if w < MinWidth || h < MinHeight {
+		l.Narrow = true
+		l.Header = rect{0, 0, w, 1}
+		l.Verdict = rect{0, 1, w, 1}
+		l.Tabs = rect{0, 2, w, 1}
+		l.Help = rect{0, h - 1, w, 1}
+		l.Main = rect{0, 3, w, h - 4}
+		l.Result = l.Main
 		return l
 	}
 	l.Header = rect{0, 0, w, 1}

@@ -229,8 +229,8 @@ func TestPTYBytes(t *testing.T) {
 		}
 		t.Errorf("screen never showed %q", s)
 	}
-	resize(60, 20)
-	waitFor("now 60×20")
+	resize(30, 12)
+	waitFor("now 30×12")
 	resize(MinWidth, MinHeight)
 	rec.quiet(200*time.Millisecond, 2*time.Second)
 	if _, err := master.WriteString("\x03"); err != nil {
