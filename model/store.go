@@ -17,23 +17,29 @@ import (
 	"unicode"
 )
 
-// The job file is drawdown's own JSON format:
+// The job file is drawdown's own JSON format, version 3 (JobVersion):
 //
 //	{
 //	  "schema": "drawdown-job",
-//	  "version": 2,
+//	  "version": 3,
 //	  "name": "...",
 //	  "units": "SI",
 //	  "inputs": {"hose.id": "38 mm", ...},
 //	  "site_facts": {"confined_space": true, "discharge": "sewer", ...},
 //	  "checklist": {...}, "readings": [...], "log": [...],
 //	  "resume": {"pane": "...", "step": 0},
+//	  "draft": {"kind": "note", "step": "...", "text": "..."},
+//	  "journal": {"id": "5f0c9a1e7d2b4c63", "seq": 41},
 //	  ...
 //	}
 //
-// Encode writes it with sorted keys and two-space indents, so that the same
-// Job always gives the same bytes. Decode reads the current version, migrates
-// older ones and refuses newer ones.
+// Encode writes it with two-space indents in the order of Job's fields, so
+// that the same Job always gives the same bytes. Decode reads the current
+// version, migrates older ones and refuses newer ones. "journal" is written
+// by a Session (session.go): the edits after record "seq" of that session
+// are in the journal beside the file (journal.go), and Load applies them.
+// Beside the job file NAME live ".NAME.journal" and, while a process has
+// the job open, ".NAME.lock" (lock.go).
 
 // MaxJobFileSize bounds the bytes Decode reads (a job with thousands of
 // readings is well under 1 MiB).
@@ -119,13 +125,36 @@ func damaged(detail string) *JobFileError {
 }
 
 func decodeBytes(data []byte) (Job, error) {
+	j, _, err := decodeFile(data)
+	return j, err
+}
+
+// decodeFile decodes a job file and its journal mark (zero when it has
+// none).
+func decodeFile(data []byte) (Job, JournalMark, error) {
+	var mark JournalMark
 	if len(bytes.TrimSpace(data)) == 0 {
-		return Job{}, damaged("empty (0 bytes of job data)")
+		return Job{}, mark, damaged("empty (0 bytes of job data)")
+	}
+	if err := checkJSONBounds(data); err != nil {
+		e := damaged(err.Error())
+		e.Err = errors.Join(ErrDamaged, err)
+		return Job{}, mark, e
 	}
 	var raw map[string]json.RawMessage
 	if err := json.Unmarshal(data, &raw); err != nil {
-		return Job{}, damaged(jsonProblem(err))
+		return Job{}, mark, damaged(jsonWords(err))
 	}
+	if m, ok := raw["journal"]; ok {
+		if err := json.Unmarshal(m, &mark); err != nil {
+			return Job{}, mark, damaged(`the "journal" entry does not read (` + jsonWords(err) + ")")
+		}
+	}
+	j, err := decodeRaw(data, raw)
+	return j, mark, err
+}
+
+func decodeRaw(data []byte, raw map[string]json.RawMessage) (Job, error) {
 	var schema string
 	if err := json.Unmarshal(raw["schema"], &schema); err != nil || schema != JobSchema {
 		return Job{}, &JobFileError{Detail: `not a drawdown job (no "schema": "drawdown-job"); the file was left unchanged`, Err: ErrNotJob}
@@ -151,48 +180,81 @@ func decodeBytes(data []byte) (Job, error) {
 	}
 	var j Job
 	if err := json.Unmarshal(data, &j); err != nil {
-		return Job{}, damaged(jsonProblem(err))
+		return Job{}, damaged(jsonWords(err))
 	}
 	j.Schema, j.Version = JobSchema, JobVersion
 	if j.Inputs == nil {
 		j.Inputs = map[FieldID]string{}
 	}
+	if err := checkJob(&j); err != nil {
+		return Job{}, damaged(err.Error())
+	}
 	return j, nil
 }
 
-// jsonProblem turns an encoding/json error into plain words with a position.
-func jsonProblem(err error) string {
-	var se *json.SyntaxError
-	var te *json.UnmarshalTypeError
-	switch {
-	case errors.As(err, &se):
-		return fmt.Sprintf("not valid JSON at byte %d (%v); it may have been cut short", se.Offset, se)
-	case errors.As(err, &te):
-		if te.Field == "" {
-			return "the file holds a JSON " + te.Value + ", not a job object"
-		}
-		return fmt.Sprintf("the entry %q holds a JSON %s where a %s belongs (byte %d)", te.Field, te.Value, te.Type, te.Offset)
-	}
-	return err.Error()
+// Load reads the job file at path, with the edits in its journal applied
+// (a job open in a screen is read as it stands, keystrokes included).
+// Errors are *JobFileError values carrying the path. Load writes nothing.
+func Load(path string) (Job, error) {
+	j, _, _, err := loadWithJournal(path)
+	return j, err
 }
 
-// Load reads the job file at path. Errors are *JobFileError values carrying
-// the path.
-func Load(path string) (Job, error) {
+// loadFile reads the job file at path alone, with its journal mark and the
+// file's stamp as it was read.
+func loadFile(path string) (Job, JournalMark, fileStamp, error) {
 	f, err := os.Open(path)
 	if err != nil {
-		return Job{}, &JobFileError{Path: path, Detail: "cannot open: " + plainIOError(err), Err: err}
+		return Job{}, JournalMark{}, fileStamp{}, &JobFileError{Path: path, Detail: "cannot open: " + plainIOError(err), Err: err}
 	}
 	defer f.Close()
-	j, err := Decode(f)
+	fi, err := f.Stat()
+	if err != nil {
+		return Job{}, JournalMark{}, fileStamp{}, &JobFileError{Path: path, Detail: "cannot read: " + plainIOError(err), Err: err}
+	}
+	if !fi.Mode().IsRegular() {
+		return Job{}, JournalMark{}, fileStamp{}, &JobFileError{Path: path, Detail: "not a regular file (a folder, a device or a pipe); not read", Err: ErrNotJob}
+	}
+	data, err := io.ReadAll(io.LimitReader(f, MaxJobFileSize+1))
+	if err != nil {
+		return Job{}, JournalMark{}, fileStamp{}, &JobFileError{Path: path, Detail: "cannot read: " + plainIOError(err), Err: err}
+	}
+	if len(data) > MaxJobFileSize {
+		e := damaged(fmt.Sprintf("larger than %d MiB; not a job file this tool wrote", MaxJobFileSize>>20))
+		e.Path = path
+		return Job{}, JournalMark{}, fileStamp{}, e
+	}
+	j, mark, err := decodeFile(data)
 	if err != nil {
 		var fe *JobFileError
 		if errors.As(err, &fe) {
 			fe.Path = path
 		}
-		return Job{}, err
+		return Job{}, mark, fileStamp{}, err
 	}
-	return j, nil
+	return j, mark, stampOf(fi), nil
+}
+
+// loadWithJournal reads the job file and applies its journal. last is the
+// number of the last journal record the job holds; note says why records
+// were left out ("" when none were).
+func loadWithJournal(path string) (j Job, mark JournalMark, note string, err error) {
+	j, mark, _, err = loadFile(path)
+	if err != nil {
+		return Job{}, mark, "", err
+	}
+	jl, jerr := readJournal(JournalPath(path))
+	if jerr != nil {
+		return j, mark, jerr.Error() + "; its edits were not applied", nil
+	}
+	_, last, note, _ := jl.replay(&j, mark)
+	if err := checkJob(&j); err != nil {
+		// A journal that makes the job unreadable is not applied.
+		j, mark, _, _ = loadFile(path)
+		return j, mark, "the journal's edits leave the job unreadable (" + err.Error() + "); not applied", nil
+	}
+	mark.Seq = last
+	return j, mark, note, nil
 }
 
 func plainIOError(err error) string {
@@ -270,21 +332,42 @@ func ReplaceDamaged(path string, j Job) (string, error) {
 }
 
 func writeAtomic(path string, j Job) error {
-	var b bytes.Buffer
-	if err := Encode(&b, j); err != nil {
+	b, err := encodeBytes(j)
+	if err != nil {
 		if fe, ok := err.(*JobFileError); ok {
 			fe.Path = path
 		}
 		return err
 	}
-	return writeFileAtomic(path, b.Bytes())
+	_, err = writeFileStamped(path, path, b, true)
+	return err
 }
 
 // tempPrefix marks temporary files; a killed writer may leave one behind,
-// and a later save removes those older than staleTemp.
+// and a later save removes those older than staleTemp (CleanTemps, at the
+// start, removes those of jobs no process holds).
 const staleTemp = time.Minute
 
 func writeFileAtomic(path string, b []byte) error {
+	_, err := writeFileStamped(path, path, b, true)
+	return err
+}
+
+// writeFileQuick is writeFileAtomic without the flushes to disk: the file
+// is whole or absent after a killed process, and after a power loss the
+// old or the new one or, rarely, an empty one (the journal, which is
+// flushed within a second anyway).
+func writeFileQuick(path, like string, b []byte) error {
+	_, err := writeFileStamped(path, like, b, false)
+	return err
+}
+
+// writeFileStamped writes b to path through a temporary file and a rename,
+// flushing both to disk when durable is set, and returns the new file's
+// stamp. The new file gets the owner of the file at like (path itself, or
+// the job file for the files beside it), or the write is refused
+// (ErrNotOwner) when this process cannot give it that owner.
+func writeFileStamped(path, like string, b []byte, durable bool) (fileStamp, error) {
 	dir, base := filepath.Split(path)
 	if dir == "" {
 		dir = "."
@@ -293,11 +376,15 @@ func writeFileAtomic(path string, b []byte) error {
 		return &JobFileError{Path: path, Detail: what + ": " + plainIOError(err), Err: err}
 	}
 	if err := os.MkdirAll(dir, 0o700); err != nil {
-		return fail("cannot make the folder", err)
+		return fileStamp{}, fail("cannot make the folder", err)
+	}
+	owner, err := ownerOf(like)
+	if err != nil {
+		return fileStamp{}, &JobFileError{Path: path, Detail: err.Error(), Err: errors.Join(ErrNotOwner, err)}
 	}
 	tmp, err := os.CreateTemp(dir, "."+base+".tmp-*")
 	if err != nil {
-		return fail("cannot write", err)
+		return fileStamp{}, fail("cannot write", err)
 	}
 	tmpName := tmp.Name()
 	ok := false
@@ -308,24 +395,68 @@ func writeFileAtomic(path string, b []byte) error {
 		}
 	}()
 	if err := tmp.Chmod(0o600); err != nil && runtime.GOOS != "windows" {
-		return fail("cannot set the file mode", err)
+		return fileStamp{}, fail("cannot set the file mode", err)
+	}
+	if err := owner.give(tmp); err != nil {
+		return fileStamp{}, &JobFileError{Path: path, Detail: err.Error(), Err: errors.Join(ErrNotOwner, err)}
 	}
 	if _, err := tmp.Write(b); err != nil {
-		return fail("cannot write", err)
+		return fileStamp{}, fail("cannot write", err)
 	}
-	if err := tmp.Sync(); err != nil {
-		return fail("cannot flush to disk", err)
+	if durable {
+		if err := tmp.Sync(); err != nil {
+			return fileStamp{}, fail("cannot flush to disk", err)
+		}
+	}
+	fi, err := tmp.Stat()
+	if err != nil {
+		return fileStamp{}, fail("cannot write", err)
 	}
 	if err := tmp.Close(); err != nil {
-		return fail("cannot write", err)
+		return fileStamp{}, fail("cannot write", err)
 	}
 	if err := os.Rename(tmpName, path); err != nil {
-		return fail("cannot replace the file", err)
+		return fileStamp{}, fail("cannot replace the file", err)
 	}
 	ok = true
-	syncDir(dir)
+	if durable {
+		syncDir(dir)
+	}
 	removeStaleTemps(dir, base)
-	return nil
+	return stampOf(fi), nil
+}
+
+// ErrNotOwner is wrapped by the error of a save refused because the file
+// belongs to another user and this process cannot keep that owner.
+var ErrNotOwner = errors.New("file belongs to another user")
+
+// fileStamp identifies one state of a file: the same file (inode), size
+// and modification time. A job file whose stamp differs from the one a
+// session last wrote or read was changed by someone else.
+type fileStamp struct {
+	fi os.FileInfo
+}
+
+func stampOf(fi os.FileInfo) fileStamp { return fileStamp{fi} }
+
+// same reports whether two stamps are of the same state of a file.
+func (a fileStamp) same(b fileStamp) bool {
+	if a.fi == nil || b.fi == nil {
+		return a.fi == nil && b.fi == nil
+	}
+	return os.SameFile(a.fi, b.fi) && a.fi.Size() == b.fi.Size() && a.fi.ModTime().Equal(b.fi.ModTime())
+}
+
+// statStamp is the stamp of the file at path now (zero when it is missing).
+func statStamp(path string) (fileStamp, error) {
+	fi, err := os.Stat(path)
+	if errors.Is(err, fs.ErrNotExist) {
+		return fileStamp{}, nil
+	}
+	if err != nil {
+		return fileStamp{}, err
+	}
+	return stampOf(fi), nil
 }
 
 // syncDir flushes a directory entry change (the rename) to disk. Some
