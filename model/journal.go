@@ -99,13 +99,13 @@ type journalRecord struct {
 type entryKind int
 
 const (
-	entryReplace  entryKind = iota // written whole when it changes
-	entrySkip                      // never: constant, or written at checkpoints only
-	entryStamp                     // written with another change only (updated)
-	entryMap                       // inputs, last_good: by field
-	entryList                      // log, readings: appended
-	entrySteps                     // checklist: by step where it can be
-	entryKindCount                 // number of kinds
+	entryReplace   entryKind = iota // written whole when it changes
+	entrySkip                       // never: constant, or written at checkpoints only
+	entryStamp                      // written with another change only (updated)
+	entryMap                        // inputs, last_good: by field
+	entryList                       // log, readings: appended
+	entrySteps                      // checklist: by step where it can be
+	entryKindCount                  // number of kinds
 )
 
 type jobEntry struct {
@@ -472,7 +472,7 @@ type Journal struct {
 	f      *os.File
 	hdr    int64 // the header's length
 	size   int64
-	seq    uint64     // the last record written
+	seq    uint64      // the last record written
 	ends   []seqOffset // where each record since the last compaction ends
 	err    error       // the first write error; Record fails from then on
 	synced uint64      // the last record flushed to disk
