@@ -67,8 +67,8 @@ func NewReading(levelText string, sys System, at time.Time, note string) (Readin
 		if v < 0 {
 			what = "is below the tank floor"
 		}
-		return Reading{}, fmt.Errorf("level reading: %s %s; accepted 0 to %s, measured up from the tank floor",
-			Format(DimLength, v, sys), what, Format(DimLength, MaxReadingLevel, sys))
+		return Reading{}, fmt.Errorf("level reading %q %s; accepted 0 to %s, measured up from the tank floor",
+			strings.TrimSpace(levelText), what, Format(DimLength, MaxReadingLevel, sys))
 	}
 	if err := r.Validate(); err != nil {
 		return Reading{}, err
