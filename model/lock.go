@@ -9,6 +9,7 @@ import (
 	"io"
 	"os"
 	"os/user"
+	"path/filepath"
 	"strconv"
 	"time"
 )
@@ -141,6 +142,9 @@ type Lock struct {
 // lock held by a live process is a *LockedError naming it.
 func AcquireLock(jobPath string, o LockOwner) (*Lock, error) {
 	lp := LockPath(jobPath)
+	if err := os.MkdirAll(filepath.Dir(lp), 0o700); err != nil {
+		return nil, &JobFileError{Path: jobPath, Detail: "cannot make the folder: " + plainIOError(err), Err: err}
+	}
 	for range 5 {
 		f, err := os.OpenFile(lp, os.O_RDWR|os.O_CREATE, 0o600)
 		if err != nil {

@@ -480,6 +480,70 @@ func removeStaleTemps(dir, base string) {
 	}
 }
 
+// CleanTemps removes the temporary copies that killed writers left in dir:
+// those of a job file (or of its journal) that no live process holds, at
+// any age, and any other older than a minute. It returns how many it
+// removed. A job file, a journal or a lock is never touched.
+func CleanTemps(dir string) int {
+	entries, err := os.ReadDir(dir)
+	if err != nil {
+		return 0
+	}
+	n := 0
+	for _, e := range entries {
+		name := e.Name()
+		i := strings.LastIndex(name, ".tmp-")
+		if e.IsDir() || !strings.HasPrefix(name, ".") || i < 0 {
+			continue
+		}
+		target := name[1:i] // the file the temporary copy was for
+		if j, ok := strings.CutSuffix(target, ".journal"); ok && strings.HasPrefix(j, ".") {
+			target = j[1:] // a journal's: .NAME.journal → NAME
+		}
+		path := filepath.Join(dir, name)
+		old := false
+		if fi, err := e.Info(); err == nil {
+			old = time.Since(fi.ModTime()) > staleTemp
+		}
+		if strings.HasSuffix(target, ".json") {
+			if _, held, _ := ReadLock(filepath.Join(dir, target)); held {
+				continue // its job is open: the copy may be a save in flight
+			}
+		} else if !old {
+			continue
+		}
+		if os.Remove(path) == nil {
+			n++
+		}
+	}
+	return n
+}
+
+// SetAsideDamaged moves a job file that cannot be read out of the way, to
+// NAME.damaged (or NAME.damaged-2, … so that no earlier copy is replaced),
+// every byte kept, and returns the new path. The job's journal goes with
+// it as NAME.damaged.journal when there is one.
+func SetAsideDamaged(path string) (string, error) {
+	for i := 1; i < 1000; i++ {
+		keep := path + ".damaged"
+		if i > 1 {
+			keep += "-" + strconv.Itoa(i)
+		}
+		if _, err := os.Lstat(keep); !errors.Is(err, fs.ErrNotExist) {
+			continue
+		}
+		if err := os.Rename(path, keep); err != nil {
+			return "", &JobFileError{Path: path, Detail: "cannot keep it as " + filepath.Base(keep) + ": " + plainIOError(err), Err: err}
+		}
+		if _, err := os.Lstat(JournalPath(path)); err == nil {
+			os.Rename(JournalPath(path), keep+".journal")
+		}
+		syncDir(filepath.Dir(path))
+		return keep, nil
+	}
+	return "", &JobFileError{Path: path, Detail: "too many damaged copies kept beside it", Err: fs.ErrExist}
+}
+
 func globEscape(s string) string {
 	r := strings.NewReplacer(`\`, `\\`, "*", `\*`, "?", `\?`, "[", `\[`)
 	return r.Replace(s)

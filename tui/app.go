@@ -85,6 +85,7 @@ type Model struct {
 	saveErr   error
 	markedAs  string // path last recorded with SetLastJob
 	quitting  bool
+	ps        persistState // the job's session: journal, checkpoints, lock (app_save.go)
 }
 
 // New builds the root model for a job. It computes the first plan at once,
@@ -125,6 +126,7 @@ func New(o Options) *Model {
 	m.recompute()
 	m.resize(MinWidth, MinHeight)
 	m.focusPanes()
+	m.startPersist(o.Start)
 	return m
 }
 
@@ -186,9 +188,10 @@ func (m *Model) Init() tea.Cmd { return tea.Batch(tea.RequestBackgroundColor, m.
 // then the root's commands), then sizes, then typed replies to their owner.
 // Every path ends by bringing the panes on screen up to date (sync).
 func (m *Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
+	m.before(msg)
 	cmd := m.update(msg)
 	m.sync()
-	return m, tea.Batch(cmd, m.whatIfCmd())
+	return m, tea.Batch(cmd, m.whatIfCmd(), m.persist())
 }
 
 func (m *Model) update(msg tea.Msg) tea.Cmd {
@@ -240,7 +243,8 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 		m.fitted(msg)
 		return nil
 	case StopMsg:
-		m.job.AddLog(m.now(), "stopped ("+msg.Reason+"); job saved")
+		m.job.AddLog(m.now(), stopLine(msg.Reason))
+		m.ps.stopLogged = true
 		m.quitting = true
 		return tea.Quit
 	}
