@@ -29,15 +29,18 @@ import (
 // ptyPair opens a pseudo-terminal of the given size (Linux /dev/ptmx).
 func ptyPair(t testing.TB, cols, rows int) (master, slave *os.File) {
 	t.Helper()
-	m, err := os.OpenFile("/dev/ptmx", os.O_RDWR|syscall.O_NOCTTY, 0)
+	// Non-blocking, so that the runtime poller takes it and a read can be
+	// stopped (hangUp): a blocked read would keep the pty open.
+	fd, err := syscall.Open("/dev/ptmx", os.O_RDWR|syscall.O_NOCTTY|syscall.O_NONBLOCK|syscall.O_CLOEXEC, 0)
 	if err != nil {
 		t.Fatal("no pseudo-terminal here:", err)
 	}
-	if err := unix.IoctlSetPointerInt(int(m.Fd()), unix.TIOCSPTLCK, 0); err != nil {
+	m := os.NewFile(uintptr(fd), "/dev/ptmx")
+	if err := unix.IoctlSetPointerInt(fd, unix.TIOCSPTLCK, 0); err != nil {
 		m.Close()
 		t.Fatal("cannot unlock the pseudo-terminal:", err)
 	}
-	n, err := unix.IoctlGetInt(int(m.Fd()), unix.TIOCGPTN)
+	n, err := unix.IoctlGetInt(fd, unix.TIOCGPTN)
 	if err != nil {
 		m.Close()
 		t.Fatal("cannot name the pseudo-terminal:", err)
@@ -61,6 +64,8 @@ type screen struct {
 	master *os.File
 	home   string
 	done   chan struct{}
+	// readDone is closed when the reader stops.
+	readDone chan struct{}
 
 	mu   sync.Mutex
 	out  bytes.Buffer
@@ -68,8 +73,17 @@ type screen struct {
 }
 
 // startScreen runs drawdown with no arguments on a new pty of cols×rows,
-// with DRAWDOWN_HOME=home (made by the caller) and env added.
+// with DRAWDOWN_HOME=home (made by the caller) and env added; the pty is
+// its controlling terminal (closing it sends SIGHUP).
 func startScreen(t testing.TB, home string, cols, rows int, env ...string) *screen {
+	t.Helper()
+	return startScreenOn(t, home, cols, rows, true, env...)
+}
+
+// startScreenOn is startScreen; with ctty false the pty is not the
+// program's controlling terminal, so that closing it sends no signal and
+// the program learns of it only from its input (EIO).
+func startScreenOn(t testing.TB, home string, cols, rows int, ctty bool, env ...string) *screen {
 	t.Helper()
 	master, slave := ptyPair(t, cols, rows)
 	ctx, cancel := context.WithTimeout(context.Background(), 2*time.Minute)
@@ -78,13 +92,16 @@ func startScreen(t testing.TB, home string, cols, rows int, env ...string) *scre
 		"XDG_CONFIG_HOME="+filepath.Join(home, "config"), "TERM=xterm-256color", "COLORTERM=")
 	cmd.Env = append(cmd.Env, env...)
 	cmd.Stdin, cmd.Stdout, cmd.Stderr = slave, slave, slave
-	cmd.SysProcAttr = &syscall.SysProcAttr{Setsid: true, Setctty: true, Ctty: 0}
+	if f := os.Getenv("DRAWDOWN_TEST_STDERR"); f != "" {
+		cmd.Stderr, _ = os.Create(f)
+	}
+	cmd.SysProcAttr = &syscall.SysProcAttr{Setsid: true, Setctty: ctty, Ctty: 0}
 	if err := cmd.Start(); err != nil {
 		cancel()
 		t.Fatal(err)
 	}
 	slave.Close()
-	s := &screen{t: t, cmd: cmd, master: master, home: home, done: make(chan struct{})}
+	s := &screen{t: t, cmd: cmd, master: master, home: home, done: make(chan struct{}), readDone: make(chan struct{})}
 	go s.read()
 	go func() { cmd.Wait(); cancel(); close(s.done) }()
 	t.Cleanup(func() {
@@ -97,7 +114,17 @@ func startScreen(t testing.TB, home string, cols, rows int, env ...string) *scre
 	return s
 }
 
+// hangUp closes the terminal's side the test holds, as a terminal
+// window or an SSH server does: the reader stops first (a read in flight
+// would keep the pty open).
+func (s *screen) hangUp() {
+	s.master.SetReadDeadline(time.Now())
+	<-s.readDone
+	s.master.Close()
+}
+
 func (s *screen) read() {
+	defer close(s.readDone)
 	b := make([]byte, 64<<10)
 	for {
 		n, err := s.master.Read(b)
@@ -169,6 +196,24 @@ func (s *screen) key(k string, settle time.Duration) int {
 	}
 	s.quiet(settle, 2*time.Second)
 	return s.size() - before
+}
+
+// send types k without waiting for a frame (a key that changes nothing on
+// screen), then waits a little for it to be read.
+func (s *screen) send(k string) {
+	if _, err := s.master.WriteString(k); err != nil {
+		s.t.Fatal(err)
+	}
+	time.Sleep(20 * time.Millisecond)
+}
+
+// quit ends the program as a technician does: Esc (out of any input),
+// then ctrl+c; it reports whether the program ended within d.
+func (s *screen) quit(d time.Duration) bool {
+	s.send("\x1b")
+	time.Sleep(100 * time.Millisecond) // past the wait that tells Esc from an escape sequence
+	s.master.WriteString("\x03")
+	return s.wait(d)
 }
 
 // wait waits for the process to end (at most d) and reports whether it did.
@@ -250,7 +295,11 @@ func BenchmarkScreenKey(b *testing.B) {
 				if what == "type" {
 					// As TestPTYBytes: the hose length "12 m" becomes "12.",
 					// and each digit typed and erased is a new plan.
-					for _, k := range []string{"j", "\r", "\x1b[C", "\x7f", "\x7f", "."} {
+					for _, k := range []string{"j", "\r"} {
+						s.key(k, 50*time.Millisecond)
+					}
+					s.send("\x1b[C") // → keeps the text (nothing changes on screen)
+					for _, k := range []string{"\x7f", "\x7f", "."} {
 						s.key(k, 50*time.Millisecond)
 					}
 				} else {

@@ -458,7 +458,7 @@ func (v ChecklistView) layout() ckLayout {
 			label = "Note for this step:"
 		}
 		if v.draft {
-			label += " (draft kept from the last session)"
+			label = "(draft) " + label // put back from the last session
 		}
 		iv := v.input.View()
 		l.input = append(l.input, drawPlain(label, clsTitle), drawLine{{text: iv, raw: true, width: cellWidth(iv)}})

@@ -184,7 +184,7 @@ func (l LogPane) footLines() []string {
 	st := l.styles
 	label := "Level reading now (above the tank floor):"
 	if l.draft {
-		label += " (draft kept from the last session)"
+		label = "(draft) " + label // put back from the last session
 	}
 	out := []string{st.fast.Label.Render(label), l.input.View()}
 	if l.errText != "" {
