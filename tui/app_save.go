@@ -109,7 +109,7 @@ func (m *Model) before(msg tea.Msg) {
 // persist journals what the last Update changed and starts a checkpoint
 // when one is due. It runs at the end of every Update.
 func (m *Model) persist() tea.Cmd {
-	if m.path != m.ps.path {
+	if m.path != m.ps.path || m.ps.pendingReady {
 		m.switchJob()
 	}
 	s := m.ps.sess
@@ -176,7 +176,13 @@ func (m *Model) saveFailed(err error) {
 	m.ps.sess.Abandon()
 	held.Delete(m.ps.path)
 	m.ps.sess, m.ps.readOnly, m.ps.holder, m.noSave = nil, true, lost.By, true
-	m.flash = "read-only now: " + err.Error()
+	who := "another drawdown"
+	if lost.By.Token != "" {
+		who = lost.By.Who(m.loc())
+	}
+	m.flash = "read-only now: the job was taken over by " + who + "; changes here are not saved"
+	m.job.AddLog(m.now(), m.flash)
+	m.touch()
 }
 
 // checkpoint starts writing the job file whole, or asks for another when

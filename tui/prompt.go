@@ -1,6 +1,8 @@
 package tui
 
 import (
+	"errors"
+
 	tea "charm.land/bubbletea/v2"
 
 	"drawdown/model"
@@ -50,10 +52,15 @@ func (m *Model) promptLines(p *StartPrompt) (title string, body, keys []string) 
 			"o  open another job"}
 	case PromptDamaged:
 		title = "The last job cannot be read"
-		body = []string{p.Err.Error(), "The file is left as it is."}
+		detail := p.Err.Error()
+		var fe *model.JobFileError
+		if errors.As(p.Err, &fe) {
+			detail = fe.Detail
+		}
+		body = []string{name + ": " + detail}
 		keys = []string{"d  open the demo job (in a new file)",
 			"o  open another job",
-			"k  keep the file aside as " + name + ".damaged and open the demo job"}
+			"k  keep the file aside as " + name + ".damaged, every byte, and open the demo job"}
 	}
 	if p.FromList {
 		keys = append(keys, "esc  back to the job list")
@@ -76,7 +83,12 @@ func (m *Model) promptView() string {
 	}
 	out = append(out, "")
 	for _, k := range keys {
-		out = append(out, st.fast.LabelFocused.Render(k))
+		for i, s := range wrapText(k, w-3, 3) {
+			if i > 0 {
+				s = "   " + s
+			}
+			out = append(out, st.fast.LabelFocused.Render(s))
+		}
 	}
 	return fitBlock(out, m.lay.Main.W, m.lay.Main.H)
 }
@@ -101,9 +113,6 @@ func (m *Model) promptKey(msg tea.KeyPressMsg) tea.Cmd {
 			return readOnlyCmd(p.Path, p.Holder)
 		case "t":
 			m.ps.prompt = nil
-			if m.ps.readOnly && m.path == p.Path {
-				m.ps.path = "" // the session comes with the job read again
-			}
 			return openJobCmd(p.Path, true)
 		}
 	case PromptDamaged:
