@@ -181,3 +181,35 @@ func FuzzReadJournal(f *testing.F) {
 		}
 	})
 }
+
+// FuzzLockFile: any lock file reads without a panic; a lock file that no
+// process holds never keeps a job from being opened, whatever it holds.
+func FuzzLockFile(f *testing.F) {
+	f.Add([]byte(`{"schema":"drawdown-lock","version":1,"pid":4121,"host":"van-2","since":"2026-03-14T09:00:05Z","token":"ab"}`))
+	f.Add([]byte(`{"schema":"drawdown-lock","pid":-1,"since":"x"}`))
+	f.Add([]byte("\x00\xff"))
+	dir := f.TempDir()
+	job := filepath.Join(dir, "job.json")
+	f.Fuzz(func(t *testing.T, data []byte) {
+		os.WriteFile(LockPath(job), data, 0o600)
+		if _, held, err := ReadLock(job); err != nil || held {
+			t.Fatalf("a lock file no process holds: held %v, %v", held, err)
+		}
+	})
+}
+
+// TestStaleLockGarbage: a lock file no process holds never keeps a job
+// from being opened, whatever it holds (cut short, another program's, a
+// record of a process long gone).
+func TestStaleLockGarbage(t *testing.T) {
+	job := filepath.Join(t.TempDir(), "job.json")
+	for _, data := range []string{"", "{", "\x00\xff", `{"schema":"drawdown-lock","pid":1,"host":"elsewhere","token":"x"}`, `[]`} {
+		os.WriteFile(LockPath(job), []byte(data), 0o600)
+		l, err := AcquireLock(job, LockOwner{})
+		if err != nil {
+			t.Errorf("lock file %q keeps the job: %v", data, err)
+			continue
+		}
+		l.Release()
+	}
+}

@@ -666,11 +666,15 @@ func (jr *Journal) compact(seq uint64) error {
 	return nil
 }
 
-// close stops the flusher, flushes and closes the file.
-func (jr *Journal) close() error {
+// close stops the flusher and closes the file, flushing it to disk first
+// when sync is set.
+func (jr *Journal) close(sync bool) error {
 	close(jr.stop)
 	<-jr.done
-	err := jr.Sync()
+	var err error
+	if sync {
+		err = jr.Sync()
+	}
 	jr.mu.Lock()
 	defer jr.mu.Unlock()
 	if cerr := jr.f.Close(); err == nil && cerr != nil {

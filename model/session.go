@@ -1,7 +1,6 @@
 package model
 
 import (
-	"encoding/json"
 	"errors"
 	"fmt"
 	"os"
@@ -174,18 +173,12 @@ func (s *Session) writeJob(j Job, seq uint64, stamp fileStamp) (fileStamp, error
 	if !cur.same(stamp) {
 		return fileStamp{}, &JobFileError{Path: s.path, Detail: "changed on disk by another program since it was opened; not overwritten", Err: ErrChangedOnDisk}
 	}
-	j.Schema, j.Version = JobSchema, JobVersion
-	if j.Inputs == nil {
-		j.Inputs = map[FieldID]string{}
-	}
-	b, err := json.MarshalIndent(struct {
-		Job
-		Journal JournalMark `json:"journal"`
-	}{j, JournalMark{ID: s.id, Seq: seq}}, "", "  ")
+	b, err := encodeFile(j, JournalMark{ID: s.id, Seq: seq})
 	if err != nil {
-		return fileStamp{}, &JobFileError{Path: s.path, Detail: "cannot write the job: " + err.Error(), Err: err}
+		err.(*JobFileError).Path = s.path
+		return fileStamp{}, err
 	}
-	return writeFileStamped(s.path, s.path, append(b, '\n'), true)
+	return writeFileStamped(s.path, s.path, b, true)
 }
 
 // Path is the job file the session writes (it changes when a checkpoint
@@ -293,7 +286,7 @@ func (s *Session) fork(j Job) (CheckpointResult, error) {
 	oldJr, oldLock := s.jr, s.lock
 	s.path, s.id, s.lock, s.jr, s.stamp = ns.path, ns.id, ns.lock, ns.jr, ns.stamp
 	s.mu.Unlock()
-	oldJr.close()
+	oldJr.close(false)
 	// The old journal's edits are all in the copy; left beside the other
 	// version they would be applied to it at its next open.
 	os.Remove(oldJr.path)
@@ -344,7 +337,7 @@ func (s *Session) Close(j Job, wait time.Duration) error {
 			}
 			return err
 		}
-		s.finish()
+		s.finish(true)
 		return nil
 	case <-time.After(time.Until(deadline)):
 		synced := make(chan struct{})
@@ -357,21 +350,24 @@ func (s *Session) Close(j Job, wait time.Duration) error {
 	}
 }
 
-// finish closes the journal and releases the lock.
-func (s *Session) finish() {
+// finish closes the journal (flushed to disk first when sync is set) and
+// releases the lock.
+func (s *Session) finish(sync bool) {
 	s.mu.Lock()
 	defer s.mu.Unlock()
 	if s.done {
 		return
 	}
 	s.done = true
-	s.jr.close()
+	s.jr.close(sync)
 	s.lock.Release()
 }
 
-// Abandon gives the job up without writing: the journal is flushed and
-// closed, and the lock released when it is still this process's.
-func (s *Session) Abandon() { s.finish() }
+// Abandon gives the job up without writing it whole, and without waiting
+// for the disk: the journal, which holds every edit (and survives the
+// process), is closed, and the lock released when it is still this
+// process's. The next open brings the file up to date.
+func (s *Session) Abandon() { s.finish(false) }
 
 // Held reports whether the session still holds its lock (nil) or lost it
 // to a take-over (*LockLostError).

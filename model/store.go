@@ -93,13 +93,19 @@ func Encode(w io.Writer, j Job) error {
 	return err
 }
 
-func encodeBytes(j Job) ([]byte, error) {
+func encodeBytes(j Job) ([]byte, error) { return encodeFile(j, JournalMark{}) }
+
+// encodeFile encodes j with its journal mark (left out when zero).
+func encodeFile(j Job, mark JournalMark) ([]byte, error) {
 	j.Schema = JobSchema
 	j.Version = JobVersion
 	if j.Inputs == nil {
 		j.Inputs = map[FieldID]string{}
 	}
-	b, err := json.MarshalIndent(j, "", "  ")
+	b, err := json.MarshalIndent(struct {
+		Job
+		Journal JournalMark `json:"journal,omitzero"`
+	}{j, mark}, "", "  ")
 	if err != nil {
 		return nil, &JobFileError{Detail: "cannot write the job: " + err.Error(), Err: err}
 	}

@@ -217,9 +217,6 @@ func openNote(rep model.OpenReport, loc *time.Location) string {
 	return note
 }
 
-// SaveFinal saves the job once more when the program ends (see Finish).
-func SaveFinal(m *Model) error { return Finish(m, "") }
-
 // finishWait bounds the wait at exit for the job file to be written whole;
 // past it, the journal (already written) holds every edit and the next
 // open writes the file.
