@@ -75,12 +75,11 @@ type Model struct {
 	startNote string
 	firstSave bool // a fresh job waits for its first save
 
-	// Saving: one save in flight at a time; a change during a save marks
-	// the job dirty and another save follows.
+	// Saving (app_save.go): each change journalled as it is made; one
+	// checkpoint (the file written whole) in flight at a time, tagged by
+	// saveSeq.
 	noSave    bool
 	saveSeq   uint64
-	saving    bool
-	dirty     bool
 	lastSaved time.Time
 	saveErr   error
 	markedAs  string // path last recorded with SetLastJob
