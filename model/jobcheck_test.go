@@ -93,7 +93,7 @@ var badJobs = []struct {
 	{"units unknown", `{"schema": "drawdown-job", "version": 3, "units": "furlongs"}`, ErrDamaged, `unit system "furlongs" not known; accepted SI or US`},
 	{"a list, not a job", `[1, 2]`, ErrDamaged, "the file holds a list, not a job object"},
 	{"cut short", `{"schema": "drawdown-job", "version": 3, "name": "pit`, ErrDamaged, "not valid JSON at byte"},
-	{"the journal entry wrong", `{"schema": "drawdown-job", "version": 3, "journal": "x"}`, ErrDamaged, `the "journal" entry does not read`},
+	{"the journal entry wrong", `{"schema": "drawdown-job", "version": 3, "journal": "x"}`, ErrDamaged, `the "journal" entry is not an object`},
 }
 
 // goWords are signs of Go's own words in a message.
@@ -148,6 +148,7 @@ func TestNewReadingRange(t *testing.T) {
 		if err != nil && len(err.Error()) > 200 {
 			t.Errorf("%q: %d characters", c.text, len(err.Error()))
 		}
+		t.Logf("typed %-8q → %v", c.text, err)
 	}
 	if _, err := NewReading("0 m", SI, t0, ""); err != nil {
 		t.Errorf("a level on the floor: %v", err)

@@ -145,6 +145,9 @@ func decodeFile(data []byte) (Job, JournalMark, error) {
 		return Job{}, mark, damaged(jsonWords(err))
 	}
 	if m, ok := raw["journal"]; ok {
+		if b := bytes.TrimSpace(m); len(b) == 0 || b[0] != '{' {
+			return Job{}, mark, damaged(`the "journal" entry is not an object (it holds the session and the record number)`)
+		}
 		if err := json.Unmarshal(m, &mark); err != nil {
 			return Job{}, mark, damaged(`the "journal" entry does not read (` + jsonWords(err) + ")")
 		}
