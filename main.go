@@ -205,7 +205,7 @@ func runScreen(stderr io.Writer) int {
 	}
 	if fm, ok := final.(*tui.Model); ok {
 		if serr := tui.Finish(fm, why); serr != nil {
-			if errors.Is(serr, model.ErrSavedInJournal) {
+			if errors.Is(serr, model.ErrSavedInJournal) || errors.Is(serr, tui.ErrForkedAtExit) {
 				fmt.Fprintln(stderr, "drawdown:", serr)
 				return code
 			}

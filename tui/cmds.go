@@ -240,10 +240,15 @@ func Finish(m *Model, reason string) error {
 	}
 	m.keepDraft()
 	m.recordResume()
+	before := s.Path()
 	err := s.Close(m.job.Clone(), finishWait)
 	held.Delete(m.ps.path)
 	if err == nil && m.markedAs != s.Path() {
 		err = model.SetLastJob(s.Path())
+	}
+	if err == nil && s.Path() != before {
+		return fmt.Errorf("%w: %s was changed by another program while it was open here; this screen's version is saved as %s",
+			ErrForkedAtExit, filepath.Base(before), filepath.Base(s.Path()))
 	}
 	if errors.Is(err, model.ErrSavedInJournal) {
 		return fmt.Errorf("%w: the disk is slow; every change is in the journal beside %s and goes into the job file at the next start",
@@ -251,6 +256,11 @@ func Finish(m *Model, reason string) error {
 	}
 	return err
 }
+
+// ErrForkedAtExit is wrapped by Finish's report that the job file had
+// been changed by another program, so that this screen's version was saved
+// as a copy beside it: nothing is lost, and main says where it went.
+var ErrForkedAtExit = errors.New("saved as a copy")
 
 // stopLine is the log line of a stop by a signal or a closed terminal.
 func stopLine(reason string) string { return "stopped (" + reason + "); job saved" }
