@@ -254,7 +254,17 @@ func readJournal(path string) (journalReplay, error) {
 		return out, &JobFileError{Path: path, Detail: "cannot open the journal: " + plainIOError(err), Err: err}
 	}
 	defer f.Close()
-	br := bufio.NewReader(io.LimitReader(f, maxJournalSize))
+	jl, err := parseJournal(f)
+	if fe, ok := err.(*JobFileError); ok {
+		fe.Path = path
+	}
+	return jl, err
+}
+
+// parseJournal reads a journal from r (readJournal's work, on any reader).
+func parseJournal(r io.Reader) (journalReplay, error) {
+	var out journalReplay
+	br := bufio.NewReader(io.LimitReader(r, maxJournalSize))
 	line, err := br.ReadBytes('\n')
 	if len(line) == 0 {
 		return out, nil
@@ -266,7 +276,7 @@ func readJournal(path string) (journalReplay, error) {
 		return journalReplay{torn: true, tornNote: "the journal's first line is not a journal header"}, nil
 	}
 	if h.Version > JournalVersion || h.Version < 1 {
-		return out, &JobFileError{Path: path, Version: h.Version, Err: ErrJournal, Detail: fmt.Sprintf(
+		return out, &JobFileError{Version: h.Version, Err: ErrJournal, Detail: fmt.Sprintf(
 			"the journal is in format version %d; this build reads version %d", h.Version, JournalVersion)}
 	}
 	out.id = h.Job
