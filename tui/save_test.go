@@ -3,8 +3,8 @@ package tui
 import (
 	"bytes"
 	"os"
-	"time"
 	"testing"
+	"time"
 
 	tea "charm.land/bubbletea/v2"
 
