@@ -16,16 +16,19 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"io"
 	"os"
 	"os/signal"
 	"strings"
+	"sync/atomic"
 	"syscall"
 
 	tea "charm.land/bubbletea/v2"
 	"github.com/charmbracelet/x/term"
 
+	"drawdown/model"
 	"drawdown/model/present"
 	"drawdown/presets"
 	"drawdown/tui"
@@ -167,9 +170,13 @@ func noScreen(stdin, stdout bool, termType string) string {
 // /dev/null is not).
 func isTerminal(f *os.File) bool { return term.IsTerminal(f.Fd()) }
 
-// runScreen runs the planning screen. Every change is saved while it runs;
-// on SIGHUP (the SSH link dropped) or SIGTERM the screen is told to stop and
-// the job is saved once more before exit.
+// runScreen runs the planning screen. Every edit is journalled as it is
+// made (tui.Finish at the end writes the job file whole). The screen stops
+// the same way however it is stopped, and logs why: q or ctrl+c; SIGHUP
+// (the SSH link dropped), SIGTERM or SIGINT, each caught here alone
+// (bubbletea's own handler is off, so that it cannot end the program
+// before the stop is logged); or the terminal closing under it (a read
+// error such as EIO, or the end of input).
 func runScreen(stderr io.Writer) int {
 	start := tui.OpenStart()
 	// The same catalogue as the command line: built-in plus the user's file.
@@ -178,25 +185,43 @@ func runScreen(stderr io.Writer) int {
 		start.Note = strings.TrimSpace(start.Note + " user presets not loaded (built-in catalogue in use): " + err.Error())
 	}
 	m := tui.New(tui.Options{Start: start, Cat: cat})
-	p := tea.NewProgram(m)
-
-	sigs := make(chan os.Signal, 1)
-	signal.Notify(sigs, syscall.SIGHUP, syscall.SIGTERM)
+	var p *tea.Program
+	var reason atomic.Pointer[string]
+	stop := func(why string) {
+		if reason.CompareAndSwap(nil, &why) {
+			p.Send(tui.StopMsg{Reason: why})
+		}
+	}
+	in := newWatchedInput(os.Stdin, func(err error) { stop(inputEnded(err)) })
+	p = tea.NewProgram(m, tea.WithoutSignalHandler(), tea.WithInput(in))
+	sigs := make(chan os.Signal, 4)
+	signal.Notify(sigs, syscall.SIGHUP, syscall.SIGTERM, syscall.SIGINT)
 	defer signal.Stop(sigs)
 	go func() {
-		if s, ok := <-sigs; ok {
-			p.Send(tui.StopMsg{Reason: strings.ToUpper(signalName(s))})
+		for s := range sigs {
+			stop(strings.ToUpper(signalName(s)))
 		}
 	}()
 
 	final, err := p.Run()
 	code := 0
-	if err != nil {
+	why := ""
+	if r := reason.Load(); r != nil {
+		why = *r
+	}
+	if err != nil && why == "" {
+		why = "the terminal closed: " + err.Error()
+	}
+	if err != nil && !strings.HasPrefix(why, "the terminal closed") {
 		fmt.Fprintln(stderr, "drawdown:", err)
 		code = 1
 	}
 	if fm, ok := final.(*tui.Model); ok {
-		if serr := tui.SaveFinal(fm); serr != nil {
+		if serr := tui.Finish(fm, why); serr != nil {
+			if errors.Is(serr, model.ErrSavedInJournal) || errors.Is(serr, tui.ErrForkedAtExit) {
+				fmt.Fprintln(stderr, "drawdown:", serr)
+				return code
+			}
 			fmt.Fprintln(stderr, "drawdown: the job was NOT saved at exit:", serr)
 			return 1
 		}
@@ -210,6 +235,8 @@ func signalName(s os.Signal) string {
 		return "sighup"
 	case syscall.SIGTERM:
 		return "sigterm"
+	case syscall.SIGINT:
+		return "sigint"
 	}
 	return s.String()
 }

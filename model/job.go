@@ -14,7 +14,8 @@ const JobSchema = "drawdown-job"
 
 // JobVersion is the job-file format version this build writes. Older
 // versions are migrated on load (see migrate); newer ones are refused.
-const JobVersion = 2
+// Version 3 added the draft and the journal mark (journal.go).
+const JobVersion = 3
 
 // Job is one drain: who, where, the inputs as typed, the site facts, the
 // checklist, the level readings, the release record and the log, and where
@@ -79,6 +80,11 @@ type Job struct {
 	// ctrl+r puts back. It is saved with the job, so it survives a dropped
 	// link mid-edit.
 	LastGood map[FieldID]string `json:"last_good,omitempty"`
+
+	// Draft is text being typed and not yet entered (a field, a step's
+	// note or skip reason, a level reading), kept so that a dropped link
+	// or a closed terminal loses none of it; see Draft.
+	Draft Draft `json:"draft,omitzero"`
 
 	Created time.Time `json:"created,omitzero"`
 	Updated time.Time `json:"updated,omitzero"`

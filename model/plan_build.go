@@ -138,6 +138,14 @@ func (c *computer) tank(shape string, level float64) {
 			return
 		}
 	}
+	_, hasHeight := c.num(FieldTankHeight)
+	if cone, ok := c.num(FieldTankCone); ok && shape == "cone-bottom" && hasHeight && cone > height {
+		// The cone is part of the tank's height (floor to brim).
+		c.fail(FieldTankCone, &FieldError{ID: FieldTankCone, Label: "Cone height", Text: c.text(FieldTankCone),
+			Detail: shown(DimLength, cone, c.in.Units) + " is taller than the tank (" + shown(DimLength, height, c.in.Units) + " floor to brim)",
+			Accept: shown(DimLength, 0.01, c.in.Units) + " to " + shown(DimLength, height, c.in.Units), Err: calc.ErrGeometry})
+		return
+	}
 	sizes := func(name string) float64 {
 		switch name {
 		case "diameter":

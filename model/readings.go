@@ -32,8 +32,9 @@ type Reading struct {
 // MaxReadingLevel bounds a reading's level magnitude, m (as calc.MaxTankSize).
 const MaxReadingLevel = 1000.0
 
-// Validate checks the reading has a time and a finite level within
-// ±MaxReadingLevel.
+// Validate checks the reading has a time and a finite level from 0 (the
+// tank floor, the datum of every level) to MaxReadingLevel: a level below
+// the floor is a misreading (a sign slip, a reading from the brim down).
 func (r Reading) Validate() error {
 	if r.At.IsZero() {
 		return errors.New("level reading: a time is required")
@@ -41,8 +42,11 @@ func (r Reading) Validate() error {
 	if math.IsNaN(r.Level) || math.IsInf(r.Level, 0) {
 		return errors.New("level reading: level is not a finite number")
 	}
-	if math.Abs(r.Level) > MaxReadingLevel {
-		return fmt.Errorf("level reading: level %g m is out of range; accepted −%g to %g m", r.Level, MaxReadingLevel, MaxReadingLevel)
+	if r.Level < 0 {
+		return fmt.Errorf("level reading: level %.4g m is below the tank floor; accepted 0 to %g m, measured up from the floor", r.Level, MaxReadingLevel)
+	}
+	if r.Level > MaxReadingLevel {
+		return fmt.Errorf("level reading: level %.4g m is out of range; accepted 0 to %g m", r.Level, MaxReadingLevel)
 	}
 	return nil
 }
@@ -57,6 +61,15 @@ func NewReading(levelText string, sys System, at time.Time, note string) (Readin
 		return Reading{}, fmt.Errorf("level reading: %w", err)
 	}
 	r := Reading{At: at, Level: v, Note: strings.TrimSpace(note)}
+	if v < 0 || v > MaxReadingLevel {
+		// In the user's units (Validate words a level read from a file in m).
+		what := "is out of range"
+		if v < 0 {
+			what = "is below the tank floor"
+		}
+		return Reading{}, fmt.Errorf("level reading %q %s; accepted 0 to %s, measured up from the tank floor",
+			strings.TrimSpace(levelText), what, Format(DimLength, MaxReadingLevel, sys))
+	}
 	if err := r.Validate(); err != nil {
 		return Reading{}, err
 	}

@@ -12,10 +12,13 @@ import (
 // migrations[v] turns a version-v file into a version-(v+1) one, working on
 // the top-level JSON entries. When the format changes, bump JobVersion, add
 // the step here and keep a fixture of the old version in testdata so that
-// the step stays tested (job-v0.json, job-v1.json).
+// the step stays tested (job-v0.json, job-v1.json, job-v2.json).
 var migrations = map[int]func(map[string]json.RawMessage) error{
 	0: func(map[string]json.RawMessage) error { return nil },
 	1: migrateV1,
+	// Version 3 only added entries (the draft, the journal mark): a
+	// version-2 file reads as it is.
+	2: func(map[string]json.RawMessage) error { return nil },
 }
 
 // migrate applies the steps from version v up to JobVersion and returns the

@@ -47,7 +47,7 @@ func TestEncodeDecodeRoundTrip(t *testing.T) {
 		!got.Started.Equal(j.Started) || len(got.Readings) != 2 || len(got.Checklist.Steps) != len(j.Checklist.Steps) {
 		t.Errorf("round trip lost data: %+v", got)
 	}
-	if !strings.Contains(first, `"schema": "drawdown-job"`) || !strings.Contains(first, `"version": 2`) ||
+	if !strings.Contains(first, `"schema": "drawdown-job"`) || !strings.Contains(first, `"version": 3`) ||
 		!strings.Contains(first, `"units": "SI"`) {
 		t.Errorf("header missing:\n%s", first[:200])
 	}
@@ -71,14 +71,15 @@ func TestDecodeFixtures(t *testing.T) {
 		err  error
 		says string
 	}{
+		{"job-v3.json", nil, ""},
 		{"job-v2.json", nil, ""},
 		{"job-v1.json", nil, ""},
 		{"job-v0.json", nil, ""},
-		{"job-future.json", ErrFutureVersion, "newer drawdown (format version 3; this build reads versions 0 to 2)"},
+		{"job-future.json", ErrFutureVersion, "newer drawdown (format version 4; this build reads versions 0 to 3)"},
 		{"job-damaged.json", ErrDamaged, "not valid JSON at byte"},
 		{"not-a-job.json", ErrNotJob, "not a drawdown job"},
 		{"job-minus1.json", ErrDamaged, "format version -1 does not exist"},
-		{"job-wrong-type.json", ErrDamaged, `the entry "inputs" holds a JSON array`},
+		{"job-wrong-type.json", ErrDamaged, `the entry "inputs" holds a list where an object belongs`},
 		{"empty.json", ErrDamaged, "empty"},
 	}
 	for _, c := range cases {
@@ -105,9 +106,9 @@ func TestDecodeFixtures(t *testing.T) {
 }
 
 func TestFixtureFormatStable(t *testing.T) {
-	// The v2 fixture must re-encode to the same bytes: the file format of
-	// version 2 has not drifted.
-	b, err := os.ReadFile(filepath.Join("testdata", "job-v2.json"))
+	// The v3 fixture must re-encode to the same bytes: the file format of
+	// version 3 has not drifted.
+	b, err := os.ReadFile(filepath.Join("testdata", "job-v3.json"))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -118,7 +119,7 @@ func TestFixtureFormatStable(t *testing.T) {
 	var out bytes.Buffer
 	Encode(&out, j)
 	if !bytes.Equal(out.Bytes(), b) {
-		t.Errorf("version-2 fixture re-encodes differently; if the format changed on purpose, bump JobVersion and add a migration")
+		t.Errorf("version-3 fixture re-encodes differently; if the format changed on purpose, bump JobVersion and add a migration")
 	}
 }
 

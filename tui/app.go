@@ -79,16 +79,16 @@ type Model struct {
 	startNote  string
 	firstSave  bool // a fresh job waits for its first save
 
-	// Saving: one save in flight at a time; a change during a save marks
-	// the job dirty and another save follows.
+	// Saving (app_save.go): each change journalled as it is made; one
+	// checkpoint (the file written whole) in flight at a time, tagged by
+	// saveSeq.
 	noSave    bool
 	saveSeq   uint64
-	saving    bool
-	dirty     bool
 	lastSaved time.Time
 	saveErr   error
 	markedAs  string // path last recorded with SetLastJob
 	quitting  bool
+	ps        persistState // the job's session: journal, checkpoints, lock (app_save.go)
 }
 
 // New builds the root model for a job. It computes the first plan at once,
@@ -129,6 +129,7 @@ func New(o Options) *Model {
 	m.recompute()
 	m.resize(MinWidth, MinHeight)
 	m.focusPanes()
+	m.startPersist(o.Start)
 	return m
 }
 
@@ -191,9 +192,10 @@ func (m *Model) Init() tea.Cmd { return tea.Batch(tea.RequestBackgroundColor, m.
 // then the root's commands), then sizes, then typed replies to their owner.
 // Every path ends by bringing the panes on screen up to date (sync).
 func (m *Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
+	m.before(msg)
 	cmd := m.update(msg)
 	m.sync()
-	return m, tea.Batch(cmd, m.whatIfCmd())
+	return m, tea.Batch(cmd, m.whatIfCmd(), m.persist())
 }
 
 func (m *Model) update(msg tea.Msg) tea.Cmd {
@@ -247,7 +249,8 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 		m.fitted(msg)
 		return nil
 	case StopMsg:
-		m.job.AddLog(m.now(), "stopped ("+msg.Reason+"); job saved")
+		m.job.AddLog(m.now(), stopLine(msg.Reason))
+		m.ps.stopLogged = true
 		m.quitting = true
 		return tea.Quit
 	}

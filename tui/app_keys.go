@@ -11,11 +11,14 @@ import (
 func (m *Model) key(msg tea.KeyPressMsg) tea.Cmd {
 	m.flash = ""
 	k := m.keys
+	if m.ps.prompt != nil {
+		return m.promptKey(msg)
+	}
 	switch {
 	case key.Matches(msg, k.Quit):
 		return m.quit()
 	case key.Matches(msg, k.SaveNow):
-		return m.save()
+		return m.saveNow()
 	case key.Matches(msg, k.UnitsAny):
 		return m.toggleUnits()
 	}
@@ -75,7 +78,7 @@ func (m *Model) command(msg tea.KeyPressMsg) (tea.Cmd, bool) {
 		return m.toggleUnits(), true
 	case key.Matches(msg, k.Save):
 		m.flash = "saving now (every change is saved anyway)"
-		return m.save(), true
+		return m.saveNow(), true
 	case key.Matches(msg, k.Mouse):
 		m.mouse = !m.mouse
 		m.flash = "mouse off: the terminal selects text again"

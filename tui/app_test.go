@@ -500,7 +500,7 @@ func TestSaveCommand(t *testing.T) {
 	}
 	// The exit save (main, after Run) writes the latest job.
 	m = enterField(t, m, model.FieldDrop, "2 m")
-	if err := SaveFinal(m); err != nil {
+	if err := Finish(m, ""); err != nil {
 		t.Fatal(err)
 	}
 	if got, err := model.Load(st.Path); err != nil || got.Inputs[model.FieldDrop] != "2 m" {

@@ -95,6 +95,9 @@ func (m *Model) View() tea.View {
 // mainView is the left block: the job list overlay, the focused pane, or on
 // a wide screen the last form.
 func (m *Model) mainView() string {
+	if m.ps.prompt != nil {
+		return m.promptView()
+	}
 	if m.jobs.open {
 		return m.jobs.View()
 	}
@@ -109,7 +112,7 @@ func (m *Model) mainView() string {
 
 // cursor is the real terminal cursor in the input being typed in.
 func (m *Model) cursor() *tea.Cursor {
-	if m.showHelp || m.jobs.open {
+	if m.showHelp || m.jobs.open || m.ps.prompt != nil {
 		return nil
 	}
 	if m.lay.Narrow && m.showResult {
@@ -149,6 +152,8 @@ func (m *Model) headerView() string {
 	}
 	var save string
 	switch {
+	case m.ps.readOnly:
+		save = st.fast.Warning.Render("! read-only")
 	case m.noSave:
 		save = st.fast.Warning.Render("! not saving")
 	case m.saveErr != nil:

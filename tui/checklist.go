@@ -59,6 +59,7 @@ type ChecklistView struct {
 	mode    ckMode
 	input   textinput.Model
 	errText string // shown under the input, e.g. a missing reason
+	draft   bool   // the input holds a draft put back from the last session
 	keys    ChecklistKeys
 	styles  Styles
 	focused bool
@@ -172,7 +173,7 @@ func (v *ChecklistView) Blur() {
 func (v ChecklistView) Focused() bool { return v.focused }
 
 func (v *ChecklistView) closeInput() {
-	v.mode = ckBrowse
+	v.mode, v.draft = ckBrowse, false
 	v.errText = ""
 	v.input.Blur()
 	v.input.Reset()
@@ -186,6 +187,35 @@ func (v *ChecklistView) openInput(m ckMode, value, hint string) tea.Cmd {
 	v.input.CursorEnd()
 	v.input.Placeholder = hint
 	return v.input.Focus()
+}
+
+// Draft is the reason or note being typed, when it says something new
+// (drafts.go keeps it with the job): reason tells a skip reason from a note.
+func (v ChecklistView) Draft() (reason bool, step, text string, ok bool) {
+	if v.mode == ckBrowse || v.cur < 0 || v.cur >= len(v.cl.Steps) {
+		return false, "", "", false
+	}
+	text = v.input.Value()
+	if v.mode == ckNote {
+		return false, v.CurrentID(), text, text != v.cl.Steps[v.cur].Note
+	}
+	return true, v.CurrentID(), text, text != ""
+}
+
+// RestoreDraft selects the step and opens its reason or note input again
+// with text, marked as a draft. It reports whether the step is there.
+func (v *ChecklistView) RestoreDraft(reason bool, step, text string) bool {
+	if v.cl.Index(step) < 0 {
+		return false
+	}
+	v.SetCurrent(step)
+	mode, hint := ckNote, "e.g. gas reading, permit number, initials"
+	if reason {
+		mode, hint = ckReason, "why is this step skipped?"
+	}
+	v.openInput(mode, text, hint)
+	v.draft = true
+	return true
 }
 
 func ckStepCmd(id string) tea.Cmd {
@@ -450,6 +480,9 @@ func (v ChecklistView) layout() ckLayout {
 		case ckReasonNA:
 			label = "Why this required step does not apply (required):"
 		default:
+		}
+		if v.draft {
+			label = "(draft) " + label // put back from the last session
 		}
 		iv := v.input.View()
 		l.input = append(l.input, drawPlain(label, clsTitle), drawLine{{text: iv, raw: true, width: cellWidth(iv)}})

@@ -320,6 +320,32 @@ func (f *FormPane) StartEditing() {
 	f.renderRows()
 }
 
+// Draft is the field being typed in and its text, when typing changed it
+// (drafts.go keeps it with the job); before is its text when typing began.
+func (f *FormPane) Draft() (id model.FieldID, text, before string, ok bool) {
+	if !f.editing || len(f.fields) == 0 || f.SelectedIsPicker() {
+		return "", "", "", false
+	}
+	ff := &f.fields[f.cursor]
+	text = ff.input.Value()
+	return ff.spec.ID, text, f.before, text != f.before
+}
+
+// RestoreDraft selects the field and types on in it with text, the cursor
+// at its end; Esc still puts back before. It reports whether the form has
+// the field.
+func (f *FormPane) RestoreDraft(id model.FieldID, text, before string) bool {
+	if !f.SelectField(id) || f.SelectedIsPicker() {
+		return false
+	}
+	f.StartEditing()
+	f.fields[f.cursor].input.SetValue(text)
+	f.fields[f.cursor].input.CursorEnd()
+	f.before, f.fresh = before, false
+	f.renderRows()
+	return true
+}
+
 // StopEditing leaves typing mode (navigate mode), keeping what was typed.
 func (f *FormPane) StopEditing() {
 	f.editing, f.fresh = false, false

@@ -27,6 +27,7 @@ type LogPane struct {
 	typing  bool
 	input   textinput.Model
 	errText string
+	draft   bool // the input holds a draft put back from the last session
 }
 
 // NewLogPane returns an empty Log pane. loc is the zone times are shown in.
@@ -70,10 +71,26 @@ func (l *LogPane) ReadingError(msg string) { l.errText = msg }
 
 // ReadingTaken closes the input after the root accepted a reading.
 func (l *LogPane) ReadingTaken() {
-	l.typing = false
+	l.typing, l.draft = false, false
 	l.errText = ""
 	l.input.Blur()
 	l.input.Reset()
+}
+
+// Draft is the reading being typed, when there is one (drafts.go keeps it
+// with the job).
+func (l *LogPane) Draft() (string, bool) {
+	return l.input.Value(), l.typing && l.input.Value() != ""
+}
+
+// RestoreDraft opens the reading input again with text, marked as a draft.
+func (l *LogPane) RestoreDraft(text string) bool {
+	l.typing, l.errText, l.draft = true, "", true
+	l.input.Reset()
+	l.input.SetValue(text)
+	l.input.CursorEnd()
+	l.input.Focus()
+	return true
 }
 
 // Typing reports whether keys go into the reading input.
@@ -166,7 +183,11 @@ func (l LogPane) footLines() []string {
 		return nil
 	}
 	st := l.styles
-	out := []string{st.fast.Label.Render("Level reading now (above the tank floor):"), l.input.View()}
+	label := "Level reading now (above the tank floor):"
+	if l.draft {
+		label = "(draft) " + label // put back from the last session
+	}
+	out := []string{st.fast.Label.Render(label), l.input.View()}
 	if l.errText != "" {
 		out = append(out, st.fast.Danger.Render(l.errText))
 	}

@@ -46,6 +46,15 @@ func openPTY(t *testing.T, cols, rows int) (master, slave *os.File) {
 	return m, s
 }
 
+// processCPU is the CPU time this process has used (user and system).
+func processCPU() time.Duration {
+	var ru syscall.Rusage
+	if err := syscall.Getrusage(syscall.RUSAGE_SELF, &ru); err != nil {
+		return 0
+	}
+	return time.Duration(ru.Utime.Nano() + ru.Stime.Nano())
+}
+
 // ptyRecorder collects what the program writes to the terminal.
 type ptyRecorder struct {
 	mu   sync.Mutex
@@ -177,12 +186,14 @@ func TestPTYBytes(t *testing.T) {
 	send("\x7f")
 	send(".")
 	var counts []int
+	cpu0 := processCPU()
 	for i := 0; i < 10; i++ {
 		for _, d := range []string{"5", "\x7f", "8", "\x7f", "0", "\x7f", "4", "\x7f"} {
 			counts = append(counts, send(d))
 		}
 	}
 	typing := append([]int(nil), counts...)
+	cpuPerKey := (processCPU() - cpu0) / time.Duration(len(counts))
 	for i := 0; i < 5; i++ {
 		counts = append(counts, send("x"), send("\x7f")) // "12.x" is invalid
 	}
@@ -197,9 +208,9 @@ func TestPTYBytes(t *testing.T) {
 	idle := rec.size() - before
 
 	t.Logf("first frame %v; bytes per keystroke at 80×24: median %d, min %d, max %d over %d keys "+
-		"(valid digits only: median %d, max %d); idle 2 s: %d bytes",
+		"(valid digits only: median %d, max %d); idle 2 s: %d bytes; CPU per typed key %v (this process: the screen, its saves and this test's reader)",
 		first.Round(time.Millisecond), median, counts[0], counts[len(counts)-1], len(counts),
-		typing[len(typing)/2], typing[len(typing)-1], idle)
+		typing[len(typing)/2], typing[len(typing)-1], idle, cpuPerKey.Round(10*time.Microsecond))
 	if median > 300 {
 		t.Errorf("median %d bytes per keystroke; target ≤ 300", median)
 	}
@@ -247,7 +258,7 @@ func TestPTYBytes(t *testing.T) {
 	if !ok {
 		t.Fatalf("program returned %T (%v)", res.m, res.err)
 	}
-	if err := SaveFinal(fm); err != nil {
+	if err := Finish(fm, ""); err != nil {
 		t.Fatal(err)
 	}
 	saved, err := model.Load(fm.Path())
