@@ -6,6 +6,7 @@ import (
 	tea "charm.land/bubbletea/v2"
 
 	"drawdown/model"
+	"drawdown/model/present"
 )
 
 // The first-screen prompts: the job is held by another process (open it
@@ -77,7 +78,9 @@ func (m *Model) promptView() string {
 	w := max(m.lay.Main.W-2, 10)
 	out := []string{st.fast.PaneTitle.Render(title), ""}
 	for _, b := range body {
-		for _, s := range wrapText(b, w, 6) {
+		// host, user and path names come from a lock file and the disk:
+		// data, never control sequences
+		for _, s := range wrapText(present.Clean(b), w, 6) {
 			out = append(out, st.fast.Value.Render(s))
 		}
 	}
