@@ -185,11 +185,21 @@ func FlowBand(s Siphon, tol Tolerance) (low, high FlowRate, err error) {
 //
 // Errors: as PlanDrain and FlowBand.
 func PlanBand(in DrainInput, tol Tolerance) (Band, error) {
-	var b Band
 	nominal, err := planNoCurve(in)
 	if err != nil {
-		return b, err
+		return Band{}, err
 	}
+	return PlanBandFrom(in, nominal, tol)
+}
+
+// PlanBandFrom is PlanBand with the nominal plan already made: nominal must
+// be PlanDrain(in) (its curve is not used and not kept), so that a caller
+// that has just planned the drain does not plan it again.
+//
+// Errors: as PlanBand, less the nominal plan's.
+func PlanBandFrom(in DrainInput, nominal DrainPlan, tol Tolerance) (Band, error) {
+	var b Band
+	nominal.Curve = nil
 	slowS, fastS, dz, err := bandCases(in.Siphon, tol)
 	if err != nil {
 		return b, err

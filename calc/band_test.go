@@ -3,6 +3,7 @@ package calc
 import (
 	"errors"
 	"math"
+	"reflect"
 	"testing"
 
 	"drawdown/calc/testkit"
@@ -104,5 +105,41 @@ func TestPlanBand(t *testing.T) {
 	}
 	if !be.SlowWillNotRun || be.FlowLow != 0 || be.TimeHigh < be.Nominal.Time {
 		t.Errorf("edge band: %+v", be)
+	}
+}
+
+// TestPlanBandFrom: given the nominal plan PlanDrain has just made (curve
+// and all), the band is the same as PlanBand's, for a drain, a transfer, a
+// slow case that cannot start, a crest-limit stop and a target stop.
+func TestPlanBandFrom(t *testing.T) {
+	target := DrainInput{Tank: mustTank(NewVerticalCylinder(1.2, 1.5)), Siphon: baseSiphon(1.4, 0.05, 1.9, -2), Target: 0.6}
+	cases := map[string]DrainInput{
+		"drain": {Tank: mustTank(NewVerticalCylinder(1.2, 1.5)), Siphon: baseSiphon(1.4, 0.05, 1.9, -2)},
+		"transfer": {Tank: mustTank(NewVerticalCylinder(1.2, 2)),
+			Receiver: &Receiver{Tank: mustTank(NewRectangular(1, 1, 2)), Floor: -0.5, Level: 0.2},
+			Siphon:   baseSiphon(1.8, 0.05, 2.3, -0.5)},
+		"slow will not run": {Tank: mustTank(NewVerticalCylinder(1.2, 1.5)), Siphon: baseSiphon(1.4, 0.05, 1.9, 1.38)},
+		"crest limit":       crestCase(),
+		"target":            target,
+	}
+	for name, in := range cases {
+		want, err := PlanBand(in, Tolerance{})
+		if err != nil {
+			t.Fatalf("%s: %v", name, err)
+		}
+		nominal, err := PlanDrain(in)
+		if err != nil {
+			t.Fatalf("%s: %v", name, err)
+		}
+		got, err := PlanBandFrom(in, nominal, Tolerance{})
+		if err != nil {
+			t.Fatalf("%s: %v", name, err)
+		}
+		if !reflect.DeepEqual(got, want) {
+			t.Errorf("%s: from the nominal plan\n%+v\nwant\n%+v", name, got, want)
+		}
+		if len(nominal.Curve) == 0 {
+			t.Errorf("%s: the caller's curve was taken", name)
+		}
 	}
 }

@@ -5,6 +5,7 @@ import (
 	"math"
 	"strconv"
 	"strings"
+	"sync"
 
 	"drawdown/calc"
 	"drawdown/presets"
@@ -138,6 +139,39 @@ type FieldSpec struct {
 
 // IsPicker reports whether the field is chosen from a list.
 func (f FieldSpec) IsPicker() bool { return f.Choices != nil }
+
+// choiceCache holds the picker lists of the catalogue last asked about, by
+// field. A catalogue never changes once built (presets.Catalogue has no
+// setters; Merge returns a new one), so each list is built once per
+// catalogue rather than in every validation of every keystroke. Holding the
+// pointer keeps that catalogue alive, so the cache never answers for another
+// catalogue at the same address; asking about another catalogue starts it
+// afresh.
+var choiceCache struct {
+	sync.Mutex
+	cat   *presets.Catalogue
+	lists map[FieldID][]Choice
+}
+
+// choiceList is f.Choices(cat), built once per catalogue and field (see
+// choiceCache). The slice is shared: read it, never change it.
+func (f FieldSpec) choiceList(cat *presets.Catalogue) []Choice {
+	if f.Choices == nil {
+		return nil
+	}
+	c := &choiceCache
+	c.Lock()
+	defer c.Unlock()
+	if c.cat != cat || c.lists == nil {
+		c.cat, c.lists = cat, map[FieldID][]Choice{}
+	}
+	l, ok := c.lists[f.ID]
+	if !ok {
+		l = f.Choices(cat)
+		c.lists[f.ID] = l
+	}
+	return l
+}
 
 // Fields returns every input field in pane order, then screen order within
 // the pane. The slice is new on every call.
@@ -303,7 +337,7 @@ func (f FieldSpec) ValidateChoice(text string, cat *presets.Catalogue) error {
 		}
 		return &FieldError{ID: f.ID, Label: f.Label, Text: text, Detail: "nothing chosen", Accept: f.choiceText(cat), Err: ErrNotSet}
 	}
-	choices := f.Choices(cat)
+	choices := f.choiceList(cat)
 	if len(choices) == 0 {
 		return nil
 	}
@@ -328,7 +362,7 @@ func (f FieldSpec) ChoiceID(text string, cat *presets.Catalogue) (string, bool) 
 	if f.Multi {
 		parts = strings.Split(text, ",")
 	}
-	choices := f.Choices(cat)
+	choices := f.choiceList(cat)
 	all := true
 	var out []string
 	for _, p := range parts {
@@ -385,7 +419,7 @@ func hasChoice(cs []Choice, id string) bool {
 }
 
 func (f FieldSpec) choiceText(cat *presets.Catalogue) string {
-	cs := f.Choices(cat)
+	cs := f.choiceList(cat)
 	ids := make([]string, 0, len(cs))
 	for _, c := range cs {
 		ids = append(ids, c.ID)

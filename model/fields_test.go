@@ -273,3 +273,42 @@ func TestAppliesOneRule(t *testing.T) {
 		})
 	}
 }
+
+// TestChoiceListPerCatalogue: the picker lists are built once per catalogue
+// and answer for the catalogue asked about, even when two catalogues take
+// turns (the user's presets over the built-in ones, and the built-in ones).
+func TestChoiceListPerCatalogue(t *testing.T) {
+	base := presets.Builtin()
+	u, err := presets.LoadUser(strings.NewReader("[[material]]\nid = \"test-wall\"\nname = \"Test wall\"\nroughness_mm = 0.05\nsource = \"invented for this test\"\n"), "p.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	merged := base.Merge(u)
+	mat, _ := FieldByID(FieldHoseMaterial)
+	for i := 0; i < 3; i++ {
+		if err := mat.ValidateChoice("test-wall", merged); err != nil {
+			t.Errorf("round %d: the merged catalogue's own material refused: %v", i, err)
+		}
+		if err := mat.ValidateChoice("test-wall", base); !errors.Is(err, ErrNotAChoice) {
+			t.Errorf("round %d: the built-in catalogue took a material it lacks: %v", i, err)
+		}
+	}
+	if a, b := mat.choiceList(base), mat.choiceList(base); len(a) == 0 || &a[0] != &b[0] {
+		t.Error("the list was built again for the same catalogue")
+	}
+	if got, want := mat.choiceList(base), mat.Choices(base); len(got) != len(want) {
+		t.Errorf("cached list has %d entries, fresh one %d", len(got), len(want))
+	}
+}
+
+// BenchmarkValidateChoice: a picker check as Compute runs it on every key.
+func BenchmarkValidateChoice(b *testing.B) {
+	cat := presets.Builtin()
+	liquid, _ := FieldByID(FieldLiquid)
+	b.ReportAllocs()
+	for i := 0; i < b.N; i++ {
+		if err := liquid.ValidateChoice("water", cat); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

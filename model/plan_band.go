@@ -38,11 +38,12 @@ func (c *computer) band() {
 	p.FlowHigh = max(hi, p.Result.Flow)
 }
 
-// drainBand fills TimeLow and TimeHigh (calc.PlanBand).
+// drainBand fills TimeLow and TimeHigh (calc.PlanBandFrom: the nominal plan
+// is the drain just planned, not planned again).
 func (c *computer) drainBand() {
 	p := &c.p
 	p.TimeLow, p.TimeHigh = p.Drain.Time, p.Drain.Time
-	b, err := calc.PlanBand(p.DrainIn, c.tolerance())
+	b, err := calc.PlanBandFrom(p.DrainIn, *p.Drain, c.tolerance())
 	if err != nil {
 		c.note("no time range: " + err.Error())
 		return

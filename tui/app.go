@@ -1,11 +1,17 @@
 package tui
 
 import (
+	"fmt"
+	"math"
+	"slices"
+	"strconv"
+	"strings"
 	"time"
 
 	tea "charm.land/bubbletea/v2"
 
 	"drawdown/model"
+	"drawdown/model/present"
 	"drawdown/presets"
 )
 
@@ -63,8 +69,21 @@ type Model struct {
 	// fitSeq tags the fits of the readings against the plan; fit and
 	// fitErr are the last one.
 	fitSeq uint64
+	// fitFor is what the last fit was asked for (fitCurrent).
+	fitFor fitKey
 	fit    *model.Fit
 	fitErr error
+
+	// inputs is what the plan on screen was made from (inputsKey), when the
+	// job's own inputs gave a valid plan; "" otherwise. A recompute with the
+	// same key changes nothing physical and is skipped (sameInputs).
+	// nextInputs is the key of the inputs being computed; inputsUnits the
+	// unit system the sheet is worded in.
+	inputs, nextInputs string
+	inputsUnits        model.System
+	// sheetGen counts the sheets made; resultGen is the one the Result
+	// pane shows (it is drawn again only for a new one).
+	sheetGen, resultGen uint64
 
 	showHelp bool
 	// showResult: the narrow layout shows the Result in place of the
@@ -270,7 +289,124 @@ func (m *Model) sync() {
 			m.shown[p] = m.st.gen
 		}
 	}
-	m.result.SetSheet(m.st.sheet, m.st.stale, m.st.problem)
+	if m.resultGen != m.sheetGen {
+		m.result.SetSheet(m.st.sheet, m.st.stale, m.st.problem)
+		m.resultGen = m.sheetGen
+	}
+}
+
+// keyFields is the field table, read once.
+var keyFields = model.Fields()
+
+// inputsKey is what model.Compute reads from the job, as it reads it: for
+// each field whether it applies (model.Applies), and for each that does its
+// value in SI units (a number) or the catalogue's ID (a picker), or that it
+// is empty; any input that is not in the field table, as typed. Two jobs
+// with the same key get the same plan in any unit system: a trailing space,
+// "12" against "12 m", "Water" against "water", or a units toggle change
+// nothing. ok is false when a field does not read: then the plan's errors,
+// which quote the text and give ranges in the user's units, must be made
+// again.
+func inputsKey(j *model.Job, cat *presets.Catalogue) (key string, ok bool) {
+	var b strings.Builder
+	b.Grow(24 * len(keyFields))
+	for _, f := range keyFields {
+		b.WriteString(string(f.ID))
+		if !model.Applies(j.Inputs, f.ID) {
+			b.WriteString("=-;")
+			continue
+		}
+		text := strings.TrimSpace(j.Inputs[f.ID])
+		if text == "" {
+			text = f.Default
+		}
+		switch {
+		case text == "":
+			b.WriteString("=;")
+			continue
+		case f.IsPicker():
+			id, found := f.ChoiceID(text, cat)
+			if !found {
+				return "", false
+			}
+			b.WriteString("=" + id)
+		default:
+			v, err := f.Validate(text, j.Units)
+			if err != nil {
+				return "", false
+			}
+			b.WriteString("=" + strconv.FormatUint(math.Float64bits(v), 16))
+		}
+		b.WriteByte(';')
+	}
+	var other []string
+	for id, text := range j.Inputs {
+		if _, known := model.FieldByID(id); !known {
+			other = append(other, string(id)+"="+text)
+		}
+	}
+	slices.Sort(other)
+	for _, o := range other {
+		b.WriteString(o + ";")
+	}
+	// The site facts reach the plan (water that may carry oil stops the
+	// drain where air starts) and the checklist built with it.
+	fmt.Fprintf(&b, "facts=%+v;", j.Facts)
+	return b.String(), true
+}
+
+// sameInputs reports whether the job's inputs read as those the valid plan
+// on screen was made from, so that recompute has nothing to do; in another
+// unit system only the sheet's words are made again. Otherwise it keeps the
+// key for keepInputs.
+func (m *Model) sameInputs() bool {
+	key, ok := inputsKey(&m.job, m.cat)
+	m.nextInputs = ""
+	if ok {
+		m.nextInputs = key
+	}
+	if !ok || key != m.inputs || !m.st.hasPlan || m.st.stale {
+		return false
+	}
+	if m.job.Units != m.inputsUnits {
+		m.st.sheet = present.ForJob(m.job, m.st.plan, m.job.Units)
+		m.inputsUnits = m.job.Units
+		m.sheetGen++
+	}
+	m.touch()
+	return true
+}
+
+// keepInputs records what the plan just made was made from: the key when
+// the job's own inputs gave it (valid), else nothing, so the next recompute
+// runs.
+func (m *Model) keepInputs(valid bool) {
+	m.inputs, m.inputsUnits = "", m.job.Units
+	if valid {
+		m.inputs = m.nextInputs
+	}
+	m.sheetGen++
+}
+
+// fitKey is what a fit of the readings is made from: the plan and the
+// number of readings (they are only ever added).
+type fitKey struct {
+	plan     uint64
+	readings int
+}
+
+// fitCurrent reports whether the last fit asked for was of this plan and
+// these readings, so that no new fit is needed (a fit of 10,000 readings
+// takes tens of milliseconds, and focusing the Log asks for one); the
+// summary is worded again, in case the units changed.
+func (m *Model) fitCurrent() bool {
+	k := fitKey{m.planGen, len(m.job.Readings)}
+	if m.fitSeq == 0 || m.fitFor != k {
+		m.fitFor = k
+		return false
+	}
+	m.log.SetSummary(readingsSummary(&m.job, m.fit, m.fitErr, m.loc()))
+	return true
 }
 
 // visible lists the panes on screen for the present layout and focus.

@@ -58,7 +58,11 @@ func (m *Model) restoreField() tea.Cmd {
 // input is wrong, the plan from each wrong field's last valid text (the job's
 // LastGood, kept in the job file) stands in, marked stale.
 func (m *Model) recompute() {
+	if m.sameInputs() {
+		return // nothing physical changed (app.go)
+	}
 	p := model.Compute(m.job, m.cat)
+	m.keepInputs(p.OK())
 	// The checklist's context is derived again from the job as it stands
 	// and this plan after every compute (model.ContextFor): nothing in it
 	// sticks, and a wrong field never leaves the checklist built for the
@@ -212,6 +216,9 @@ func (m *Model) tankTop() (float64, bool) {
 
 // refit fits the job's readings against the last valid plan, as a command.
 func (m *Model) refit() tea.Cmd {
+	if m.fitCurrent() {
+		return nil // the same plan and readings as the last fit (app.go)
+	}
 	m.fitSeq++
 	p := m.st.plan
 	if len(m.job.Readings) < 2 || !m.st.hasPlan || p.Drain == nil {

@@ -519,24 +519,11 @@ func (e testErr) Error() string { return string(e) }
 
 const errTest = testErr("disk full")
 
-// BenchmarkKeystroke is one keystroke at 80×24: Update (Job.Set and
-// model.Compute with the drain plan) and View.
-func BenchmarkKeystroke(b *testing.B) {
-	m := newTestModel(b, 80, 24)
-	m = press(b, m, "down", "enter") // typing in Hose length "12 m"
-	keys := []tea.KeyPressMsg{keyMsg("backspace"), {Code: 'm', Text: "m"}}
-	b.ReportAllocs()
-	b.ResetTimer()
-	var sink int
-	for i := 0; i < b.N; i++ {
-		next, _ := m.Update(keys[i%2])
-		m = next.(*Model)
-		sink += len(m.View().Content)
-	}
-	if sink == 0 {
-		b.Fatal("empty view")
-	}
-}
+// BenchmarkKeystroke is one keystroke at 80×24 that changes the plan: a
+// digit typed and erased in the hose length ("12.5" ⇄ "12."), Update
+// (Job.Set, model.Compute with the drain plan and its band, the sheet) and
+// View (see benchDigits).
+func BenchmarkKeystroke(b *testing.B) { benchDigits(b, 80, 24) }
 
 // sgrToken shows an SGR escape as ⟨params⟩ so that a golden file with the
 // attributes stays readable.
@@ -608,22 +595,7 @@ func TestStopMsg(t *testing.T) {
 
 // BenchmarkKeystrokeWide is the same keystroke at 120×40, where the Side
 // view and the Drain curve are on screen and redrawn too.
-func BenchmarkKeystrokeWide(b *testing.B) {
-	m := newTestModel(b, 120, 40)
-	m = press(b, m, "down", "enter")
-	keys := []tea.KeyPressMsg{keyMsg("backspace"), {Code: 'm', Text: "m"}}
-	b.ReportAllocs()
-	b.ResetTimer()
-	var sink int
-	for i := 0; i < b.N; i++ {
-		next, _ := m.Update(keys[i%2])
-		m = next.(*Model)
-		sink += len(m.View().Content)
-	}
-	if sink == 0 {
-		b.Fatal("empty view")
-	}
-}
+func BenchmarkKeystrokeWide(b *testing.B) { benchDigits(b, 120, 40) }
 
 // TestLightBackground: the styles follow the terminal's background.
 func TestLightBackground(t *testing.T) {

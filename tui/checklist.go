@@ -385,41 +385,6 @@ func ckSymbol(s model.StepState) (string, drawClass) {
 	return "[ ]", clsText
 }
 
-// ckWrap breaks plain text into lines of at most w cells at spaces.
-func ckWrap(s string, w int) []string {
-	if w <= 0 {
-		return nil
-	}
-	var out []string
-	for _, para := range strings.Split(s, "\n") {
-		line := ""
-		for _, word := range strings.Fields(para) {
-			for cellWidth(word) > w { // a word longer than the line
-				if line != "" {
-					out = append(out, line)
-					line = ""
-				}
-				r := []rune(word)
-				cut := min(w, len(r))
-				out = append(out, string(r[:cut]))
-				word = string(r[cut:])
-			}
-			switch {
-			case word == "":
-			case line == "":
-				line = word
-			case cellWidth(line)+1+cellWidth(word) <= w:
-				line += " " + word
-			default:
-				out = append(out, line)
-				line = word
-			}
-		}
-		out = append(out, line)
-	}
-	return out
-}
-
 // progressText is "7/19 done · 2 skipped · 1 n/a".
 func (v *ChecklistView) progressText() string {
 	p := v.cl.Progress()
@@ -643,63 +608,4 @@ func (v ChecklistView) View() string {
 	}
 	lines = append(lines[:min(len(lines), h-len(input))], input...)
 	return st.drawLines(lines, w, h)
-}
-
-// detailLines is the selected step in full, in at most maxH lines: section,
-// text, state, note and the caution in a box with the rule it comes from.
-// When room is short the caution and the state are kept first, then the
-// text, the note and the heading.
-func (v *ChecklistView) detailLines(s model.Step, w, maxH int) []drawLine {
-	if w < 8 || maxH <= 0 {
-		return nil
-	}
-	plain := func(ls []string, cls drawClass) []drawLine {
-		out := make([]drawLine, len(ls))
-		for i, l := range ls {
-			out[i] = drawPlain(l, cls)
-		}
-		return out
-	}
-	head := plain([]string{s.Section.Title() + " · step " + strconv.Itoa(v.cur+1) + " of " + strconv.Itoa(len(v.cl.Steps))}, clsMuted)
-	text := plain(ckWrap(present.Clean(s.Text), w), clsText)
-	sl, cls := ckStateLine(s)
-	state := plain(ckWrap(sl, w), cls)
-	var note []drawLine
-	if s.Note != "" {
-		note = plain(ckWrap("note: "+present.Clean(s.Note), w), clsText)
-	}
-	var box []drawLine
-	if s.Caution != "" {
-		inner := w - 4
-		body := ckWrap(s.Caution, inner)
-		if s.Rule != "" {
-			body = append(body, ckWrap("("+s.Rule+")", inner)...)
-		}
-		// Keep the box whole: cut its body, never its frame.
-		body = body[:min(len(body), max(maxH-2, 1))]
-		t := "┌─ ! Caution "
-		t += strings.Repeat("─", max(w-1-cellWidth(t), 0)) + "┐"
-		box = append(box, drawPlain(t, clsBox))
-		for _, l := range body {
-			pad := strings.Repeat(" ", max(inner-cellWidth(l), 0))
-			box = append(box, drawLine{{text: "│ ", cls: clsBox}, {text: l + pad}, {text: " │", cls: clsBox}})
-		}
-		box = append(box, drawPlain("└"+strings.Repeat("─", max(w-2, 0))+"┘", clsBox))
-	}
-	room := maxH - len(box)
-	state = state[:min(len(state), max(room, 0))]
-	room -= len(state)
-	text = text[:min(len(text), max(room, 0))]
-	room -= len(text)
-	note = note[:min(len(note), max(room, 0))]
-	room -= len(note)
-	head = head[:min(len(head), max(room, 0))]
-	out := append(head, text...)
-	out = append(out, state...)
-	out = append(out, note...)
-	out = append(out, box...)
-	if len(out) > maxH {
-		out = out[:maxH]
-	}
-	return out
 }

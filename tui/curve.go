@@ -43,6 +43,8 @@ type CurveView struct {
 	w, h    int
 	curve   drainCurve
 	has     bool
+	from    *calc.DrainPlan // the plan the curve was read from (Show)
+	axes    cvAxes          // the scales of the last plot, kept while they fit
 	units   drawUnits
 	styles  Styles
 	focused bool
@@ -122,11 +124,21 @@ func (v *CurveView) Click(int, int) (tea.Cmd, *FieldEdit) { return nil, nil }
 // CursorPos is nil: the pane has no text input.
 func (v *CurveView) CursorPos() *tea.Cursor { return nil }
 
-// Show plots the last valid plan's drain in the job's unit system.
+// Show plots the last valid plan's drain in the job's unit system. The same
+// plan in the same units is not drawn again (a plan never changes once
+// made: a new one is a new DrainPlan).
 func (v *CurveView) Show(st *screenState) {
+	var from *calc.DrainPlan
+	if st.hasPlan {
+		from = st.plan.Drain
+	}
+	if v.units.sys == st.job.Units && from == v.from && (from != nil) == v.has {
+		return
+	}
 	if v.units.sys != st.job.Units {
 		v.units = newDrawUnits(st.job.Units)
 	}
+	v.from = from
 	if c, ok := curveOf(st.plan); st.hasPlan && ok {
 		v.setCurve(c)
 		return
@@ -213,261 +225,6 @@ func (v *CurveView) redraw() {
 		return
 	}
 	v.frame = v.plot(w, h)
-}
-
-// plot draws title, level plot, flow strip and time axis. It is long
-// (cyclomatic ~55) because the four share one canvas and one set of scales
-// worked out together (the time axis serves both plots, the labels avoid the
-// curve); each block below is one part, in drawing order.
-func (v *CurveView) plot(w, h int) string {
-	c := v.curve
-	u := v.units
-	pts := c.Points
-	cv := newDrawCanvas(w, h)
-
-	// Rows: title, level plot, flow strip, axis line, axis labels.
-	flowH := 0
-	switch {
-	case h >= 16:
-		flowH = 4
-	case h >= 9:
-		flowH = 2
-	}
-	plotH := h - 3 - flowH
-	if plotH < 2 {
-		flowH, plotH = 0, h-3
-	}
-	plotTop := 1
-	flowTop := plotTop + plotH
-	axisRow := flowTop + flowH
-
-	// Level range in display units, tick-aligned.
-	lo, hi := math.Inf(1), math.Inf(-1)
-	for _, p := range pts {
-		lo, hi = min(lo, p.Level), max(hi, p.Level)
-	}
-	lo, hi = min(lo, c.StopLevel), max(hi, c.StopLevel)
-	if c.HasTarget {
-		lo, hi = min(lo, c.Target), max(hi, c.Target)
-	}
-	if lo > 0 && lo < 0.4*hi {
-		lo = 0 // show the floor when the drain goes most of the way down
-	}
-	dlo, dhi := lo/u.lenPer, hi/u.lenPer
-	if dhi-dlo < 1e-9 {
-		dlo, dhi = dlo-0.5, dhi+0.5
-	}
-	step := cvNiceStep(dhi-dlo, max(plotH*2/3, 1))
-	ylo, yhi := math.Floor(dlo/step+1e-9)*step, math.Ceil(dhi/step-1e-9)*step
-	if yhi-ylo < step {
-		yhi = ylo + step
-	}
-	dotsH := 4 * plotH
-	dotRow := func(level float64) int { // level in metres
-		d := level / u.lenPer
-		r := int(math.Round((yhi - d) / (yhi - ylo) * float64(dotsH-1)))
-		return min(max(r, 0), dotsH-1)
-	}
-
-	// Y labels for level ticks and the flow strip.
-	type tick struct {
-		row  int
-		text string
-	}
-	var yt []tick
-	for y := yhi; y >= ylo-step/2; y -= step {
-		yt = append(yt, tick{plotTop + dotRow(y*u.lenPer)/4, cvNumText(y, step) + " " + u.lenName})
-	}
-	peak := 0.0
-	for _, p := range pts {
-		peak = max(peak, p.Flow)
-	}
-	var ft []tick
-	if flowH >= 2 {
-		ft = append(ft, tick{flowTop, strconv.FormatFloat(peak/u.flowPer, 'f', cvFlowDecimals(peak/u.flowPer), 64)},
-			tick{flowTop + flowH - 1, u.flowName})
-	} else if flowH == 1 {
-		ft = append(ft, tick{flowTop, "flow"})
-	}
-	yw := 0
-	for _, t := range append(yt, ft...) {
-		yw = max(yw, cellWidth(t.text))
-	}
-	yw += 2 // " ┤"
-	px := yw
-	pw := w - px - 1
-	if pw < 8 {
-		return fitBlock([]string{clip(v.stopText(true), w)}, w, h)
-	}
-
-	// Time axis.
-	tStop := c.StopTime
-	tLast := pts[len(pts)-1].T
-	tmax := max(tStop, tLast)
-	tname, tper := curveTimeUnit(tmax)
-	// The axis runs a little past the stop so the stop mark stands clear;
-	// ticks fall on round values inside it.
-	tend := tmax / tper * 1.04
-	tstep := cvNiceStep(tend, max(pw/10, 1))
-	tspan := tend * tper // seconds across the plot
-	dotsW := 2 * pw
-	colOf := func(t float64) int { // dot column
-		r := int(math.Round(t / tspan * float64(dotsW-1)))
-		return min(max(r, 0), dotsW-1)
-	}
-
-	// Title.
-	title := "Level and flow against time · " + v.stopText(false)
-	if cellWidth(title) > w {
-		title = v.stopText(true)
-	}
-	if cellWidth(title) > w {
-		title = "■ stop " + model.Format(model.DimTime, c.StopTime, u.sys) + ": " + present.StopShort(c.StopReason)
-	}
-	cv.text(0, 0, clip(title, w), clsTitle)
-
-	// Axis lines and labels.
-	for _, t := range yt {
-		lbl := strings.Repeat(" ", yw-2-cellWidth(t.text)) + t.text
-		cv.text(0, t.row, lbl, clsMuted)
-		cv.set(px-1, t.row, '┤', clsMuted)
-	}
-	for r := plotTop; r < axisRow; r++ {
-		if cv.get(px-1, r) == ' ' {
-			cv.set(px-1, r, '│', clsMuted)
-		}
-	}
-	for _, t := range ft {
-		lbl := strings.Repeat(" ", yw-2-cellWidth(t.text)) + t.text
-		cv.text(0, t.row, lbl, clsMuted)
-	}
-	if flowH > 0 {
-		cv.set(px-1, flowTop, '┼', clsMuted)
-	}
-	cv.set(px-1, axisRow, '└', clsMuted)
-	cv.hline(px, px+pw-1, axisRow, '─', clsMuted)
-	lastEnd := -1
-	for k := 0; ; k++ {
-		tv := float64(k) * tstep
-		if tv > tend*(1+1e-9) {
-			break
-		}
-		col := px + colOf(tv*tper)/2
-		cv.set(col, axisRow, '┴', clsMuted)
-		lbl := cvNumText(tv, tstep)
-		x := col - cellWidth(lbl)/2
-		if k == 0 {
-			lbl, x = lbl+" "+tname, col // the unit goes with the first label: "0 min"
-		}
-		if x > lastEnd+1 && x+cellWidth(lbl) <= w {
-			lastEnd = cv.text(x, axisRow+1, lbl, clsMuted) - 1
-		}
-	}
-	// Target level and gas level, dashed, under the curve; their names
-	// are written on the lines after the curve is drawn.
-	type lineLabel struct {
-		row int
-		say []string // longest first
-	}
-	var names []lineLabel
-	if c.HasGasLevel && c.GasLevel >= ylo*u.lenPer && c.GasLevel <= yhi*u.lenPer {
-		r := plotTop + dotRow(c.GasLevel)/4
-		cv.hline(px, px+pw-1, r, '┈', clsWarn)
-		g := u.length(c.GasLevel)
-		names = append(names, lineLabel{r, []string{" ! gas gathers at the crest below " + g + " ", " ! gas at crest below " + g + " ", " ! gas below " + g + " ", " ! gas "}})
-	}
-	if c.HasTarget {
-		r := plotTop + dotRow(c.Target)/4
-		cv.hline(px, px+pw-1, r, '╌', clsLimit)
-		names = append(names, lineLabel{r, []string{" target " + u.length(c.Target) + " ", " target "}})
-	}
-	// Stop line.
-	stopCol := px + colOf(tStop)/2
-	cv.vline(stopCol, plotTop, axisRow-1, '┊', clsWarn)
-
-	// Level line in braille: for each dot column the level at that time,
-	// joined to the previous column so the line has no gaps.
-	dots := make([]uint8, pw*plotH) // braille bits per cell
-	var braille = [2][4]uint8{{0x01, 0x02, 0x04, 0x40}, {0x08, 0x10, 0x20, 0x80}}
-	setDot := func(dx, dy int) {
-		cx, cy := dx/2, dy/4
-		if cx < 0 || cx >= pw || cy < 0 || cy >= plotH {
-			return
-		}
-		dots[cy*pw+cx] |= braille[dx%2][dy%4]
-	}
-	j := 0
-	prev := -1
-	lastCol := colOf(tLast)
-	for dx := 0; dx <= lastCol; dx++ {
-		t := float64(dx) / float64(dotsW-1) * tspan
-		for j+1 < len(pts) && pts[j+1].T < t {
-			j++
-		}
-		lvl := cvInterpLevel(pts, j, t)
-		dy := dotRow(lvl)
-		if prev >= 0 {
-			for y := min(prev, dy); y <= max(prev, dy); y++ {
-				setDot(dx, y)
-			}
-		} else {
-			setDot(dx, dy)
-		}
-		prev = dy
-	}
-	for i, b := range dots {
-		if b != 0 {
-			cv.set(px+i%pw, plotTop+i/pw, rune(0x2800+int(b)), clsLiquid)
-		}
-	}
-	// Stop point.
-	cv.set(stopCol, plotTop+dotRow(c.StopLevel)/4, '■', clsWarn)
-
-	// Line names go where the line is still bare (at the left, where the
-	// level is usually high), shortened to fit.
-	for _, nm := range names {
-		x0 := px + 1
-		x1 := x0
-		for x1 < px+pw && (cv.get(x1, nm.row) == '╌' || cv.get(x1, nm.row) == '┈') {
-			x1++
-		}
-		for _, t := range nm.say {
-			if cellWidth(t) <= x1-x0 {
-				cv.text(x0, nm.row, t, clsMuted)
-				break
-			}
-		}
-	}
-
-	// Flow strip: one bar per cell column, eighths of a cell per step.
-	if flowH > 0 && peak > 0 {
-		bars := []rune(" ▁▂▃▄▅▆▇█")
-		for cx := 0; cx < pw; cx++ {
-			t := (float64(2*cx) + 0.5) / float64(dotsW-1) * tspan
-			if t > tLast {
-				break
-			}
-			f := cvInterpFlow(pts, t)
-			eighths := int(math.Round(f / peak * float64(8*flowH)))
-			for r := 0; r < flowH; r++ {
-				n := min(max(eighths-8*r, 0), 8)
-				if n > 0 {
-					cv.set(px+cx, flowTop+flowH-1-r, bars[n], clsLiquid)
-				}
-			}
-		}
-	}
-	return cv.render(&v.styles)
-}
-
-func cvFlowDecimals(v float64) int {
-	switch {
-	case v >= 100:
-		return 0
-	case v >= 10:
-		return 1
-	}
-	return 2
 }
 
 // interpLevel is the level at time t by straight lines between samples,

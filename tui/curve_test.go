@@ -174,3 +174,44 @@ func TestCurveOfDemo(t *testing.T) {
 		t.Error("a plan without a drain gave a curve")
 	}
 }
+
+// TestCurveSteady (issue 15 item 3): a new plan that moves the stop by a few
+// per cent moves the end of the curve, not the axes: the time labels and the
+// level labels stay as they were, and so does the plot's left edge after a
+// units toggle.
+func TestCurveSteady(t *testing.T) {
+	const w, h = 118, 17
+	v := NewCurveView(NewStyles(true), model.SI)
+	v.SetSize(w, h)
+	draw := func(k float64) []string {
+		c := cvTorricelli(2.0, -0.6, 0.35, 2.54, k, 60)
+		c.StopReason = "intake"
+		v.setCurve(c)
+		return strings.Split(ansi.Strip(v.View()), "\n")
+	}
+	base := draw(0.00143)
+	labels := func(f []string) string { // the y labels and the time axis
+		var b strings.Builder
+		for _, l := range f[1 : h-2] {
+			b.WriteString(string([]rune(l)[:10]) + "\n")
+		}
+		return b.String() + f[h-1]
+	}
+	for _, k := range []float64{0.00143 * 1.04, 0.00143 * 0.97, 0.00143 * 1.1} {
+		f := draw(k)
+		if labels(f) != labels(base) {
+			t.Errorf("flow ×%.2f rescaled the axes:\n%s\nwas\n%s", k/0.00143, labels(f), labels(base))
+		}
+	}
+	// A much faster drain is drawn on a new scale.
+	if f := draw(0.00143 * 3); f[h-1] == base[h-1] {
+		t.Error("a drain three times as fast kept the time axis")
+	}
+	left := func(f []string) int { return strings.IndexRune(f[1], '┤') }
+	draw(0.00143)
+	si := left(strings.Split(ansi.Strip(v.View()), "\n"))
+	v.SetUnits(model.US)
+	if us := left(strings.Split(ansi.Strip(v.View()), "\n")); us != si {
+		t.Errorf("the plot moved from column %d to %d with the units", si, us)
+	}
+}

@@ -14,11 +14,11 @@ import (
 
 // LogPane lists the job's log, newest at the bottom, with the time of each
 // line, under a summary of the level readings against the plan. Up and down
-// scroll; r types a level reading; w writes the job record.
+// scroll by an entry; r types a level reading; w writes the job record.
 type LogPane struct {
 	entries []model.LogEntry
 	summary []string // readings against the plan, worded by the root
-	scroll  int      // lines scrolled up from the bottom
+	scroll  int      // entries scrolled up from the bottom (the newest hidden)
 	w, h    int
 	styles  Styles
 	keys    KeyMap
@@ -28,6 +28,26 @@ type LogPane struct {
 	input   textinput.Model
 	errText string
 	draft   bool // the input holds a draft put back from the last session
+
+	// wrapped holds each entry's lines as last drawn, for the width they
+	// were wrapped to; only entries that came on screen are wrapped
+	// (visibleLines), so a log of 10,000 lines costs what a screenful does.
+	// A pointer, so that the copies View works on share it.
+	wrapped *logWraps
+}
+
+// logWraps caches the wrapped lines of log entries by index, with the text,
+// time and width they were made for.
+type logWraps struct {
+	w     int
+	loc   *time.Location
+	lines map[int]logWrap
+}
+
+type logWrap struct {
+	at    time.Time
+	text  string
+	lines []string
 }
 
 // NewLogPane returns an empty Log pane. loc is the zone times are shown in.
@@ -42,7 +62,7 @@ func NewLogPane(st Styles, km KeyMap, loc *time.Location) LogPane {
 	ts.Cursor.Blink = false // a blinking cursor streams bytes over SSH
 	ti.SetStyles(ts)
 	ti.SetVirtualCursor(false) // the root places the terminal's own cursor
-	return LogPane{styles: st, keys: km, loc: loc, input: ti}
+	return LogPane{styles: st, keys: km, loc: loc, input: ti, wrapped: &logWraps{}}
 }
 
 // SetSize sets the pane's size in cells.
@@ -51,8 +71,8 @@ func (l *LogPane) SetSize(w, h int) {
 	l.input.SetWidth(max(l.w-4, 1))
 }
 
-// SetStyles replaces the styles.
-func (l *LogPane) SetStyles(st Styles) { l.styles = st }
+// SetStyles replaces the styles (the wrapped lines carry them).
+func (l *LogPane) SetStyles(st Styles) { l.styles = st; l.wrapped = &logWraps{} }
 
 // SetEntries gives the pane the job's log.
 func (l *LogPane) SetEntries(e []model.LogEntry) {
@@ -227,24 +247,59 @@ func (l LogPane) View() string {
 		out = append(out, st.fast.Muted.Render("Nothing logged yet."))
 		return fitBlock(append(padTo(out, l.h-len(foot)), foot...), l.w, l.h)
 	}
-	var lines []string
-	for _, e := range l.entries {
-		stamp := e.At.In(l.loc).Format("01-02 15:04")
-		text := present.Clean(e.Text) // text from the job file is data
-		wrapped := wrapText(text, max(l.w-len(stamp)-2, 10), 4)
-		for i, w := range wrapped {
-			if i == 0 {
-				lines = append(lines, st.fast.Muted.Render(stamp)+"  "+st.fast.Value.Render(w))
-			} else {
-				lines = append(lines, strings.Repeat(" ", len(stamp)+2)+st.fast.Value.Render(w))
-			}
+	room := max(l.h-len(out)-len(foot), 0)
+	out = append(out, l.visibleLines(room)...)
+	return fitBlock(append(padTo(out, l.h-len(foot)), foot...), l.w, l.h)
+}
+
+// visibleLines is the room lines of the log that are on screen: the newest
+// entry not scrolled away at the bottom (l.scroll entries are hidden below
+// it). It wraps only the entries it shows, newest first, and keeps their
+// lines for the next frame, so its cost is a screenful's whatever the log's
+// length.
+func (l LogPane) visibleLines(room int) []string {
+	c := l.wrapped
+	if c == nil {
+		c = &logWraps{}
+	}
+	if c.w != l.w || c.loc != l.loc || c.lines == nil {
+		c.w, c.loc, c.lines = l.w, l.loc, map[int]logWrap{}
+	}
+	var rev [][]string // the entries' lines, newest first
+	n := 0
+	for i := len(l.entries) - 1 - l.scroll; i >= 0 && n < room; i-- {
+		ls := l.entryLines(c, i)
+		rev = append(rev, ls)
+		n += len(ls)
+	}
+	lines := make([]string, 0, n)
+	for i := len(rev) - 1; i >= 0; i-- {
+		lines = append(lines, rev[i]...)
+	}
+	return lines[max(len(lines)-room, 0):]
+}
+
+// entryLines is entry i wrapped to the pane's width, from the cache when it
+// was wrapped for the same text and time.
+func (l LogPane) entryLines(c *logWraps, i int) []string {
+	e := l.entries[i]
+	if w, ok := c.lines[i]; ok && w.text == e.Text && w.at.Equal(e.At) {
+		return w.lines
+	}
+	st := l.styles
+	stamp := e.At.In(l.loc).Format("01-02 15:04")
+	text := present.Clean(strings.ReplaceAll(e.Text, "\n", " ")) // text from the job file is data
+	wrapped := wrapText(text, max(l.w-len(stamp)-2, 10), 4)
+	out := make([]string, len(wrapped))
+	for j, w := range wrapped {
+		if j == 0 {
+			out[j] = st.fast.Muted.Render(stamp) + "  " + st.fast.Value.Render(w)
+		} else {
+			out[j] = strings.Repeat(" ", len(stamp)+2) + st.fast.Value.Render(w)
 		}
 	}
-	room := max(l.h-len(out)-len(foot), 0)
-	end := max(len(lines)-l.scroll, 0)
-	start := max(end-room, 0)
-	out = append(out, lines[start:end]...)
-	return fitBlock(append(padTo(out, l.h-len(foot)), foot...), l.w, l.h)
+	c.lines[i] = logWrap{at: e.At, text: e.Text, lines: out}
+	return out
 }
 
 // padTo pads lines with empty lines up to n (or cuts to n).

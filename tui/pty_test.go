@@ -19,7 +19,7 @@ import (
 )
 
 // openPTY opens a pseudo-terminal pair of the given size (Linux /dev/ptmx).
-func openPTY(t *testing.T, cols, rows int) (master, slave *os.File) {
+func openPTY(t testing.TB, cols, rows int) (master, slave *os.File) {
 	t.Helper()
 	m, err := os.OpenFile("/dev/ptmx", os.O_RDWR|syscall.O_NOCTTY, 0)
 	if err != nil {

@@ -49,14 +49,24 @@ func (r ResultPane) Sheet() present.Sheet { return r.sheet }
 func (r ResultPane) Stale() bool { return r.stale }
 
 func (r *ResultPane) render() {
-	r.lines = r.content()
+	// On a short pane the rows that only refine an answer go first (the
+	// ranges, then the crest's zero-flow and this-flow limits), so that
+	// every warning and caution stays on screen.
+	for tight := 0; tight <= 2; tight++ {
+		r.lines = r.content(tight)
+		if len(r.lines) <= r.h-2 {
+			break
+		}
+	}
 	r.frame = r.framed()
 }
 
 // labelW is the width of the label column.
 const labelW = 9
 
-func (r *ResultPane) content() []string {
+// content is the pane's lines; tight 1 leaves out the flow and time
+// ranges, tight 2 also the crest's zero-flow and this-flow limits.
+func (r *ResultPane) content(tight int) []string {
 	st := r.styles
 	s := r.sheet
 	iw := max(r.w-4, 8) // inside the border and one space each side
@@ -94,7 +104,7 @@ func (r *ResultPane) content() []string {
 	}
 	if s.Runs {
 		add(st.fast.Muted.Render(padRight("Flow", labelW)) + st.fast.Big.Render(s.Flow))
-		if s.FlowRange != "" {
+		if s.FlowRange != "" && tight < 1 {
 			row("  range", s.FlowRange)
 		}
 		row("Speed", s.Speed)
@@ -105,11 +115,12 @@ func (r *ResultPane) content() []string {
 		} else {
 			row("Stops in", d.Time)
 		}
-		if d.TimeRange != "" {
+		if d.TimeRange != "" && tight < 1 {
 			row("  range", d.TimeRange)
 		}
 		row("", d.StopShort)
-		row("", "at "+d.StopLevel+", "+d.Residual+" left")
+		row("", "at "+d.StopLevel+" off the floor")
+		row("", d.Residual+" left in it")
 		if d.AirShort != "" {
 			row("", d.AirShort)
 		}
@@ -122,9 +133,11 @@ func (r *ResultPane) content() []string {
 	lim := func(label, value string) {
 		add(st.fast.Muted.Render("  "+padRight(label, 17)) + st.fast.Value.Render(value))
 	}
-	lim("limit, no flow", c.NoFlow)
-	if c.ShowThisFlow {
-		lim("limit, this flow", c.ThisFlow)
+	if tight < 2 {
+		lim("limit, no flow", c.NoFlow)
+		if c.ShowThisFlow {
+			lim("limit, this flow", c.ThisFlow)
+		}
 	}
 	lim("working limit", c.Working)
 	add(st.fast.Muted.Render("  "+padRight("margin", 17)) + st.fastStyle(c.Status).Render(c.Margin+" "+c.Status.Symbol()))

@@ -8,8 +8,10 @@ import (
 	"testing"
 	"time"
 
+	tea "charm.land/bubbletea/v2"
 	"github.com/charmbracelet/x/ansi"
 
+	"drawdown/calc"
 	"drawdown/calc/testkit"
 	"drawdown/model"
 	"drawdown/model/present"
@@ -88,6 +90,23 @@ func svJob(edit func(j *model.Job)) model.Job {
 	return j
 }
 
+// svTransfer is svJob as a transfer into a vertical cylinder 1.2 m across
+// and 1.5 m tall whose floor stands 1.0 m below the source floor, holding
+// 0.2 m; the hose end sits 0.4 m above its floor (invented).
+func svTransfer(edit func(j *model.Job)) model.Job {
+	return svJob(func(j *model.Job) {
+		for id, v := range map[model.FieldID]string{model.FieldReceiverShape: "vertical-cylinder",
+			model.FieldReceiverDiameter: "1.2 m", model.FieldReceiverHeight: "1.5 m",
+			model.FieldReceiverFloor: "-1.0 m", model.FieldReceiverLevel: "0.2 m"} {
+			j.Inputs[id] = v
+		}
+		delete(j.Inputs, model.FieldTankTarget)
+		if edit != nil {
+			edit(j)
+		}
+	})
+}
+
 // svGeometry is the side view's picture of a job, through the shipped path:
 // model.Compute, present.Build, geometryOf.
 func svGeometry(t testing.TB, j model.Job) sideGeometry {
@@ -123,6 +142,16 @@ func TestSideView(t *testing.T) {
 			j.Inputs[model.FieldLift] = "10.5 m"
 			j.Units = model.US
 		})), model.US},
+		// A transfer into a 1.2 m cylinder standing 1 m below the source
+		// floor, holding 0.2 m: its level rises as the source falls.
+		{"transfer", svGeometry(t, svTransfer(nil)), model.SI},
+		// Where air starts to be drawn in at the intake, when the plan
+		// reports it (0.5 m, invented for the drawing).
+		{"air_starts", func() sideGeometry {
+			g := svGeometry(t, svJob(nil))
+			g.HasAirStarts, g.AirStarts = true, 0.5
+			return g
+		}(), model.SI},
 		// A pit without a tank whose outlet stands above the surface (as a
 		// raised receiving surface leaves it): no drop.
 		{"pit_no_drop", sideGeometry{Level: 0, Intake: -0.5, Crest: 1.2, Outlet: 0.3, WorkingLimit: 6, TheoreticalLimit: 9.5,
@@ -170,6 +199,10 @@ func TestSideViewNeverBreaks(t *testing.T) {
 			Tank: rng.IntN(2) == 0, TankHeight: pick(), TankWidth: pick(),
 			Level: pick(), Intake: pick(), Crest: pick(), Outlet: pick(),
 			OutletSubmerged: rng.IntN(2) == 0, HasTarget: rng.IntN(2) == 0, Target: pick(),
+			HasStop: rng.IntN(2) == 0, Stop: pick(), StopReason: calc.StopIntake,
+			HasAirStarts: rng.IntN(2) == 0, AirStarts: pick(),
+			Receiver: rng.IntN(3) == 0, RecvFloor: pick(), RecvHeight: pick(), RecvWidth: pick(),
+			RecvLevel: pick(), RecvStop: pick(), HoseEnd: pick(),
 			WorkingLimit: pick(), TheoreticalLimit: pick(),
 			CrestStatus: present.Status(rng.IntN(4)), CrestSays: []string{"crest status"},
 		}
@@ -238,5 +271,165 @@ func BenchmarkSideViewSetGeometryView(b *testing.B) {
 				paneSink = v.View()
 			}
 		})
+	}
+}
+
+// hoseBreak says where the hose line of a plain Side view frame is broken:
+// the cells of the hose (┃ ━ ┏ ┓ ┗ ┛ ▲ ▼ ╂) must be one line, side by side or
+// one above the other, from the intake ▲ to the open end ▼. "" when whole.
+func hoseBreak(frame string) string {
+	var grid [][]rune
+	for _, l := range strings.Split(frame, "\n") {
+		grid = append(grid, []rune(l))
+	}
+	isHose := func(r rune) bool { return strings.ContainsRune("┃━┏┓┗┛▲▼╂", r) }
+	start, n := [2]int{-1, -1}, 0
+	for y, row := range grid {
+		for x, r := range row {
+			if isHose(r) {
+				n++
+				if r == '▲' {
+					start = [2]int{x, y}
+				}
+			}
+		}
+	}
+	if start[0] < 0 {
+		return "no intake drawn"
+	}
+	seen := map[[2]int]bool{start: true}
+	queue := [][2]int{start}
+	end := false
+	for len(queue) > 0 {
+		p := queue[0]
+		queue = queue[1:]
+		end = end || grid[p[1]][p[0]] == '▼'
+		for _, d := range [][2]int{{1, 0}, {-1, 0}, {0, 1}, {0, -1}} {
+			q := [2]int{p[0] + d[0], p[1] + d[1]}
+			if q[1] < 0 || q[1] >= len(grid) || q[0] < 0 || q[0] >= len(grid[q[1]]) || seen[q] || !isHose(grid[q[1]][q[0]]) {
+				continue
+			}
+			seen[q] = true
+			queue = append(queue, q)
+		}
+	}
+	switch {
+	case !end:
+		return "the line from the intake does not reach the open end"
+	case len(seen) != n:
+		return "hose cells apart from the line"
+	}
+	return ""
+}
+
+// TestSideViewHoseWhole (issue 14 item 4): the hose line has no gap at any
+// screen size from 80×24 to 300×100, for a drain, a transfer, a submerged
+// outlet, a pit without a tank and a crest over its limit, through the
+// shipped screen (its layout gives the Side view its size).
+func TestSideViewHoseWhole(t *testing.T) {
+	jobs := map[string]model.Job{
+		"demo":     model.DemoJob(),
+		"tank":     svJob(nil),
+		"transfer": svTransfer(nil),
+		"submerged": svJob(func(j *model.Job) {
+			j.Inputs[model.FieldOutletSubmerged] = "yes"
+			j.Inputs[model.FieldDrop] = "0.8 m"
+		}),
+		"pit": svJob(func(j *model.Job) {
+			j.Inputs[model.FieldTankShape] = "none"
+			j.Inputs[model.FieldIntakeDepth] = "0.4 m"
+		}),
+		"over_working": svJob(func(j *model.Job) { j.Inputs[model.FieldLift] = "7.5 m" }),
+	}
+	for name, job := range jobs {
+		for w := 80; w <= 300; w += 7 {
+			for h := 24; h <= 100; h += 5 {
+				m := New(Options{Start: Start{Job: job.Clone()}, NoSave: true, Now: func() time.Time { return testClock }, Loc: time.UTC})
+				m = send(t, m, tea.WindowSizeMsg{Width: w, Height: h})
+				m = press(t, m, "5")
+				if why := hoseBreak(ansi.Strip(m.side.View())); why != "" {
+					t.Fatalf("%s at %d×%d: %s\n%s", name, w, h, why, ansi.Strip(m.side.View()))
+				}
+			}
+		}
+	}
+}
+
+// TestSideViewHoseWholeAnyGeometry: the same for random pictures at every
+// pane size the drawing is made at (24×7 up).
+func TestSideViewHoseWholeAnyGeometry(t *testing.T) {
+	rng := rand.New(rand.NewPCG(5, 6))
+	for i := 0; i < 3000; i++ {
+		f := func(lo, hi float64) float64 { return lo + rng.Float64()*(hi-lo) }
+		level := f(0.1, 5)
+		g := sideGeometry{Tank: rng.IntN(3) > 0, TankHeight: level + f(0, 3), TankWidth: f(0.3, 30),
+			Level: level, Intake: f(0, level), Crest: level + f(0, 12), Outlet: level - f(-0.5, 8),
+			OutletSubmerged: rng.IntN(3) == 0, HasStop: rng.IntN(2) == 0, Stop: f(0, level),
+			HasAirStarts: rng.IntN(2) == 0, AirStarts: f(0, level),
+			WorkingLimit: f(0, 8), TheoreticalLimit: f(8, 10.4), CrestStatus: present.Status(rng.IntN(4))}
+		if rng.IntN(3) == 0 {
+			g.Receiver = true
+			g.RecvFloor, g.RecvHeight, g.RecvWidth = g.Outlet-f(0, 2), f(0.3, 4), f(0.3, 10)
+			g.HoseEnd = g.RecvFloor + f(0, g.RecvHeight)
+			g.RecvLevel = g.RecvFloor + f(0, g.RecvHeight)
+			g.RecvStop = g.RecvLevel + f(0, g.RecvFloor+g.RecvHeight-g.RecvLevel)
+		}
+		w, h := 24+rng.IntN(280), 7+rng.IntN(95)
+		v := NewSideView(NewStyles(true), model.System(rng.IntN(2)))
+		v.SetSize(w, h)
+		v.setGeometry(g)
+		if why := hoseBreak(ansi.Strip(v.View())); why != "" {
+			t.Fatalf("%+v at %d×%d: %s\n%s", g, w, h, why, ansi.Strip(v.View()))
+		}
+	}
+}
+
+// TestSideViewSteady (issue 15 item 3): a few centimetres more or less lift
+// keep the drawing's scale (the caption is unchanged, one line moves); a
+// lift twice as large rescales it.
+func TestSideViewSteady(t *testing.T) {
+	v := NewSideView(NewStyles(true), model.SI)
+	v.SetSize(44, 21)
+	g := svGeometry(t, svJob(nil))
+	v.setGeometry(g)
+	caption := strings.Split(ansi.Strip(v.View()), "\n")[0]
+	for _, d := range []float64{0.03, -0.05, 0.1} {
+		h := g
+		h.Crest += d
+		v.setGeometry(h)
+		if got := strings.Split(ansi.Strip(v.View()), "\n")[0]; got != caption {
+			t.Errorf("crest %+.2f m rescaled the drawing: %q, was %q", d, got, caption)
+		}
+	}
+	h := g
+	h.Crest += 3
+	v.setGeometry(h)
+	if got := strings.Split(ansi.Strip(v.View()), "\n")[0]; got == caption {
+		t.Error("a crest 3 m higher kept the scale")
+	}
+}
+
+// TestSideViewDatum (issue 14 item 3): the Side view gives its heights from
+// the source surface and says so, the datum of the Result pane's crest
+// heights: the crest's label is the lift, signed.
+func TestSideViewDatum(t *testing.T) {
+	j := svJob(nil)
+	v := NewSideView(NewStyles(true), model.SI)
+	v.SetSize(78, 22)
+	v.setGeometry(svGeometry(t, j))
+	got := ansi.Strip(v.View())
+	for _, want := range []string{"heights from the surface", "crest +0.70 m", "intake −1.90 m", "outlet −2.60 m", "floor −2.00 m"} {
+		if !strings.Contains(got, want) {
+			t.Errorf("side view lacks %q:\n%s", want, got)
+		}
+	}
+	// A transfer shows the receiving vessel, where its level starts and
+	// what it rises to.
+	v.setGeometry(svGeometry(t, svTransfer(nil)))
+	got = ansi.Strip(v.View())
+	for _, want := range []string{"receiver at the start −2.80 m", "receiver rises to", "stops at"} {
+		if !strings.Contains(got, want) {
+			t.Errorf("transfer lacks %q:\n%s", want, got)
+		}
 	}
 }
