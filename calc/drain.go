@@ -46,6 +46,10 @@ type DrainInput struct {
 	Target Length
 	// Receiver, if not nil, makes the plan a transfer into it.
 	Receiver *Receiver
+	// Inflow is liquid coming into the source while the siphon runs (rain
+	// on the catchment, seepage, leakage), m³/s, constant; zero means none.
+	// The level then obeys A(h)·dh/dt = Inflow − Q(h).
+	Inflow FlowRate
 	// CurvePoints is the number of points in DrainPlan.Curve: 0 means
 	// DefaultCurvePoints; otherwise 2 to MaxCurvePoints.
 	CurvePoints int

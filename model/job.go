@@ -59,8 +59,10 @@ type Job struct {
 	// Facts are the crew's answers about the site (SiteFacts).
 	Facts SiteFacts `json:"site_facts,omitzero"`
 
-	Checklist Checklist  `json:"checklist"`
-	Readings  []Reading  `json:"readings,omitempty"`
+	Checklist Checklist `json:"checklist"`
+	Readings  []Reading `json:"readings,omitempty"`
+	// FlowTests are bucket-and-stopwatch tests of the flow (FlowTest).
+	FlowTests []FlowTest `json:"flow_tests,omitempty"`
 	Release   Release    `json:"release,omitzero"`
 	Log       []LogEntry `json:"log,omitempty"`
 
@@ -271,6 +273,9 @@ func (j Job) Clone() Job {
 		}
 	}
 	c.Readings = append([]Reading(nil), j.Readings...)
+	if j.FlowTests != nil {
+		c.FlowTests = append([]FlowTest(nil), j.FlowTests...)
+	}
 	c.Log = append([]LogEntry(nil), j.Log...)
 	c.Crew = append([]CrewMember(nil), j.Crew...)
 	c.Release.Photos = append([]Photo(nil), j.Release.Photos...)
