@@ -87,7 +87,7 @@ func geometryOf(p model.Plan, s present.Sheet) sideGeometry {
 	}
 	if d := p.Drain; d != nil {
 		sg.HasStop, sg.Stop, sg.StopReason = true, float64(d.StopLevel), d.StopReason
-		if v, ok := drainLevel(d, "AirStartsLevel"); ok && v > 0 {
+		if v := float64(d.AirStartsLevel); v > 0 {
 			sg.HasAirStarts, sg.AirStarts = true, v
 		}
 		if rc := p.Receiver; rc != nil && rc.Tank != nil {
@@ -101,18 +101,6 @@ func geometryOf(p model.Plan, s present.Sheet) sideGeometry {
 		}
 	}
 	return sg.sanitize()
-}
-
-// drainLevel reads a level the drain plan reports, by its field name, when
-// this build's calc.DrainPlan has it: AirStartsLevel comes with the intake
-// model (calc), and the side view draws it as soon as the plan carries it.
-// Once that field is in calc on every branch this can read it directly.
-func drainLevel(d *calc.DrainPlan, name string) (float64, bool) {
-	f := reflect.ValueOf(d).Elem().FieldByName(name)
-	if !f.IsValid() || !f.CanFloat() {
-		return 0, false
-	}
-	return f.Float(), true
 }
 
 // same reports whether two pictures are the same.
