@@ -229,6 +229,8 @@ func TestCalcTankPreset(t *testing.T) {
 // FuzzCalcArgs feeds the calc command arbitrary flag lists: it never
 // panics, exits 0 or 2 (1 only for a file it cannot read), prints no NaN or
 // Inf, and a refusal is one line on stderr.
+//
+// ci-fuzz-execs: 50000 (each input runs the whole calc command)
 func FuzzCalcArgs(f *testing.F) {
 	f.Add("--hose-id 25mm --hose-length 12m --lift 1.5m --drop 2.5m --json")
 	f.Add("--hose-id 1in --hose-length 40ft --lift 5ft --drop 8ft --units us --tank sphere --tank-diameter 2m --level 1.5m --curve")

@@ -157,6 +157,8 @@ func TestNewReadingRange(t *testing.T) {
 
 // FuzzReadJournal: any journal file reads without a panic, and replaying
 // it onto the demo job never panics and leaves a job that encodes.
+//
+// ci-fuzz-execs: 50000 (each input replays a journal onto a whole job)
 func FuzzReadJournal(f *testing.F) {
 	f.Add([]byte(`{"schema":"drawdown-journal","version":1,"job":"a"}` + "\n" + `{"n":1,"inputs":{"hose.length":"3 m"}}` + "\n"))
 	f.Add([]byte(`{"schema":"drawdown-journal","version":1,"job":"a"}` + "\n" + `{"n":1,"steps":{"99":{}}}` + "\n"))
@@ -183,6 +185,8 @@ func FuzzReadJournal(f *testing.F) {
 
 // FuzzLockFile: any lock file reads without a panic; a lock file that no
 // process holds never keeps a job from being opened, whatever it holds.
+//
+// ci-fuzz-execs: 50000 (each input writes and locks a real file)
 func FuzzLockFile(f *testing.F) {
 	f.Add([]byte(`{"schema":"drawdown-lock","version":1,"pid":4121,"host":"van-2","since":"2026-03-14T09:00:05Z","token":"ab"}`))
 	f.Add([]byte(`{"schema":"drawdown-lock","pid":-1,"since":"x"}`))
