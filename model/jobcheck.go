@@ -118,7 +118,12 @@ func jsonWords(err error) string {
 		if te.Field == "" {
 			return "the file holds " + got + ", not a job object"
 		}
-		return fmt.Sprintf("the entry %q holds %s where %s belongs (byte %d)", te.Field, got, typeWords(te.Type), te.Offset)
+		want := typeWords(te.Type)
+		if strings.HasPrefix(got, "a number") && strings.Contains(want, "number") {
+			// The right kind, but past what the entry can hold (1e400).
+			return fmt.Sprintf("the entry %q holds %s, too large to be read (byte %d)", te.Field, got, te.Offset)
+		}
+		return fmt.Sprintf("the entry %q holds %s where %s belongs (byte %d)", te.Field, got, want, te.Offset)
 	case errors.As(err, &pe):
 		return fmt.Sprintf("the time %q does not read; times are written like 2026-03-14T09:05:00Z", pe.Value)
 	}

@@ -84,7 +84,7 @@ var badJobs = []struct {
 	{"level as text", `{"schema": "drawdown-job", "version": 3, "readings": [{"at": "2026-03-14T09:00:00Z", "level_m": "high"}]}`,
 		ErrDamaged, `the entry "readings.level_m" holds text where a number belongs`},
 	{"a number past float range", `{"schema": "drawdown-job", "version": 3, "readings": [{"at": "2026-03-14T09:00:00Z", "level_m": 1e400}]}`,
-		ErrDamaged, `the entry "readings.level_m" holds a number (1e400) where a number belongs`},
+		ErrDamaged, `the entry "readings.level_m" holds a number (1e400), too large to be read`},
 	{"a time that does not read", `{"schema": "drawdown-job", "version": 3, "created": "yesterday"}`,
 		ErrDamaged, `the time "yesterday" does not read; times are written like 2026-03-14T09:05:00Z`},
 	{"inputs as a list", `{"schema": "drawdown-job", "version": 3, "inputs": ["38 mm"]}`, ErrDamaged, `the entry "inputs" holds a list where an object belongs`},
