@@ -284,7 +284,7 @@ func regularTable(fi fs.FileInfo) error {
 		return fmt.Errorf("is %s, not a CSV file; save the table to a file and give its path", what)
 	}
 	if fi.Size() > MaxTableBytes {
-		return fmt.Errorf("is %.1f MiB; a calibration table is at most 1 MiB (%d rows)", float64(fi.Size())/(1<<20), calc.MaxTableRows)
+		return fmt.Errorf("is %s bytes; a calibration table is at most 1 MiB (1,048,576 bytes, %s rows)", groupDigits(fi.Size()), groupDigits(calc.MaxTableRows))
 	}
 	return nil
 }
@@ -331,3 +331,13 @@ const (
 	errTableShort tableErr = "a tank table needs at least two rows"
 	errTableBig   tableErr = "larger than 1 MiB; a calibration table is at most 1 MiB"
 )
+
+// groupDigits writes n with commas between groups of three digits
+// (1,100,000), as the size of a file is read.
+func groupDigits(n int64) string {
+	s := strconv.FormatInt(n, 10)
+	for i := len(s) - 3; i > 0 && s[i-1] != '-'; i -= 3 {
+		s = s[:i] + "," + s[i:]
+	}
+	return s
+}
