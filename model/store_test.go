@@ -255,22 +255,27 @@ func TestSaveAtomicNeverOverwritesUnreadable(t *testing.T) {
 		if !bytes.Equal(now, orig) {
 			t.Errorf("%s: file changed", fixture)
 		}
-		keep, err := ReplaceDamaged(path, DemoJob())
+		// What the first screen's "keep it aside" does (SetAsideDamaged):
+		// every byte kept, then the path is free for a new save.
+		keep, err := SetAsideDamaged(path)
 		if err != nil || keep != path+".damaged" {
-			t.Fatalf("%s: ReplaceDamaged = %q, %v", fixture, keep, err)
+			t.Fatalf("%s: SetAsideDamaged = %q, %v", fixture, keep, err)
 		}
 		kept, _ := os.ReadFile(keep)
 		if !bytes.Equal(kept, orig) {
 			t.Errorf("%s: damaged copy differs", fixture)
 		}
-		if _, err := Load(path); err != nil {
-			t.Errorf("%s: after replace: %v", fixture, err)
+		if err := SaveAtomic(path, DemoJob()); err != nil {
+			t.Errorf("%s: save after setting aside: %v", fixture, err)
 		}
-		// A second replace keeps the first copy and makes another.
+		if _, err := Load(path); err != nil {
+			t.Errorf("%s: after setting aside: %v", fixture, err)
+		}
+		// A second one keeps the first copy and makes another.
 		os.WriteFile(path, []byte("{"), 0o600)
-		keep2, err := ReplaceDamaged(path, DemoJob())
+		keep2, err := SetAsideDamaged(path)
 		if err != nil || keep2 != path+".damaged-2" {
-			t.Errorf("%s: second ReplaceDamaged = %q, %v", fixture, keep2, err)
+			t.Errorf("%s: second SetAsideDamaged = %q, %v", fixture, keep2, err)
 		}
 	}
 }

@@ -32,7 +32,7 @@ func plainIOError(err error) string {
 //
 // SaveAtomic refuses (ErrWouldOverwrite) to replace an existing file that
 // does not decode as a job of this or an older version, so a damaged or
-// newer-version file is never lost; see ReplaceDamaged.
+// newer-version file is never lost; see SetAsideDamaged.
 func SaveAtomic(path string, j Job) error {
 	if old, err := os.ReadFile(path); err == nil {
 		if _, derr := decodeBytes(old); derr != nil {
@@ -49,44 +49,6 @@ func SaveAtomic(path string, j Job) error {
 		return &JobFileError{Path: path, Detail: "cannot check the existing file: " + plainIOError(err), Err: err}
 	}
 	return writeAtomic(path, j)
-}
-
-// ReplaceDamaged keeps a copy of the unreadable file at path (as
-// path.damaged, or path.damaged-2, … so that no earlier copy is replaced)
-// and then saves j there. It returns the copy's path.
-func ReplaceDamaged(path string, j Job) (string, error) {
-	old, err := os.ReadFile(path)
-	if err != nil && !errors.Is(err, fs.ErrNotExist) {
-		return "", &JobFileError{Path: path, Detail: "cannot read the existing file: " + plainIOError(err), Err: err}
-	}
-	keep := ""
-	if err == nil {
-		for i := 1; ; i++ {
-			keep = path + ".damaged"
-			if i > 1 {
-				keep += "-" + strconv.Itoa(i)
-			}
-			f, err := os.OpenFile(keep, os.O_WRONLY|os.O_CREATE|os.O_EXCL, 0o600)
-			if errors.Is(err, fs.ErrExist) {
-				continue
-			}
-			if err != nil {
-				return "", &JobFileError{Path: keep, Detail: "cannot keep a copy: " + plainIOError(err), Err: err}
-			}
-			_, werr := f.Write(old)
-			if serr := f.Sync(); werr == nil {
-				werr = serr
-			}
-			if cerr := f.Close(); werr == nil {
-				werr = cerr
-			}
-			if werr != nil {
-				return "", &JobFileError{Path: keep, Detail: "cannot keep a copy: " + plainIOError(werr), Err: werr}
-			}
-			break
-		}
-	}
-	return keep, writeAtomic(path, j)
 }
 
 func writeAtomic(path string, j Job) error {
