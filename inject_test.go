@@ -2,7 +2,9 @@ package main
 
 import (
 	"bytes"
+	encsv "encoding/csv"
 	"regexp"
+	"strconv"
 	"strings"
 	"testing"
 	"time"
@@ -69,7 +71,7 @@ func FuzzInjection(f *testing.F) {
 		"\x1b[31mred\x1b[0m", "note\x1b[8m", "\x1b]0;title\x07", "\x1b]52;c;Y2xpcGJvYXJk\x07",
 		"\x9b31m", "a\u202eevil", "<script>alert(1)</script>", "![x](http://example.invalid/i.png)",
 		"[x](javascript:alert(1))", "=HYPERLINK(\"http://example.invalid\")", "+1", "@SUM(A1)", "\t=1",
-		"line\nbreak\r\nand\rcr", "\x00\x01\x7f", string([]byte{0xff, 0xfe}),
+		"line\nbreak\r\nand\rcr", "\x00\x01\x7f", string([]byte{0xff, 0xfe}), "\"-", "-1+1",
 	} {
 		f.Add(s)
 	}
@@ -90,10 +92,19 @@ func FuzzInjection(f *testing.F) {
 			t.Fatal(err)
 		}
 		checkInert(t, "csv", csv.String(), false)
-		for _, line := range strings.Split(csv.String(), "\n") {
-			cells := strings.Split(line, ",")
-			if last := strings.Trim(cells[len(cells)-1], `"`); last != "" && strings.ContainsRune("=+-@", rune(last[0])) {
-				t.Fatalf("CSV cell would run as a formula: %q", line)
+		// Each cell as a spreadsheet reads it (quotes undone, so a note
+		// `"-` is the text "-, not a formula), checked for a formula start.
+		cr := encsv.NewReader(strings.NewReader(csv.String()))
+		cr.FieldsPerRecord = -1
+		rows, err := cr.ReadAll()
+		if err != nil {
+			t.Fatalf("CSV does not read back: %v", err)
+		}
+		for _, row := range rows {
+			for _, cell := range row {
+				if cell != "" && strings.ContainsRune("=+@", rune(cell[0])) || strings.HasPrefix(cell, "-") && !isNumber(cell) {
+					t.Fatalf("CSV cell would run as a formula: %q in %q", cell, row)
+				}
 			}
 		}
 		m := tui.New(tui.Options{Start: tui.Start{Job: j}, NoSave: true, Cat: cat})
@@ -110,4 +121,11 @@ func FuzzInjection(f *testing.F) {
 		checkInert(t, "calc error line", errb.String(), false)
 		checkInert(t, "calc output", present.CleanText(out.String()), false)
 	})
+}
+
+// isNumber reports whether a CSV cell is a plain number (a negative figure
+// the tool wrote, not text from outside).
+func isNumber(cell string) bool {
+	_, err := strconv.ParseFloat(cell, 64)
+	return err == nil
 }

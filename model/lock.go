@@ -275,14 +275,27 @@ func (l *Lock) Held() error {
 		return nil
 	}
 	e := &LockLostError{Path: l.job}
-	if f, err := os.Open(l.path); err == nil {
-		if info, err := readLockInfo(f); err == nil {
-			e.By = info
+	// A take-over removes the old file and then writes its own record: for
+	// a moment the path holds nothing or an empty file. Wait for the record
+	// (at most lostWait) so the loss names who took the job.
+	for deadline := time.Now().Add(lostWait); ; time.Sleep(5 * time.Millisecond) {
+		if f, err := os.Open(l.path); err == nil {
+			info, rerr := readLockInfo(f)
+			f.Close()
+			if rerr == nil && info.Token != "" {
+				e.By = info
+				break
+			}
 		}
-		f.Close()
+		if time.Now().After(deadline) {
+			break
+		}
 	}
 	return e
 }
+
+// lostWait bounds how long Held waits for a taker's lock record.
+const lostWait = 250 * time.Millisecond
 
 // Release gives the lock up: the lock file is removed (when it is still
 // this process's) and the advisory lock dropped.
