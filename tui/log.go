@@ -311,10 +311,11 @@ func (l LogPane) footLines() []string {
 		if l.choosing {
 			return []string{l.styles.fast.Label.Render("Correct which reading? ↑/↓ choose, enter correct, esc cancel")}
 		}
-		if l.errText != "" {
-			return []string{l.styles.fast.Danger.Render(l.errText)}
+		var out []string
+		for _, w := range wrapText(l.errText, max(l.w, 10), 2) {
+			out = append(out, l.styles.fast.Danger.Render(w))
 		}
-		return nil
+		return out
 	}
 	st := l.styles
 	label := map[inputKind]string{
@@ -325,9 +326,11 @@ func (l LogPane) footLines() []string {
 	if l.draft {
 		label = "(draft) " + label // put back from the last session
 	}
-	out := []string{st.fast.Label.Render(label), l.input.View()}
+	out := []string{st.fast.Label.Render(ansi.Truncate(label, max(l.w, 1), "…")), l.input.View()}
 	if l.errText != "" {
-		out = append(out, st.fast.Danger.Render(l.errText))
+		for _, w := range wrapText(l.errText, max(l.w, 10), 3) {
+			out = append(out, st.fast.Danger.Render(w))
+		}
 	}
 	return out
 }
@@ -381,7 +384,11 @@ func (l LogPane) View() string {
 	st := l.styles
 	out := []string{st.fast.PaneTitle.Render("Log") + st.fast.Muted.Render("  readings and the job's record, newest last")}
 	for _, s := range l.summary {
-		for _, w := range wrapText(s, max(l.w-2, 10), 3) {
+		n := 3
+		if strings.HasPrefix(s, "!") {
+			n = 5 // a warning is read whole
+		}
+		for _, w := range wrapText(s, max(l.w-2, 10), n) {
 			if strings.HasPrefix(s, "!") {
 				out = append(out, st.fast.Warning.Render(w))
 			} else {

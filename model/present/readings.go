@@ -158,14 +158,16 @@ func FitSummary(f *model.Fit, err error, w FitWords) []FitLine {
 		out = append(out, FitLine{Text: k})
 	}
 	switch {
+	case f.InflowFitted && f.Inflow < 1e-9:
+		out = append(out, FitLine{Text: "no inflow found (readings and flow tests together)"})
 	case f.InflowFitted:
 		out = append(out, FitLine{Text: "inflow fitted from the readings and flow tests together: " + fig.Of(model.DimFlow, f.Inflow)})
 	case f.Inflow > 0:
 		out = append(out, FitLine{Text: "inflow as planned: " + fig.Of(model.DimFlow, f.Inflow) + " (a flow test would let the fit tell it from extra loss)"})
 	}
 	if f.Slowing {
-		s := FitSlowing + ": the level now falls " + FallRate(f.LateRate, sys) + ", " + pct(f.LateRate/f.EarlyRate) +
-			" of the earlier " + FallRate(f.EarlyRate, sys) + " (the plan slows to " + pct(f.PlanRatio) + ")"
+		s := FitSlowing + ". Now " + FallRate(f.LateRate, sys) + ", " + pct(f.LateRate/f.EarlyRate) +
+			" of the earlier " + FallRate(f.EarlyRate, sys) + " (the plan's own: " + pct(f.PlanRatio) + ")"
 		if f.LateFitted {
 			s += "; loss now ΔK " + strconv.FormatFloat(f.LateK, 'f', 2, 64)
 		}
