@@ -93,25 +93,6 @@ func sortReadings(rs []Reading) {
 	}
 }
 
-// MaxFlowTests bounds the flow tests kept with a job (a bucket test every
-// minute for a long day).
-const MaxFlowTests = 2000
-
-// AddFlowTest keeps a flow test with the job and logs it (words: flow the
-// caller gives, in the job's units). The test's level, when not typed, is
-// the caller's to fill (FlowTestLevel).
-func (j *Job) AddFlowTest(f FlowTest, words string) error {
-	if err := f.Validate(); err != nil {
-		return err
-	}
-	if len(j.FlowTests) >= MaxFlowTests {
-		return fmt.Errorf("flow test: the job holds %d flow tests, the most it keeps", MaxFlowTests)
-	}
-	j.FlowTests = append(j.FlowTests, f)
-	j.AddLog(f.At, "flow test "+words)
-	return nil
-}
-
 // CorrectReading replaces reading i (its time and level) with r, keeping
 // its note, and logs the change at now (before and after, in words the
 // caller gives). A correction is not an append: the journal does not hold

@@ -168,10 +168,11 @@ func (m *Model) addFlowTest(msg FlowTestAddMsg) tea.Cmd {
 		p := m.st.plan
 		f.Level = model.FlowTestLevel(&m.job, &p, now)
 	}
-	if err := m.job.AddFlowTest(f, present.FlowTestLine(f, sys)); err != nil {
+	if err := m.job.AddFlowTest(f); err != nil {
 		m.log.ReadingError("✗ " + err.Error())
 		return nil
 	}
+	m.job.AddLog(now, "flow test "+present.FlowTestLine(f, sys))
 	m.log.ReadingTaken()
 	m.fit, m.fitErr = nil, nil
 	m.showReadings()
