@@ -533,3 +533,39 @@ func TestNewReading(t *testing.T) {
 		t.Error("reading without a time accepted")
 	}
 }
+
+// On the real planner with an inflow (calc's A(h)·dh/dt = Qᵢₙ − Q(h), checked
+// there against the closed form with inflow): readings and two bucket tests
+// taken off its curve give back the extra loss and the inflow together.
+func TestFitLossAndInflowOnPlanner(t *testing.T) {
+	in := sumpDrain(t)
+	sim := DrainSimulator(in)
+	base, err := sim(FitParams{}, float64(in.Siphon.Geometry.Surface))
+	if err != nil {
+		t.Fatal(err)
+	}
+	trueK, trueQ := 3.0, 0.25*base.Flows[0]
+	truth, err := sim(FitParams{ExtraK: trueK, Inflow: trueQ}, float64(in.Siphon.Geometry.Surface))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var rs []Reading
+	for i := 0; i < 8; i++ {
+		s := 600 + float64(i)*600
+		rs = append(rs, Reading{At: rdT0.Add(DurationOf(s)), Level: truth.LevelAt(s)})
+	}
+	var ft []FlowTest
+	for _, s := range []float64{900, 3000} {
+		h := truth.LevelAt(s)
+		q, _ := truth.FlowAtLevel(h)
+		ft = append(ft, FlowTest{At: rdT0.Add(DurationOf(s)), Volume: 0.01, Seconds: 0.01 / q, Level: h})
+	}
+	f, err := FitReadings(rs, ft, sim, FitOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Logf("planner: ΔK %.3f (true %g), inflow %.4g m³/s (true %.4g)", f.ExtraK, trueK, f.Inflow, trueQ)
+	if !f.InflowFitted || math.Abs(f.ExtraK-trueK) > 0.1 || math.Abs(f.Inflow-trueQ) > 0.03*trueQ {
+		t.Errorf("ΔK %.3f (want %g ± 0.1), inflow %.4g (want %.4g ± 3 %%)", f.ExtraK, trueK, f.Inflow, trueQ)
+	}
+}
