@@ -132,6 +132,22 @@ type DrainPlan struct {
 	// EqualHead is the head used for the "equal" stop, m.
 	EqualHead Length
 
+	// Inflow is DrainInput.Inflow, m³/s. SettleLevel is the level where the
+	// siphon's flow equals it, when the plan stops there (SettleFound; the
+	// StopReason is StopSettles): below the start level when the siphon
+	// falls behind as the level drops, above it when the inflow outruns the
+	// siphon from the start and the level rises (Rises). With Overflows the
+	// flow never catches up below the brim: SettleLevel is the brim, where
+	// the excess spills over, and Time the time to reach it. When the siphon
+	// keeps up (Inflow > 0, SettleFound false) the flow stays above the
+	// inflow down to the stop.
+	Inflow                        FlowRate
+	SettleLevel                   Length
+	SettleFound, Rises, Overflows bool
+	// Time90 is the time to move 90 % of Volume, s: with the slow tail of a
+	// drain it is well short of Time.
+	Time90 Seconds
+
 	// Start is the steady solution at the start level (with Siphon.MaxFlow:
 	// the capped one; the valve it needs, Start.MaxFlowThrottleK, stays set
 	// for the whole drain).
@@ -178,7 +194,25 @@ type DrainPlan struct {
 //   - crest:   lift = RunningCrestHeight − EqualHead (the choked flow
 //     tapers to nothing);
 //   - equal:   H = EqualHead;
-//   - receiver_full: the receiver holds its brim volume.
+//   - receiver_full: the receiver holds its brim volume;
+//   - settles: with an inflow Q_in, within SettleMargin of the level h_s
+//     where Q(h_s) = Q_in, when h_s lies above every other stop.
+//
+// Inflow. With liquid coming in at a constant Q_in (rain on the catchment,
+// seepage, leakage) the source level obeys the volume balance
+//
+//	A(h)·dh/dt = Q_in − Q(h),  t = ∫_{h_stop}^{h₀} A(h)/(Q(h) − Q_in) dh
+//
+// (conservation of mass for a control volume, Çengel & Cimbala Ch. 5; the
+// inflow-outflow tank of any hydrology text's level-pool routing). The
+// integrand grows as 1/(h − h_s) towards the settle level, so the time to it
+// is infinite and the plan stops SettleMargin above it, integrating in
+// u = −ln(h − h_s) where the integrand is smooth. When Q_in ≥ Q(h₀) the
+// level rises instead, t = ∫_{h₀}^{h_end} A/(Q_in − Q) dh with Solve at each
+// node, to within SettleMargin of the level where Q = Q_in, or to the brim.
+// The volume moved by the siphon is V(h₀) − V(h_stop) + Q_in·t. Inflow
+// with a Receiver is refused (a transfer's two levels are then no longer
+// tied by one volume).
 //
 // Events that follow the flow are located on the interpolants by Brent's
 // method (R.P. Brent, Algorithms for Minimization without Derivatives, 1973,
@@ -203,7 +237,8 @@ type DrainPlan struct {
 // Errors: Solve's errors for the siphon; a *RangeError for a start level not
 // in (0, tank height], an intake not in [0, start level), a target not in
 // [0, start level), a curve size not in {0} ∪ [2, MaxCurvePoints], a receiver
-// level not in [0, its height], a receiver floor beyond ±MaxElevation; an
+// level not in [0, its height], a receiver floor beyond ±MaxElevation, an
+// inflow not in [0, MaxFlowRate] or given with a receiver; an
 // error wrapping ErrNoTank when a tank is missing.
 //
 // Caution: the plan is an estimate from measured inputs and a steady-flow
@@ -230,6 +265,7 @@ type planner struct {
 	h0, intake, crest, hoseEnd float64
 	rcvFloor, vs0, vr0, vrCap  float64
 	target                     float64 // < 0: none
+	qin                        float64 // inflow, m³/s
 	eps                        float64
 
 	// hose constants (see siphonCase)
@@ -291,6 +327,9 @@ func (p *planner) init(in *DrainInput, points int) error {
 	p.hoseEnd = float64(g.Outlet)
 	p.vs0 = float64(in.Tank.Volume(g.Surface))
 	if err := p.initReceiver(in.Receiver, top); err != nil {
+		return err
+	}
+	if err := p.initInflow(in.Inflow); err != nil {
 		return err
 	}
 	// Validate the siphon itself at the start.

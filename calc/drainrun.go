@@ -12,6 +12,7 @@ func (p *planner) run() (DrainPlan, error) {
 	_, hr0, _, H0 := p.state(0)
 	plan.ReceiverLevel = Length(hr0)
 	plan.AirStartsLevel, plan.PrimeLostLevel = start.AirStartsLevel, start.PrimeLostLevel
+	plan.Inflow = FlowRate(p.qin)
 	targetBelow := func() bool { return p.target >= 0 && p.target < float64(plan.PrimeLostLevel) }
 
 	stopNow := func(why StopReason) (DrainPlan, error) {
@@ -26,6 +27,13 @@ func (p *planner) run() (DrainPlan, error) {
 	}
 	if why, ok := p.stopAtStart(&plan); ok {
 		return stopNow(why)
+	}
+	if p.qin > 0 && p.qin >= float64(start.Flow) {
+		if err := p.rise(&plan); err != nil {
+			return DrainPlan{}, err
+		}
+		plan.TargetBelowPrimeLost = targetBelow()
+		return plan, nil
 	}
 
 	xBottom, xTarget, xFull, xEqual, x0, haveX0 := p.geoLimits()
@@ -92,6 +100,12 @@ func (p *planner) run() (DrainPlan, error) {
 		}
 	}
 	first(xCrest, okCrest, StopCrest)
+	var xs float64
+	if x, ok := p.settleRoot(scan, scanN, tolX); ok && x < xStop {
+		xs = x
+		xStop, why = max(x-float64(SettleMargin), 0), StopSettles
+		plan.SettleLevel, plan.SettleFound = Length(p.h0-x), true
+	}
 	if xStop <= 0 {
 		return stopNow(why)
 	}
@@ -100,8 +114,12 @@ func (p *planner) run() (DrainPlan, error) {
 	if why == StopCrest {
 		xz, haveZ = x0Crest, true
 	}
+	m := newXmap(xz, haveZ, 0, xStop)
+	if why == StopSettles {
+		m = newSettleXmap(xs, 0, xStop)
+	}
 	xa, gulp := roots[evAir], found[evAir] && roots[evAir] < xStop
-	p.integrate(&plan, newXmap(xz, haveZ, 0, xStop), xa, gulp)
+	p.integrate(&plan, m, xa, gulp)
 	plan.StartFlow = start.Flow
 	plan.TargetBelowPrimeLost = targetBelow()
 	return plan, nil

@@ -145,6 +145,12 @@ const (
 	QuantityHoseWall
 	// QuantityDownLegSlope: steepest down-leg slope after the crest.
 	QuantityDownLegSlope
+	// QuantityInflow: liquid coming into the source while it drains.
+	QuantityInflow
+	// QuantityBoreTolerance: the ± tolerance of the hose's bore.
+	QuantityBoreTolerance
+	// QuantityPumpRate: a pump's rate for finishing the residual.
+	QuantityPumpRate
 	quantityCount
 )
 
@@ -202,6 +208,9 @@ var quantityCodes = [...]string{
 	"vacuum_rating",
 	"hose_wall",
 	"down_leg_slope",
+	"inflow",
+	"bore_tolerance",
+	"pump_rate",
 }
 
 // String returns the stable lowercase code of q, e.g. "hose_diameter".

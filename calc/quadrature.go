@@ -67,11 +67,11 @@ func (p *planner) integrate(plan *DrainPlan, m xmap, xAir float64, gulp bool) {
 		s, dsds := smooth(sg)
 		x, dxds := m.at(s)
 		e := p.eval(x)
-		if !(e.q > 0) {
+		if !(e.q > p.qin) {
 			return 0, 0
 		}
 		w := dsds * dxds * p.dvdx(e.hs)
-		return w / e.q, w / e.q0
+		return w / (e.q - p.qin), w / (e.q0 - p.qin)
 	}
 	var ts, fs, ts0, fs0 [quadIntervals + 1]float64
 	lobatto(rate, ts[:], fs[:], ts0[:], fs0[:])
@@ -94,8 +94,13 @@ func (p *planner) integrate(plan *DrainPlan, m xmap, xAir float64, gulp bool) {
 	if p.hasRcv {
 		plan.Volume = Volume(m.xe)
 	} else {
-		plan.Volume = Volume(p.vs0 - float64(plan.Residual))
+		plan.Volume = Volume(p.vs0 - float64(plan.Residual) + p.qin*float64(plan.Time))
 	}
+	plan.Time90 = Seconds(p.time90(float64(plan.Volume), func(sg float64) (float64, float64) {
+		s, _ := smooth(sg)
+		x, _ := m.at(s)
+		return x, hermite(ts[:], fs[:], sg)
+	}))
 	plan.EndFlow = FlowRate(e.q)
 	if n := len(plan.Curve); n > 0 {
 		plan.Curve[n-1].Time = plan.Time

@@ -30,6 +30,13 @@ const (
 	StopEqual StopReason = "equal"
 	// StopReceiverFull: a transfer filled the receiving vessel to its brim.
 	StopReceiverFull StopReason = "receiver_full"
+	// StopSettles: with liquid coming in (DrainInput.Inflow) the siphon's
+	// flow falls to the inflow at a level above every other stop, where the
+	// level holds (DrainPlan.SettleLevel); the plan ends when the level is
+	// within SettleMargin of it. Also a level that rises because the inflow
+	// outruns the siphon: it settles higher, or at the brim when the tank
+	// overflows (DrainPlan.Overflows).
+	StopSettles StopReason = "settles"
 )
 
 // Text is a short plain description of the stop for records and the command
@@ -48,6 +55,9 @@ func (r StopReason) Text() string {
 		return "the levels come within " + strconv.FormatFloat(float64(EqualHead)*100, 'g', 3, 64) + " cm of each other; the flow tapers to nothing"
 	case StopReceiverFull:
 		return "the receiving vessel is full"
+	case StopSettles:
+		return "the siphon's flow falls to the inflow and the level settles; the plan ends within " +
+			strconv.FormatFloat(float64(SettleMargin)*100, 'g', 3, 64) + " cm of it"
 	}
 	return string(r)
 }
@@ -58,3 +68,9 @@ func (r StopReason) Text() string {
 // well inside the error of heights taped in the field (see
 // DefaultHeightTolerance). Our choice; the plan reports it in EqualHead.
 const EqualHead Length = 0.01
+
+// SettleMargin is how near the level must come to the level where it
+// settles (the siphon's flow equals the inflow) for the plan to end there:
+// the level approaches it exponentially and never reaches it. 1 cm, as
+// EqualHead (the contract: "the time to come within 1 cm of it").
+const SettleMargin Length = 0.01

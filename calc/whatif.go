@@ -39,14 +39,23 @@ type WhatIfCell struct {
 	Time       Seconds
 	StopReason StopReason
 	StopLevel  Length
+	// Drains is true when this hose lowers the level at all (it runs and
+	// its stop level is below the start level); a hose that stops at once
+	// says why in StopReason.
+	Drains bool
+	// TimeToCommon is the time to the grid's common level
+	// (WhatIfGrid.CommonLevel), s; zero when the hose does not drain or
+	// there is no common level.
+	TimeToCommon Seconds
 	// Err is set when this alternative is not a valid input (a hose shorter
 	// than the stated up-leg, a roughness larger than half the bore); the
 	// answer fields are then zero.
 	Err error
 }
 
-// WhatIfGrid is flow and time to the stop over hose lengths × diameters,
-// and over the number of parallel hoses at the current length and diameter.
+// WhatIfGrid is flow, the drain to its stop and the time to one common
+// level over hose lengths × diameters, and over the number of parallel
+// hoses at the current length and diameter.
 type WhatIfGrid struct {
 	Lengths   []Length
 	Diameters []Length
@@ -56,6 +65,12 @@ type WhatIfGrid struct {
 	// Parallel[n−1] is for n hoses (1 … WhatIfHoseCounts) of the current
 	// length and diameter.
 	Parallel []WhatIfCell
+	// CommonLevel is the one level every cell's time is counted to: the
+	// highest stop level of the hoses that drain (each of them reaches it;
+	// none stops above it), so the cells rank on the same task.
+	// CommonFound is false without a tank or when no hose drains.
+	CommonLevel Length
+	CommonFound bool
 }
 
 // AroundChoice returns hose lengths and inside diameters around the current
@@ -136,7 +151,43 @@ func WhatIf(in DrainInput, lengths, diameters []Length) (WhatIfGrid, error) {
 		c.Siphon.Hoses = n
 		g.Parallel[n-1], g.Parallel[n-1].Err = whatIfCell(c)
 	}
+	if in.Tank != nil {
+		g.toCommon(in, cells)
+	}
 	return g, nil
+}
+
+// toCommon fills the common level and each draining cell's time to it: the
+// cell whose stop sets it keeps its own time; every other one is planned
+// again with the common level as its target (it passes it before its own
+// stop, so the target is where it ends).
+func (g *WhatIfGrid) toCommon(in DrainInput, cells []WhatIfCell) {
+	for _, c := range cells {
+		if c.Drains && (!g.CommonFound || c.StopLevel > g.CommonLevel) {
+			g.CommonLevel, g.CommonFound = c.StopLevel, true
+		}
+	}
+	if !g.CommonFound {
+		return
+	}
+	for i := range cells {
+		c := &cells[i]
+		if !c.Drains {
+			continue
+		}
+		if c.StopLevel >= g.CommonLevel {
+			c.TimeToCommon = c.Time
+			continue
+		}
+		alt := in
+		alt.Siphon.Hose.Length, alt.Siphon.Hose.Diameter, alt.Siphon.Hoses = c.Length, c.Diameter, c.Hoses
+		alt.Target = g.CommonLevel
+		if p, err := planNoCurve(alt); err == nil {
+			c.TimeToCommon = p.Time
+		} else {
+			c.Drains = false // not planned to the common level: shown without a time
+		}
+	}
 }
 
 // whatIfCell plans one alternative.
@@ -158,6 +209,7 @@ func whatIfCell(in DrainInput) (WhatIfCell, error) {
 	c.Verdict, c.Why, c.Flow = p.Start.Verdict, p.Start.Why, p.StartFlow
 	if p.Start.Verdict != WillNotRun {
 		c.Time, c.StopReason, c.StopLevel = p.Time, p.StopReason, p.StopLevel
+		c.Drains = p.Time > 0 && p.StopLevel < in.Siphon.Geometry.Surface
 	}
 	return c, nil
 }

@@ -26,10 +26,12 @@ type FlowTest struct {
 // Flow is the measured flow, m³/s.
 func (f FlowTest) Flow() float64 { return f.Volume / f.Seconds }
 
-// Bounds on a flow test.
+// Bounds on a flow test, and on the flow tests of one job.
 const (
 	MaxFlowTestVolume  = 10.0   // m³
 	MaxFlowTestSeconds = 3600.0 // s
+	MaxFlowTests       = 500    // tests in one job
+	MaxFlowTestText    = 2000   // bytes of its name or note
 )
 
 // Validate checks the test has a time, a volume and a duration in range.
@@ -72,4 +74,22 @@ func ParseFlowTest(text string, sys System, at time.Time) (FlowTest, error) {
 		return FlowTest{}, err
 	}
 	return f, nil
+}
+
+// AddFlowTest checks f and appends it to the job's flow tests (journalled as
+// an appended list entry; a checkpoint follows). The next Compute narrows
+// the plan's band to what the tests support (see NarrowByFlowTests). The
+// caller logs it (present.FlowTestLine words it).
+func (j *Job) AddFlowTest(f FlowTest) error {
+	if err := f.Validate(); err != nil {
+		return err
+	}
+	if len(j.FlowTests) >= MaxFlowTests {
+		return fmt.Errorf("flow test: the job holds %d already; accepted at most %d", len(j.FlowTests), MaxFlowTests)
+	}
+	if len(f.By) > MaxFlowTestText || len(f.Note) > MaxFlowTestText {
+		return fmt.Errorf("flow test: name or note over %d bytes", MaxFlowTestText)
+	}
+	j.FlowTests = append(j.FlowTests, f)
+	return nil
 }

@@ -176,12 +176,23 @@ func typeWords(t reflect.Type) string {
 }
 
 // checkJob checks the values of a decoded job that the decoder cannot:
-// readings in range (a level of 1e300 m would print as 300 digits), the
-// draft. The first problem is returned, naming the entry.
+// readings and flow tests in range (a level of 1e300 m would print as 300
+// digits), the draft. The first problem is returned, naming the entry.
 func checkJob(j *Job) error {
 	for i, r := range j.Readings {
 		if err := r.Validate(); err != nil {
 			return fmt.Errorf("reading %d of %d: %s", i+1, len(j.Readings), strings.TrimPrefix(err.Error(), "level reading: "))
+		}
+	}
+	if len(j.FlowTests) > MaxFlowTests {
+		return fmt.Errorf("flow tests: %d of them; accepted at most %d", len(j.FlowTests), MaxFlowTests)
+	}
+	for i, f := range j.FlowTests {
+		if err := f.Validate(); err != nil {
+			return fmt.Errorf("flow test %d of %d: %s", i+1, len(j.FlowTests), strings.TrimPrefix(err.Error(), "flow test: "))
+		}
+		if len(f.By) > MaxFlowTestText || len(f.Note) > MaxFlowTestText {
+			return fmt.Errorf("flow test %d of %d: its name or note is over %d bytes", i+1, len(j.FlowTests), MaxFlowTestText)
 		}
 	}
 	if err := j.Draft.Validate(); err != nil {

@@ -71,7 +71,7 @@ type JournalMark struct {
 	Seq uint64 `json:"seq"`
 }
 
-// listEdit is a "log" or "readings" change: cut the list to From entries,
+// listEdit is a "log", "readings" or "flow_tests" change: cut the list to From entries,
 // then append Add.
 type listEdit[T any] struct {
 	From int `json:"from"`
@@ -87,6 +87,7 @@ type journalRecord struct {
 	Steps    map[string]Step            `json:"steps,omitempty"`
 	Log      *listEdit[LogEntry]        `json:"log,omitempty"`
 	Readings *listEdit[Reading]         `json:"readings,omitempty"`
+	Flows    *listEdit[FlowTest]        `json:"flow_tests,omitempty"`
 }
 
 // How each top-level entry of a Job is journalled.
@@ -97,7 +98,7 @@ const (
 	entrySkip                       // never: constant, or written at checkpoints only
 	entryStamp                      // written with another change only (updated)
 	entryMap                        // inputs, last_good: by field
-	entryList                       // log, readings: appended
+	entryList                       // log, readings, flow_tests: appended
 	entrySteps                      // checklist: by step where it can be
 	entryKindCount                  // number of kinds
 )
@@ -115,6 +116,7 @@ var jobEntries, jobEntryByKey = func() ([]jobEntry, map[string]jobEntry) {
 	special := map[string]entryKind{
 		"schema": entrySkip, "version": entrySkip, "resume": entrySkip, "updated": entryStamp,
 		"inputs": entryMap, "last_good": entryMap, "log": entryList, "readings": entryList, "checklist": entrySteps,
+		"flow_tests": entryList,
 	}
 	t := reflect.TypeFor[Job]()
 	var list []jobEntry
@@ -129,7 +131,7 @@ var jobEntries, jobEntryByKey = func() ([]jobEntry, map[string]jobEntry) {
 }()
 
 // journalSnap is the job as the job file and the journal together hold it:
-// a deep copy of each entry, except the two long lists, of which only the
+// a deep copy of each entry, except the long lists, of which only the
 // length and the last entry are kept (they are only appended to).
 type journalSnap struct {
 	job      Job
@@ -137,6 +139,8 @@ type journalSnap struct {
 	logLast  LogEntry
 	readN    int
 	readLast Reading
+	flowN    int
+	flowLast FlowTest
 }
 
 func newSnap(j *Job) journalSnap {
@@ -163,8 +167,11 @@ func (s *journalSnap) take(j *Job, changed []int) {
 }
 
 func (s *journalSnap) takeLists(j *Job) {
-	s.logN, s.readN = len(j.Log), len(j.Readings)
-	s.logLast, s.readLast = LogEntry{}, Reading{}
+	s.logN, s.readN, s.flowN = len(j.Log), len(j.Readings), len(j.FlowTests)
+	s.logLast, s.readLast, s.flowLast = LogEntry{}, Reading{}, FlowTest{}
+	if s.flowN > 0 {
+		s.flowLast = j.FlowTests[s.flowN-1]
+	}
 	if s.logN > 0 {
 		s.logLast = j.Log[s.logN-1]
 	}
@@ -213,10 +220,15 @@ func (s *journalSnap) diff(j *Job) (r *journalRecord, changed []int, checkpoint 
 				r.LastGood = d
 			}
 		case entryList:
-			if e.key == "log" {
+			switch e.key {
+			case "log":
 				r.Log = listDiff(j.Log, s.logN, s.logLast)
 				lists = lists || r.Log != nil
-			} else {
+			case "flow_tests":
+				r.Flows = listDiff(j.FlowTests, s.flowN, s.flowLast)
+				lists = lists || r.Flows != nil
+				checkpoint = checkpoint || r.Flows != nil
+			default:
 				r.Readings = listDiff(j.Readings, s.readN, s.readLast)
 				lists = lists || r.Readings != nil
 				checkpoint = checkpoint || r.Readings != nil
@@ -347,6 +359,9 @@ func (r *journalRecord) apply(j *Job) error {
 	if e := r.Readings; e != nil && (e.From < 0 || e.From > len(j.Readings)) {
 		return fmt.Errorf("record %d cuts the readings of %d entries at %d", r.N, len(j.Readings), e.From)
 	}
+	if e := r.Flows; e != nil && (e.From < 0 || e.From > len(j.FlowTests)) {
+		return fmt.Errorf("record %d cuts the flow tests of %d entries at %d", r.N, len(j.FlowTests), e.From)
+	}
 	for _, s := range sets {
 		v.Field(s.index).Set(s.value)
 	}
@@ -358,6 +373,7 @@ func (r *journalRecord) apply(j *Job) error {
 	}
 	j.Log = applyList(j.Log, r.Log)
 	j.Readings = applyList(j.Readings, r.Readings)
+	j.FlowTests = applyList(j.FlowTests, r.Flows)
 	return nil
 }
 

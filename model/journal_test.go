@@ -20,7 +20,7 @@ func TestJournalEveryEntry(t *testing.T) {
 		t.Fatalf("journal table has %d entries for %d Job fields", len(jobEntries), n)
 	}
 	want := map[string]entryKind{"schema": entrySkip, "version": entrySkip, "resume": entrySkip, "updated": entryStamp,
-		"inputs": entryMap, "last_good": entryMap, "log": entryList, "readings": entryList, "checklist": entrySteps,
+		"inputs": entryMap, "last_good": entryMap, "log": entryList, "readings": entryList, "checklist": entrySteps, "flow_tests": entryList,
 		"name": entryReplace, "draft": entryReplace, "site_facts": entryReplace, "release": entryReplace}
 	for key, k := range want {
 		if e, ok := jobEntryByKey[key]; !ok || e.kind != k {
@@ -60,6 +60,9 @@ var edits = []edit{
 	},
 	func(j *Job, r *rand.Rand, at time.Time) { // a reading
 		j.Readings = append(j.Readings, Reading{At: at, Level: 0.35 * r.Float64()})
+	},
+	func(j *Job, r *rand.Rand, at time.Time) { // a flow test
+		_ = j.AddFlowTest(FlowTest{At: at, Volume: 0.01, Seconds: 5 + 10*r.Float64(), By: "crew"})
 	},
 	func(j *Job, r *rand.Rand, at time.Time) { // a draft being typed
 		j.Draft = Draft{Kind: DraftNote, Step: j.Checklist.Steps[0].ID, Text: j.Draft.Text + "x", At: at}
@@ -201,6 +204,16 @@ func TestJournalNothingChanged(t *testing.T) {
 	j.Readings = append(j.Readings, Reading{At: t0, Level: 0.3})
 	if c, _ := s.Record(&j); !c.Checkpoint {
 		t.Error("a reading does not call for a checkpoint")
+	}
+	if err := j.AddFlowTest(FlowTest{At: t0, Volume: 0.01, Seconds: 12}); err != nil {
+		t.Fatal(err)
+	}
+	if c, _ := s.Record(&j); !c.Checkpoint {
+		t.Error("a flow test does not call for a checkpoint")
+	}
+	b, _ = os.ReadFile(JournalPath(path))
+	if !bytes.Contains(b, []byte(`"flow_tests":{"from":0,"add":[{"at":`)) {
+		t.Errorf("a flow test is not journalled as an appended entry:\n%s", b)
 	}
 	j.Checklist.Mark(j.Checklist.Steps[0].ID, StateDone, "", "", t0)
 	if c, _ := s.Record(&j); !c.Checkpoint {

@@ -73,6 +73,9 @@ type Model struct {
 	fitFor fitKey
 	fit    *model.Fit
 	fitErr error
+	// readRev counts the corrections of readings (a fit is of the readings
+	// as they stand; their number alone does not say a reading changed).
+	readRev uint64
 
 	// inputs is what the plan on screen was made from (inputsKey), when the
 	// job's own inputs gave a valid plan; "" otherwise. A recompute with the
@@ -259,6 +262,10 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 		return m.save()
 	case ReadingAddMsg:
 		return m.addReading(msg)
+	case ReadingEditMsg:
+		return m.correctReading(msg)
+	case FlowTestAddMsg:
+		return m.addFlowTest(msg)
 	case RecordWriteMsg:
 		m.flash = "writing the job record…"
 		return recordCmd(m.job.Clone(), m.st.plan, m.path, m.now())
@@ -388,11 +395,13 @@ func (m *Model) keepInputs(valid bool) {
 	m.sheetGen++
 }
 
-// fitKey is what a fit of the readings is made from: the plan and the
-// number of readings (they are only ever added).
+// fitKey is what a fit of the readings is made from: the plan, the number
+// of readings and flow tests (they are added), and the corrections made.
 type fitKey struct {
 	plan     uint64
 	readings int
+	tests    int
+	rev      uint64
 }
 
 // fitCurrent reports whether the last fit asked for was of this plan and
@@ -400,12 +409,12 @@ type fitKey struct {
 // takes tens of milliseconds, and focusing the Log asks for one); the
 // summary is worded again, in case the units changed.
 func (m *Model) fitCurrent() bool {
-	k := fitKey{m.planGen, len(m.job.Readings)}
+	k := fitKey{m.planGen, len(m.job.Readings), len(m.job.FlowTests), m.readRev}
 	if m.fitSeq == 0 || m.fitFor != k {
 		m.fitFor = k
 		return false
 	}
-	m.log.SetSummary(readingsSummary(&m.job, m.fit, m.fitErr, m.loc()))
+	m.showReadings()
 	return true
 }
 

@@ -1,7 +1,6 @@
 package tui
 
 import (
-	"errors"
 	"strconv"
 	"strings"
 
@@ -181,68 +180,6 @@ func (m *Model) note(n ChecklistNoteMsg) tea.Cmd {
 	}
 	m.touch()
 	return m.save()
-}
-
-// addReading records a level reading typed in the Log pane, stamped with the
-// root's clock, and refits the readings against the plan.
-func (m *Model) addReading(msg ReadingAddMsg) tea.Cmd {
-	now := m.now()
-	sys := m.job.Units
-	r, err := model.NewReading(msg.Text, sys, now, "")
-	if err != nil {
-		m.log.ReadingError("✗ " + err.Error())
-		return nil
-	}
-	if top, ok := m.tankTop(); ok && r.Level > top {
-		m.log.ReadingError("✗ level reading " + present.Figures{Sys: sys}.Of(model.DimLength, r.Level) +
-			" is above the tank (" + present.Figures{Sys: sys}.Of(model.DimLength, top) + ")")
-		return nil
-	}
-	m.job.Readings = append(m.job.Readings, r)
-	m.job.AddLog(now, "level reading "+present.Figures{Sys: sys}.Of(model.DimLength, r.Level))
-	m.log.ReadingTaken()
-	m.log.SetSummary(readingsSummary(&m.job, nil, nil, m.loc()))
-	m.touch()
-	return tea.Batch(m.save(), m.refit())
-}
-
-// tankTop is the source tank's height when the plan has a tank.
-func (m *Model) tankTop() (float64, bool) {
-	if !m.st.hasPlan || m.st.plan.Tank == nil {
-		return 0, false
-	}
-	return float64(m.st.plan.Tank.Height()), true
-}
-
-// refit fits the job's readings against the last valid plan, as a command.
-func (m *Model) refit() tea.Cmd {
-	if m.fitCurrent() {
-		return nil // the same plan and readings as the last fit (app.go)
-	}
-	m.fitSeq++
-	p := m.st.plan
-	if len(m.job.Readings) < 2 || !m.st.hasPlan || p.Drain == nil {
-		m.fit, m.fitErr = nil, nil
-		if len(m.job.Readings) > 0 && (!m.st.hasPlan || p.Drain == nil) {
-			m.fitErr = errors.New("no drain plan to compare with: describe the tank in pane 4")
-		}
-		m.log.SetSummary(readingsSummary(&m.job, nil, m.fitErr, m.loc()))
-		return nil
-	}
-	return fitCmd(m.job.Readings, p.DrainIn, p.Siphon.Hose.KMinor(), m.fitSeq)
-}
-
-// fitted takes the fit of the readings when it is the latest one asked for.
-func (m *Model) fitted(msg fitMsg) {
-	if msg.seq != m.fitSeq {
-		return
-	}
-	m.fit, m.fitErr = nil, msg.err
-	if msg.err == nil {
-		f := msg.fit
-		m.fit = &f
-	}
-	m.log.SetSummary(readingsSummary(&m.job, m.fit, m.fitErr, m.loc()))
 }
 
 func (m *Model) recordWritten(msg recordWrittenMsg) tea.Cmd {

@@ -52,10 +52,12 @@ type KeyMap struct {
 	PaneKeys []key.Binding
 
 	// Log pane.
-	AddReading  key.Binding // r: type a level reading
-	WriteRecord key.Binding // w: write the job record and readings CSV
-	ScrollUp    key.Binding // ↑: older entries
-	ScrollDown  key.Binding // ↓: newer entries
+	AddReading     key.Binding // r: type a level reading (with its time when not now)
+	AddFlowTest    key.Binding // f: type a bucket-and-stopwatch flow test
+	CorrectReading key.Binding // e: choose a reading and correct its level and time
+	WriteRecord    key.Binding // w: write the job record and readings CSV
+	ScrollUp       key.Binding // ↑: older entries
+	ScrollDown     key.Binding // ↓: newer entries
 
 	Checklist ChecklistKeys
 	WhatIf    WhatIfKeys
@@ -134,10 +136,12 @@ func DefaultKeyMap() KeyMap {
 		PrevPane: key.NewBinding(key.WithKeys("["), key.WithHelp("[", "prev pane")),
 		NextPane: key.NewBinding(key.WithKeys("]"), key.WithHelp("]", "next pane")),
 
-		AddReading:  key.NewBinding(key.WithKeys("r"), key.WithHelp("r", "level reading")),
-		WriteRecord: key.NewBinding(key.WithKeys("w"), key.WithHelp("w", "job record")),
-		ScrollUp:    key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "older")),
-		ScrollDown:  key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "newer")),
+		AddReading:     key.NewBinding(key.WithKeys("r"), key.WithHelp("r", "reading")),
+		AddFlowTest:    key.NewBinding(key.WithKeys("f"), key.WithHelp("f", "flow test")),
+		CorrectReading: key.NewBinding(key.WithKeys("e"), key.WithHelp("e", "correct")),
+		WriteRecord:    key.NewBinding(key.WithKeys("w"), key.WithHelp("w", "job record")),
+		ScrollUp:       key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "older")),
+		ScrollDown:     key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "newer")),
 
 		Checklist: ChecklistKeys{
 			Up:         key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "prev step")),
@@ -252,7 +256,7 @@ func (k KeyMap) viewHelp() []viewKeys {
 	return []viewKeys{
 		{paneTable[PaneChecklist].name, []key.Binding{c.Done, c.Skip, c.NotApplies, c.Note, c.Reopen}},
 		{paneTable[PaneWhatIf].name, []key.Binding{w.Up, w.Down, w.Left, w.Right, w.Adopt}},
-		{paneTable[PaneLog].name, []key.Binding{k.AddReading, k.WriteRecord, k.ScrollUp, k.ScrollDown}},
+		{paneTable[PaneLog].name, []key.Binding{k.AddReading, k.AddFlowTest, k.CorrectReading, k.WriteRecord, k.ScrollUp, k.ScrollDown}},
 		{paneTable[PaneJob].name, []key.Binding{k.Job.Edit, k.Job.Flip, k.Job.Remove, k.Job.Cancel}},
 	}
 }

@@ -1,33 +1,43 @@
 package tui
 
 import (
+	"strconv"
 	"strings"
 	"time"
 
 	"charm.land/bubbles/v2/key"
 	"charm.land/bubbles/v2/textinput"
 	tea "charm.land/bubbletea/v2"
+	"github.com/charmbracelet/x/ansi"
 
 	"drawdown/model"
 	"drawdown/model/present"
 )
 
 // LogPane lists the job's log, newest at the bottom, with the time of each
-// line, under a summary of the level readings against the plan. Up and down
-// scroll by an entry; r types a level reading; w writes the job record.
+// line, under a summary of the level readings against the plan and the
+// latest readings and flow tests. Up and down scroll by an entry; r types a
+// level reading (with its time when not now), f a flow test, e chooses a
+// reading to correct; w writes the job record.
 type LogPane struct {
 	entries []model.LogEntry
-	summary []string // readings against the plan, worded by the root
-	scroll  int      // entries scrolled up from the bottom (the newest hidden)
+	summary []string     // readings against the plan, worded by the root
+	rows    []readingRow // readings and flow tests, oldest first, worded by the root
+	scroll  int          // entries scrolled up from the bottom (the newest hidden)
 	w, h    int
 	styles  Styles
 	keys    KeyMap
 	loc     *time.Location
 
 	typing  bool
+	kind    inputKind
+	edit    int // the reading being corrected (its index in the job)
 	input   textinput.Model
 	errText string
 	draft   bool // the input holds a draft put back from the last session
+
+	choosing bool // e: up/down choose the reading to correct
+	sel      int  // the chosen row (an index into rows)
 
 	// wrapped holds each entry's lines as last drawn, for the width they
 	// were wrapped to; only entries that came on screen are wrapped
@@ -49,6 +59,15 @@ type logWrap struct {
 	text  string
 	lines []string
 }
+
+// inputKind is what the Log pane's input is typing.
+type inputKind int
+
+const (
+	inputReading inputKind = iota // a new level reading
+	inputFlow                     // a flow test
+	inputEdit                     // a correction of a reading
+)
 
 // NewLogPane returns an empty Log pane. loc is the zone times are shown in.
 func NewLogPane(st Styles, km KeyMap, loc *time.Location) LogPane {
@@ -85,13 +104,21 @@ func (l *LogPane) SetEntries(e []model.LogEntry) {
 // SetSummary gives the pane the readings summary lines.
 func (l *LogPane) SetSummary(s []string) { l.summary = s }
 
+// SetReadings gives the pane the readings and flow tests to list.
+func (l *LogPane) SetReadings(rows []readingRow) {
+	l.rows = rows
+	if l.sel >= len(rows) {
+		l.sel = len(rows) - 1
+	}
+}
+
 // ReadingError shows why a typed reading was refused and keeps the input
 // open so it can be corrected.
 func (l *LogPane) ReadingError(msg string) { l.errText = msg }
 
 // ReadingTaken closes the input after the root accepted a reading.
 func (l *LogPane) ReadingTaken() {
-	l.typing, l.draft = false, false
+	l.typing, l.draft, l.choosing, l.kind = false, false, false, inputReading
 	l.errText = ""
 	l.input.Blur()
 	l.input.Reset()
@@ -100,12 +127,12 @@ func (l *LogPane) ReadingTaken() {
 // Draft is the reading being typed, when there is one (drafts.go keeps it
 // with the job).
 func (l *LogPane) Draft() (string, bool) {
-	return l.input.Value(), l.typing && l.input.Value() != ""
+	return l.input.Value(), l.typing && l.kind == inputReading && l.input.Value() != ""
 }
 
 // RestoreDraft opens the reading input again with text, marked as a draft.
 func (l *LogPane) RestoreDraft(text string) bool {
-	l.typing, l.errText, l.draft = true, "", true
+	l.typing, l.errText, l.draft, l.kind = true, "", true, inputReading
 	l.input.Reset()
 	l.input.SetValue(text)
 	l.input.CursorEnd()
@@ -123,9 +150,10 @@ func (l *LogPane) Focus() {}
 // Blur is Focus's pair.
 func (l *LogPane) Blur() {}
 
-// Claims takes the pane's own keys, and every key while typing a reading.
+// Claims takes the pane's own keys, and every key while typing a reading
+// or choosing one to correct.
 func (l *LogPane) Claims(msg tea.KeyPressMsg) bool {
-	return l.typing || key.Matches(msg, l.ShortHelp()...)
+	return l.typing || l.choosing || key.Matches(msg, l.ShortHelp()...)
 }
 
 // Key handles a key with the pane focused.
@@ -151,38 +179,31 @@ func (l *LogPane) Click(int, int) (tea.Cmd, *FieldEdit) { return nil, nil }
 // Show gives the pane the job's log.
 func (l *LogPane) Show(st *screenState) { l.SetEntries(st.job.Log) }
 
-// Update scrolls with up/down, opens the reading input with r, and asks for
-// the record with w.
+// Update scrolls with up/down, opens the reading input with r, the flow
+// test input with f, the choice of a reading to correct with e, and asks
+// for the record with w.
 func (l LogPane) Update(msg tea.Msg) (LogPane, tea.Cmd) {
 	km, ok := msg.(tea.KeyPressMsg)
 	if !ok {
 		return l, nil
 	}
 	if l.typing {
-		switch km.String() {
-		case "esc":
-			l.ReadingTaken()
-			return l, nil
-		case "enter":
-			text := strings.TrimSpace(l.input.Value())
-			if text == "" {
-				l.errText = "✗ type the level read on the tank, e.g. 0.42 m or 1 ft 5 in"
-				return l, nil
-			}
-			return l, func() tea.Msg { return ReadingAddMsg{Text: text} }
-		}
-		var cmd tea.Cmd
-		l.input, cmd = l.input.Update(msg)
-		l.errText = ""
-		return l, cmd
+		return l.typingKey(km)
+	}
+	if l.choosing {
+		return l.chooseKey(km), nil
 	}
 	switch {
 	case key.Matches(km, l.keys.AddReading):
-		l.typing = true
-		l.errText = ""
-		l.input.Reset()
-		l.input.Placeholder = "level above the floor, e.g. 0.42 m"
-		return l, l.input.Focus()
+		return l, l.open(inputReading, "")
+	case key.Matches(km, l.keys.AddFlowTest):
+		return l, l.open(inputFlow, "")
+	case key.Matches(km, l.keys.CorrectReading):
+		if i := l.prevReading(len(l.rows)); i >= 0 {
+			l.choosing, l.sel, l.errText = true, i, ""
+		} else {
+			l.errText = "✗ no reading to correct yet: press r to add one"
+		}
 	case key.Matches(km, l.keys.WriteRecord):
 		return l, func() tea.Msg { return RecordWriteMsg{} }
 	case key.Matches(km, l.keys.ScrollUp):
@@ -197,19 +218,148 @@ func (l LogPane) Update(msg tea.Msg) (LogPane, tea.Cmd) {
 	return l, nil
 }
 
-// footLines is the reading input at the foot of the pane, when open.
+// open starts typing an entry of kind, the input holding text.
+func (l *LogPane) open(kind inputKind, text string) tea.Cmd {
+	l.typing, l.kind, l.errText, l.draft = true, kind, "", false
+	l.input.Reset()
+	l.input.Placeholder = map[inputKind]string{
+		inputReading: "level, e.g. 0.42 m; @ 14:05 or @ -10 min if not now",
+		inputFlow:    "volume/time, e.g. 10L/12s; @ level; ; note",
+		inputEdit:    "level @ time, e.g. 0.328 @ 14:05",
+	}[kind]
+	l.input.SetValue(text)
+	l.input.CursorEnd()
+	return l.input.Focus()
+}
+
+func (l LogPane) typingKey(km tea.KeyPressMsg) (LogPane, tea.Cmd) {
+	switch km.String() {
+	case "esc":
+		l.ReadingTaken()
+		return l, nil
+	case "enter":
+		text := strings.TrimSpace(l.input.Value())
+		if text == "" {
+			l.errText = map[inputKind]string{
+				inputReading: "✗ type the level read on the tank, e.g. 0.42 m or 1 ft 5 in",
+				inputFlow:    "✗ type the volume caught over the time, e.g. 10L/12s",
+				inputEdit:    "✗ type the level and time, e.g. 0.328 @ 14:05",
+			}[l.kind]
+			return l, nil
+		}
+		switch l.kind {
+		case inputFlow:
+			return l, func() tea.Msg { return FlowTestAddMsg{Text: text} }
+		case inputEdit:
+			i := l.edit
+			return l, func() tea.Msg { return ReadingEditMsg{Index: i, Text: text} }
+		default:
+			return l, func() tea.Msg { return ReadingAddMsg{Text: text} }
+		}
+	}
+	var cmd tea.Cmd
+	l.input, cmd = l.input.Update(km)
+	l.errText = ""
+	return l, cmd
+}
+
+// chooseKey moves the choice of the reading to correct, or opens it.
+func (l LogPane) chooseKey(km tea.KeyPressMsg) LogPane {
+	switch {
+	case km.String() == "esc":
+		l.choosing = false
+	case key.Matches(km, l.keys.Done):
+		if l.sel >= 0 && l.sel < len(l.rows) && l.rows[l.sel].index >= 0 {
+			l.choosing, l.edit = false, l.rows[l.sel].index
+			l.open(inputEdit, l.rows[l.sel].entry)
+		}
+	case key.Matches(km, l.keys.ScrollUp):
+		if i := l.prevReading(l.sel); i >= 0 {
+			l.sel = i
+		}
+	case key.Matches(km, l.keys.ScrollDown):
+		if i := l.nextReading(l.sel); i >= 0 {
+			l.sel = i
+		}
+	}
+	return l
+}
+
+// prevReading is the last reading row before row i, or −1.
+func (l LogPane) prevReading(i int) int {
+	for k := min(i, len(l.rows)) - 1; k >= 0; k-- {
+		if l.rows[k].index >= 0 {
+			return k
+		}
+	}
+	return -1
+}
+
+// nextReading is the first reading row after row i, or −1.
+func (l LogPane) nextReading(i int) int {
+	for k := i + 1; k < len(l.rows); k++ {
+		if l.rows[k].index >= 0 {
+			return k
+		}
+	}
+	return -1
+}
+
+// footLines is the input at the foot of the pane, when open.
 func (l LogPane) footLines() []string {
 	if !l.typing {
-		return nil
+		if l.choosing {
+			return []string{l.styles.fast.Label.Render("Correct which reading? ↑/↓ choose, enter correct, esc cancel")}
+		}
+		var out []string
+		for _, w := range wrapText(l.errText, max(l.w, 10), 2) {
+			out = append(out, l.styles.fast.Danger.Render(w))
+		}
+		return out
 	}
 	st := l.styles
-	label := "Level reading now (above the tank floor):"
+	label := map[inputKind]string{
+		inputReading: "Level reading (above the tank floor); @ TIME if not now:",
+		inputFlow:    "Flow test: VOLUME/TIME caught at the outlet; @ LEVEL if read; ; NOTE:",
+		inputEdit:    "Correct the reading: LEVEL @ TIME (14:05, -10 min, 2026-05-14 14:05):",
+	}[l.kind]
 	if l.draft {
 		label = "(draft) " + label // put back from the last session
 	}
-	out := []string{st.fast.Label.Render(label), l.input.View()}
+	out := []string{st.fast.Label.Render(ansi.Truncate(label, max(l.w, 1), "…")), l.input.View()}
 	if l.errText != "" {
-		out = append(out, st.fast.Danger.Render(l.errText))
+		for _, w := range wrapText(l.errText, max(l.w, 10), 3) {
+			out = append(out, st.fast.Danger.Render(w))
+		}
+	}
+	return out
+}
+
+// readingLines is the list of the latest readings and flow tests, the
+// chosen one marked, in at most room lines.
+func (l LogPane) readingLines(room int) []string {
+	if len(l.rows) == 0 || room < 2 {
+		return nil
+	}
+	st := l.styles
+	n := min(len(l.rows), room-1)
+	from := len(l.rows) - n
+	if l.choosing && l.sel < from {
+		from = max(l.sel, 0)
+	}
+	head := "Readings and flow tests (" + strconv.Itoa(len(l.rows)) + "; e: correct a reading)"
+	out := []string{st.fast.Label.Render(head)}
+	for i := from; i < min(from+n, len(l.rows)); i++ {
+		mark := "  "
+		if l.choosing && i == l.sel {
+			mark = "› "
+		}
+		text := ansi.Truncate(mark+l.rows[i].text, max(l.w, 1), "…")
+		if l.choosing && i == l.sel {
+			out = append(out, st.fast.InputFocused.Render(text))
+		} else {
+			out = append(out, st.fast.Value.Render(text))
+		}
 	}
 	return out
 }
@@ -234,7 +384,11 @@ func (l LogPane) View() string {
 	st := l.styles
 	out := []string{st.fast.PaneTitle.Render("Log") + st.fast.Muted.Render("  readings and the job's record, newest last")}
 	for _, s := range l.summary {
-		for _, w := range wrapText(s, max(l.w-2, 10), 3) {
+		n := 3
+		if strings.HasPrefix(s, "!") {
+			n = 5 // a warning is read whole
+		}
+		for _, w := range wrapText(s, max(l.w-2, 10), n) {
 			if strings.HasPrefix(s, "!") {
 				out = append(out, st.fast.Warning.Render(w))
 			} else {
@@ -243,6 +397,14 @@ func (l LogPane) View() string {
 		}
 	}
 	foot := l.footLines()
+	listRoom := 4
+	if l.choosing {
+		listRoom = 8
+	}
+	if l.h < 16 {
+		listRoom = 3
+	}
+	out = append(out, l.readingLines(min(listRoom, max(l.h-len(out)-len(foot)-2, 0)))...)
 	if len(l.entries) == 0 {
 		out = append(out, st.fast.Muted.Render("Nothing logged yet."))
 		return fitBlock(append(padTo(out, l.h-len(foot)), foot...), l.w, l.h)
@@ -319,5 +481,8 @@ func (l LogPane) ShortHelp() []key.Binding {
 	if l.typing {
 		return []key.Binding{l.keys.Done, l.keys.Leave}
 	}
-	return []key.Binding{l.keys.AddReading, l.keys.WriteRecord, l.keys.ScrollUp, l.keys.ScrollDown}
+	if l.choosing {
+		return []key.Binding{l.keys.UpDown, l.keys.Done, l.keys.Leave}
+	}
+	return []key.Binding{l.keys.AddReading, l.keys.AddFlowTest, l.keys.CorrectReading, l.keys.WriteRecord, l.keys.ScrollUp, l.keys.ScrollDown}
 }

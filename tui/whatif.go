@@ -19,7 +19,14 @@ type WhatIfCell struct {
 	Runs      bool    // false: the siphon will not run with this hose
 	NearLimit bool    // runs, but the crest is over the working limit
 	Flow      float64 // all hoses, m³/s
-	Time      float64 // time to the stop, s (ignored without a tank)
+	// Time is the time to the table's common level (WhatIfTable.Common), s;
+	// Level is where this hose's drain stops, m. Both ignored without a
+	// tank or when the hose does not drain.
+	Time  float64
+	Level float64
+	// Drains: the hose lowers the level at all; one that does not shows
+	// why (StopReason), never a bare "at once".
+	Drains bool
 	// StopReason is why the drain stops ("target", "intake", "crest",
 	// "equal"; empty without a tank), shown for the selected cell.
 	StopReason string
@@ -31,7 +38,8 @@ type WhatIfParallel struct {
 	Cell  WhatIfCell
 }
 
-// WhatIfTable is the grid the What-if pane shows: flow and time to the stop
+// WhatIfTable is the grid the What-if pane shows: flow, the time to one
+// common level and each hose's stop level
 // for hose lengths (rows) against inside diameters (columns) around the
 // present choice, plus the present length and diameter with 1…N hoses in
 // parallel. All values SI; the pane only formats them.
@@ -42,7 +50,8 @@ type WhatIfTable struct {
 	Row, Col  int            // the present choice
 	Hoses     int            // hoses in the present choice (≥ 1)
 	Parallel  []WhatIfParallel
-	HasTime   bool // a tank is set, so times to the stop exist
+	HasTime   bool    // a tank is set, so times exist
+	Common    float64 // the one level every cell's time is counted to, m
 }
 
 // WhatIfAdoptMsg asks the root to adopt a cell of the What-if table as the
@@ -52,8 +61,9 @@ type WhatIfAdoptMsg struct {
 	Hoses            int
 }
 
-// WhatIfView is the What-if pane: a table of flow and time to the stop
-// against hose length and inside diameter around the present choice, with
+// WhatIfView is the What-if pane: a table of flow, time to one common level
+// and the level each hose stops at, against hose length and inside
+// diameter around the present choice, with
 // the present cell marked "●", cells that will not run marked "✗ no run",
 // and a row for more hoses in parallel. Arrows move the selection; Enter
 // asks the root (WhatIfAdoptMsg) to adopt the selected cell.
@@ -272,7 +282,7 @@ func wiHMM(s float64) string {
 }
 
 // wiCellText is a cell's two parts (flow, time) and its class.
-func (v *WhatIfView) cellText(c WhatIfCell) (flow, tm string, cls drawClass) {
+func (v *WhatIfView) cellText(c WhatIfCell, withLevel bool) (flow, tm string, cls drawClass) {
 	if c.Invalid {
 		return "– n/a", "", clsMuted
 	}
@@ -281,9 +291,13 @@ func (v *WhatIfView) cellText(c WhatIfCell) (flow, tm string, cls drawClass) {
 	}
 	flow, _ = model.FormatParts(model.DimFlow, finite(c.Flow), v.units.sys)
 	if v.t.HasTime {
-		tm = wiHMM(c.Time)
-		if c.Time <= 0 {
-			tm = "at once" // it would stop at once (see the footer)
+		if c.Drains {
+			tm = wiHMM(c.Time)
+			if withLevel {
+				tm += " " + v.levelNum(c.Level)
+			}
+		} else {
+			tm = present.WhatIfTag(calc.StopReason(c.StopReason)) // why it does not drain (the footer in full)
 		}
 	}
 	cls = clsText
@@ -331,8 +345,12 @@ func (v *WhatIfView) table(w, h int) string {
 		labelW = max(labelW, cellWidth(lenLbl[i]))
 	}
 	labelW += 3 // row marker "▸ " before, one space after
+	// Each hose's stop level goes in its cell when four columns (or all)
+	// still fit across with it (two-line cells: "h:mm 0.06" under the
+	// flow); else the footer gives the selected hose's.
+	withLevel := t.HasTime && labelW+min(nc, 4)*(2+len("0:00 0.00")+1) <= w
 	format := func(c WhatIfCell) wiCell {
-		f, tm, cls := v.cellText(c)
+		f, tm, cls := v.cellText(c, withLevel)
 		return wiCell{f, tm, cls, c.Runs && !c.Invalid}
 	}
 	cells := make([][]wiCell, nr)
@@ -402,14 +420,21 @@ func (v *WhatIfView) table(w, h int) string {
 
 	cv := newDrawCanvas(w, h)
 	title := "What-if · flow " + u.flowName
+	to := v.levelNum(t.Common) + " " + u.lenName
 	if t.HasTime {
-		title += " and time to stop h:mm"
+		title += " · h:mm to " + to
+		if withLevel {
+			title += " · stop level (" + u.lenName + ")"
+		}
 	}
 	title += " · ● now"
 	if cellWidth(title) > w {
 		title = "What-if · " + u.flowName
 		if t.HasTime {
-			title += ", h:mm"
+			title += " · h:mm to " + to
+			if withLevel {
+				title += " · stop (" + u.lenName + ")"
+			}
 		}
 	}
 	cv.text(0, 0, clip(title, w), clsTitle)
@@ -499,10 +524,10 @@ func (v *WhatIfView) table(w, h int) string {
 			f += " (does not fit the route)"
 		case !c.Runs:
 			f += " (✗ will not run)"
-		case t.HasTime && c.Time <= 0:
-			f += " (stops at once: " + present.StopShort(calc.StopReason(c.StopReason)) + ")"
+		case t.HasTime && !c.Drains:
+			f += " (does not lower the level: " + present.StopShort(calc.StopReason(c.StopReason)) + ")"
 		case t.HasTime && c.StopReason != "":
-			f += " (stops: " + present.StopShort(calc.StopReason(c.StopReason)) + ")"
+			f += " (stops at " + u.length(c.Level) + ": " + present.StopShort(calc.StopReason(c.StopReason)) + ")"
 		}
 		if !v.focused {
 			f = "select this pane to pick a hose"
@@ -524,6 +549,12 @@ func (v *WhatIfView) selectedCell() WhatIfCell {
 	return t.Cells[v.r][v.c]
 }
 
+// levelNum is a stop level as a cell shows it: the number in the table's
+// length unit (named in the title).
+func (v *WhatIfView) levelNum(si float64) string {
+	return strconv.FormatFloat(finite(si)/v.units.lenPer, 'f', 2, 64)
+}
+
 // diaText is a bore as the table shows it: "25 mm" (nominal bores without
 // a trailing ".0"), "1.50 in".
 func (v *WhatIfView) diaText(d float64) string {
@@ -542,7 +573,9 @@ func WhatIfFromGrid(g calc.WhatIfGrid, length, diameter float64, hoses int, hasT
 			Runs:       c.Err == nil && c.Verdict != calc.WillNotRun,
 			NearLimit:  c.Verdict == calc.RunsNearLimit,
 			Flow:       float64(c.Flow),
-			Time:       float64(c.Time),
+			Time:       float64(c.TimeToCommon),
+			Level:      float64(c.StopLevel),
+			Drains:     c.Drains && g.CommonFound,
 			StopReason: string(c.StopReason),
 		}
 	}
@@ -555,7 +588,7 @@ func WhatIfFromGrid(g calc.WhatIfGrid, length, diameter float64, hoses int, hasT
 		}
 		return best
 	}
-	t := WhatIfTable{Hoses: max(hoses, 1), HasTime: hasTank}
+	t := WhatIfTable{Hoses: max(hoses, 1), HasTime: hasTank, Common: float64(g.CommonLevel)}
 	for _, l := range g.Lengths {
 		t.Lengths = append(t.Lengths, float64(l))
 	}

@@ -27,9 +27,9 @@ func wiDemo() WhatIfTable {
 		a := math.Pi * d * d / 4
 		v := math.Sqrt(2 * 9.80665 * 2.6 / (1 + 1.5 + 0.02*l/d))
 		flow := float64(n) * a * v
-		return WhatIfCell{Runs: true, Flow: flow, Time: 4 / flow, StopReason: "intake"}
+		return WhatIfCell{Runs: true, Flow: flow, Time: 4 / flow, Level: 0.05 + 20*flow, Drains: true, StopReason: "intake"}
 	}
-	t := WhatIfTable{Lengths: lengths, Diameters: diams, Row: 3, Col: 2, Hoses: 1, HasTime: true}
+	t := WhatIfTable{Lengths: lengths, Diameters: diams, Row: 3, Col: 2, Hoses: 1, HasTime: true, Common: 0.14}
 	for _, l := range lengths {
 		row := make([]WhatIfCell, len(diams))
 		for j, d := range diams {
@@ -140,7 +140,7 @@ func TestWhatIfAdopt(t *testing.T) {
 
 func TestWhatIfMarks(t *testing.T) {
 	v := NewWhatIfView(NewStyles(true), model.SI, DefaultKeyMap())
-	v.SetSize(78, 12)
+	v.SetSize(118, 12) // all five bores across (at 78 columns the table scrolls to them)
 	v.SetTable(wiDemo())
 	v.Focus()
 	got := ansi.Strip(v.View())
@@ -293,3 +293,39 @@ func BenchmarkWhatIfCmdDemo(b *testing.B) {
 }
 
 var paneSink2 any
+
+// A hose that does not lower the level says why in its cell and the
+// footer, never a bare "at once"; on the demo, as the screen computes it,
+// every row ranks bores the right way to the one common level.
+func TestWhatIfSaysWhy(t *testing.T) {
+	tab := wiDemo()
+	tab.Cells[0][4] = WhatIfCell{Runs: true, Flow: 0.003, StopReason: "air"} // air at the intake from the start
+	v := NewWhatIfView(NewStyles(true), model.SI, DefaultKeyMap())
+	v.SetSize(118, 22)
+	v.SetTable(tab)
+	v.Focus()
+	for _, k := range []string{"up", "up", "up", "right", "right"} {
+		v, _ = v.Update(keyMsg(k))
+	}
+	got := ansi.Strip(v.View())
+	if strings.Contains(got, "at once") || !strings.Contains(got, "air now") || !strings.Contains(got, "does not lower the level: air") {
+		t.Errorf("no reason for a hose that does not drain:\n%s", got)
+	}
+
+	m := newTestModel(t, 80, 24)
+	m = press(t, m, "7")
+	dt := m.whatif.t
+	if !(dt.Common > 0) {
+		t.Fatalf("no common level: %+v", dt.Common)
+	}
+	for i, row := range dt.Cells {
+		for j := 1; j < len(row); j++ {
+			if row[j].Drains && row[j-1].Drains && row[j].Time > row[j-1].Time {
+				t.Errorf("row %d: %g m bore %d takes %.0f s to %.3f m, the smaller %.0f s", i, dt.Lengths[i], j, row[j].Time, dt.Common, row[j-1].Time)
+			}
+		}
+	}
+	if f := ansi.Strip(m.whatif.View()); strings.Contains(f, "at once") {
+		t.Errorf("demo What-if says at once:\n%s", f)
+	}
+}

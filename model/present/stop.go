@@ -21,6 +21,8 @@ func StopShort(r calc.StopReason) string {
 		return "levels equal, flow tapers off"
 	case calc.StopReceiverFull:
 		return "receiver full"
+	case calc.StopSettles:
+		return "level settles: inflow matches the siphon"
 	case "":
 		return "end of plan"
 	}
@@ -44,6 +46,9 @@ func StopLong(r calc.StopReason) string {
 			" cm of each other; the flow tapers to nothing"
 	case calc.StopReceiverFull:
 		return "the receiving vessel is full"
+	case calc.StopSettles:
+		return "the siphon's flow falls to the inflow and the level settles; the plan ends within " +
+			strconv.FormatFloat(float64(calc.SettleMargin)*100, 'g', 3, 64) + " cm of it"
 	case "":
 		return "the plan ends"
 	}

@@ -36,34 +36,36 @@ func (rw *recWriter) readings(j model.Job, p model.Plan, start time.Time, fit *m
 			planned = rw.level(lv)
 			diff = signed(rw.level(r.Level - lv))
 		}
-		rw.row(rw.clock(r.At), rw.level(r.Level), planned, diff, r.Note)
+		rw.row(rw.clock(r.At), present.ReadingLevel(r, rw.sys), planned, diff, r.Note)
 	}
 	rw.line("")
 	switch {
 	case fitErr != nil:
 		rw.line("Comparison with the plan: " + mdText(fitErr.Error()) + ".")
 	case fit != nil:
-		rw.line("Comparison with the plan (fitted to " + strconv.Itoa(fit.N) + " readings):")
-		rw.line("")
-		rw.line("- " + mdText(fit.Message) + ".")
-		rw.line("- Effective extra loss coefficient ΔK: " + strconv.FormatFloat(fit.ExtraK, 'f', 2, 64) +
-			"; level residual " + rw.level(fit.RMS) + " RMS (plan as typed: " + rw.level(fit.PlanRMS) + ").")
-		if fit.Stopped {
-			rw.line("- The readings show the drain at its stop: " + rw.level(fit.StopLevel) +
-				" (" + present.StopLong(calc.StopReason(fit.Stop)) + "), reached about " + rw.tm(fit.Finish) + ".")
-		} else {
-			rw.line("- Re-predicted from the last reading: stop at " + rw.level(fit.StopLevel) +
-				" (" + present.StopLong(calc.StopReason(fit.Stop)) + ") about " + rw.tm(fit.Finish) + ".")
-		}
-		if fit.SlowingJudged {
-			state := "not slowing faster than planned"
-			if fit.Slowing {
-				state = "SLOWING faster than planned: check for air at the crest or a clogging intake"
-			}
-			rw.line(fmt.Sprintf("- Recent readings: %s (recent fall %.0f %% of what the earlier readings predict).", state, 100*fit.RecentRatio))
-		}
+		rw.fitLines(fit)
 	}
 	rw.line("")
+}
+
+// fitLines is the fit's summary (present.FitSummary) with its figures.
+func (rw *recWriter) fitLines(fit *model.Fit) {
+	what := strconv.Itoa(fit.N) + " readings"
+	if fit.NTests > 0 {
+		what += " and " + strconv.Itoa(fit.NTests) + " flow tests"
+	}
+	rw.line("Comparison with the plan (fitted to " + what + "):")
+	rw.line("")
+	for _, l := range present.FitSummary(fit, nil, present.FitWords{Sys: rw.sys, Clock: rw.tm, Long: true}) {
+		rw.line("- " + mdText(l.Text) + ".")
+	}
+	if fit.N >= 2 {
+		rw.line("- Effective extra loss coefficient ΔK: " + strconv.FormatFloat(fit.ExtraK, 'f', 2, 64) +
+			"; level residual " + rw.level(fit.RMS) + " RMS (plan as typed: " + rw.level(fit.PlanRMS) + ").")
+	}
+	if fit.SlowingJudged && !fit.Slowing {
+		rw.line(fmt.Sprintf("- Recent readings: not slowing faster than planned (recent rate %.0f %% of the earlier, relative to the plan's own slowdown).", 100*fit.RateRatio))
+	}
 }
 
 func sortedReadings(in []model.Reading) []model.Reading {

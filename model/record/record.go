@@ -113,6 +113,7 @@ func Write(w io.Writer, r Input) error {
 	rw.checklist(j.Checklist)
 	fit, fitErr := r.fit()
 	rw.readings(j, p, started, fit, fitErr)
+	rw.flowTests(j)
 	rw.volume(j, p)
 	if ctx.OilCheck || j.Release.Recorded() {
 		rw.release(j)
@@ -165,7 +166,7 @@ func (r Input) fit() (*model.Fit, error) {
 	if r.Fit != nil {
 		return r.Fit, nil
 	}
-	if len(r.Job.Readings) == 0 {
+	if len(r.Job.Readings) == 0 && len(r.Job.FlowTests) == 0 {
 		return nil, nil
 	}
 	if !planComputed(r.Plan) {
@@ -174,12 +175,7 @@ func (r Input) fit() (*model.Fit, error) {
 	if r.Plan.Drain == nil || r.Plan.DrainIn.Tank == nil {
 		return nil, errors.New("no drain plan to compare with (the tank is not described)")
 	}
-	f, err := model.FitReadings(r.Job.Readings, model.DrainSimulator(r.Plan.DrainIn),
-		model.FitOptions{SumK: r.Plan.Siphon.Hose.KMinor()})
-	if err != nil {
-		return nil, err
-	}
-	return &f, nil
+	return model.FitJob(&r.Job, &r.Plan)
 }
 
 // flowStart is the job's start time, or the time the "flow started" step

@@ -4,7 +4,9 @@ import (
 	"bytes"
 	"encoding/csv"
 	"errors"
+	"math"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
 	"time"
@@ -64,7 +66,7 @@ func demoRecordJob(t *testing.T) (model.Job, model.Plan) {
 	j.Started = start
 
 	sim := model.DrainSimulator(p.DrainIn)
-	truth, err := sim(4, float64(p.Siphon.Geometry.Surface))
+	truth, err := sim(model.FitParams{ExtraK: 4}, float64(p.Siphon.Geometry.Surface))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -187,40 +189,70 @@ func checkGolden(t *testing.T, path string, got []byte) {
 	testkit.Golden(t, path, got)
 }
 
-// The readings CSV parses back, has the documented header, and its reading
-// rows carry the planned level at their time.
+// The readings CSV parses back, has the documented header, its reading
+// rows carry the planned level at their time, and every row's elapsed_s
+// counts from the one time base its time_base row gives: with a start time
+// (the demo record) and without one (the first reading is the base, and the
+// plan rows, placed on the clock through the first reading, count from it
+// too; issue 13 found them counted from the plan's own start).
 func TestReadingsCSV(t *testing.T) {
-	j, p := demoRecordJob(t)
-	var b bytes.Buffer
-	if err := WriteCSV(&b, Input{Job: j, Plan: p, Now: time.Date(2026, 3, 14, 12, 0, 0, 0, reportZone)}); err != nil {
-		t.Fatal(err)
-	}
-	rows, err := csv.NewReader(&b).ReadAll()
-	if err != nil {
-		t.Fatal(err)
-	}
-	if strings.Join(rows[0], ",") != "kind,time,elapsed_s,level_m,planned_level_m,note" {
-		t.Errorf("header %v", rows[0])
-	}
-	var nr, np int
-	for _, r := range rows[1:] {
-		switch r[0] {
-		case "reading":
-			nr++
-			if r[3] == "" || r[4] == "" || r[1] == "" {
-				t.Errorf("reading row incomplete: %v", r)
-			}
-		case "plan":
-			np++
-			if r[3] != "" || r[4] == "" || r[1] == "" {
-				t.Errorf("plan row: %v", r)
-			}
-		default:
-			t.Errorf("kind %q", r[0])
+	withStart, _ := demoRecordJob(t)
+	noStart, p := demoRecordJob(t)
+	noStart.Started = time.Time{}
+	noStart.Checklist.Steps[noStart.Checklist.Index("run.start")].State = model.StatePending
+	noStart.FlowTests = []model.FlowTest{{At: noStart.Readings[2].At, Volume: 0.01, Seconds: 12, Note: "bucket"}}
+	for _, j := range []model.Job{withStart, noStart} {
+		var b bytes.Buffer
+		if err := WriteCSV(&b, Input{Job: j, Plan: p, Now: time.Date(2026, 3, 14, 12, 0, 0, 0, reportZone)}); err != nil {
+			t.Fatal(err)
 		}
-	}
-	if nr != len(j.Readings) || np != len(p.Drain.Curve) {
-		t.Errorf("%d reading rows, %d plan rows; want %d, %d", nr, np, len(j.Readings), len(p.Drain.Curve))
+		rows, err := csv.NewReader(&b).ReadAll()
+		if err != nil {
+			t.Fatal(err)
+		}
+		if strings.Join(rows[0], ",") != "kind,time,elapsed_s,level_m,planned_level_m,flow_m3_s,note" {
+			t.Errorf("header %v", rows[0])
+		}
+		if rows[1][0] != "time_base" || rows[1][2] != "0" {
+			t.Fatalf("second row %v, want the time base", rows[1])
+		}
+		base, err := time.Parse(time.RFC3339, rows[1][1])
+		if err != nil {
+			t.Fatal(err)
+		}
+		if want := model.DrainStart(&j); !base.Equal(want) {
+			t.Errorf("time base %v, want %v", base, want)
+		}
+		var nr, np, nf int
+		for _, r := range rows[2:] {
+			switch r[0] {
+			case "reading":
+				nr++
+				if r[3] == "" || r[4] == "" || r[1] == "" {
+					t.Errorf("reading row incomplete: %v", r)
+				}
+			case "plan":
+				np++
+				if r[3] != "" || r[4] == "" || r[1] == "" {
+					t.Errorf("plan row: %v", r)
+				}
+			case "flow_test":
+				nf++
+				if r[5] == "" || r[6] != "bucket" {
+					t.Errorf("flow test row: %v", r)
+				}
+			default:
+				t.Errorf("kind %q", r[0])
+			}
+			at, err1 := time.Parse(time.RFC3339, r[1])
+			el, err2 := strconv.ParseFloat(r[2], 64)
+			if err1 != nil || err2 != nil || math.Abs(at.Sub(base).Seconds()-el) > 1 {
+				t.Errorf("%s row at %s has elapsed_s %s; want %.0f from the time base", r[0], r[1], r[2], at.Sub(base).Seconds())
+			}
+		}
+		if nr != len(j.Readings) || np != len(p.Drain.Curve) || nf != len(j.FlowTests) {
+			t.Errorf("%d reading rows, %d plan rows, %d flow tests; want %d, %d, %d", nr, np, nf, len(j.Readings), len(p.Drain.Curve), len(j.FlowTests))
+		}
 	}
 }
 
