@@ -15,7 +15,7 @@ import (
 // parseFlags.
 type flagDef struct {
 	name string // without the leading dashes
-	// arg is the value's placeholder in the help ("X", "ID", "FILE"); empty
+	// arg names the value in the help ("X", "ID", "FILE"); empty
 	// for a switch, which takes no value.
 	arg  string
 	help string

@@ -12,7 +12,7 @@ import (
 	"drawdown/calc/testkit"
 )
 
-// Golden transcripts of the command line, in testdata/: `go test . -update`
+// Golden outputs of the command line, in testdata/: `go test . -update`
 // rewrites them. Review the diff before committing and say in the commit
 // why each file changed: the figures come from calc, presets and model, so a
 // change there shows here. The calc text output (testdata/calc/*.txt) is
@@ -108,10 +108,10 @@ func TestSigDigits(t *testing.T) {
 	}
 }
 
-// TestGoldenTranscripts: the text a user sees from calc (SI and US), the
+// TestGoldenOutputs: the text a user sees from calc (SI and US), the
 // catalogue listing, the top-level and calc help, and the record of a job
 // file.
-func TestGoldenTranscripts(t *testing.T) {
+func TestGoldenOutputs(t *testing.T) {
 	cases := []struct {
 		file string
 		args []string
