@@ -5,15 +5,14 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"math"
 	"slices"
 	"sort"
 	"strconv"
 	"strings"
+	"time"
 
 	"drawdown/calc"
 	"drawdown/model"
-	"drawdown/model/present"
 	"drawdown/presets"
 )
 
@@ -61,6 +60,7 @@ var calcFlagDefs = []flagDef{
 	fieldFlag("priming", model.FieldPriming, "ID", "priming method ID"),
 	fieldFlag("pump-stroke", model.FieldPumpStroke, "X", "hand-pump stroke volume, for the stroke count"),
 	fieldFlag("height-tolerance", model.FieldTolHeight, "X", "tolerance on measured heights for the band [3cm]"),
+	fieldFlag("bore-tolerance", model.FieldTolBore, "P", "how far the real bore may differ from --hose-id, for the band (3%, or 1% for a caliper-measured bore) [3%]"),
 	{name: "tank", arg: "SHAPE", field: model.FieldTankShape, complete: completeTankShapes,
 		help: "tank shape: " + strings.Join(append(presets.TankShapes(), "table"), ", ")},
 	fieldFlag("tank-diameter", model.FieldTankDiameter, "X", "tank diameter"),
@@ -74,6 +74,12 @@ var calcFlagDefs = []flagDef{
 	fieldFlag("intake-height", model.FieldIntakeHeight, "X", "hung end's mouth, or a strainer's base, above the tank floor [0.05m]"),
 	fieldFlag("intake", model.FieldIntakeKind, "KIND", "what is on the hose end, from `drawdown presets` ["+presets.DefaultIntake+"]"),
 	fieldFlag("max-flow", model.FieldMaxFlow, "RATE", "a permit's maximum discharge rate (L/s, gpm): the outlet valve setting is worked out"),
+	fieldFlag("inflow", model.FieldSeepage, "RATE", "a steady inflow while the siphon runs: seepage, a leak (L/s, L/min, m3/h, gpm)"),
+	fieldFlag("rain", model.FieldRain, "RATE", "rain while draining (mm/h, in/h), falling on --catchment"),
+	fieldFlag("catchment", model.FieldCatchment, "AREA", "area that sheds rain into the tank (m2, ft2) [the tank's plan area at its brim]"),
+	fieldFlag("rise-rate", model.FieldRiseRate, "RATE", "how fast the level rose with the siphon stopped (mm/h, in/h)"),
+	{name: "measured-flow", arg: "V/T", repeat: true, help: "a bucket test at the outlet, volume over time, e.g. 10L/12s; repeat for each test; the plan is fitted to them"},
+	fieldFlag("pump-rate", model.FieldPumpRate, "RATE", "a pump to finish what the siphon leaves (L/s, L/min, m3/h, gpm): the time it takes"),
 	{name: "may-carry-oil", help: "the water may carry a floating film of oil: without a board the drain stops where air starts"},
 }
 
@@ -98,6 +104,7 @@ type calcOptions struct {
 	units                        model.System
 	hose, tankTable, tankPreset  string
 	receiver                     *model.ReceiverSpec
+	flowTests                    []string // --measured-flow, as typed
 }
 
 func flagForField(id model.FieldID) string {
@@ -148,6 +155,8 @@ func calcValues(pf *parsedFlags) (map[model.FieldID]string, calcOptions, error) 
 			o.submerged = true
 		case d.name == "may-carry-oil":
 			o.mayCarryOil = true
+		case d.name == "measured-flow":
+			o.flowTests = pf.all(d.name)
 		case d.name == "units":
 			sys, err := model.ParseSystem(value)
 			if err != nil {
@@ -201,6 +210,7 @@ func buildInputs(vals map[model.FieldID]string, o calcOptions, cat *presets.Cata
 		func() error { return applyHose(vals, o.hose, cat) },
 		func() error { return applyTankPreset(vals, o.tankPreset, cat) },
 		func() (err error) { in.TankTable, err = readTankTable(vals, o); return err },
+		func() (err error) { in.FlowTests, err = readFlowTests(o); return err },
 		func() error { return validateFields(vals, o.units, cat) },
 		func() error { return checkRequired(vals, o.units) },
 	} {
@@ -294,6 +304,27 @@ func readTankTable(vals map[model.FieldID]string, o calcOptions) ([]model.TableP
 	return rows, nil
 }
 
+// readFlowTests reads each --measured-flow (a bucket test at the start
+// level). They need a steady siphon to fit, so no tank is needed.
+func readFlowTests(o calcOptions) ([]model.FlowTest, error) {
+	var out []model.FlowTest
+	for i, text := range o.flowTests {
+		f, err := model.ParseFlowTest(text, o.units, time.Now())
+		if err != nil {
+			n := ""
+			if len(o.flowTests) > 1 {
+				n = fmt.Sprintf(" (test %d of %d)", i+1, len(o.flowTests))
+			}
+			return nil, usagef("--measured-flow %s%s: %s", strconv.Quote(text), n, oneLine(err.Error()))
+		}
+		out = append(out, f)
+	}
+	if len(out) > model.MaxFlowTests {
+		return nil, usagef("--measured-flow given %d times; accepted at most %d", len(out), model.MaxFlowTests)
+	}
+	return out, nil
+}
+
 // validateFields checks every given field, in a fixed order, so that the
 // first bad one is named by its flag.
 func validateFields(vals map[model.FieldID]string, sys model.System, cat *presets.Catalogue) error {
@@ -383,187 +414,3 @@ func planError(p model.Plan) string {
 }
 
 func oneLine(s string) string { return strings.Join(strings.Fields(s), " ") }
-
-// calcSchema names the JSON document of `drawdown calc --json`, in its
-// "schema" key. The number after the slash changes only when a key is
-// removed or changes meaning; new keys may be added under the same number.
-const calcSchema = "drawdown-calc/1"
-
-// jsonDigits is the number of significant figures in the JSON numbers: far
-// more than any input is measured to (a tape reads 3 or 4 figures), few
-// enough that float noise never shows.
-const jsonDigits = 6
-
-// jsonNum rounds to jsonDigits significant figures and guarantees a finite
-// number (calc never returns NaN or Inf; this is the last guard).
-func jsonNum(v float64) float64 {
-	if math.IsNaN(v) || math.IsInf(v, 0) {
-		return 0
-	}
-	r, err := strconv.ParseFloat(strconv.FormatFloat(v, 'g', jsonDigits, 64), 64)
-	if err != nil || r == 0 {
-		return 0 // also turns -0 into 0
-	}
-	return r
-}
-
-// jsonPtr is jsonNum for a key that is null when it does not apply.
-func jsonPtr(v float64) *float64 {
-	r := jsonNum(v)
-	return &r
-}
-
-type jsonWarning struct {
-	Code    string `json:"code"`
-	Message string `json:"message"`
-}
-
-type jsonDrain struct {
-	TimeS            float64     `json:"time_s"`
-	TimeLowS         float64     `json:"time_low_s"`
-	TimeHighS        float64     `json:"time_high_s"`
-	VolumeM3         float64     `json:"volume_m3"`
-	StopLevelM       float64     `json:"stop_level_m"`
-	StopReason       string      `json:"stop_reason"`
-	ResidualM3       float64     `json:"residual_m3"`
-	CrestLimitLevelM *float64    `json:"crest_limit_level_m"`
-	StartFlowM3S     float64     `json:"start_flow_m3_s"`
-	ReceiverLevelM   *float64    `json:"receiver_level_m,omitempty"`
-	TargetLevelM     float64     `json:"target_level_m"`
-	AirStartsLevelM  float64     `json:"air_starts_level_m"`
-	PrimeLostLevelM  float64     `json:"prime_lost_level_m"`
-	Curve            []jsonPoint `json:"curve,omitempty"`
-}
-
-// jsonPoint is one point of the drain curve (with --curve).
-type jsonPoint struct {
-	TimeS          float64  `json:"time_s"`
-	LevelM         float64  `json:"level_m"`
-	FlowM3S        float64  `json:"flow_m3_s"`
-	ReceiverLevelM *float64 `json:"receiver_level_m,omitempty"`
-}
-
-type jsonResult struct {
-	Schema               string        `json:"schema"`
-	Verdict              string        `json:"verdict"`
-	Fix                  string        `json:"fix,omitempty"`
-	Liquid               string        `json:"liquid"`
-	TemperatureK         float64       `json:"temperature_k"`
-	AtmPressurePa        float64       `json:"atm_pressure_pa"`
-	VaporPressurePa      float64       `json:"vapor_pressure_pa"`
-	DensityKgM3          float64       `json:"density_kg_m3"`
-	ViscosityPaS         float64       `json:"viscosity_pa_s"`
-	LiftM                float64       `json:"lift_m"`
-	DropM                float64       `json:"drop_m"`
-	MaxCrestHeightM      float64       `json:"max_crest_height_m"`
-	FlowingCrestLimitM   float64       `json:"flowing_crest_limit_m"`
-	WorkingCrestHeightM  float64       `json:"working_crest_height_m"`
-	CrestMarginM         float64       `json:"crest_margin_m"`
-	CrestPressurePa      float64       `json:"crest_pressure_pa"`
-	FlowM3S              float64       `json:"flow_m3_s"`
-	FlowLowM3S           float64       `json:"flow_low_m3_s"`
-	FlowHighM3S          float64       `json:"flow_high_m3_s"`
-	VelocityMS           float64       `json:"velocity_m_s"`
-	Reynolds             float64       `json:"reynolds"`
-	FrictionFactor       float64       `json:"friction_factor"`
-	Regime               string        `json:"regime"`
-	RequiredSubmergenceM float64       `json:"required_submergence_m"`
-	AirClearingVelocity  float64       `json:"air_clearing_velocity_m_s"`
-	OutletThrottleK      *float64      `json:"outlet_throttle_k"`
-	HoseVacuumWorstPa    float64       `json:"hose_vacuum_worst_pa"`
-	HoseVacuumRatingPa   *float64      `json:"hose_vacuum_rating_pa"`
-	AirStartsLevelM      float64       `json:"air_starts_level_m"`
-	PrimeLostLevelM      float64       `json:"prime_lost_level_m"`
-	PrimingVolumeM3      float64       `json:"priming_volume_m3"`
-	PumpStrokes          int           `json:"pump_strokes,omitempty"`
-	Warnings             []jsonWarning `json:"warnings"`
-	Notes                []string      `json:"notes"`
-	Cautions             []string      `json:"cautions"`
-	Drain                *jsonDrain    `json:"drain,omitempty"`
-}
-
-// jsonOf lays the plan out as the JSON document; curve adds the drain
-// curve.
-func jsonOf(p model.Plan, curve bool) jsonResult {
-	r := p.Result
-	s := p.Siphon
-	j := jsonResult{
-		Schema:               calcSchema,
-		Verdict:              r.Verdict.String(),
-		Fix:                  present.FixOf(r, p.Liquid, present.Figures{Sys: model.SI}),
-		Liquid:               p.Liquid.ID,
-		TemperatureK:         jsonNum(float64(p.Temperature)),
-		AtmPressurePa:        jsonNum(float64(s.AtmPressure)),
-		VaporPressurePa:      jsonNum(float64(s.Fluid.VaporPressure)),
-		DensityKgM3:          jsonNum(float64(s.Fluid.Density)),
-		ViscosityPaS:         jsonNum(float64(s.Fluid.Viscosity)),
-		LiftM:                jsonNum(float64(s.Geometry.Lift())),
-		DropM:                jsonNum(float64(s.Geometry.Drop())),
-		MaxCrestHeightM:      jsonNum(float64(r.MaxCrestHeight)),
-		FlowingCrestLimitM:   jsonNum(float64(r.FlowingCrestLimit)),
-		WorkingCrestHeightM:  jsonNum(float64(r.WorkingCrestHeight)),
-		CrestMarginM:         jsonNum(float64(r.CrestMargin)),
-		CrestPressurePa:      jsonNum(float64(r.CrestPressure)),
-		FlowM3S:              jsonNum(float64(r.Flow)),
-		FlowLowM3S:           jsonNum(float64(p.FlowLow)),
-		FlowHighM3S:          jsonNum(float64(p.FlowHigh)),
-		VelocityMS:           jsonNum(float64(r.Velocity)),
-		Reynolds:             jsonNum(r.Reynolds),
-		FrictionFactor:       jsonNum(r.FrictionFactor),
-		Regime:               r.Regime.String(),
-		RequiredSubmergenceM: jsonNum(float64(r.RequiredSubmergence)),
-		AirClearingVelocity:  jsonNum(float64(r.AirClearingVelocity)),
-		HoseVacuumWorstPa:    jsonNum(float64(r.HoseVacuumWorst)),
-		AirStartsLevelM:      jsonNum(float64(r.AirStartsLevel)),
-		PrimeLostLevelM:      jsonNum(float64(r.PrimeLostLevel)),
-		PrimingVolumeM3:      jsonNum(float64(r.PrimingVolume)),
-		PumpStrokes:          p.PumpStrokes,
-		Warnings:             []jsonWarning{},
-		Notes:                append([]string{}, p.Notes...),
-		Cautions:             present.Cautions(p),
-	}
-	if r.HasOutletThrottle {
-		j.OutletThrottleK = jsonPtr(r.OutletThrottleK)
-	}
-	if r.HoseRated {
-		j.HoseVacuumRatingPa = jsonPtr(float64(r.HoseVacuumRating))
-	}
-	for _, w := range present.WarningsOf(r, present.Figures{Sys: model.SI}) {
-		j.Warnings = append(j.Warnings, jsonWarning{Code: w.Code, Message: w.Long})
-	}
-	if d := p.Drain; d != nil {
-		jd := &jsonDrain{
-			TimeS:           jsonNum(float64(d.Time)),
-			TimeLowS:        jsonNum(float64(p.TimeLow)),
-			TimeHighS:       jsonNum(float64(p.TimeHigh)),
-			VolumeM3:        jsonNum(float64(d.Volume)),
-			StopLevelM:      jsonNum(float64(d.StopLevel)),
-			StopReason:      string(d.StopReason),
-			ResidualM3:      jsonNum(float64(d.Residual)),
-			StartFlowM3S:    jsonNum(float64(d.StartFlow)),
-			TargetLevelM:    jsonNum(float64(p.DrainIn.Target)),
-			AirStartsLevelM: jsonNum(float64(d.AirStartsLevel)),
-			PrimeLostLevelM: jsonNum(float64(d.PrimeLostLevel)),
-		}
-		if d.CrestLimitFound {
-			v := jsonNum(float64(d.CrestLimitLevel))
-			jd.CrestLimitLevelM = &v
-		}
-		if p.Receiver != nil {
-			v := jsonNum(float64(d.ReceiverLevel))
-			jd.ReceiverLevelM = &v
-		}
-		if curve {
-			for _, pt := range d.Curve {
-				jp := jsonPoint{TimeS: jsonNum(float64(pt.Time)), LevelM: jsonNum(float64(pt.Level)), FlowM3S: jsonNum(float64(pt.Flow))}
-				if p.Receiver != nil {
-					v := jsonNum(float64(pt.ReceiverLevel))
-					jp.ReceiverLevelM = &v
-				}
-				jd.Curve = append(jd.Curve, jp)
-			}
-		}
-		j.Drain = jd
-	}
-	return j
-}

@@ -31,6 +31,9 @@ func writeText(w io.Writer, p model.Plan, o calcOptions) {
 		}
 		row("Flow", flow)
 		row("Velocity", s.Speed+" (Re "+s.Reynolds+", Darcy f "+s.Friction+")")
+		if s.FlowTest.Long != "" {
+			row("Flow test", s.FlowTest.Long)
+		}
 	}
 	c := s.Crest
 	limits := "lift " + c.Lift + "; working limit " + c.Working + " (margin " + c.Margin + ")"
@@ -54,9 +57,30 @@ func writeText(w io.Writer, p model.Plan, o calcOptions) {
 		if d.TimeRange != "" {
 			tm += " (range " + d.TimeRange + ")"
 		}
+		fc := d.Forecast
 		row("Time", tm)
-		row("Stops at", d.StopLevel+" above the floor: "+d.StopLong)
+		if fc.Inflow != "" {
+			row("Inflow", fc.Inflow)
+			row("", fc.KeepsUp)
+		}
+		if fc.Time90 != "" {
+			row("To 90 %", fc.Time90+" to move 90 % of it; the slow tail takes the rest")
+		}
+		if fc.Driver != "" {
+			row("Range", fc.Driver+"; "+fc.Narrow)
+		}
+		if fc.Higher != "" {
+			row("", fc.Higher)
+		}
+		stop := d.StopLevel + " above the floor"
+		if fc.Finish != "" {
+			stop += " (likely " + fc.Finish + ")"
+		}
+		row("Stops at", stop+": "+d.StopLong)
 		row("Moved", d.Volume+"; left in the tank "+d.Residual)
+		if fc.Pump != "" {
+			row("Pump", fc.Pump)
+		}
 		for _, line := range d.AirLines() {
 			row("Air", line)
 		}

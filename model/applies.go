@@ -29,8 +29,10 @@ func Applies(values map[FieldID]string, id FieldID) bool {
 			return false
 		}
 		return tank
-	case FieldTankLevel, FieldTankTarget:
+	case FieldTankLevel, FieldTankTarget, FieldRain, FieldRiseRate, FieldSeepage, FieldPumpRate:
 		return tank
+	case FieldCatchment:
+		return tank && strings.TrimSpace(values[FieldRain]) != ""
 	case FieldTankHeight:
 		return tank && shape != "horizontal-cylinder" && shape != "sphere" && shape != "table"
 	case FieldTankDiameter, FieldTankLength, FieldTankWidth, FieldTankCone, FieldTankSlope:

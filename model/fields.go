@@ -37,6 +37,7 @@ const (
 	FieldMaxFlow         FieldID = "max.flow"
 	FieldOutletSubmerged FieldID = "outlet.submerged"
 	FieldTolHeight       FieldID = "tol.height"
+	FieldTolBore         FieldID = "tol.bore"
 
 	// A receiving vessel for a transfer (its level rises as the source
 	// falls). The IDs match ReceiverField(name).
@@ -68,6 +69,13 @@ const (
 	FieldTankSlope    FieldID = "tank.slope"
 	FieldTankLevel    FieldID = "tank.level"
 	FieldTankTarget   FieldID = "tank.target"
+
+	// Liquid coming in while the siphon runs, and a pump to finish.
+	FieldRain      FieldID = "inflow.rain"
+	FieldCatchment FieldID = "inflow.catchment"
+	FieldRiseRate  FieldID = "inflow.rise"
+	FieldSeepage   FieldID = "inflow.seepage"
+	FieldPumpRate  FieldID = "pump.rate"
 )
 
 // Pane is the input pane a field belongs to.

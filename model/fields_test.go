@@ -21,6 +21,7 @@ var contractIDs = []FieldID{
 	"receiver.shape", "receiver.diameter", "receiver.length", "receiver.width", "receiver.height",
 	"receiver.cone-height", "receiver.side-slope", "receiver.floor", "receiver.level",
 	"intake.kind", "max.flow", "outlet.k", // issue 11
+	"tol.bore", "inflow.rain", "inflow.catchment", "inflow.rise", "inflow.seepage", "pump.rate", // issue 13
 }
 
 func TestFieldTable(t *testing.T) {

@@ -59,6 +59,8 @@ var fieldTable = []FieldSpec{
 		Help: "The most the discharge may run at: the outlet valve setting that meets it is worked out."},
 	{ID: FieldTolHeight, Pane: PaneLift, Label: "Height tolerance", Dim: DimLength, Min: 0, Max: 1, Default: "3 cm",
 		Help: "How far each measured height may be off (±); sets the low and high band."},
+	{ID: FieldTolBore, Pane: PaneLift, Label: "Bore tolerance", Dim: DimPercent, Min: 0, Max: calc.MaxBoreTolerance, Default: "3 %",
+		Help: "How far the hose's real bore may differ from the one entered (±); joins the band. A bore measured with a caliper: 1 %."},
 	{ID: FieldReceiverShape, Pane: PaneLift, Label: "Receiving vessel", Dim: DimNumber, Default: "none",
 		Choices: receiverShapeChoices,
 		Help:    "A tank the hose discharges into: its level rises and the head shrinks from both ends. None: a free outlet or an open drain."},
@@ -119,7 +121,24 @@ var fieldTable = []FieldSpec{
 		Help: "Source surface above the tank floor at the start."},
 	{ID: FieldTankTarget, Pane: PaneTank, Label: "Target level", Dim: DimLength, Min: 0, Max: calc.MaxTankSize, Optional: true,
 		Help: "Stop the drain at this level above the floor. Empty: as low as the intake allows."},
+	{ID: FieldRain, Pane: PaneTank, Label: "Rain while draining", Dim: DimRate, Min: 0, Max: MaxRain, Optional: true, Blank: "none",
+		Help: "Rain intensity expected during the drain (a forecast or a gauge), e.g. 10 mm/h. It falls on the catchment below."},
+	{ID: FieldCatchment, Pane: PaneTank, Label: "Catchment area", Dim: DimArea, Min: 0.01, Max: MaxCatchment, Optional: true, Blank: "tank's own",
+		Help: "Plan area that sheds rain into the tank: the bund itself plus any roof or yard that drains into it."},
+	{ID: FieldRiseRate, Pane: PaneTank, Label: "Rise, siphon off", Dim: DimRate, Min: 0, Max: MaxRiseRate, Optional: true, Blank: "none",
+		Help: "How fast the level rose with the siphon stopped (a mark on a staff, timed), e.g. 12 mm/h. In rain it already holds the rain: give one or the other."},
+	{ID: FieldSeepage, Pane: PaneTank, Label: "Seepage or leak", Dim: DimFlow, Min: 0, Max: 1, Optional: true, Blank: "none",
+		Help: "A steady flow coming in: groundwater into a pit, a leaking valve into a vault, a pump that cannot be stopped."},
+	{ID: FieldPumpRate, Pane: PaneTank, Label: "Pump to finish", Dim: DimFlow, Min: 1e-5, Max: 1, Optional: true, Blank: "no pump",
+		Help: "A pump's rate, to finish what the siphon leaves: the time it takes is worked out."},
 }
+
+// Bounds on the inflow fields, SI.
+const (
+	MaxRain      = 0.5 / 3600 // m/s: 500 mm/h, beyond the heaviest short bursts recorded
+	MaxCatchment = 1e6        // m²: 100 ha
+	MaxRiseRate  = 5.0 / 3600 // m/s: 5 m/h
+)
 
 // Choices for the picker fields.
 

@@ -51,7 +51,8 @@ func (f FlowTest) Validate() error {
 
 // ParseFlowTest reads a flow test typed as VOLUME/TIME, e.g. "10L/12s",
 // "2.5 gal / 9 s", "20 L/1 min"; bare numbers are litres (SI) or US gallons
-// (US) over seconds (a stopwatch reads seconds). Errors name the part and its accepted range.
+// (US) over seconds (a stopwatch reads seconds); a time without a number
+// is one of that unit ("20 L/min", a rate). Errors name the part and its accepted range.
 func ParseFlowTest(text string, sys System, at time.Time) (FlowTest, error) {
 	vol, dur, ok := strings.Cut(text, "/")
 	if !ok {
@@ -64,6 +65,9 @@ func ParseFlowTest(text string, sys System, at time.Time) (FlowTest, error) {
 	dur = strings.TrimSpace(dur)
 	if _, err := strconv.ParseFloat(dur, 64); err == nil {
 		dur += " s" // a stopwatch reads seconds
+	}
+	if dur != "" && !(dur[0] >= '0' && dur[0] <= '9' || dur[0] == '.') {
+		dur = "1 " + dur // a rate as read off a meter: 20 L/min is 20 L in 1 min
 	}
 	s, err := Parse(DimTime, dur, sys)
 	if err != nil {

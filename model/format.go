@@ -66,8 +66,10 @@ func precision(d Dim, u unit) (decimals, sig int) {
 			return 1, 0
 		}
 		return 2, 0
-	case DimViscosity, DimFlow, DimVolume:
+	case DimViscosity, DimFlow, DimVolume, DimRate, DimArea:
 		return 0, 3
+	case DimPercent:
+		return 1, 0
 	case DimTime:
 		if u.name == "h" {
 			return 1, 0
@@ -117,7 +119,7 @@ func FormatParts(d Dim, si float64, sys System) (number, unit string) {
 	} else {
 		s = formatNumber(v, dec, sig)
 	}
-	if d == DimNumber {
+	if d == DimNumber || d == DimPercent {
 		s = trimZeros(s)
 	}
 	return s, u.name

@@ -31,6 +31,9 @@ type Inputs struct {
 	// carry oil"): without a board over the intake the drain stops where
 	// air starts to be drawn in.
 	FilmRisk bool
+	// FlowTests are bucket tests of the flow: the plan's losses are fitted
+	// to them and its band narrows to what they support.
+	FlowTests []FlowTest
 }
 
 // ReceiverSpec describes a receiving vessel for a transfer: its level rises
@@ -109,6 +112,25 @@ type Plan struct {
 	BoardDrain *calc.DrainPlan
 	TimeLow    calc.Seconds
 	TimeHigh   calc.Seconds
+	// Band is the drain's likely range (calc.PlanBandFrom): the time to a
+	// fixed level, the finish level's range and the input that drives it;
+	// nil when it could not be computed.
+	Band *calc.Band
+
+	// Inflow is the liquid coming in while the siphon runs (zero without).
+	Inflow Inflow
+	// Tests are the flow tests as calc reads them; TestFit the losses
+	// fitted to them (nil without tests), and PlannedFlow the flow as
+	// planned from the fittings before the fit.
+	Tests       []calc.FlowCheck
+	TestFit     *calc.TestFit
+	PlannedFlow calc.FlowRate
+	// PumpRate is the finishing pump's rate (0 without); PumpFinish the
+	// time it takes to lift what the siphon leaves against the inflow, and
+	// PumpFallsBehind true when the inflow matches or outruns it.
+	PumpRate        calc.FlowRate
+	PumpFinish      calc.Seconds
+	PumpFallsBehind bool
 	// SlowMayNotStart is true when, at the slow end of the tolerances, the
 	// siphon would not run at all: TimeHigh then has no upper bound.
 	SlowMayNotStart bool
@@ -127,7 +149,7 @@ func (p Plan) OK() bool { return p.Err == nil }
 
 // Compute computes the plan of a job (see ComputeInputs).
 func Compute(j Job, cat *presets.Catalogue) Plan {
-	return ComputeInputs(Inputs{Values: j.Inputs, Units: j.Units, FilmRisk: j.Facts.MayCarryOil}, cat)
+	return ComputeInputs(Inputs{Values: j.Inputs, Units: j.Units, FilmRisk: j.Facts.MayCarryOil, FlowTests: j.FlowTests}, cat)
 }
 
 // ComputeInputs turns a job's inputs into calc inputs and results. It is
@@ -227,6 +249,7 @@ func (c *computer) run() {
 		return
 	}
 	p.Result = r
+	c.fitTests()
 	if v, ok := c.num(FieldPumpStroke); ok && v > 0 {
 		p.PumpStrokes = int(math.Ceil(float64(r.PrimingVolume) / v))
 	}

@@ -21,6 +21,13 @@ func (c *computer) tolerance() calc.Tolerance {
 	k := p.Siphon.Hose.KMinor()
 	t.KLow = min(p.KLow, k)
 	t.KHigh = max(p.KHigh, calc.KFactorHigh*k)
+	if v, ok := c.num(FieldTolBore); ok {
+		t.Bore = v
+		if v == 0 {
+			t.Bore = 1e-9 // "no tolerance" (zero means the default in calc)
+		}
+	}
+	c.tolTests(&t)
 	return t
 }
 
@@ -48,6 +55,7 @@ func (c *computer) drainBand() {
 		c.note("no time range: " + err.Error())
 		return
 	}
+	p.Band = &b
 	p.TimeLow = min(b.TimeLow, p.Drain.Time)
 	p.TimeHigh = max(b.TimeHigh, p.Drain.Time)
 	p.SlowMayNotStart = b.SlowWillNotRun

@@ -299,6 +299,8 @@ func (c *computer) drain() {
 			in.Target = 1e-9 // "empty" means the floor, not "no target"
 		}
 	}
+	p.Inflow = c.inflow(p.Tank, float64(p.Siphon.Geometry.Surface))
+	in.Inflow = p.Inflow.Total
 	p.DrainIn = in
 	d, err := calc.PlanDrain(in)
 	if err != nil {
@@ -307,6 +309,7 @@ func (c *computer) drain() {
 	}
 	p.Drain = &d
 	c.drainBand()
+	c.pumpFinish()
 	if d.StopReason == calc.StopAir && in.Siphon.Intake.FilmRisk && !in.Siphon.Intake.Covered {
 		// the trade's answer to a film: a board over the intake; plan it
 		// too, so the hint can say what it gains

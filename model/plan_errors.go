@@ -116,9 +116,11 @@ func siUnit(d Dim) string {
 		return "m³"
 	case DimTime:
 		return "s"
-	case DimVelocity:
+	case DimVelocity, DimRate:
 		return "m/s"
-	default:
+	case DimArea:
+		return "m²"
+	default: // DimNumber and DimPercent are plain numbers
 	}
 	return ""
 }

@@ -88,12 +88,22 @@ const (
 	// DimNumber is a plain number without a unit (a loss coefficient K, a
 	// count of hoses).
 	DimNumber
+	// DimRate is a rate of rise of a level, or a rain intensity (depth per
+	// time): mm/h (SI), in/h (US). Parse returns m/s.
+	DimRate
+	// DimArea is a plan area (a catchment that sheds into the tank): m²
+	// (SI), ft² (US); ha and acre accepted. Parse returns m².
+	DimArea
+	// DimPercent is a relative tolerance: %, bare numbers are per cent.
+	// Parse returns the fraction (3 % → 0.03).
+	DimPercent
 	dimCount
 )
 
 var dimNames = [...]string{
 	"length", "diameter", "roughness", "pressure", "temperature", "density",
 	"viscosity", "flow rate", "volume", "time", "velocity", "number",
+	"rate of rise", "area", "percentage",
 }
 
 // String names the dimension in plain words ("length", "flow rate").
@@ -124,6 +134,8 @@ const (
 	pascalPerAtm  = 101325                                               // standard atmosphere → Pa, exact
 	m3PerCubicFt  = metrePerFoot * metrePerFoot * metrePerFoot           // ft³ → m³, exact (B.8: 2.831 685 E-02)
 	m3PerBarrel   = 42 * m3PerGallon                                     // petroleum barrel (42 US gal) → m³, exact (B.8: 1.589 873 E-01)
+	m2PerSquareFt = metrePerFoot * metrePerFoot                          // ft² → m², exact (B.8: 9.290 304 E-02)
+	m2PerAcre     = 43560 * m2PerSquareFt                                // acre (43 560 ft², survey foot ignored) → m² (B.8: 4.046 873 E+03 for the survey acre)
 	fahrenheitOff = 459.67                                               // T/K = (t/°F + 459.67)/1.8, exact (B.9)
 	celsiusOff    = 273.15                                               // T/K = t/°C + 273.15, exact (B.9)
 )
@@ -209,6 +221,24 @@ var unitTable = [dimCount][]unit{
 		{name: "ft/s", scale: metrePerFoot, alias: []string{"fps", "ft/sec"}},
 	},
 	DimNumber: nil,
+	DimRate: {
+		{name: "mm/h", scale: 1e-3 / 3600, alias: []string{"mm/hr", "mmph"}},
+		{name: "cm/h", scale: 1e-2 / 3600, alias: []string{"cm/hr"}},
+		{name: "m/h", scale: 1.0 / 3600, alias: []string{"m/hr"}},
+		{name: "mm/min", scale: 1e-3 / 60},
+		{name: "in/h", scale: metrePerInch / 3600, alias: []string{"in/hr", "inph", "iph"}},
+		{name: "in/min", scale: metrePerInch / 60},
+		{name: "ft/h", scale: metrePerFoot / 3600, alias: []string{"ft/hr"}},
+	},
+	DimArea: {
+		{name: "m²", scale: 1, alias: []string{"m2", "m^2", "sqm", "sq m"}},
+		{name: "ha", scale: 1e4, alias: []string{"hectare", "hectares"}},
+		{name: "ft²", scale: m2PerSquareFt, alias: []string{"ft2", "ft^2", "sqft", "sq ft"}},
+		{name: "acre", scale: m2PerAcre, alias: []string{"acres", "ac"}},
+	},
+	DimPercent: {
+		{name: "%", scale: 0.01, alias: []string{"percent", "pct"}},
+	},
 }
 
 // defaultUnits[d][sys] is the index into unitTable[d] used for bare numbers
@@ -226,6 +256,9 @@ var defaultUnits = [dimCount][2]string{
 	DimTime:        {"min", "min"},
 	DimVelocity:    {"m/s", "ft/s"},
 	DimNumber:      {"", ""},
+	DimRate:        {"mm/h", "in/h"},
+	DimArea:        {"m²", "ft²"},
+	DimPercent:     {"%", "%"},
 }
 
 // DefaultUnit is the unit symbol shown for d in sys and assumed for a bare

@@ -108,19 +108,39 @@ func (r *ResultPane) content(tight int) []string {
 			row("  range", s.FlowRange)
 		}
 		row("Speed", s.Speed)
+		if s.FlowTest.Short != "" {
+			r.line(&ls, s.FlowTest, iw, 2)
+		}
 	}
 	if d := s.Drain; d != nil {
-		if d.AtOnce {
+		switch {
+		case d.Overflows:
+			row("Spills in", d.Time)
+		case d.AtOnce:
 			row("Stops", "at once: nothing to drain")
-		} else {
+		default:
 			row("Stops in", d.Time)
 		}
 		if d.TimeRange != "" && tight < 1 {
 			row("  range", d.TimeRange)
 		}
+		fc := d.Forecast
 		row("", d.StopShort)
 		row("", "at "+d.StopLevel+" off the floor")
+		if fc.InflowShort != "" {
+			row("Inflow", fc.InflowShort)
+			if fc.Settles != "" {
+				row("", fc.Settles)
+			} else {
+				row("", "siphon keeps up")
+			}
+		}
 		row("", d.Residual+" left in it")
+		if fc.Pump != "" && tight < 1 {
+			for _, l := range wrapText(fc.Pump, iw-labelW, 2) {
+				row("", l)
+			}
+		}
 		if d.AirShort != "" {
 			row("", d.AirShort)
 		}

@@ -51,6 +51,9 @@ type Sheet struct {
 	HazardLine string
 
 	Warnings []Warning
+	// FlowTest compares the flow tests with the plan (zero Line without
+	// tests).
+	FlowTest Line
 	// Hints are the trade's advice that follows from the plan (not
 	// warnings): e.g. what to do when most of the tank is left.
 	Hints []Line
@@ -81,8 +84,11 @@ type Fact struct{ Label, Text string }
 
 // Drain is the drain plan in words.
 type Drain struct {
-	Shape     string // "rectangular"
-	AtOnce    bool   // it stops before anything moves
+	Shape  string // "rectangular"
+	AtOnce bool   // it stops before anything moves
+	// Overflows: the inflow outruns the siphon and the level rises to the
+	// brim; Time is then the time until it spills.
+	Overflows bool
 	Time      string // "47 min"
 	TimeRange string // "" when the band is empty
 	StopShort string // StopShort of the reason
@@ -106,6 +112,9 @@ type Drain struct {
 	// gathers at the crest, the siphon runs choked and the hose may
 	// flatten ("" when never).
 	AirGathers, Chokes, Collapses string
+	// Forecast is the inflow, the slow tail, the range's driver and a
+	// pump to finish.
+	Forecast Forecast
 }
 
 // Build words plan p in unit system sys. hz are the hazards the checklist is
@@ -143,6 +152,7 @@ func Build(p model.Plan, sys model.System, hz presets.Hazards) Sheet {
 		}
 	}
 	s.Intake = intakeLevels(p, f)
+	s.FlowTest = TestLine(p, f)
 	s.Prime = f.Of(model.DimVolume, float64(r.PrimingVolume))
 	if p.PumpStrokes > 0 {
 		s.Prime += ", " + strconv.Itoa(p.PumpStrokes) + " strokes"
@@ -204,6 +214,12 @@ func drainOf(p model.Plan, f Figures) *Drain {
 	}
 	if d.CollapseFound {
 		out.Collapses = L(d.CollapseLevel)
+	}
+	out.Forecast = forecastOf(p, f)
+	if d.Overflows {
+		out.Overflows = true
+		out.StopShort = "spills over the brim: the inflow outruns it"
+		out.StopLong = "the inflow outruns the siphon: the level rises to the brim and spills over"
 	}
 	return out
 }

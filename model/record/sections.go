@@ -82,6 +82,9 @@ func (rw *recWriter) plan(j model.Job, p model.Plan) {
 		}
 		rw.row("Flow at the start", flow)
 		rw.row("Velocity", s.Speed)
+		if s.FlowTest.Long != "" {
+			rw.row("Flow tests against the plan", s.FlowTest.Long)
+		}
 	}
 	c := s.Crest
 	rw.row("Crest", c.Status.Symbol()+" "+c.Says[0])
@@ -106,6 +109,26 @@ func (rw *recWriter) plan(j model.Job, p model.Plan) {
 		rw.row("Volume left in the source", d.Residual)
 		for _, line := range d.AirLines() {
 			rw.row("Air and hose", line)
+		}
+		fc := d.Forecast
+		if fc.Inflow != "" {
+			rw.row("Inflow while draining", fc.Inflow)
+			rw.row("Keeps up", fc.KeepsUp)
+		}
+		if fc.Time90 != "" {
+			rw.row("Time to move 90 % of the volume", fc.Time90)
+		}
+		if fc.Finish != "" {
+			rw.row("Likely stop level", fc.Finish)
+		}
+		if fc.Driver != "" {
+			rw.row("Time range", fc.Driver+"; "+fc.Narrow)
+		}
+		if fc.Higher != "" {
+			rw.row("Time range", fc.Higher)
+		}
+		if fc.Pump != "" {
+			rw.row("Pump to finish", fc.Pump)
 		}
 	}
 	rw.line("")
