@@ -125,6 +125,9 @@ type Plan struct {
 	Tests       []calc.FlowCheck
 	TestFit     *calc.TestFit
 	PlannedFlow calc.FlowRate
+	// Unfitted is the siphon as planned from the fittings, before the fit
+	// to the flow tests (the readings fit starts from it: FitJob).
+	Unfitted calc.Siphon
 	// PumpRate is the finishing pump's rate (0 without); PumpFinish the
 	// time it takes to lift what the siphon leaves against the inflow, and
 	// PumpFallsBehind true when the inflow matches or outruns it.

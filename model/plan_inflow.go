@@ -105,9 +105,25 @@ func (c *computer) fitTests() {
 		return
 	}
 	p.PlannedFlow = p.Result.Flow
+	p.Unfitted = p.Siphon
 	p.TestFit = &fit
 	p.Siphon = fit.Siphon
 	p.Result = r
+}
+
+// PlannedDrain is the drain input as planned from the fittings: DrainIn
+// with the siphon's losses as they were before the fit to the flow tests.
+// The readings fit starts from it, so that it weighs the flow tests and the
+// readings together rather than against a plan already fitted to the tests.
+func (p Plan) PlannedDrain() calc.DrainInput {
+	in := p.DrainIn
+	if p.TestFit == nil {
+		return in
+	}
+	g := in.Siphon.Geometry
+	in.Siphon = p.Unfitted
+	in.Siphon.Geometry = g
+	return in
 }
 
 // tolTests adds the flow tests to a tolerance.

@@ -22,7 +22,7 @@ func FitJob(j *Job, p *Plan) (*Fit, error) {
 	if !p.OK() || p.Drain == nil || p.DrainIn.Tank == nil {
 		return nil, ErrNoDrainPlan
 	}
-	f, err := FitReadings(j.Readings, j.FlowTests, DrainSimulator(p.DrainIn),
+	f, err := FitReadings(j.Readings, j.FlowTests, DrainSimulator(p.PlannedDrain()),
 		FitOptions{Inflow: float64(p.DrainIn.Inflow)})
 	if err != nil {
 		return nil, err

@@ -359,6 +359,10 @@ func inputsKey(j *model.Job, cat *presets.Catalogue) (key string, ok bool) {
 	// The site facts reach the plan (water that may carry oil stops the
 	// drain where air starts) and the checklist built with it.
 	fmt.Fprintf(&b, "facts=%+v;", j.Facts)
+	// The flow tests fit the plan's losses and narrow its band.
+	for _, t := range j.FlowTests {
+		fmt.Fprintf(&b, "test=%x/%x@%x;", math.Float64bits(t.Volume), math.Float64bits(t.Seconds), math.Float64bits(t.Level))
+	}
 	return b.String(), true
 }
 

@@ -174,6 +174,7 @@ func (m *Model) addFlowTest(msg FlowTestAddMsg) tea.Cmd {
 	}
 	m.job.AddLog(now, "flow test "+present.FlowTestLine(f, sys))
 	m.log.ReadingTaken()
+	m.recompute() // the plan is fitted to the tests and its range narrows
 	m.fit, m.fitErr = nil, nil
 	m.showReadings()
 	m.touch()

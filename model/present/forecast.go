@@ -173,7 +173,11 @@ func TestLine(p model.Plan, f Figures) Line {
 		tests = strconv.Itoa(n) + " flow tests"
 	}
 	planned := f.Of(model.DimFlow, float64(p.PlannedFlow)/float64(max(p.Siphon.Hoses, 1)))
-	short := tests + ": " + mean + " per hose, planned " + planned
+	per := ""
+	if p.Siphon.Hoses > 1 {
+		per = " per hose"
+	}
+	short := tests + ": " + mean + per + ", planned " + planned
 	long := short + "; the plan is fitted to the tests"
 	st := Info
 	switch {
