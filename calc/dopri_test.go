@@ -182,7 +182,7 @@ func dopriTo(f dopriRHS, t0, y0, t1, rtol, atol float64) (float64, dopriStats, e
 // one turns from positive to non-positive the right-hand side has a kink (its
 // derivative jumps), which the error estimate of a step across it does not
 // see, so the integration is stopped there and restarted (Hairer, Nørsett &
-// Wanner I, §II.6, "discontinuous right-hand sides"). It returns the time and
+// Wanner I, §II.6 on discontinuities; section from memory). It returns the time and
 // level of the stop and the index of the event (len(levels) for the flow
 // event).
 //
