@@ -224,7 +224,10 @@ type DrainPlan struct {
 //
 // Accuracy: the test suite checks the closed forms of
 // shared/reference/hydraulics.md §7 to 1e-6 and an independent fixed-step
-// Runge–Kutta integration with Solve at every step to 0.1 %.
+// Runge–Kutta integration with Solve at every step to 0.1 %; against an
+// adaptive Dormand–Prince 5(4) integration at tolerance 1e-12 the time to
+// the stop is within 7.6e-7 (intake), 1.0e-5 (levels equal) and 8.6e-7
+// (crest) on the three cases of calc/dopri_drain_test.go.
 //
 // Special cases:
 //   - a siphon that does not run at the start gives a plan of zero time whose
