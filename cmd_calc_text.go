@@ -32,7 +32,7 @@ func writeText(w io.Writer, p model.Plan, o calcOptions) {
 		row("Flow", flow)
 		row("Velocity", s.Speed+" (Re "+s.Reynolds+", Darcy f "+s.Friction+")")
 		if s.FlowTest.Long != "" {
-			row("Flow test", s.FlowTest.Long)
+			row("Tested", s.FlowTest.Long)
 		}
 	}
 	c := s.Crest

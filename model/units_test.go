@@ -423,3 +423,40 @@ func BenchmarkFormat(b *testing.B) {
 		sinkString = Format(DimFlow, 2.5e-3/60, US)
 	}
 }
+
+// The inflow units (issue 13) against NIST SP 811 (2008) Appendix B.8:
+// square foot 9.290 304 E-02 m² (exact), acre 4.046 873 E+03 m² (B.8's
+// acre is on the U.S. survey foot; the international acre, 43 560 ft², is
+// 4 046.856 m², 4 parts in a million less), hectare 1 E+04 m²; inch per hour
+// from the inch (exact); per cent by definition.
+func TestInflowUnits(t *testing.T) {
+	for _, c := range []struct {
+		d    Dim
+		text string
+		want float64
+		rel  float64
+	}{
+		{DimArea, "1 ft2", 9.290304e-2, 1e-15},
+		{DimArea, "1 ft²", 9.290304e-2, 1e-15},
+		{DimArea, "1 acre", 4.046873e3, 5e-6},
+		{DimArea, "1 ha", 1e4, 1e-15},
+		{DimArea, "40", 40, 1e-15},
+		{DimRate, "10 mm/h", 0.010 / 3600, 1e-15},
+		{DimRate, "1 in/h", 0.0254 / 3600, 1e-15},
+		{DimRate, "1 cm/h", 0.01 / 3600, 1e-15},
+		{DimRate, "12", 0.012 / 3600, 1e-15},
+		{DimPercent, "3 %", 0.03, 1e-15},
+		{DimPercent, "3", 0.03, 1e-15},
+	} {
+		v, err := Parse(c.d, c.text, SI)
+		if err != nil || math.Abs(v-c.want) > c.rel*c.want {
+			t.Errorf("Parse(%v, %q) = %g, %v; want %g (NIST SP 811 B.8)", c.d, c.text, v, err, c.want)
+		}
+	}
+	if v, _ := Parse(DimRate, "1", US); math.Abs(v-0.0254/3600) > 1e-18 {
+		t.Errorf("a bare rate in US units is in/h: %g", v)
+	}
+	if got := Format(DimPercent, 0.03, SI); got != "3 %" {
+		t.Errorf("Format(3 %%) = %q", got)
+	}
+}
