@@ -13,7 +13,7 @@ import "math"
 // Below 32 km it is identical to the ICAO standard atmosphere (ICAO Doc
 // 7488/3) and to ISO 2533:1975. The constants and equation numbers below were
 // taken from the collected reference note
-// (shared/reference/water-and-atmosphere.md, section 4), which read them from
+// (calc/testdata/reference/water-and-atmosphere.md, section 4), which read them from
 // secondary copies of [USSA76] that agree with each other.
 
 // StandardSeaLevelPressure is the standard atmosphere's sea-level pressure

@@ -8,7 +8,7 @@ import (
 	"drawdown/calc/testkit"
 )
 
-// Sources; tags as in shared/reference/water-and-atmosphere.md (see
+// Sources; tags as in calc/testdata/reference/water-and-atmosphere.md (see
 // water_test.go). USSA76 table entries were read from the printed tables by
 // third parties [S]; the note found two independent copies that agree
 // with each other and with the defining formula.

@@ -14,7 +14,7 @@ const (
 	// RoughnessFactorLow and RoughnessFactorHigh span the hose roughness
 	// when no range is given: ε/2 … 2ε. Published roughness for one material
 	// spans about this much or more (e.g. smooth rubber tubing 0.006–0.07 mm,
-	// plastic 0.0015–0.007 mm; shared/reference/hydraulics.md §3).
+	// plastic 0.0015–0.007 mm; calc/testdata/reference/hydraulics.md §3).
 	RoughnessFactorLow  = 0.5
 	RoughnessFactorHigh = 2.0
 	// SmoothRoughnessHigh is the high end for a hose entered as perfectly

@@ -12,7 +12,7 @@ import (
 // closed form of a vertical cylinder draining through an orifice of
 // constant coefficient (Torricelli's law, quasi-steady: Çengel & Cimbala,
 // Fluid Mechanics, Ch. 5 example "Discharge of water from a tank"; closed
-// form as in shared/reference/hydraulics.md §7):
+// form as in calc/testdata/reference/hydraulics.md §7):
 //
 //	A·dh/dt = −C a √(2g(h − z)),  √(h(t) − z) = √(h₀ − z) − C a √(2g) t/(2A)
 //

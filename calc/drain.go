@@ -174,7 +174,7 @@ type DrainPlan struct {
 // (the quasi-steady tank-draining equation, as in Çengel & Cimbala, Fluid
 // Mechanics: Fundamentals and Applications, Ch. 5 example "Discharge of water
 // from a tank"; closed forms for cylinders and spheres in the project's
-// reference notes, shared/reference/hydraulics.md §7).
+// reference notes, calc/testdata/reference/hydraulics.md §7).
 //
 // Method. The full-gravity flow depends on the levels only through the head
 // H, so it and the flowing crest limit C(H) are solved (the energy equation
@@ -223,7 +223,7 @@ type DrainPlan struct {
 // smooth in w and the integral is finite.
 //
 // Accuracy: the test suite checks the closed forms of
-// shared/reference/hydraulics.md §7 to 1e-6 and an independent fixed-step
+// calc/testdata/reference/hydraulics.md §7 to 1e-6 and an independent fixed-step
 // Runge–Kutta integration with Solve at every step to 0.1 %; against an
 // adaptive Dormand–Prince 5(4) integration at tolerance 1e-12 the time to
 // the stop is within 7.6e-7 (intake), 1.0e-5 (levels equal) and 8.6e-7

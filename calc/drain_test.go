@@ -11,7 +11,7 @@ import (
 
 // drainWater is liquid water at 15 °C: ρ = 999.10 kg/m³ (IF97 Region 1),
 // μ = 1.1375e-3 Pa·s (IAPWS 2008), p_v = 1705.8 Pa (IF97 Region 4), as
-// tabulated in shared/reference/water-and-atmosphere.md §2–§3.
+// tabulated in calc/testdata/reference/water-and-atmosphere.md §2–§3.
 var drainWater = Fluid{Density: 999.10, Viscosity: 1.1375e-3, VaporPressure: 1705.8}
 
 // planFixed plans with the constant-coefficient orifice law Q = C·a·√(2gH)
@@ -30,7 +30,7 @@ func circle(d float64) float64 { return math.Pi * d * d / 4 }
 
 // torricelliCylinder is the closed form for a vertical cylinder of plan area
 // A through an outlet of area a with coefficient C, head h0 → h1
-// (shared/reference/hydraulics.md §7):  t = (A/(C a))·√(2/g)·(√h0 − √h1).
+// (calc/testdata/reference/hydraulics.md §7):  t = (A/(C a))·√(2/g)·(√h0 − √h1).
 func torricelliCylinder(A, a, C, g, h0, h1 float64) float64 {
 	return A / (C * a) * math.Sqrt(2/g) * (math.Sqrt(h0) - math.Sqrt(h1))
 }

@@ -10,7 +10,7 @@ func TestFrictionColebrook(t *testing.T) {
 	// Colebrook–White values. Sources: the `fluids` library test point
 	// (Caleb Bell, fluids, commit 091070e9, Colebrook(1e5, 1e-4)) and the
 	// Colebrook grid computed at 40 digits by two methods (fixed point and the
-	// Lambert-W closed form), both as collected in shared/reference/
+	// Lambert-W closed form), both as collected in calc/testdata/reference/
 	// hydraulics.md §1.3. The grid is printed to 10 significant figures.
 	cases := []struct {
 		name   string

@@ -99,7 +99,7 @@ const (
 // and D in m, V in m/s): the published 0.4 (asymmetrical approach) and 0.3
 // (symmetrical) are for feet and feet per second, and C_SI = C_ft·√(1/0.3048)
 // (J.L. Gordon, "Vortices at intakes", Water Power 22, 1970; coefficients as
-// collected in shared/reference/hydraulics.md §6, from memory there). In
+// collected in calc/testdata/reference/hydraulics.md §6, from memory there). In
 // dimensionless form S/D = C_SI·√g·F_D: 2.27·F_D and 1.70·F_D.
 const (
 	GordonCAsymmetric = 0.4 / sqrtFoot

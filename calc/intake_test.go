@@ -9,7 +9,7 @@ import (
 
 // TestSubmergenceWorkedNumbers: ANSI/HI 9.8, S = D(1 + 2.3 F_D), and Gordon
 // (1970), S = C·V·√D, against the check values of
-// shared/reference/hydraulics.md §6 (computed there from each criterion's
+// calc/testdata/reference/hydraulics.md §6 (computed there from each criterion's
 // equation; Gordon's C 0.3/0.4 in ft units, 0.5434/0.7245 in SI). Four
 // decimals: half a unit, over the value.
 func TestSubmergenceWorkedNumbers(t *testing.T) {

@@ -11,7 +11,7 @@ import (
 
 // water15 is liquid water at 15 °C and 1 atm: ρ = 999.10 kg/m³ (IF97
 // Region 1), μ = 1.1375e-3 Pa·s (IAPWS 2008), p_v = 1705.8 Pa (IF97 Region 4),
-// as tabulated in shared/reference/water-and-atmosphere.md §2–§3.
+// as tabulated in calc/testdata/reference/water-and-atmosphere.md §2–§3.
 var water15 = Fluid{Density: 999.10, Viscosity: 1.1375e-3, VaporPressure: 1705.8}
 
 // demoCase is the check case: 25 mm hose, 12 m long, lift 1.5 m,

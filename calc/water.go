@@ -22,7 +22,7 @@ import (
 //	        doi:10.1063/1.3088050.
 //
 // Coefficients were checked against the collected reference note
-// (shared/reference/water-and-atmosphere.md, sections 1–3), which compared
+// (calc/testdata/reference/water-and-atmosphere.md, sections 1–3), which compared
 // them digit by digit with independent copies.
 
 // Limits of the formulations used here, SI units.

@@ -10,7 +10,7 @@ import (
 )
 
 // Sources of the check values below. The tags in brackets follow the
-// collected reference note shared/reference/water-and-atmosphere.md:
+// collected reference note calc/testdata/reference/water-and-atmosphere.md:
 //
 //	[P]  published check value from the standard's own verification table;
 //	[P2] published value from a secondary publication (handbook, paper);

@@ -402,7 +402,7 @@ func BenchmarkFitReadings(b *testing.B) {
 
 // sumpDrain is an invented case on the real planner: a 3 m vertical tank of
 // water at 15 °C (density, viscosity and vapour pressure from IAPWS-IF97 and
-// IAPWS 2008 as tabulated in shared/reference/water-and-atmosphere.md,
+// IAPWS 2008 as tabulated in calc/testdata/reference/water-and-atmosphere.md,
 // rounded), drained by a 25 mm, 12 m hose over a 0.6 m lift to an outlet
 // 1.2 m below the floor.
 func sumpDrain(t testing.TB) calc.DrainInput {
@@ -426,7 +426,7 @@ func sumpDrain(t testing.TB) calc.DrainInput {
 
 // Readings and a flow test taken off the real planner's curve with a known
 // extra loss recover it: the planner itself is the oracle (checked in calc
-// against the closed forms of shared/reference/hydraulics.md §7), so this
+// against the closed forms of calc/testdata/reference/hydraulics.md §7), so this
 // checks the fit and DrainSimulator's plumbing, including a first reading
 // taken 20 minutes after the start.
 func TestFitOnPlannedDrain(t *testing.T) {

@@ -11,7 +11,7 @@ import (
 
 // Sharqawy, Lienhard & Zubair (2010) seawater against check values computed
 // from the paper's equations with the paper coefficient set. Source: the
-// reference note shared/reference/water-and-atmosphere.md §5.1 "Check
+// reference note calc/testdata/reference/water-and-atmosphere.md §5.1 "Check
 // values" [C] (computed by independent scratch evaluators); the values in
 // brackets there are WaterTAP's regression values (4–5 figures), also
 // checked below. Tolerance: half a unit of the last printed digit.
@@ -101,7 +101,7 @@ func TestSeawaterPreset(t *testing.T) {
 }
 
 // ASTM D341 Walther form against the worked check in the reference note
-// shared/reference/hydraulics.md §8.4 [computed]: ν40 = 30, ν100 = 5.23 mm²/s
+// calc/testdata/reference/hydraulics.md §8.4 [computed]: ν40 = 30, ν100 = 5.23 mm²/s
 // gives A = 9.487160, B = 3.732265, ν60 = 14.447, ν20 = 79.19, ν0 = 299.0.
 func TestWaltherCheck(t *testing.T) {
 	w := fitWalther(313.15, 30, 373.15, 5.23)
