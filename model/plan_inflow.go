@@ -29,12 +29,13 @@ type Inflow struct {
 	Total   calc.FlowRate
 }
 
-// testUncertainty is one bucket test's relative standard uncertainty: a
-// 10 L bucket read to about ±0.3 L and a 12 s fill timed by hand to about
-// ±0.3 s give some 3–4 % together; 5 % allows for the splash and the
-// start and stop of the catch (common practice, figures from memory). The
-// mean of n tests is taken as uncertain by 5 %/√n.
-const testUncertainty = 0.05
+// A bucket test's reading errors, as bounds (common practice, from memory;
+// see calc.BucketUncertainty): a marked container to about ±3 % of its
+// volume, a hand stopwatch to about ±0.3 s at each end.
+const (
+	bucketVolumeError = 0.03
+	stopwatchError    = 0.3 // s
+)
 
 // inflow reads the inflow fields against the tank t (the rain's default
 // catchment is its plan area at the brim; the rise rate is turned into a
@@ -128,10 +129,16 @@ func (p Plan) PlannedDrain() calc.DrainInput {
 
 // tolTests adds the flow tests to a tolerance.
 func (c *computer) tolTests(t *calc.Tolerance) {
-	if n := len(c.p.Tests); n > 0 {
-		t.Tests = c.p.Tests
-		t.TestUncertainty = testUncertainty / math.Sqrt(float64(n))
+	n := len(c.p.Tests)
+	if n == 0 {
+		return
 	}
+	var secs float64
+	for _, f := range c.in.FlowTests {
+		secs += f.Seconds
+	}
+	t.Tests = c.p.Tests
+	t.TestUncertainty = calc.BucketUncertainty(bucketVolumeError, stopwatchError, secs/float64(len(c.in.FlowTests)), n)
 }
 
 // pumpFinish works out how long a pump of the rate typed takes to lift what

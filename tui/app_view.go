@@ -296,7 +296,9 @@ func (m *Model) verdictLine() string {
 	if s.Runs {
 		text += " · " + s.Flow
 	}
-	if d := s.Drain; d != nil && !d.AtOnce {
+	if d := s.Drain; d != nil && d.Overflows {
+		text += " · spills in " + d.Time
+	} else if d != nil && !d.AtOnce {
 		text += " · " + d.Time
 	}
 	return fitBlock([]string{st.fastStyle(v.Status).Render(clip(text, m.lay.W))}, m.lay.W, 1)

@@ -115,7 +115,7 @@ func (r *ResultPane) content(tight int) []string {
 	if d := s.Drain; d != nil {
 		switch {
 		case d.Overflows:
-			row("Spills in", d.Time)
+			row("Spills", "in "+d.Time)
 		case d.AtOnce:
 			row("Stops", "at once: nothing to drain")
 		default:

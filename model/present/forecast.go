@@ -196,3 +196,25 @@ func TestLine(p model.Plan, f Figures) Line {
 	}
 	return Line{Status: st, Short: short, Long: long}
 }
+
+// inflowHint is the warning when the inflow beats the siphon: the tank
+// fills and spills, or the level settles above where the siphon would
+// stop. More hoses or a bigger bore move more; a pump can take the rest.
+func inflowHint(p model.Plan, f Figures) (Line, bool) {
+	d := p.Drain
+	L := func(v calc.Length) string { return f.Of(model.DimLength, float64(v)) }
+	in := f.Of(model.DimFlow, float64(p.Inflow.Total))
+	switch {
+	case d.Overflows:
+		return Line{Code: "inflow_spills", Status: Warn,
+			Short: "inflow " + in + " outruns the siphon: it spills over in " + Duration(float64(d.Time)),
+			Long: "the inflow (" + in + ") is more than the siphon moves: the level rises and the tank spills over its brim in " +
+				Duration(float64(d.Time)) + "; add hoses in parallel, a bigger bore or a pump, or divert the inflow"}, true
+	case d.SettleFound:
+		return Line{Code: "inflow_settles", Status: Warn,
+			Short: "inflow " + in + ": the level settles at " + L(d.SettleLevel),
+			Long: "the inflow (" + in + ") matches the siphon's flow at " + L(d.SettleLevel) + " above the floor: the level settles there " +
+				"and goes no lower; add hoses in parallel, a bigger bore or a pump to get below it"}, true
+	}
+	return Line{}, false
+}

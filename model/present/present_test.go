@@ -125,3 +125,53 @@ func TestCrestStatusFollowsVerdict(t *testing.T) {
 		}
 	}
 }
+
+// The forecast in words on the demo bund: dry, in light rain (keeps up),
+// with seepage the siphon cannot match (settles), and in a downpour on a
+// wide catchment (spills). The words name the case and carry no NaN.
+func TestForecastWords(t *testing.T) {
+	cat := presets.Builtin()
+	for _, c := range []struct {
+		name   string
+		inputs map[model.FieldID]string
+		hint   string
+		keeps  string
+	}{
+		{"dry", nil, "", ""},
+		{"light rain", map[model.FieldID]string{model.FieldRain: "5 mm/h"}, "", "keeps up"},
+		{"seepage", map[model.FieldID]string{model.FieldSeepage: "78 L/min"}, "inflow_settles", "cannot keep up"},
+		{"downpour", map[model.FieldID]string{model.FieldRain: "25 mm/h", model.FieldCatchment: "400 m2"}, "inflow_spills", "outruns"},
+		{"pump", map[model.FieldID]string{model.FieldPumpRate: "200 L/min"}, "", ""},
+	} {
+		j := model.DemoJob()
+		for id, v := range c.inputs {
+			j.Inputs[id] = v
+		}
+		p := model.Compute(j, cat)
+		s := Build(p, model.SI, p.Hazards)
+		if s.Drain == nil {
+			t.Fatalf("%s: no drain: %v", c.name, p.Err)
+		}
+		fc := s.Drain.Forecast
+		if !strings.Contains(fc.KeepsUp, c.keeps) || (c.keeps == "") != (fc.KeepsUp == "") {
+			t.Errorf("%s: keeps-up line %q, want %q", c.name, fc.KeepsUp, c.keeps)
+		}
+		var got string
+		for _, h := range s.Hints {
+			if strings.HasPrefix(h.Code, "inflow_") {
+				got = h.Code
+			}
+		}
+		if got != c.hint {
+			t.Errorf("%s: hint %q, want %q", c.name, got, c.hint)
+		}
+		if c.name == "pump" && !strings.Contains(fc.Pump, "200 L/min") {
+			t.Errorf("pump line %q", fc.Pump)
+		}
+		for _, text := range []string{fc.Inflow, fc.KeepsUp, fc.Settles, fc.Time90, fc.Finish, fc.Driver, fc.Narrow, fc.Pump} {
+			if strings.Contains(text, "NaN") || strings.Contains(text, "Inf") {
+				t.Errorf("%s: %q", c.name, text)
+			}
+		}
+	}
+}

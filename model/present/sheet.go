@@ -218,7 +218,7 @@ func drainOf(p model.Plan, f Figures) *Drain {
 	out.Forecast = forecastOf(p, f)
 	if d.Overflows {
 		out.Overflows = true
-		out.StopShort = "spills over the brim: the inflow outruns it"
+		out.StopShort = "inflow outruns it: spills over"
 		out.StopLong = "the inflow outruns the siphon: the level rises to the brim and spills over"
 	}
 	return out
@@ -300,6 +300,9 @@ func hintsOf(p model.Plan, f Figures) []Line {
 		return nil
 	}
 	L := func(v calc.Length) string { return f.Of(model.DimLength, float64(v)) }
+	if l, ok := inflowHint(p, f); ok {
+		return []Line{l}
+	}
 	switch {
 	case d.StopReason == calc.StopAir && p.BoardDrain != nil && p.BoardDrain.Volume > d.Volume+0.001:
 		b := p.BoardDrain
