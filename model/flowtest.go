@@ -74,6 +74,18 @@ func ParseFlowTest(text string, sys System, at time.Time) (FlowTest, error) {
 		return FlowTest{}, fmt.Errorf("flow test time: %w", err)
 	}
 	f := FlowTest{At: at, Volume: v, Seconds: s}
+	switch {
+	case !(v > 0):
+		return FlowTest{}, fmt.Errorf("flow test volume: nothing caught; accepted more than 0 to %s", shown(DimVolume, MaxFlowTestVolume, sys))
+	case !(s > 0):
+		return FlowTest{}, fmt.Errorf("flow test time: no time; accepted more than 0 to %s", shown(DimTime, MaxFlowTestSeconds, sys))
+	case v > MaxFlowTestVolume:
+		return FlowTest{}, fmt.Errorf("flow test volume %s is out of range; accepted more than 0 to %s",
+			shown(DimVolume, v, sys), shown(DimVolume, MaxFlowTestVolume, sys))
+	case s > MaxFlowTestSeconds:
+		return FlowTest{}, fmt.Errorf("flow test time %s is out of range; accepted more than 0 to %s",
+			shown(DimTime, s, sys), shown(DimTime, MaxFlowTestSeconds, sys))
+	}
 	if err := f.Validate(); err != nil {
 		return FlowTest{}, err
 	}
