@@ -113,37 +113,7 @@ func (r *ResultPane) content(tight int) []string {
 		}
 	}
 	if d := s.Drain; d != nil {
-		switch {
-		case d.Overflows:
-			row("Spills", "in "+d.Time)
-		case d.AtOnce:
-			row("Stops", "at once: nothing to drain")
-		default:
-			row("Stops in", d.Time)
-		}
-		if d.TimeRange != "" && tight < 1 {
-			row("  range", d.TimeRange)
-		}
-		fc := d.Forecast
-		row("", d.StopShort)
-		row("", "at "+d.StopLevel+" off the floor")
-		if fc.InflowShort != "" {
-			row("Inflow", fc.InflowShort)
-			if fc.Settles != "" {
-				row("", fc.Settles)
-			} else {
-				row("", "siphon keeps up")
-			}
-		}
-		row("", d.Residual+" left in it")
-		if fc.Pump != "" && tight < 1 {
-			for _, l := range wrapText(fc.Pump, iw-labelW, 2) {
-				row("", l)
-			}
-		}
-		if d.AirShort != "" {
-			row("", d.AirShort)
-		}
+		drainRows(d, tight, iw, row)
 	}
 	if s.Throttle != "" {
 		row("Throttle", s.ThrottleShort)
@@ -251,4 +221,41 @@ func prefixAll(ls []string, p string) []string {
 		out[i] = p + l
 	}
 	return out
+}
+
+// drainRows are the Result's drain lines: when it stops (or spills), the
+// time's range, why and where it stops, the inflow, what is left and what a
+// pump takes to finish it, and the air at the intake.
+func drainRows(d *present.Drain, tight, iw int, row func(label, value string)) {
+	switch {
+	case d.Overflows:
+		row("Spills", "in "+d.Time)
+	case d.AtOnce:
+		row("Stops", "at once: nothing to drain")
+	default:
+		row("Stops in", d.Time)
+	}
+	if d.TimeRange != "" && tight < 1 {
+		row("  range", d.TimeRange)
+	}
+	fc := d.Forecast
+	row("", d.StopShort)
+	row("", "at "+d.StopLevel+" off the floor")
+	if fc.InflowShort != "" {
+		row("Inflow", fc.InflowShort)
+		if fc.Settles != "" {
+			row("", fc.Settles)
+		} else {
+			row("", "siphon keeps up")
+		}
+	}
+	row("", d.Residual+" left in it")
+	if fc.Pump != "" && tight < 1 {
+		for _, l := range wrapText(fc.Pump, iw-labelW, 2) {
+			row("", l)
+		}
+	}
+	if d.AirShort != "" {
+		row("", d.AirShort)
+	}
 }
