@@ -86,6 +86,9 @@ func (m *Model) command(msg tea.KeyPressMsg) (tea.Cmd, bool) {
 			m.flash = "mouse on: tap a tab, a field, a step or a cell (shift-drag selects text)"
 		}
 		return nil, true
+	case key.Matches(msg, k.Open) && m.share != nil:
+		m.flash = "this screen is on the crew server's job; other jobs are opened on the server's own machine"
+		return nil, true
 	case key.Matches(msg, k.Open):
 		m.jobs.open = true
 		m.jobs.loading = true

@@ -154,6 +154,10 @@ func (m *Model) headerView() string {
 	switch {
 	case m.ps.readOnly:
 		save = st.fast.Warning.Render("! read-only")
+	case m.share != nil && m.saveErr != nil:
+		save = st.fast.Danger.Render("✗ NOT SHARED")
+	case m.share != nil:
+		save = st.fast.OK.Render("✓ shared")
 	case m.noSave:
 		save = st.fast.Warning.Render("! not saving")
 	case m.saveErr != nil:
@@ -177,6 +181,9 @@ func (m *Model) headerView() string {
 	title := jobName(m.job.Name)
 	if site := strings.TrimSpace(present.Clean(m.job.Site)); site != "" {
 		title += " · " + site
+	}
+	if crew := m.crewText(); crew != "" {
+		title += " · " + crew
 	}
 	left += st.fast.Value.Render(clip(title, max(room, 0)))
 	gap := max(m.lay.W-cellWidth(left)-cellWidth(right), 0)

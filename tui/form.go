@@ -24,6 +24,8 @@ import (
 // model.Compute and then hands the outcome back with SetJob.
 type FormPane struct {
 	pane    model.Pane
+	// others names, by field, who else on a shared job is typing in it.
+	others map[model.FieldID]string
 	fields  []formField
 	cursor  int
 	editing bool
