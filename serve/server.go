@@ -67,6 +67,9 @@ type Server struct {
 	rate  *rateLimit
 	wg    sync.WaitGroup // the screens running
 	done  chan error
+
+	closeOnce sync.Once
+	closeErr  error
 }
 
 // Start listens, opens the job for the crew (its lock names this server's
@@ -146,8 +149,13 @@ func (s *Server) Addr() net.Addr { return s.ln.Addr() }
 func (s *Server) Hub() *Hub { return s.hub }
 
 // Close ends every session, then writes the job whole and gives its lock
-// up.
+// up. A second Close returns what the first did.
 func (s *Server) Close() error {
+	s.closeOnce.Do(func() { s.closeErr = s.close() })
+	return s.closeErr
+}
+
+func (s *Server) close() error {
 	s.srv.Close()
 	waited := make(chan struct{})
 	go func() { s.wg.Wait(); close(waited) }()

@@ -179,11 +179,11 @@ func (m *Model) headerView() string {
 	left := st.fast.Title.Render("drawdown") + st.fast.Muted.Render(" · ")
 	room := m.lay.W - cellWidth(left) - cellWidth(right) - 1
 	title := jobName(m.job.Name)
+	if crew := m.crewText(); crew != "" {
+		title += " · " + crew // on a shared job, who else is on it comes before the site
+	}
 	if site := strings.TrimSpace(present.Clean(m.job.Site)); site != "" {
 		title += " · " + site
-	}
-	if crew := m.crewText(); crew != "" {
-		title += " · " + crew
 	}
 	left += st.fast.Value.Render(clip(title, max(room, 0)))
 	gap := max(m.lay.W-cellWidth(left)-cellWidth(right), 0)
