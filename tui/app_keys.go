@@ -52,6 +52,9 @@ func (m *Model) key(msg tea.KeyPressMsg) tea.Cmd {
 	}
 	if p.Claims(msg) {
 		cmd, _ := p.Key(msg)
+		if e := m.log.takeEntered(); e != nil {
+			return tea.Batch(cmd, m.update(e))
+		}
 		return cmd
 	}
 	if cmd, ok := m.command(msg); ok {
