@@ -21,7 +21,7 @@ import (
 // reading to correct; w writes the job record.
 type LogPane struct {
 	entries []model.LogEntry
-	entered tea.Msg // an entry enter made, for the root (takeEntered)
+	entered tea.Msg      // an entry enter made, for the root (takeEntered)
 	summary []string     // readings against the plan, worded by the root
 	rows    []readingRow // readings and flow tests, oldest first, worded by the root
 	scroll  int          // entries scrolled up from the bottom (the newest hidden)
