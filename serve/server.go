@@ -138,7 +138,8 @@ func Start(cfg Config) (*Server, error) {
 		return nil, err
 	}
 	go func() { s.done <- s.srv.Serve(s.ln) }()
-	s.log.Printf("serving %s on %s (allowed keys: %s)", cfg.Job, s.ln.Addr(), cfg.Keys)
+	s.log.Printf("serving %s on %s (allowed keys: %s; host key %s, %s)", cfg.Job, s.ln.Addr(), cfg.Keys,
+		gossh.FingerprintSHA256(signer.PublicKey()), cfg.HostKey)
 	return s, nil
 }
 
