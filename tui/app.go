@@ -288,6 +288,10 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 	case FlowTestAddMsg:
 		return m.addFlowTest(msg)
 	case RecordWriteMsg:
+		if m.share != nil && m.share.ReadOnly() {
+			m.flash = "✗ " + ErrReadOnly.Error() + "; the record is written by a crew member who may change it"
+			return nil
+		}
 		m.flash = "writing the job record…"
 		return recordCmd(m.job.Clone(), m.st.plan, m.path, m.now())
 	case recordWrittenMsg:
