@@ -183,6 +183,12 @@ func isTerminal(f *os.File) bool { return term.IsTerminal(f.Fd()) }
 // error such as EIO, or the end of input).
 func runScreen(stderr io.Writer) int {
 	start := tui.OpenStart()
+	if pr := start.Prompt; pr != nil && pr.Kind == tui.PromptLocked && pr.Holder.Server != "" {
+		// The crew server holds the job: join its screen of the job.
+		if code, ok := joinCrew(pr.Path, pr.Holder, stderr); ok {
+			return code
+		}
+	}
 	// The same catalogue as the command line: built-in plus the user's file.
 	cat, err := presets.Load("")
 	if err != nil {

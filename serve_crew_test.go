@@ -283,3 +283,42 @@ func waitLoaded(path, text string, d time.Duration) bool {
 	}
 	return false
 }
+
+// TestScreenJoinsCrew: a second drawdown on the laptop, on the job the
+// crew server holds, joins the crew's job instead of opening it read-only:
+// its edit reaches an SSH screen, and the job file holds it.
+func TestScreenJoinsCrew(t *testing.T) {
+	home, path := jobHome(t, 0)
+	ana := sshtest.NewKey(t, "Ana Lopes", "")
+	srv := startCrewServer(t, home, path, ana)
+	a := sshtest.OpenScreen(t, sshtest.Dial(t, srv.addr, ana), 100, 30)
+	if !a.WaitFor("Hose length", 20*time.Second) {
+		t.Fatalf("no SSH screen:\n%s", a.Text())
+	}
+	s := startScreen(t, home, 100, 30)
+	if !s.waitFor("shared", 10*time.Second) {
+		t.Fatalf("the local screen did not join the crew's job")
+	}
+	if !a.WaitFor("(here)", 5*time.Second) {
+		t.Fatalf("the SSH screen does not name the local one:\n%s", a.Text())
+	}
+	s.key("1", 20*time.Millisecond) // the Hose pane; the bore is the first field
+	s.key("\r", 20*time.Millisecond)
+	s.key("44", 20*time.Millisecond)
+	s.key("\r", 20*time.Millisecond)
+	if !a.WaitFor("= 44.0 mm", 5*time.Second) {
+		t.Fatalf("the SSH screen does not show the local edit:\n%s", a.Text())
+	}
+	s.key("q", 20*time.Millisecond)
+	if !s.wait(5 * time.Second) {
+		t.Fatal("the local screen did not end on q")
+	}
+	srv.stop(t)
+	j, err := model.Load(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := j.Inputs[model.FieldHoseID]; got != "44" {
+		t.Errorf("the job file holds the bore %q, want 44", got)
+	}
+}

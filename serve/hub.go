@@ -344,7 +344,11 @@ func (c *client) Submit(j *model.Job) error {
 	}
 	c.mu.Unlock()
 	if send != nil {
-		c.hub.ops <- *send
+		select {
+		case c.hub.ops <- *send:
+		case <-c.hub.ended:
+			err = errors.New("the crew server stopped; this change was not kept")
+		}
 	} else if moved {
 		c.hub.poke(c)
 	}

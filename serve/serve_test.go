@@ -2,6 +2,7 @@ package serve
 
 import (
 	"bytes"
+	"errors"
 	"fmt"
 	"io"
 	"os"
@@ -322,5 +323,51 @@ func TestHostKey(t *testing.T) {
 	os.Chmod(p, 0o644)
 	if _, err := HostKey(p); err == nil {
 		t.Error("a host key others can read was used")
+	}
+}
+
+// TestLocalJoin: a screen on the server's own machine joins the crew's job
+// through the job's socket (as a second drawdown does when the job's lock
+// names the server): the crew sees it by name, and its edit is the crew's.
+func TestLocalJoin(t *testing.T) {
+	ana := sshtest.NewKey(t, "Ana Lopes", "")
+	c := startCrew(t, ana)
+	if fi, err := os.Stat(model.SocketPath(c.job)); err != nil || fi.Mode().Perm() != 0o600 {
+		t.Fatalf("the job's socket: %v, %v (want mode 0600)", fi, err)
+	}
+	a := sshtest.OpenScreen(t, sshtest.Dial(t, c.addr, ana), 100, 30)
+	conn, err := DialLocal(c.job)
+	if err != nil {
+		t.Fatal(err)
+	}
+	in, keys := io.Pipe()
+	out := sshtest.NewTerminal(100, 30)
+	done := make(chan error, 1)
+	go func() { done <- Pass(conn, "amarsh", "xterm-256color", 100, 30, in, out, nil) }()
+	if !out.WaitFor("Hose length", 10*time.Second) {
+		t.Fatalf("no local screen:\n%s", out.Text())
+	}
+	if !a.WaitFor("with amarsh (here)", 5*time.Second) {
+		t.Errorf("the SSH screen does not name the local one:\n%s", a.Text())
+	}
+	keys.Write([]byte("\r"))
+	time.Sleep(50 * time.Millisecond)
+	keys.Write([]byte("31\r"))
+	c.waitJob(t, "the local screen's hose length", func(j model.Job) bool { return j.Inputs[model.FieldHoseLength] == "31" })
+	if !a.WaitFor("31", 5*time.Second) {
+		t.Errorf("the SSH screen does not show the local edit:\n%s", a.Text())
+	}
+	time.Sleep(50 * time.Millisecond)
+	keys.Write([]byte("q"))
+	select {
+	case err := <-done:
+		if err != nil {
+			t.Errorf("the local screen ended with %v", err)
+		}
+	case <-time.After(5 * time.Second):
+		t.Error("the local screen did not end on q")
+	}
+	if _, err := DialLocal(filepath.Join(t.TempDir(), "none.json")); !errors.Is(err, ErrNoServer) {
+		t.Errorf("a job without a server: %v, want ErrNoServer", err)
 	}
 }

@@ -6,6 +6,7 @@ import (
 	"io"
 	"log"
 	"net"
+	"os"
 	"path/filepath"
 	"strconv"
 	"sync"
@@ -18,6 +19,7 @@ import (
 	"charm.land/wish/v2/bubbletea"
 	gossh "golang.org/x/crypto/ssh"
 
+	"drawdown/model"
 	"drawdown/presets"
 	"drawdown/tui"
 )
@@ -68,8 +70,10 @@ type Server struct {
 	wg    sync.WaitGroup // the screens running
 	done  chan error
 
-	closeOnce sync.Once
-	closeErr  error
+	local      net.Listener // the socket local screens join through (local.go)
+	localConns sync.Map     // net.Conn → true, the local screens' connections
+	closeOnce  sync.Once
+	closeErr   error
 }
 
 // Start listens, opens the job for the crew (its lock names this server's
@@ -137,6 +141,9 @@ func Start(cfg Config) (*Server, error) {
 		s.ln.Close()
 		return nil, err
 	}
+	if err := s.listenLocal(); err != nil {
+		s.log.Printf("no local socket (screens on this machine open the job read-only): %v", err)
+	}
 	go func() { s.done <- s.srv.Serve(s.ln) }()
 	s.log.Printf("serving %s on %s (allowed keys: %s; host key %s, %s)", cfg.Job, s.ln.Addr(), cfg.Keys,
 		gossh.FingerprintSHA256(signer.PublicKey()), cfg.HostKey)
@@ -157,6 +164,11 @@ func (s *Server) Close() error {
 }
 
 func (s *Server) close() error {
+	if s.local != nil {
+		s.local.Close()
+		os.Remove(model.SocketPath(s.hub.Path()))
+		s.localConns.Range(func(k, _ any) bool { k.(net.Conn).Close(); return true })
+	}
 	s.srv.Close()
 	waited := make(chan struct{})
 	go func() { s.wg.Wait(); close(waited) }()

@@ -206,3 +206,39 @@ func Run(t testing.TB, c *gossh.Client, cmd string) (stdout, stderr string, stat
 	}
 	return o.String(), e.String(), 0
 }
+
+// Terminal is a terminal emulator to write a screen's output to.
+type Terminal struct {
+	mu  sync.Mutex
+	emu *vt.Emulator
+}
+
+// NewTerminal is a w×h terminal.
+func NewTerminal(w, h int) *Terminal {
+	t := &Terminal{emu: vt.NewEmulator(w, h)}
+	go func() { _, _ = io.Copy(io.Discard, t.emu) }()
+	return t
+}
+
+func (t *Terminal) Write(p []byte) (int, error) {
+	t.mu.Lock()
+	defer t.mu.Unlock()
+	return t.emu.Write(p)
+}
+
+// Text is what the terminal shows.
+func (t *Terminal) Text() string {
+	t.mu.Lock()
+	defer t.mu.Unlock()
+	return t.emu.String()
+}
+
+// WaitFor waits (at most d) until the terminal shows text.
+func (t *Terminal) WaitFor(text string, d time.Duration) bool {
+	for end := time.Now().Add(d); time.Now().Before(end); time.Sleep(5 * time.Millisecond) {
+		if strings.Contains(t.Text(), text) {
+			return true
+		}
+	}
+	return false
+}
