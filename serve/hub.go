@@ -34,6 +34,9 @@ type Hub struct {
 	once   sync.Once
 
 	latest atomic.Pointer[shared]
+	// failed is why the job is no longer saved (its lock was taken over,
+	// the disk is full); every screen's next change says so.
+	failed atomic.Pointer[error]
 
 	mu      sync.Mutex // guards clients and nextID
 	clients []*client
@@ -182,6 +185,9 @@ more:
 	c, err := h.sess.Record(&h.job)
 	if err != nil {
 		h.logf("the job could not be journalled: %v", err)
+		h.failed.Store(&err)
+	} else {
+		h.failed.Store(nil)
 	}
 	if c.Recorded {
 		h.dirty = true
@@ -343,6 +349,9 @@ func (c *client) Submit(j *model.Job) error {
 		send = &o
 	}
 	c.mu.Unlock()
+	if f := c.hub.failed.Load(); f != nil && err == nil {
+		err = *f
+	}
 	if send != nil {
 		select {
 		case c.hub.ops <- *send:
