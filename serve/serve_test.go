@@ -46,6 +46,12 @@ func (s *syncBuf) String() string {
 
 func startCrew(t *testing.T, keys ...sshtest.Key) *crew {
 	t.Helper()
+	return startCrewWith(t, func(*Config) {}, keys...)
+}
+
+// startCrewWith is startCrew with the config changed by set.
+func startCrewWith(t *testing.T, set func(*Config), keys ...sshtest.Key) *crew {
+	t.Helper()
 	dir := t.TempDir()
 	j := model.DemoJob()
 	j.Resume = model.Resume{Pane: "Hose", Field: model.FieldHoseLength}
@@ -54,14 +60,16 @@ func startCrew(t *testing.T, keys ...sshtest.Key) *crew {
 		t.Fatal(err)
 	}
 	lg := &syncBuf{}
-	srv, err := Start(Config{
+	cfg := Config{
 		Listen: "127.0.0.1:0", Keys: sshtest.KeysFile(t, dir, keys...), HostKey: filepath.Join(dir, HostKeyName), Job: job,
 		Log: lg,
 		Run: func(args []string, stdout, _ io.Writer) int {
 			fmt.Fprintln(stdout, "ran", strings.Join(args, " "))
 			return 0
 		},
-	})
+	}
+	set(&cfg)
+	srv, err := Start(cfg)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -369,5 +377,36 @@ func TestLocalJoin(t *testing.T) {
 	}
 	if _, err := DialLocal(filepath.Join(t.TempDir(), "none.json")); !errors.Is(err, ErrNoServer) {
 		t.Errorf("a job without a server: %v, want ErrNoServer", err)
+	}
+}
+
+// TestLimits: connections past MaxConns are closed before the handshake; a
+// session with no traffic ends after IdleTimeout, and any session after
+// MaxTimeout.
+func TestLimits(t *testing.T) {
+	ana := sshtest.NewKey(t, "Ana Lopes", "")
+	c := startCrewWith(t, func(cfg *Config) { cfg.MaxConns = 2 }, ana)
+	sshtest.Dial(t, c.addr, ana)
+	sshtest.Dial(t, c.addr, ana)
+	if cl, err := gossh.Dial("tcp", c.addr, sshtest.Config(gossh.PublicKeys(ana.Signer))); err == nil {
+		cl.Close()
+		t.Error("a third connection was let in with MaxConns 2")
+	}
+	if !strings.Contains(c.log.String(), "2 connections already") {
+		t.Errorf("the refusal is not logged:\n%s", c.log.String())
+	}
+
+	for _, tc := range []struct {
+		name string
+		set  func(*Config)
+	}{
+		{"idle", func(cfg *Config) { cfg.IdleTimeout = 300 * time.Millisecond }},
+		{"max", func(cfg *Config) { cfg.MaxTimeout = 500 * time.Millisecond }},
+	} {
+		c := startCrewWith(t, tc.set, ana)
+		s := sshtest.OpenScreen(t, sshtest.Dial(t, c.addr, ana), 80, 24)
+		if !s.Closed(5 * time.Second) {
+			t.Errorf("%s: the session did not end", tc.name)
+		}
 	}
 }

@@ -187,7 +187,13 @@ func (s *Server) close() error {
 // each time.
 func (s *Server) allowKey(ctx ssh.Context, key ssh.PublicKey) bool {
 	_, err := lookup(s.cfg.Keys, key)
-	if err != nil && !errors.Is(err, errNoKey) {
+	switch {
+	case errors.Is(err, errNoKey):
+		// A client offers each of its keys in turn: one line for each
+		// that is not allowed (the fingerprint to look for when adding a
+		// crew member's key).
+		s.log.Printf("refused key %s from %s: not in the allowed-keys file", gossh.FingerprintSHA256(key), ctx.RemoteAddr())
+	case err != nil:
 		s.log.Printf("refused %s from %s: the allowed-keys file does not read: %v", gossh.FingerprintSHA256(key), ctx.RemoteAddr(), err)
 	}
 	return err == nil
