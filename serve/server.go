@@ -100,7 +100,8 @@ func Start(cfg Config) (*Server, error) {
 	if cfg.Log == nil {
 		cfg.Log = io.Discard
 	}
-	if _, _, err := ReadKeys(cfg.Keys); err != nil {
+	members, skipped, err := ReadKeys(cfg.Keys)
+	if err != nil {
 		return nil, fmt.Errorf("the allowed-keys file: %w", err)
 	}
 	signer, err := HostKey(cfg.HostKey)
@@ -108,6 +109,12 @@ func Start(cfg Config) (*Server, error) {
 		return nil, err
 	}
 	s := &Server{cfg: cfg, log: log.New(cfg.Log, "", log.LstdFlags), rate: newRateLimit(cfg.Rate, cfg.Burst), done: make(chan error, 1)}
+	for _, why := range skipped {
+		s.log.Printf("the allowed-keys file %s, %s: left out", cfg.Keys, why)
+	}
+	if len(members) == 0 {
+		s.log.Printf("the allowed-keys file %s holds no key with a name: nobody can log in until one is added (it is read at every login)", cfg.Keys)
+	}
 	s.ln, err = net.Listen("tcp", cfg.Listen)
 	if err != nil {
 		return nil, err
