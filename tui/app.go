@@ -274,7 +274,7 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 		return m.jobEdit(msg)
 	case JobChangedMsg:
 		if m.share != nil {
-			m.takeShared()
+			return m.takeShared()
 		}
 		return nil
 	case ChecklistStepMsg:

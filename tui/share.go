@@ -2,6 +2,7 @@ package tui
 
 import (
 	"errors"
+	"slices"
 	"strings"
 
 	tea "charm.land/bubbletea/v2"
@@ -59,8 +60,10 @@ func (m *Model) sharePersist() tea.Cmd {
 	err := m.share.Submit(&m.job)
 	switch {
 	case errors.Is(err, ErrReadOnly):
-		m.takeShared()
+		cmd := m.takeShared()
 		m.flash = "✗ " + ErrReadOnly.Error() + "; the change was not kept"
+		m.sync() // persist runs after the panes were brought up to date
+		return cmd
 	case err != nil:
 		m.saveErr = err
 	default:
@@ -70,8 +73,10 @@ func (m *Model) sharePersist() tea.Cmd {
 }
 
 // takeShared puts the shared job on screen, keeping this screen's draft
-// and place in it.
-func (m *Model) takeShared() {
+// and place in it; readings someone else added or corrected are fitted
+// again (the command it returns) when the Log pane is on screen.
+func (m *Model) takeShared() tea.Cmd {
+	readings, flows := m.job.Readings, m.job.FlowTests
 	j := m.share.Latest()
 	j.Draft, j.Resume = m.job.Draft, m.job.Resume
 	if j.Inputs == nil {
@@ -90,6 +95,13 @@ func (m *Model) takeShared() {
 	}
 	m.recompute()
 	m.touch()
+	if !slices.Equal(readings, m.job.Readings) || !slices.Equal(flows, m.job.FlowTests) {
+		m.readRev++
+		if slices.Contains(m.visible(), PaneLog) {
+			return m.refit() // else the Log pane fits them when it comes on
+		}
+	}
+	return nil
 }
 
 func joinName(a, b string) string {
