@@ -8,6 +8,7 @@
 //	drawdown help [COMMAND]  help; every command also answers -h and --help
 //	drawdown version         the version and VCS revision (also --version)
 //	drawdown completion SH   a completion script for bash, zsh or fish
+//	drawdown serve           the job on an SSH server for a crew (package serve)
 //
 // The command line lives in this package, one file per command (cmd_*.go);
 // each turns its flags into model inputs and lays out what model and its
@@ -63,6 +64,8 @@ func run(args []string, stdout, stderr io.Writer) int {
 			return runNew(args[1:], stdout, stderr)
 		case "jobs":
 			return runJobs(args[1:], stdout, stderr)
+		case "serve":
+			return runServe(args[1:], stdout, stderr)
 		case "version", "--version":
 			return runVersion(args[1:], stdout, stderr)
 		case "completion":
@@ -128,6 +131,7 @@ usage:
   drawdown checklist         print the checklist a job with these facts gets
   drawdown new NAME          create a job (blank, or from --template ID) and print its path
   drawdown jobs              list the jobs: name, site, date and state
+  drawdown serve             put the job on an SSH server for a crew (ssh -t HOST -p 2222)
   drawdown help [COMMAND]    this help, or a command's own (also: drawdown COMMAND --help)
   drawdown version           the version and revision (also: drawdown --version)
   drawdown completion SHELL  print a completion script for bash, zsh or fish
@@ -179,6 +183,12 @@ func isTerminal(f *os.File) bool { return term.IsTerminal(f.Fd()) }
 // error such as EIO, or the end of input).
 func runScreen(stderr io.Writer) int {
 	start := tui.OpenStart()
+	if pr := start.Prompt; pr != nil && pr.Kind == tui.PromptLocked && pr.Holder.Server != "" {
+		// The crew server holds the job: join its screen of the job.
+		if code, ok := joinCrew(pr.Path, pr.Holder, stderr); ok {
+			return code
+		}
+	}
 	// The same catalogue as the command line: built-in plus the user's file.
 	cat, err := presets.Load("")
 	if err != nil {

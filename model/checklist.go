@@ -121,6 +121,9 @@ type Step struct {
 	At           time.Time `json:"at,omitzero"`
 	Reason       string    `json:"reason,omitempty"` // why it was skipped or not applicable
 	Note         string    `json:"note,omitempty"`
+	// By is the crew member who last marked the step or wrote its note
+	// (the name on their key, on the crew server); "" on a lone screen.
+	By string `json:"by,omitempty"`
 }
 
 // Label is the step's title, or the start of its text for a step written

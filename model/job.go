@@ -117,6 +117,9 @@ type Resume struct {
 type LogEntry struct {
 	At   time.Time `json:"at"`
 	Text string    `json:"text"`
+	// By is the crew member whose change the entry records (the name on
+	// their key, on the crew server); "" on a lone screen.
+	By string `json:"by,omitempty"`
 }
 
 // NewJob returns a blank job in the current format: the name, the unit

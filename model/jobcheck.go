@@ -195,8 +195,35 @@ func checkJob(j *Job) error {
 			return fmt.Errorf("flow test %d of %d: its name or note is over %d bytes", i+1, len(j.FlowTests), MaxFlowTestText)
 		}
 	}
+	if err := checkBy(j); err != nil {
+		return err
+	}
 	if err := j.Draft.Validate(); err != nil {
 		return err
+	}
+	return nil
+}
+
+// MaxByText bounds the name of who made a mark, a reading or a log entry,
+// in bytes (a key's comment is short; a longer one is not from this tool).
+const MaxByText = 200
+
+// checkBy checks the names of who made each mark, reading and log entry.
+func checkBy(j *Job) error {
+	for i, s := range j.Checklist.Steps {
+		if len(s.By) > MaxByText {
+			return fmt.Errorf("checklist step %d: its name is over %d bytes", i+1, MaxByText)
+		}
+	}
+	for i, r := range j.Readings {
+		if len(r.By) > MaxByText {
+			return fmt.Errorf("reading %d of %d: its name is over %d bytes", i+1, len(j.Readings), MaxByText)
+		}
+	}
+	for i, e := range j.Log {
+		if len(e.By) > MaxByText {
+			return fmt.Errorf("log entry %d of %d: its name is over %d bytes", i+1, len(j.Log), MaxByText)
+		}
 	}
 	return nil
 }

@@ -39,6 +39,11 @@ const lockSchema = "drawdown-lock"
 // LockPath is the lock file beside the job file at jobPath.
 func LockPath(jobPath string) string { return sidePath(jobPath, ".lock") }
 
+// SocketPath is the crew server's local socket beside the job file at
+// jobPath, ".NAME.sock": a screen on the same machine that finds the job
+// held by a server (LockInfo.Server) joins the crew's job through it.
+func SocketPath(jobPath string) string { return sidePath(jobPath, ".sock") }
+
 // LockInfo is who holds a job file.
 type LockInfo struct {
 	Schema  string    `json:"schema"`

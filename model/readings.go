@@ -28,6 +28,9 @@ type Reading struct {
 	// not known (a reading from an older file).
 	Resolution float64 `json:"resolution_m,omitempty"`
 	Note       string  `json:"note,omitempty"`
+	// By is the crew member who took the reading (the name on their key,
+	// on the crew server); "" on a lone screen.
+	By string `json:"by,omitempty"`
 }
 
 // MaxReadingLevel bounds a reading's level magnitude, m (as calc.MaxTankSize).

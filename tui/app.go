@@ -27,6 +27,10 @@ type Options struct {
 	Loc *time.Location
 	// NoMouse starts with the mouse off (the m key turns it on and off).
 	NoMouse bool
+	// Share puts the screen on a shared job (share.go): changes go to the
+	// Sharer, which saves them, instead of to a session of this screen's
+	// own. Start.Job is then the shared job; nothing else is opened.
+	Share Sharer
 }
 
 // Model is the root of the screen and the only tea.Model. It routes
@@ -111,6 +115,9 @@ type Model struct {
 	markedAs  string // path last recorded with SetLastJob
 	quitting  bool
 	ps        persistState // the job's session: journal, checkpoints, lock (app_save.go)
+
+	share Sharer // the shared job's link, or nil (share.go)
+	crew  []Peer // who else is on a shared job
 }
 
 // New builds the root model for a job. It computes the first plan at once,
@@ -130,7 +137,10 @@ func New(o Options) *Model {
 		keys: km, styles: st, cat: cat, now: now,
 		job: o.Start.Job, path: o.Start.Path, dir: o.Start.Dir,
 		noSave: o.NoSave || o.Start.Path == "", startNote: o.Start.Note, firstSave: o.Start.Fresh,
-		lower: PaneCurve, mouse: !o.NoMouse,
+		lower: PaneCurve, mouse: !o.NoMouse, share: o.Share,
+	}
+	if m.share != nil {
+		m.noSave = true
 	}
 	if m.job.Inputs == nil {
 		m.job.Inputs = map[model.FieldID]string{}
@@ -151,6 +161,12 @@ func New(o Options) *Model {
 	m.recompute()
 	m.resize(MinWidth, MinHeight)
 	m.focusPanes()
+	if m.share != nil {
+		m.ps.path = m.path
+		m.ps.readOnly = m.share.ReadOnly()
+		m.crew = m.share.Crew()
+		return m
+	}
 	m.startPersist(o.Start)
 	return m
 }
@@ -256,6 +272,11 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 		return m.note(msg)
 	case JobEditMsg:
 		return m.jobEdit(msg)
+	case JobChangedMsg:
+		if m.share != nil {
+			return m.takeShared()
+		}
+		return nil
 	case ChecklistStepMsg:
 		m.job.Resume.StepID = msg.ID
 		m.job.Resume.Step = m.job.Checklist.Index(msg.ID)
@@ -267,6 +288,10 @@ func (m *Model) update(msg tea.Msg) tea.Cmd {
 	case FlowTestAddMsg:
 		return m.addFlowTest(msg)
 	case RecordWriteMsg:
+		if m.share != nil && m.share.ReadOnly() {
+			m.flash = "✗ " + ErrReadOnly.Error() + "; the record is written by a crew member who may change it"
+			return nil
+		}
 		m.flash = "writing the job record…"
 		return recordCmd(m.job.Clone(), m.st.plan, m.path, m.now())
 	case recordWrittenMsg:

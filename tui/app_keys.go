@@ -52,6 +52,9 @@ func (m *Model) key(msg tea.KeyPressMsg) tea.Cmd {
 	}
 	if p.Claims(msg) {
 		cmd, _ := p.Key(msg)
+		if e := m.log.takeEntered(); e != nil {
+			return tea.Batch(cmd, m.update(e))
+		}
 		return cmd
 	}
 	if cmd, ok := m.command(msg); ok {
@@ -85,6 +88,9 @@ func (m *Model) command(msg tea.KeyPressMsg) (tea.Cmd, bool) {
 		if m.mouse {
 			m.flash = "mouse on: tap a tab, a field, a step or a cell (shift-drag selects text)"
 		}
+		return nil, true
+	case key.Matches(msg, k.Open) && m.share != nil:
+		m.flash = "this screen is on the crew server's job; other jobs are opened on the server's own machine"
 		return nil, true
 	case key.Matches(msg, k.Open):
 		m.jobs.open = true

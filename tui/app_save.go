@@ -109,6 +109,9 @@ func (m *Model) before(msg tea.Msg) {
 // persist journals what the last Update changed and starts a checkpoint
 // when one is due. It runs at the end of every Update.
 func (m *Model) persist() tea.Cmd {
+	if m.share != nil {
+		return m.sharePersist()
+	}
 	if m.path != m.ps.path || m.ps.pendingReady {
 		m.switchJob()
 	}

@@ -154,6 +154,10 @@ func (m *Model) headerView() string {
 	switch {
 	case m.ps.readOnly:
 		save = st.fast.Warning.Render("! read-only")
+	case m.share != nil && m.saveErr != nil:
+		save = st.fast.Danger.Render("✗ NOT SHARED")
+	case m.share != nil:
+		save = st.fast.OK.Render("✓ shared")
 	case m.noSave:
 		save = st.fast.Warning.Render("! not saving")
 	case m.saveErr != nil:
@@ -175,6 +179,9 @@ func (m *Model) headerView() string {
 	left := st.fast.Title.Render("drawdown") + st.fast.Muted.Render(" · ")
 	room := m.lay.W - cellWidth(left) - cellWidth(right) - 1
 	title := jobName(m.job.Name)
+	if crew := m.crewText(); crew != "" {
+		title += " · " + crew // on a shared job, who else is on it comes before the site
+	}
 	if site := strings.TrimSpace(present.Clean(m.job.Site)); site != "" {
 		title += " · " + site
 	}

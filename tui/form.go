@@ -23,7 +23,9 @@ import (
 // new text to the root (the edit result of Update), which calls Job.Set and
 // model.Compute and then hands the outcome back with SetJob.
 type FormPane struct {
-	pane    model.Pane
+	pane model.Pane
+	// others names, by field, who else on a shared job is typing in it.
+	others  map[model.FieldID]string
 	fields  []formField
 	cursor  int
 	editing bool

@@ -85,6 +85,7 @@ type rowKey struct {
 	focused, used, edit bool
 	pos, sub, w, gen    int
 	value               string
+	other               string
 }
 
 // renderRows redraws the rows whose key changed. Every method that changes
@@ -93,7 +94,8 @@ func (f *FormPane) renderRows() {
 	for i := range f.fields {
 		ff := &f.fields[i]
 		k := rowKey{raw: ff.raw, shown: ff.shown, errText: ff.errText, focused: i == f.cursor, used: ff.used,
-			edit: f.editing, pos: ff.input.Position(), sub: ff.sub, w: f.w, gen: f.gen, value: ff.input.Value()}
+			edit: f.editing, pos: ff.input.Position(), sub: ff.sub, w: f.w, gen: f.gen, value: ff.input.Value(),
+			other: f.others[ff.spec.ID]}
 		if ff.rendered && k == ff.key {
 			continue
 		}
@@ -133,6 +135,10 @@ func (f *FormPane) renderRow(i int) (string, []string) {
 			// A word, not an arrow: the message is at the foot of the
 			// form when the field is selected.
 			shown, sst = "✗ invalid", st.fast.Danger
+		}
+		if who := f.others[ff.spec.ID]; who != "" {
+			// Someone else on the shared job is typing in this field.
+			shown, sst = "✎ "+present.Clean(who)+" typing", st.fast.Warning
 		}
 		body = in + " " + sst.Render(ansi.Truncate(shown, sw, "…"))
 	}

@@ -21,6 +21,7 @@ import (
 // reading to correct; w writes the job record.
 type LogPane struct {
 	entries []model.LogEntry
+	entered tea.Msg      // an entry enter made, for the root (takeEntered)
 	summary []string     // readings against the plan, worded by the root
 	rows    []readingRow // readings and flow tests, oldest first, worded by the root
 	scroll  int          // entries scrolled up from the bottom (the newest hidden)
@@ -115,6 +116,14 @@ func (l *LogPane) SetReadings(rows []readingRow) {
 // ReadingError shows why a typed reading was refused and keeps the input
 // open so it can be corrected.
 func (l *LogPane) ReadingError(msg string) { l.errText = msg }
+
+// takeEntered is the entry enter made in the last key, for the root to
+// apply at once; nil when none.
+func (l *LogPane) takeEntered() tea.Msg {
+	e := l.entered
+	l.entered = nil
+	return e
+}
 
 // ReadingTaken closes the input after the root accepted a reading.
 func (l *LogPane) ReadingTaken() {
@@ -247,15 +256,19 @@ func (l LogPane) typingKey(km tea.KeyPressMsg) (LogPane, tea.Cmd) {
 			}[l.kind]
 			return l, nil
 		}
+		// The entry goes to the root in the same Update (takeEntered), not
+		// in a command: a key typed right after enter (a crew server under
+		// load, a fast typist) then finds the input already closed or
+		// refused, never closed under it by a late reply.
 		switch l.kind {
 		case inputFlow:
-			return l, func() tea.Msg { return FlowTestAddMsg{Text: text} }
+			l.entered = FlowTestAddMsg{Text: text}
 		case inputEdit:
-			i := l.edit
-			return l, func() tea.Msg { return ReadingEditMsg{Index: i, Text: text} }
+			l.entered = ReadingEditMsg{Index: l.edit, Text: text}
 		default:
-			return l, func() tea.Msg { return ReadingAddMsg{Text: text} }
+			l.entered = ReadingAddMsg{Text: text}
 		}
+		return l, nil
 	}
 	var cmd tea.Cmd
 	l.input, cmd = l.input.Update(km)

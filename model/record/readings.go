@@ -36,7 +36,7 @@ func (rw *recWriter) readings(j model.Job, p model.Plan, start time.Time, fit *m
 			planned = rw.level(lv)
 			diff = signed(rw.level(r.Level - lv))
 		}
-		rw.row(rw.clock(r.At), present.ReadingLevel(r, rw.sys), planned, diff, r.Note)
+		rw.row(rw.clock(r.At), present.ReadingLevel(r, rw.sys), planned, diff, byText(r.Note, r.By))
 	}
 	rw.line("")
 	switch {
@@ -126,7 +126,19 @@ func (rw *recWriter) log(j model.Job) {
 	rw.line("| Time | Entry |")
 	rw.line("| --- | --- |")
 	for _, e := range j.Log {
-		rw.row(rw.clock(e.At), e.Text)
+		rw.row(rw.clock(e.At), byText(e.Text, e.By))
 	}
 	rw.line("")
+}
+
+// byText is an entry's text with who made it, when a crew member did
+// ("Strainer cleared (by Ana)"); the text alone on a lone screen.
+func byText(text, by string) string {
+	switch {
+	case by == "":
+		return text
+	case text == "":
+		return "by " + by
+	}
+	return text + " (by " + by + ")"
 }

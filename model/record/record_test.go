@@ -307,3 +307,22 @@ func TestReportZeroInput(t *testing.T) {
 		t.Fatal(err)
 	}
 }
+
+// TestRecordBy: on the crew server each mark, reading and log entry names
+// who made it, and the record says so beside it.
+func TestRecordBy(t *testing.T) {
+	j, p := demoRecordJob(t)
+	j.Checklist.Steps[0].State, j.Checklist.Steps[0].By = model.StateDone, "Ana Lopes"
+	j.Readings[0].By = "Ben Okafor"
+	j.Log = append(j.Log, model.LogEntry{At: j.Readings[0].At, Text: "Strainer cleared", By: "Ben Okafor"})
+	var b bytes.Buffer
+	if err := Write(&b, Input{Job: j, Plan: p, Now: j.Readings[0].At}); err != nil {
+		t.Fatal(err)
+	}
+	md := b.String()
+	for _, want := range []string{"by: Ana Lopes", "(by Ben Okafor)", "Strainer cleared (by Ben Okafor)"} {
+		if !strings.Contains(md, want) {
+			t.Errorf("the record does not say %q", want)
+		}
+	}
+}

@@ -218,6 +218,9 @@ func reasonNote(s model.Step) string {
 	if s.Note != "" {
 		parts = append(parts, "note: "+s.Note)
 	}
+	if s.By != "" {
+		parts = append(parts, "by: "+s.By)
+	}
 	return strings.Join(parts, "; ")
 }
 
