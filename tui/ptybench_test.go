@@ -84,6 +84,7 @@ func TestMain(m *testing.M) {
 // ptyChild runs the screen on this process's terminal as main does
 // (tea.NewProgram with its defaults), on a benchmark job.
 func ptyChild(name, dir string) int {
+	paneSettle = paneSettleTime // as in the field (the other tests set 0)
 	if name == ptyNullJob {
 		if _, err := tea.NewProgram(nullModel{}).Run(); err != nil {
 			return 1
