@@ -7,7 +7,6 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
-	"runtime"
 	"runtime/pprof"
 	"slices"
 	"strconv"
@@ -104,10 +103,11 @@ func ptyChild(name, dir string) int {
 		start.Dir, start.Path = dir, model.NewJobPath(dir, "bench")
 	}
 	m := New(Options{Start: start, NoSave: dir == "", Loc: time.UTC})
-	// DRAWDOWN_PTY_CHILD_PROF=FILE writes the program's CPU profile.
+	// DRAWDOWN_PTY_CHILD_PROF=FILE writes the program's CPU profile (at
+	// pprof's 100 Hz), of the last program started: select one run, e.g.
+	// -bench 'PTY/80x24/10k-readings/^save$/typing$' -benchtime 600x.
 	if p := os.Getenv("DRAWDOWN_PTY_CHILD_PROF"); p != "" {
 		if f, err := os.Create(p); err == nil {
-			runtime.SetCPUProfileRate(1000)
 			_ = pprof.StartCPUProfile(f)
 			defer pprof.StopCPUProfile()
 		}
