@@ -274,6 +274,33 @@ func TestJournalContextOnly(t *testing.T) {
 	}
 }
 
+// TestJournalVersion1: a journal in format version 1 (before
+// "checklist_context") still reads and applies.
+func TestJournalVersion1(t *testing.T) {
+	path := filepath.Join(t.TempDir(), "job.json")
+	s, err := CreateSession(path, DemoJob(), SessionOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	s.Abandon()
+	_, mark, _, err := loadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	v1 := `{"schema":"drawdown-journal","version":1,"job":"` + mark.ID + `"}` + "\n" +
+		`{"n":` + fmt.Sprint(mark.Seq+1) + `,"inputs":{"hose.length":"30 m"}}` + "\n"
+	if err := os.WriteFile(JournalPath(path), []byte(v1), 0o600); err != nil {
+		t.Fatal(err)
+	}
+	got, err := Load(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got.Inputs[FieldHoseLength] != "30 m" {
+		t.Errorf("a version 1 journal was not applied: hose length %q", got.Inputs[FieldHoseLength])
+	}
+}
+
 // TestJournalTorn: the journal cut at every byte of its last record (a
 // power loss mid-write) reads as the records before it; the cut record is
 // reported and left out; the records before are never lost.
