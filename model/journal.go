@@ -13,9 +13,9 @@ import (
 
 // The journal is a file beside the job file, ".NAME.journal" for the job
 // file NAME, that holds the edits made since the job file was last written
-// whole. It is JSON Lines, one record a line, in format version 1:
+// whole. It is JSON Lines, one record a line, in format version 2:
 //
-//	{"schema":"drawdown-journal","version":1,"job":"5f0c9a1e7d2b4c63"}
+//	{"schema":"drawdown-journal","version":2,"job":"5f0c9a1e7d2b4c63"}
 //	{"n":1,"inputs":{"hose.length":"12."},"set":{"updated":"2026-03-14T09:02:11Z"}}
 //	{"n":2,"set":{"draft":{"kind":"note","step":"prime-3","text":"gas 0 %","at":"…"}}}
 //	{"n":3,"steps":{"4":{…the whole step…}},"log":{"from":17,"add":[{…}]},"set":{…}}
@@ -30,7 +30,10 @@ import (
 //     ("name", "units", "site_facts", "draft", "updated", …);
 //   - "inputs", "last_good": field entries set, or null for cleared;
 //   - "steps": checklist steps replaced whole, by their index (the whole
-//     checklist goes in "set" when steps are added, removed or rebuilt);
+//     checklist goes in "set" when steps are added or removed);
+//   - "checklist_context": the checklist's context replaced whole (the
+//     plan's figures and the facts the steps are built from), when the
+//     steps stay (version 2; a version 1 journal has none);
 //   - "log", "readings": the list cut to "from" entries, then "add"
 //     appended (an append has "from" at the old length).
 //
@@ -45,7 +48,9 @@ import (
 // checkpoints only, so a move that changes nothing writes nothing.
 
 // JournalVersion is the journal format version this build writes and reads.
-const JournalVersion = 1
+// Version 2 added "checklist_context"; version 1 journals read as they
+// are (they hold the whole checklist where version 2 holds the context).
+const JournalVersion = 2
 
 const journalSchema = "drawdown-journal"
 
@@ -88,6 +93,7 @@ type journalRecord struct {
 	Log      *listEdit[LogEntry]        `json:"log,omitempty"`
 	Readings *listEdit[Reading]         `json:"readings,omitempty"`
 	Flows    *listEdit[FlowTest]        `json:"flow_tests,omitempty"`
+	Context  *ChecklistContext          `json:"checklist_context,omitempty"`
 }
 
 // How each top-level entry of a Job is journalled.
@@ -268,13 +274,19 @@ func (r *journalRecord) set(key string, v any) error {
 	return nil
 }
 
-// steps records a checklist change: the changed steps by index when only
-// steps changed in place, else the whole checklist. mark is true when a
-// step's state changed.
+// steps records a checklist change: the context alone when it changed
+// (the plan's figures the steps quote move with every input), the changed
+// steps by index when only steps changed in place, else the whole
+// checklist. mark is true when a step's state changed, or steps were added
+// or removed.
 func (r *journalRecord) steps(live, old *Checklist) (changed, mark bool, err error) {
-	sameShape := live.Context == old.Context && len(live.Steps) == len(old.Steps) && reflect.DeepEqual(live.Dropped, old.Dropped)
+	sameShape := len(live.Steps) == len(old.Steps) && reflect.DeepEqual(live.Dropped, old.Dropped)
 	if !sameShape {
 		return true, true, r.set("checklist", *live)
+	}
+	if live.Context != old.Context {
+		ctx := live.Context
+		r.Context = &ctx
 	}
 	for i := range live.Steps {
 		if live.Steps[i] == old.Steps[i] {
@@ -286,7 +298,7 @@ func (r *journalRecord) steps(live, old *Checklist) (changed, mark bool, err err
 		r.Steps[strconv.Itoa(i)] = live.Steps[i]
 		mark = mark || live.Steps[i].State != old.Steps[i].State
 	}
-	return r.Steps != nil, mark, nil
+	return r.Steps != nil || r.Context != nil, mark, nil
 }
 
 func mapDiff(live, old map[FieldID]string) map[FieldID]*string {
@@ -367,6 +379,9 @@ func (r *journalRecord) apply(j *Job) error {
 	}
 	applyMap(&j.Inputs, r.Inputs)
 	applyMap(&j.LastGood, r.LastGood)
+	if r.Context != nil {
+		j.Checklist.Context = *r.Context
+	}
 	for k, s := range r.Steps {
 		i, _ := strconv.Atoi(k)
 		j.Checklist.Steps[i] = s

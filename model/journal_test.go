@@ -10,6 +10,8 @@ import (
 	"strings"
 	"testing"
 	"time"
+
+	"drawdown/presets"
 )
 
 // TestJournalEveryEntry: every field of Job has a job-file key in the
@@ -84,6 +86,10 @@ var edits = []edit{
 			j.Checklist.Dropped = append(j.Checklist.Dropped, j.Checklist.Steps[len(j.Checklist.Steps)-1])
 			j.Checklist.Steps = j.Checklist.Steps[:len(j.Checklist.Steps)-1]
 		}
+	},
+	func(j *Job, r *rand.Rand, _ time.Time) { // an input and the checklist rebuilt for it (the context's figures move)
+		j.Set(FieldHoseLength, fmt.Sprintf("%d m", 8+r.IntN(10)))
+		j.RebuildChecklist(Compute(*j, presets.Builtin()))
 	},
 	func(j *Job, _ *rand.Rand, _ time.Time) { // the log cut (never done by the screen; must still replay)
 		if len(j.Log) > 2 {
@@ -218,6 +224,80 @@ func TestJournalNothingChanged(t *testing.T) {
 	j.Checklist.Mark(j.Checklist.Steps[0].ID, StateDone, "", "", t0)
 	if c, _ := s.Record(&j); !c.Checkpoint {
 		t.Error("a checklist mark does not call for a checkpoint")
+	}
+}
+
+// TestJournalContextOnly: typing a figure the checklist quotes changes the
+// checklist's context and the steps that quote it, not its shape: the
+// record holds the context and those steps, not the whole checklist (with a
+// 100 KB note on a step that does not change, the record stays small), and
+// it calls for no checkpoint; replayed, it gives the live job.
+func TestJournalContextOnly(t *testing.T) {
+	path := filepath.Join(t.TempDir(), "job.json")
+	j := DemoJob()
+	last := j.Checklist.Steps[len(j.Checklist.Steps)-1].ID
+	if err := j.Checklist.SetNote(last, strings.Repeat("gas 0 % LEL at the rim; ", 100<<10/24)); err != nil {
+		t.Fatal(err)
+	}
+	s, err := CreateSession(path, j, SessionOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer s.Abandon()
+	before := j.Checklist.Context
+	for _, v := range []string{"12.5 m", "30 m", "14 m"} {
+		j.Set(FieldHoseLength, v)
+		j.RebuildChecklist(Compute(j, presets.Builtin()))
+		fi0, _ := os.Stat(JournalPath(path))
+		c, err := s.Record(&j)
+		if err != nil || !c.Recorded || c.Checkpoint {
+			t.Errorf("hose %s: %+v, %v (want recorded, no checkpoint)", v, c, err)
+		}
+		fi1, _ := os.Stat(JournalPath(path))
+		if n := fi1.Size() - fi0.Size(); n > 8<<10 {
+			t.Errorf("hose %s: a record of %d bytes", v, n)
+		}
+	}
+	if j.Checklist.Context == before {
+		t.Fatal("the context did not change: the test shows nothing")
+	}
+	b, _ := os.ReadFile(JournalPath(path))
+	if !bytes.Contains(b, []byte(`"checklist_context":`)) || bytes.Contains(b, []byte(`"checklist":`)) {
+		t.Errorf("records do not hold the context alone:\n%.2000s", b)
+	}
+	got, err := Load(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if encoded(t, got) != encoded(t, j) {
+		t.Error("the job file and its journal do not read back as the live job")
+	}
+}
+
+// TestJournalVersion1: a journal in format version 1 (before
+// "checklist_context") still reads and applies.
+func TestJournalVersion1(t *testing.T) {
+	path := filepath.Join(t.TempDir(), "job.json")
+	s, err := CreateSession(path, DemoJob(), SessionOptions{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	s.Abandon()
+	_, mark, _, err := loadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	v1 := `{"schema":"drawdown-journal","version":1,"job":"` + mark.ID + `"}` + "\n" +
+		`{"n":` + fmt.Sprint(mark.Seq+1) + `,"inputs":{"hose.length":"30 m"}}` + "\n"
+	if err := os.WriteFile(JournalPath(path), []byte(v1), 0o600); err != nil {
+		t.Fatal(err)
+	}
+	got, err := Load(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got.Inputs[FieldHoseLength] != "30 m" {
+		t.Errorf("a version 1 journal was not applied: hose length %q", got.Inputs[FieldHoseLength])
 	}
 }
 

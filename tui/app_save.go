@@ -3,6 +3,7 @@ package tui
 import (
 	"errors"
 	"os"
+	"time"
 
 	tea "charm.land/bubbletea/v2"
 
@@ -15,7 +16,8 @@ import (
 // nothing changed (a move changes only the resume position, which is kept
 // for the next checkpoint). A checkpoint writes the job file whole, in a
 // command, one at a time: after a checklist mark, a reading, a change of
-// pane, ctrl+s or s, and at exit (Finish). The journal is flushed to disk
+// pane (once the pane has stayed paneSettle: a look through the views
+// writes the file once), ctrl+s or s, and at exit (Finish). The journal is flushed to disk
 // in the background at most once a second.
 
 // persistState is the screen's side of the session.
@@ -34,6 +36,8 @@ type persistState struct {
 	pendingReady bool
 
 	focus    PaneID // the pane at the last checkpoint
+	shown    PaneID // the pane at the last persist
+	paneSeq  int    // counts changes of pane, for paneSettledMsg
 	want     bool   // a checkpoint is asked for
 	inFlight bool   // a checkpoint is running
 	again    bool   // another is wanted when it is back
@@ -46,7 +50,7 @@ type persistState struct {
 // one OpenStart opened, or one opened here for a path without one (tests,
 // a new job). It restores the job's draft.
 func (m *Model) startPersist(st Start) {
-	m.ps.path, m.ps.focus, m.ps.prompt = m.path, m.focus, st.Prompt
+	m.ps.path, m.ps.focus, m.ps.shown, m.ps.prompt = m.path, m.focus, m.focus, st.Prompt
 	switch {
 	case st.ReadOnly:
 		m.ps.readOnly, m.noSave = true, true
@@ -87,6 +91,12 @@ func (m *Model) openSession() {
 // job is on screen; a job held by another process brings up the lock
 // prompt.
 func (m *Model) before(msg tea.Msg) {
+	if pm, ok := msg.(paneSettledMsg); ok {
+		if pm.seq == m.ps.paneSeq && m.focus != m.ps.focus {
+			m.ps.want = true
+		}
+		return
+	}
 	lm, ok := msg.(jobLoadedMsg)
 	if !ok {
 		return
@@ -128,13 +138,31 @@ func (m *Model) persist() tea.Cmd {
 	if c.Recorded {
 		m.saveErr, m.lastSaved = nil, m.now()
 	}
-	if c.Checkpoint || m.focus != m.ps.focus || m.ps.want {
+	if c.Checkpoint || m.ps.want {
 		m.ps.want = false
-		m.ps.focus = m.focus
 		return m.checkpoint()
+	}
+	if m.focus != m.ps.shown {
+		m.ps.shown = m.focus
+		m.ps.paneSeq++
+		seq := m.ps.paneSeq
+		return tea.Tick(paneSettle, func(time.Time) tea.Msg { return paneSettledMsg{seq} })
 	}
 	return nil
 }
+
+// paneSettle is how long a pane stays on screen before its change of pane
+// is checkpointed: looking through the views one after another writes the
+// job file once, not once a view (with 10,000 readings a checkpoint costs
+// some 20 ms of CPU). Until then the journal holds every edit, and only the
+// resume position waits. (A variable: the tests but the pty ones set it
+// to 0, for a checkpoint at once.)
+var paneSettle = paneSettleTime
+
+const paneSettleTime = time.Second
+
+// paneSettledMsg: the pane of change seq has stayed paneSettle.
+type paneSettledMsg struct{ seq int }
 
 // switchJob takes up the session of the job now on screen (opened from the
 // list, or a new one) and gives the last one up: its journal holds every
@@ -200,6 +228,7 @@ func (m *Model) checkpoint() tea.Cmd {
 		return nil
 	}
 	m.recordResume()
+	m.ps.focus = m.focus
 	m.ps.inFlight = true
 	m.saveSeq++
 	return checkpointCmd(s, m.job.Clone(), s.Seq(), m.saveSeq, m.markedAs != m.path)

@@ -7,7 +7,6 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
-	"runtime"
 	"runtime/pprof"
 	"slices"
 	"strconv"
@@ -44,7 +43,9 @@ import (
 // program uses over the same wall time (measured just before: the
 // renderer's frame ticker); B/key and floor-B/key are medians over the
 // keys; ×floor is their ratio. "save" runs with saving on, as in the field;
-// "nosave" with saving off (Options.NoSave).
+// "nosave" with saving off (Options.NoSave). quit-ms is the time from
+// ctrl+c to the end of the process, which saves the job as main does
+// (Finish).
 
 // ptyRun is the program running on a pseudo-terminal, in a process of its
 // own (this test binary started again as the program: see TestMain), so
@@ -84,6 +85,7 @@ func TestMain(m *testing.M) {
 // ptyChild runs the screen on this process's terminal as main does
 // (tea.NewProgram with its defaults), on a benchmark job.
 func ptyChild(name, dir string) int {
+	paneSettle = paneSettleTime // as in the field (the other tests set 0)
 	if name == ptyNullJob {
 		if _, err := tea.NewProgram(nullModel{}).Run(); err != nil {
 			return 1
@@ -101,16 +103,22 @@ func ptyChild(name, dir string) int {
 		start.Dir, start.Path = dir, model.NewJobPath(dir, "bench")
 	}
 	m := New(Options{Start: start, NoSave: dir == "", Loc: time.UTC})
-	// DRAWDOWN_PTY_CHILD_PROF=FILE writes the program's CPU profile.
+	// DRAWDOWN_PTY_CHILD_PROF=FILE writes the program's CPU profile (at
+	// pprof's 100 Hz), of the last program started: select one run, e.g.
+	// -bench 'PTY/80x24/10k-readings/^save$/typing$' -benchtime 600x.
 	if p := os.Getenv("DRAWDOWN_PTY_CHILD_PROF"); p != "" {
 		if f, err := os.Create(p); err == nil {
-			runtime.SetCPUProfileRate(1000)
 			_ = pprof.StartCPUProfile(f)
 			defer pprof.StopCPUProfile()
 		}
 	}
-	if _, err := tea.NewProgram(m).Run(); err != nil {
+	final, err := tea.NewProgram(m).Run()
+	if err != nil {
 		return 1
+	}
+	// As main ends: the job written whole within the bounded wait.
+	if fm, ok := final.(*Model); ok {
+		_ = Finish(fm, "")
 	}
 	return 0
 }
@@ -289,7 +297,9 @@ func (r *ptyRun) switches() int {
 	return n
 }
 
-func (r *ptyRun) stop() {
+// stop quits the program (ctrl+c) and returns how long it took to end.
+func (r *ptyRun) stop() time.Duration {
+	t0 := time.Now()
 	_, _ = r.master.WriteString("\x03")
 	select {
 	case <-r.done:
@@ -297,7 +307,9 @@ func (r *ptyRun) stop() {
 		_ = r.cmd.Process.Kill()
 		<-r.done
 	}
+	d := time.Since(t0)
 	r.master.Close()
+	return d
 }
 
 // ptyScenario is one thing a technician does, as keys: setup keys (not
@@ -385,7 +397,12 @@ func BenchmarkPTY(b *testing.B) {
 
 func benchPTY(b *testing.B, cols, rows int, job string, save bool, sc ptyScenario) {
 	r := startPTY(b, cols, rows, job, save)
-	defer r.stop()
+	stopped := false
+	defer func() {
+		if !stopped {
+			r.stop()
+		}
+	}()
 	for _, k := range sc.setup {
 		r.key(k)
 	}
@@ -410,6 +427,10 @@ func benchPTY(b *testing.B, cols, rows int, job string, save bool, sc ptyScenari
 	net := max(cpu-idleRate*wall, 0)
 	b.ReportMetric(net/float64(b.N)/1e3, "cpu-µs/key")
 	b.ReportMetric(max(sw-idleSw*wall, 0)/float64(b.N), "switches/key")
+	// Quit: ctrl+c until the process has ended (with saving on, the job
+	// written whole within Finish's bounded wait).
+	stopped = true
+	b.ReportMetric(float64(r.stop())/1e6, "quit-ms")
 
 	// Bytes against the floor: replay the output into a virtual terminal,
 	// snapshotting the screen at each key's start and end.
