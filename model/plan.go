@@ -34,6 +34,10 @@ type Inputs struct {
 	// FlowTests are bucket tests of the flow: the plan's losses are fitted
 	// to them and its band narrows to what they support.
 	FlowTests []FlowTest
+	// Quick leaves out the flow and time ranges (each plans the drain a
+	// dozen times): for a field still being typed in, whose plan stands
+	// for a moment only. Plan.Quick says so.
+	Quick bool
 }
 
 // ReceiverSpec describes a receiving vessel for a transfer: its level rises
@@ -134,6 +138,9 @@ type Plan struct {
 	PumpRate        calc.FlowRate
 	PumpFinish      calc.Seconds
 	PumpFallsBehind bool
+	// Quick: the ranges were left out (Inputs.Quick); FlowLow, FlowHigh,
+	// TimeLow and TimeHigh are the central values and Band is nil.
+	Quick bool
 	// SlowMayNotStart is true when, at the slow end of the tolerances, the
 	// siphon would not run at all: TimeHigh then has no upper bound.
 	SlowMayNotStart bool
@@ -153,6 +160,12 @@ func (p Plan) OK() bool { return p.Err == nil }
 // Compute computes the plan of a job (see ComputeInputs).
 func Compute(j Job, cat *presets.Catalogue) Plan {
 	return ComputeInputs(Inputs{Values: j.Inputs, Units: j.Units, FilmRisk: j.Facts.MayCarryOil, FlowTests: j.FlowTests}, cat)
+}
+
+// ComputeQuick is Compute without the flow and time ranges (Inputs.Quick),
+// for the plan shown while a field is being typed in.
+func ComputeQuick(j Job, cat *presets.Catalogue) Plan {
+	return ComputeInputs(Inputs{Values: j.Inputs, Units: j.Units, FilmRisk: j.Facts.MayCarryOil, FlowTests: j.FlowTests, Quick: true}, cat)
 }
 
 // ComputeInputs turns a job's inputs into calc inputs and results. It is

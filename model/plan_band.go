@@ -35,6 +35,10 @@ func (c *computer) tolerance() calc.Tolerance {
 // computed, it collapses to the central flow and a note says so.
 func (c *computer) band() {
 	p := &c.p
+	if c.in.Quick {
+		p.Quick, p.FlowLow, p.FlowHigh = true, p.Result.Flow, p.Result.Flow
+		return
+	}
 	lo, hi, err := calc.FlowBand(p.Siphon, c.tolerance())
 	if err != nil {
 		lo, hi = p.Result.Flow, p.Result.Flow
@@ -50,6 +54,9 @@ func (c *computer) band() {
 func (c *computer) drainBand() {
 	p := &c.p
 	p.TimeLow, p.TimeHigh = p.Drain.Time, p.Drain.Time
+	if c.in.Quick {
+		return
+	}
 	b, err := calc.PlanBandFrom(p.DrainIn, *p.Drain, c.tolerance())
 	if err != nil {
 		c.note("no time range: " + err.Error())

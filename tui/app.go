@@ -232,6 +232,9 @@ func (m *Model) Init() tea.Cmd { return tea.Batch(tea.RequestBackgroundColor, m.
 func (m *Model) Update(msg tea.Msg) (tea.Model, tea.Cmd) {
 	m.before(msg)
 	cmd := m.update(msg)
+	if m.st.hasPlan && m.st.plan.Quick && !m.typingField() {
+		m.recompute() // typing ended: the ranges again
+	}
 	m.sync()
 	return m, tea.Batch(cmd, m.whatIfCmd(), m.persist())
 }
@@ -398,6 +401,9 @@ func inputsKey(j *model.Job, cat *presets.Catalogue) (key string, ok bool) {
 func (m *Model) sameInputs() bool {
 	key, ok := inputsKey(&m.job, m.cat)
 	m.nextInputs = ""
+	if ok && m.typingField() {
+		key += "|quick" // the ranges are left out while a field is typed in
+	}
 	if ok {
 		m.nextInputs = key
 	}
@@ -411,6 +417,13 @@ func (m *Model) sameInputs() bool {
 	}
 	m.touch()
 	return true
+}
+
+// typingField reports whether a field is being typed in: the plan then
+// leaves out the flow and time ranges (model.ComputeQuick), which are
+// worked out when the typing ends.
+func (m *Model) typingField() bool {
+	return m.focus.isForm() && m.forms[m.focus].Editing()
 }
 
 // keepInputs records what the plan just made was made from: the key when

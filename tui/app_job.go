@@ -60,7 +60,11 @@ func (m *Model) recompute() {
 	if m.sameInputs() {
 		return // nothing physical changed (app.go)
 	}
-	p := model.Compute(m.job, m.cat)
+	compute := model.Compute
+	if m.typingField() {
+		compute = model.ComputeQuick
+	}
+	p := compute(m.job, m.cat)
 	m.keepInputs(p.OK())
 	// The checklist's context is derived again from the job as it stands
 	// and this plan after every compute (model.ContextFor): nothing in it
@@ -79,7 +83,7 @@ func (m *Model) recompute() {
 		if in, ok := m.job.LastGoodInputs(p.FieldErrors); ok {
 			last := m.job // the same job and facts, with each wrong field's last valid text
 			last.Inputs = in
-			if lp := model.Compute(last, m.cat); lp.OK() {
+			if lp := compute(last, m.cat); lp.OK() {
 				p = lp
 			}
 		}

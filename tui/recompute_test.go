@@ -105,8 +105,11 @@ func TestRecomputeSkipped(t *testing.T) {
 	m := newTestModel(t, 120, 40)
 	m = selectField(t, m, model.FieldHoseLength)
 	m = press(t, m, "enter", "end") // typing in "12 m", text kept
+	m = press(t, m, "backspace")    // "12 " is still 12 m; the plan is made once, without its ranges, while typing
+	if !m.st.plan.Quick {
+		t.Error("the plan while typing has its ranges (they wait for the typing to end)")
+	}
 	gen := m.planGen
-	m = press(t, m, "backspace") // "12 " is still 12 m
 	m = press(t, m, "m", "space")
 	if m.planGen != gen {
 		t.Errorf("the plan was made again %d times for the same length", m.planGen-gen)
@@ -116,6 +119,9 @@ func TestRecomputeSkipped(t *testing.T) {
 		t.Fatal("no new plan for a new length")
 	}
 	m = press(t, m, "esc")
+	if m.st.plan.Quick {
+		t.Error("the ranges did not come back when the typing ended")
+	}
 	gen = m.planGen
 	m = press(t, m, "f2") // US units
 	if m.planGen != gen {

@@ -104,7 +104,11 @@ func (r *ResultPane) content(tight int) []string {
 	}
 	if s.Runs {
 		add(st.fast.Muted.Render(padRight("Flow", labelW)) + st.fast.Big.Render(s.Flow))
-		if s.FlowRange != "" && tight < 1 {
+		switch {
+		case tight >= 1:
+		case s.RangesPending:
+			row("  range", rangePending)
+		case s.FlowRange != "":
 			row("  range", s.FlowRange)
 		}
 		row("Speed", s.Speed)
@@ -113,7 +117,7 @@ func (r *ResultPane) content(tight int) []string {
 		}
 	}
 	if d := s.Drain; d != nil {
-		drainRows(d, tight, iw, row)
+		drainRows(d, tight, iw, s.RangesPending, row)
 	}
 	if s.Throttle != "" {
 		row("Throttle", s.ThrottleShort)
@@ -226,7 +230,7 @@ func prefixAll(ls []string, p string) []string {
 // drainRows are the Result's drain lines: when it stops (or spills), the
 // time's range, why and where it stops, the inflow, what is left and what a
 // pump takes to finish it, and the air at the intake.
-func drainRows(d *present.Drain, tight, iw int, row func(label, value string)) {
+func drainRows(d *present.Drain, tight, iw int, pending bool, row func(label, value string)) {
 	switch {
 	case d.Overflows:
 		row("Spills", "in "+d.Time)
@@ -235,7 +239,11 @@ func drainRows(d *present.Drain, tight, iw int, row func(label, value string)) {
 	default:
 		row("Stops in", d.Time)
 	}
-	if d.TimeRange != "" && tight < 1 {
+	switch {
+	case tight >= 1:
+	case pending:
+		row("  range", rangePending)
+	case d.TimeRange != "":
 		row("  range", d.TimeRange)
 	}
 	fc := d.Forecast
@@ -259,3 +267,7 @@ func drainRows(d *present.Drain, tight, iw int, row func(label, value string)) {
 		row("", d.AirShort)
 	}
 }
+
+// rangePending stands in a range row while a field is typed in: the ranges
+// plan the drain a dozen times, so they wait for the typing to end.
+const rangePending = "worked out on enter"

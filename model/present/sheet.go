@@ -27,6 +27,9 @@ type Sheet struct {
 
 	Flow      string // all hoses, e.g. "82.2 L/min (2 hoses)"
 	FlowRange string // "" when the band is empty
+	// RangesPending: the plan left the ranges out while a field is typed
+	// in (model.Plan.Quick); they come back when the typing ends.
+	RangesPending bool
 	Speed     string // "1.21 m/s, turbulent"
 
 	// Drain is nil without a tank, or when the siphon will not run.
@@ -140,6 +143,7 @@ func Build(p model.Plan, sys model.System, hz presets.Hazards) Sheet {
 			s.FlowRange = Range(f.Of(model.DimFlow, float64(p.FlowLow)), f.Of(model.DimFlow, float64(p.FlowHigh)))
 		}
 		s.Speed = f.Of(model.DimVelocity, float64(r.Velocity)) + ", " + r.Regime.String()
+		s.RangesPending = p.Quick
 	}
 	s.Crest = CrestOf(r, g.Lift(), f)
 	s.Vacuum = crestVacuumText(r, f)
