@@ -30,7 +30,7 @@ type Sheet struct {
 	// RangesPending: the plan left the ranges out while a field is typed
 	// in (model.Plan.Quick); they come back when the typing ends.
 	RangesPending bool
-	Speed     string // "1.21 m/s, turbulent"
+	Speed         string // "1.21 m/s, turbulent"
 
 	// Drain is nil without a tank, or when the siphon will not run.
 	Drain *Drain
