@@ -54,6 +54,9 @@ func (e *ParseError) Unwrap() error { return e.Err }
 const (
 	maxMagnitude = 1e15
 	maxSI        = 1e10
+	// maxRateSI bounds a rate of rise (m/s): shown in mm/h it is 3.6e6
+	// times the SI value, so maxSI would print past maxMagnitude.
+	maxRateSI = 100
 )
 
 // Parse reads text as a quantity of dimension d and returns it in SI units
@@ -231,7 +234,7 @@ func (p *parser) toSI(v float64, u unit) (float64, error) {
 	}
 	// The 0.1 % slack lets Format's rounded output of a value at the bound
 	// parse again.
-	if math.Abs(si) > maxSI*1.001 || math.IsNaN(si) {
+	if math.Abs(si) > maxSI*1.001 || math.IsNaN(si) || p.d == DimRate && math.Abs(si) > maxRateSI*1.001 {
 		return 0, p.fail(0, "number too large", ErrTooLarge)
 	}
 	if si == 0 {
