@@ -10,7 +10,8 @@ import (
 )
 
 // writeText lays out the plan's sheet for people. Every word and figure
-// comes from package present; this only arranges them.
+// comes from package present; this only arranges them. Its cyclomatic
+// complexity (~27) is one condition per optional row, in print order.
 func writeText(w io.Writer, p model.Plan, o calcOptions) {
 	s := present.Build(p, o.units, p.Hazards)
 	f := present.Figures{Sys: o.units}

@@ -64,7 +64,7 @@ func TestBandCoverage(t *testing.T) {
 	const n = 300
 	for name, in := range mcCases() {
 		tol := Tolerance{}
-		b, err := PlanBand(in, tol)
+		b, err := planBand(in, tol)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -103,7 +103,7 @@ func TestBandCoverageAfterTests(t *testing.T) {
 	r := rand.New(rand.NewPCG(13, 2))
 	const n = 150
 	for name, in := range mcCases() {
-		base, err := PlanBand(in, Tolerance{})
+		base, err := planBand(in, Tolerance{})
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -124,7 +124,7 @@ func TestBandCoverageAfterTests(t *testing.T) {
 			tol := Tolerance{Tests: tests, TestUncertainty: BucketUncertainty(0.03, 0.3, tsum/3, 3)}
 			fitIn := in
 			fitIn.Siphon = FitToTests(in.Siphon, tests, 1).Siphon
-			b, err := PlanBand(fitIn, tol)
+			b, err := planBand(fitIn, tol)
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -151,7 +151,7 @@ func TestBandCoverageAfterTests(t *testing.T) {
 // the time most, and a smooth hose's roughness range moves little.
 func TestBandDriver(t *testing.T) {
 	in := mcCases()["low bund"]
-	b, err := PlanBand(in, Tolerance{})
+	b, err := planBand(in, Tolerance{})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -169,4 +169,17 @@ func TestBandDriver(t *testing.T) {
 	if math.Max(d, u) != best {
 		t.Errorf("driver %s is not the largest effect", b.Driver)
 	}
+}
+
+// planBand (a test helper) plans the drain at the nominal inputs and reports the likely
+// range of the start flow, of the time to a fixed level and of the finish
+// level (see Band).
+//
+// Errors: as PlanDrain and FlowBand.
+func planBand(in DrainInput, tol Tolerance) (Band, error) {
+	nominal, err := planNoCurve(in)
+	if err != nil {
+		return Band{}, err
+	}
+	return PlanBandFrom(in, nominal, tol)
 }

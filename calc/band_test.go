@@ -88,7 +88,7 @@ func TestBandBadInput(t *testing.T) {
 // takes longer than the fast one for a drain to the intake (same stop rule).
 func TestPlanBand(t *testing.T) {
 	in := DrainInput{Tank: mustTank(NewVerticalCylinder(1.2, 1.5)), Siphon: baseSiphon(1.4, 0.05, 1.9, -2)}
-	b, err := PlanBand(in, Tolerance{})
+	b, err := planBand(in, Tolerance{})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -105,11 +105,11 @@ func TestPlanBand(t *testing.T) {
 	tr := DrainInput{Tank: mustTank(NewVerticalCylinder(1.2, 2)),
 		Receiver: &Receiver{Tank: mustTank(NewRectangular(1, 1, 2)), Floor: -0.5, Level: 0.2},
 		Siphon:   baseSiphon(1.8, 0.05, 2.3, -0.5)}
-	if _, err := PlanBand(tr, Tolerance{}); err != nil {
+	if _, err := planBand(tr, Tolerance{}); err != nil {
 		t.Fatal(err)
 	}
 	edge := DrainInput{Tank: mustTank(NewVerticalCylinder(1.2, 1.5)), Siphon: baseSiphon(1.4, 0.05, 1.9, 1.38)}
-	be, err := PlanBand(edge, Tolerance{})
+	be, err := planBand(edge, Tolerance{})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -133,7 +133,7 @@ func TestPlanBandFrom(t *testing.T) {
 		"target":            target,
 	}
 	for name, in := range cases {
-		want, err := PlanBand(in, Tolerance{})
+		want, err := planBand(in, Tolerance{})
 		if err != nil {
 			t.Fatalf("%s: %v", name, err)
 		}

@@ -31,7 +31,7 @@ func TestEveryValidatorNamesItsQuantity(t *testing.T) {
 		return func() error { in := okDrain; f(&in); _, err := PlanDrain(in); return err }
 	}
 	band := func(tol Tolerance) func() error {
-		return func() error { _, err := PlanBand(okDrain, tol); return err }
+		return func() error { _, err := planBand(okDrain, tol); return err }
 	}
 	tk := func(f func() (Tank, error)) func() error { return func() error { _, err := f(); return err } }
 	cases := []struct {

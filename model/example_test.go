@@ -1,8 +1,9 @@
 package model_test
 
 import (
-	"bytes"
 	"fmt"
+	"os"
+	"path/filepath"
 
 	"drawdown/model"
 )
@@ -40,18 +41,24 @@ func ExampleFieldSpec_Validate() {
 	// Hose inside diameter: 30 in is out of range; accepted 0.118 to 23.6 in
 }
 
-// Save a job and load it back through a buffer; the job file keeps every
-// input exactly as typed.
-func ExampleEncode() {
-	job := model.DemoJob()
-	job.Set(model.FieldHoseID, "1-1/2in")
-
-	var buf bytes.Buffer
-	if err := model.Encode(&buf, job); err != nil {
+// Save a job and load it back; the job file keeps every input exactly as
+// typed.
+func ExampleSaveAtomic() {
+	dir, err := os.MkdirTemp("", "drawdown-example")
+	if err != nil {
 		fmt.Println(err)
 		return
 	}
-	back, err := model.Decode(&buf)
+	defer os.RemoveAll(dir)
+	job := model.DemoJob()
+	job.Set(model.FieldHoseID, "1-1/2in")
+
+	path := filepath.Join(dir, "bund.json")
+	if err := model.SaveAtomic(path, job); err != nil {
+		fmt.Println(err)
+		return
+	}
+	back, err := model.Load(path)
 	if err != nil {
 		fmt.Println(err)
 		return

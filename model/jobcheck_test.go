@@ -60,7 +60,7 @@ func TestJobBoundsLinear(t *testing.T) {
 		t.Errorf("a key path of 1,025 characters: %v", err)
 	}
 	start := time.Now()
-	_, err := Decode(bytes.NewReader(nested(16000)))
+	_, err := decode(bytes.NewReader(nested(16000)))
 	if !errors.Is(err, ErrTooDeep) || !errors.Is(err, ErrDamaged) {
 		t.Errorf("16,000 deep: %v", err)
 	}
@@ -180,7 +180,7 @@ func FuzzReadJournal(f *testing.F) {
 		jl.replay(&j, JournalMark{ID: "a"})
 		if checkJob(&j) == nil {
 			var b bytes.Buffer
-			if err := Encode(&b, j); err != nil {
+			if err := encode(&b, j); err != nil {
 				t.Fatalf("a replayed job does not encode: %v", err)
 			}
 		}

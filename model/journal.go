@@ -199,7 +199,8 @@ type Change struct {
 // diff builds the record that turns the snapshot into j, and reports
 // whether it calls for a checkpoint. It returns nil when nothing that is
 // journalled changed. The cost is that of comparing the short entries and
-// the ends of the two lists, whatever their lengths.
+// the ends of the two lists, whatever their lengths. Its cyclomatic
+// complexity (~26) is one case per kind of journal entry (and per list).
 func (s *journalSnap) diff(j *Job) (r *journalRecord, changed []int, checkpoint bool, err error) {
 	r = &journalRecord{}
 	live, old := reflect.ValueOf(j).Elem(), reflect.ValueOf(&s.job).Elem()

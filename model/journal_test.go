@@ -105,7 +105,7 @@ func encoded(t *testing.T, j Job) string {
 	t.Helper()
 	j.Resume, j.Updated = Resume{}, time.Time{}
 	var b bytes.Buffer
-	if err := Encode(&b, j); err != nil {
+	if err := encode(&b, j); err != nil {
 		t.Fatal(err)
 	}
 	return b.String()

@@ -6,6 +6,7 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
+	"io"
 	"math"
 	"math/rand/v2"
 	"os"
@@ -28,16 +29,16 @@ func TestEncodeDecodeRoundTrip(t *testing.T) {
 	j.Started = t0
 	j.Resume = Resume{Pane: "Checklist", Field: FieldLift, Step: 3, StepID: "x"}
 	var buf bytes.Buffer
-	if err := Encode(&buf, j); err != nil {
+	if err := encode(&buf, j); err != nil {
 		t.Fatal(err)
 	}
 	first := buf.String()
-	got, err := Decode(&buf)
+	got, err := decode(&buf)
 	if err != nil {
 		t.Fatal(err)
 	}
 	var again bytes.Buffer
-	if err := Encode(&again, got); err != nil {
+	if err := encode(&again, got); err != nil {
 		t.Fatal(err)
 	}
 	if again.String() != first {
@@ -57,7 +58,7 @@ func TestEncodeRefusesNaN(t *testing.T) {
 	j := NewJob("nan", SI, t0)
 	j.Readings = []Reading{{At: t0, Level: math.NaN()}}
 	var buf bytes.Buffer
-	if err := Encode(&buf, j); err == nil {
+	if err := encode(&buf, j); err == nil {
 		t.Error("NaN reading encoded")
 	}
 	if buf.Len() != 0 {
@@ -112,12 +113,12 @@ func TestFixtureFormatStable(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	j, err := Decode(bytes.NewReader(b))
+	j, err := decode(bytes.NewReader(b))
 	if err != nil {
 		t.Fatal(err)
 	}
 	var out bytes.Buffer
-	Encode(&out, j)
+	encode(&out, j)
 	if !bytes.Equal(out.Bytes(), b) {
 		t.Errorf("version-3 fixture re-encodes differently; if the format changed on purpose, bump JobVersion and add a migration")
 	}
@@ -351,12 +352,12 @@ func FuzzDecode(f *testing.F) {
 		f.Add(b)
 	}
 	var buf bytes.Buffer
-	Encode(&buf, NewJob("x", US, t0))
+	encode(&buf, NewJob("x", US, t0))
 	f.Add(buf.Bytes())
 	f.Add([]byte(`{"schema":"drawdown-job","version":1,"inputs":{"lift":"\u0000"},"units":"us"}`))
 	f.Add([]byte(`{"schema":"drawdown-job","version":1,"readings":[{"at":"2026-01-01T00:00:00+05:30","level_m":1e308}]}`))
 	f.Fuzz(func(t *testing.T, data []byte) {
-		j, err := Decode(bytes.NewReader(data))
+		j, err := decode(bytes.NewReader(data))
 		if err != nil {
 			var fe *JobFileError
 			if !errors.As(err, &fe) || fe.Detail == "" {
@@ -365,14 +366,14 @@ func FuzzDecode(f *testing.F) {
 			return
 		}
 		var b1, b2 bytes.Buffer
-		if err := Encode(&b1, j); err != nil {
+		if err := encode(&b1, j); err != nil {
 			t.Fatalf("decoded job does not encode: %v", err)
 		}
-		j2, err := Decode(bytes.NewReader(b1.Bytes()))
+		j2, err := decode(bytes.NewReader(b1.Bytes()))
 		if err != nil {
 			t.Fatalf("encoded job does not decode: %v\n%s", err, b1.String())
 		}
-		if err := Encode(&b2, j2); err != nil {
+		if err := encode(&b2, j2); err != nil {
 			t.Fatal(err)
 		}
 		if !bytes.Equal(b1.Bytes(), b2.Bytes()) {
@@ -591,4 +592,23 @@ func TestHomeFallback(t *testing.T) {
 	if runtime.GOOS == "linux" && got != filepath.Join(h, ".local", "share", "drawdown") {
 		t.Errorf("Home = %q", got)
 	}
+}
+
+// encode and decode put the shipped encodeBytes and decodeBytes (what
+// SaveAtomic and Load call) over a buffer, for the round-trip tests.
+func encode(w *bytes.Buffer, j Job) error {
+	b, err := encodeBytes(j)
+	if err != nil {
+		return err
+	}
+	w.Write(b)
+	return nil
+}
+
+func decode(r io.Reader) (Job, error) {
+	data, err := io.ReadAll(r)
+	if err != nil {
+		return Job{}, err
+	}
+	return decodeBytes(data)
 }

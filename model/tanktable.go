@@ -303,23 +303,6 @@ func fileError(err error) error {
 	return err
 }
 
-// WriteTankTable writes rows as a calibration table that ParseTankTable
-// reads back to the same values: a header, then level in m and volume in m³
-// with every digit kept.
-func WriteTankTable(w io.Writer, rows []TablePoint) error {
-	cw := csv.NewWriter(w)
-	if err := cw.Write([]string{"level (m)", "volume (m³)"}); err != nil {
-		return err
-	}
-	for _, r := range rows {
-		if err := cw.Write([]string{strconv.FormatFloat(r.Level, 'g', -1, 64), strconv.FormatFloat(r.Volume, 'g', -1, 64)}); err != nil {
-			return err
-		}
-	}
-	cw.Flush()
-	return cw.Error()
-}
-
 var errTableLong = fmt.Errorf("more than %d rows; a calibration table is at most %d rows", calc.MaxTableRows, calc.MaxTableRows)
 
 type tableErr string

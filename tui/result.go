@@ -65,7 +65,9 @@ func (r *ResultPane) render() {
 const labelW = 9
 
 // content is the pane's lines; tight 1 leaves out the flow and time
-// ranges, tight 2 also the crest's zero-flow and this-flow limits.
+// ranges, tight 2 also the crest's zero-flow and this-flow limits. Its
+// cyclomatic complexity (~27) is one condition per optional row, in the
+// order the rows are drawn.
 func (r *ResultPane) content(tight int) []string {
 	st := r.styles
 	s := r.sheet
