@@ -364,6 +364,8 @@ func (m *Model) helpLine() string {
 	switch {
 	case m.showHelp:
 		b = []key.Binding{m.keys.CloseHelp}
+	case m.ps.prompt != nil:
+		b = promptHelp(m.ps.prompt)
 	case m.jobs.open:
 		b = m.jobs.ShortHelp()
 	case m.lay.Narrow && m.showResult:

@@ -3,6 +3,7 @@ package tui
 import (
 	"errors"
 
+	"charm.land/bubbles/v2/key"
 	tea "charm.land/bubbletea/v2"
 
 	"drawdown/model"
@@ -69,6 +70,25 @@ func (m *Model) promptLines(p *StartPrompt) (title string, body, keys []string) 
 		keys = append(keys, "q  quit")
 	}
 	return title, body, keys
+}
+
+// promptHelp is the help line under the prompt: its keys only, as
+// promptKey takes them (no pane's keys work while it is up).
+func promptHelp(p *StartPrompt) []key.Binding {
+	k := func(keys, help string) key.Binding {
+		return key.NewBinding(key.WithKeys(keys), key.WithHelp(keys, help))
+	}
+	var b []key.Binding
+	switch p.Kind {
+	case PromptLocked:
+		b = []key.Binding{k("r", "read-only"), k("t", "take it over"), k("o", "another job")}
+	case PromptDamaged:
+		b = []key.Binding{k("d", "open the demo"), k("k", "keep it aside"), k("o", "another job")}
+	}
+	if p.FromList {
+		return append(b, k("esc", "back to the list"))
+	}
+	return append(b, k("q", "quit"))
 }
 
 // promptView draws the prompt in the main block.

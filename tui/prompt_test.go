@@ -118,6 +118,11 @@ func TestLockedStart(t *testing.T) {
 			t.Errorf("first screen lacks %q:\n%s", want, f)
 		}
 	}
+	// the help line names the prompt's keys, not the pane's behind it
+	help := f[strings.LastIndex(strings.TrimRight(f, "\n"), "\n")+1:]
+	if !strings.Contains(help, "t take it over") || strings.Contains(help, "save and quit") || strings.Contains(help, "enter") {
+		t.Errorf("help line under the lock prompt: %q", help)
+	}
 	m = press(t, m, "r")
 	if !m.ps.readOnly || !m.noSave || !strings.Contains(frame(m), "read-only") {
 		t.Errorf("r: read-only %v, not saving %v", m.ps.readOnly, m.noSave)
