@@ -723,3 +723,22 @@ func randomKeys(t *testing.T, rng *rand.Rand, keys []string, sizes [][2]int, ste
 		}
 	}
 }
+
+// TestFirstFrameOnEveryPane: a job left on any pane reopens on it, and the
+// first frame (drawn before any message, the window size included) draws
+// without a panic. Reopening on the Job pane panicked: its rows were built
+// only when the first message synced the panes.
+func TestFirstFrameOnEveryPane(t *testing.T) {
+	for _, s := range paneTable {
+		t.Run(s.name, func(t *testing.T) {
+			j := model.DemoJob()
+			j.Resume.Pane = s.name
+			m := New(Options{Start: Start{Job: j}, NoSave: true})
+			_ = frame(m)
+			m = send(t, m, tea.WindowSizeMsg{Width: 80, Height: 24})
+			checkScreen(t, m)
+			m = send(t, m, tea.WindowSizeMsg{Width: 46, Height: 28})
+			checkScreen(t, m)
+		})
+	}
+}

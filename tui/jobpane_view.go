@@ -11,14 +11,15 @@ const jobLabelW = 28
 
 // View renders the pane in exactly w×h cells: the rows, scrolled to keep
 // the selection in sight, and at the foot the entry being typed or the
-// choices being browsed.
+// choices being browsed. Before Show has built the rows (the first frame,
+// drawn before any message) it draws the title alone.
 func (p *JobPane) View() string {
 	st := p.styles
 	out := []string{st.fast.PaneTitle.Render("Job") + st.fast.Muted.Render("  the job, its crew, the site facts and the record")}
 	foot := p.footLines()
 	room := max(p.h-len(out)-len(foot), 1)
 	p.top = clamp(p.top, max(p.cur-room+1, 0), p.cur)
-	if p.cur > 0 && p.rows[p.cur-1].kind == rowHeading && p.top == p.cur {
+	if p.cur > 0 && p.cur <= len(p.rows) && p.rows[p.cur-1].kind == rowHeading && p.top == p.cur {
 		p.top-- // show a section's heading with its first row
 	}
 	lw := min(jobLabelW, max(p.w/2, 8))
