@@ -67,20 +67,22 @@ func (l jobList) ShortHelp() []key.Binding {
 	k := l.keys.Jobs
 	switch l.mode {
 	case listTemplate:
-		return []key.Binding{l.keys.Next, l.keys.Prev, k.Open, k.Back}
+		return []key.Binding{k.Next, k.Prev, k.Pick, k.Back}
 	case listName, listCopyName:
-		return []key.Binding{k.Open, k.Back}
+		return []key.Binding{k.Create, k.Back}
 	case listBrowse:
 	}
-	return []key.Binding{k.Open, k.New, k.Copy, k.Demo, l.keys.Up, l.keys.Down, k.Back}
+	return []key.Binding{k.Open, k.New, k.Copy, k.Demo, k.Up, k.Down, k.Back}
 }
 
 // View renders the overlay in exactly w×h cells.
 func (l jobList) View() string {
 	st := l.styles
-	out := []string{st.fast.PaneTitle.Render("Jobs") + st.fast.Muted.Render("  enter open · n new · c copy · esc back")}
+	title := st.fast.PaneTitle.Render("Jobs")
+	out := []string{title + st.fast.Muted.Render("  enter open · n new · c copy · esc back")}
 	switch l.mode {
 	case listTemplate:
+		out[0] = title + st.fast.Muted.Render("  a new job")
 		c := newChoices()[l.tmpl]
 		out = append(out, st.fast.Label.Render("Start the new job from:"),
 			st.fast.LabelFocused.Render("◀ "+c.Name+" ▶"))
@@ -89,6 +91,7 @@ func (l jobList) View() string {
 		}
 		return fitBlock(out, l.w, l.h)
 	case listName, listCopyName:
+		out[0] = title + st.fast.Muted.Render("  enter create · esc back")
 		what := "Name of the new job (" + newChoices()[l.tmpl].Name + "):"
 		if l.mode == listCopyName {
 			what = "Name of the copy (same site and set-up; no marks, readings or log):"
@@ -104,7 +107,7 @@ func (l jobList) View() string {
 	case l.loading:
 		out = append(out, st.fast.Muted.Render("reading the job folder…"))
 	case l.err != nil:
-		for _, s := range wrapText("✗ "+l.err.Error(), max(l.w-2, 10), 3) {
+		for _, s := range wrapText("✗ "+present.Clean(l.err.Error()), max(l.w-2, 10), 3) {
 			out = append(out, st.fast.Danger.Render(s))
 		}
 	case len(l.jobs) == 0:
@@ -156,11 +159,11 @@ func (m *Model) jobKey(msg tea.KeyPressMsg) tea.Cmd {
 		switch {
 		case key.Matches(msg, k.Back):
 			l.mode = listBrowse
-		case key.Matches(msg, m.keys.Next):
+		case key.Matches(msg, k.Next):
 			l.tmpl = (l.tmpl + 1) % n
-		case key.Matches(msg, m.keys.Prev):
+		case key.Matches(msg, k.Prev):
 			l.tmpl = (l.tmpl + n - 1) % n
-		case key.Matches(msg, k.Open):
+		case key.Matches(msg, k.Pick):
 			l.mode, l.err = listName, nil
 			l.input.Reset()
 			return l.input.Focus()
@@ -172,7 +175,7 @@ func (m *Model) jobKey(msg tea.KeyPressMsg) tea.Cmd {
 			l.mode, l.err = listBrowse, nil
 			l.input.Blur()
 			return nil
-		case key.Matches(msg, k.Open):
+		case key.Matches(msg, k.Create):
 			return m.startJob()
 		}
 		var cmd tea.Cmd
@@ -184,9 +187,9 @@ func (m *Model) jobKey(msg tea.KeyPressMsg) tea.Cmd {
 	switch {
 	case key.Matches(msg, k.Back), key.Matches(msg, m.keys.Open):
 		l.open, l.err = false, nil
-	case key.Matches(msg, m.keys.Up):
+	case key.Matches(msg, k.Up):
 		l.cursor = max(l.cursor-1, 0)
-	case key.Matches(msg, m.keys.Down):
+	case key.Matches(msg, k.Down):
 		l.cursor = min(l.cursor+1, max(len(l.jobs)-1, 0))
 	case key.Matches(msg, k.Open):
 		if l.cursor < len(l.jobs) && l.jobs[l.cursor].Err == nil {

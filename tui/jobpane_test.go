@@ -161,7 +161,16 @@ func TestJobPaneRelease(t *testing.T) {
 // a copy keeps the site and set-up but no marks or readings (issue 12).
 func TestJobListNewAndCopy(t *testing.T) {
 	m := newTestModel(t, 80, 24)
-	m = press(t, m, "o", "n", "enter")
+	m = press(t, m, "o", "n")
+	// the help line says what Enter does at each step (it picks the
+	// template, it does not take the next one; then it creates the job)
+	if h := lastLine(frame(m)); !strings.Contains(h, "enter start from this") || strings.Contains(h, "enter next") {
+		t.Errorf("help while choosing a template: %q", h)
+	}
+	m = press(t, m, "enter")
+	if h := lastLine(frame(m)); !strings.Contains(h, "enter create it") {
+		t.Errorf("help while naming the job: %q", h)
+	}
 	m = typeText(t, m, "Vault V7 dewatering")
 	m = press(t, m, "enter")
 	j := m.job
@@ -238,4 +247,10 @@ func TestScreenLiquidWalk(t *testing.T) {
 				i, m.job.Inputs[model.FieldLiquid], got, want)
 		}
 	}
+}
+
+// lastLine is a frame's last line: the help line.
+func lastLine(f string) string {
+	f = strings.TrimRight(f, "\n")
+	return f[strings.LastIndex(f, "\n")+1:]
 }

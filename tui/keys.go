@@ -98,6 +98,9 @@ type WhatIfKeys struct {
 // JobListKeys are the keys of the open-job overlay.
 type JobListKeys struct {
 	Open, New, Copy, Demo, Back key.Binding
+	// Up and Down move in the list; Next, Prev and Pick choose what a new
+	// job starts from; Create names it and makes it.
+	Up, Down, Next, Prev, Pick, Create key.Binding
 }
 
 // paneKeyNames are the keys that select panes, in tab order: the digits,
@@ -180,6 +183,13 @@ func DefaultKeyMap() KeyMap {
 			Copy: key.NewBinding(key.WithKeys("c"), key.WithHelp("c", "copy this job")),
 			Demo: key.NewBinding(key.WithKeys("d"), key.WithHelp("d", "new demo job")),
 			Back: key.NewBinding(key.WithKeys("esc"), key.WithHelp("esc", "back")),
+
+			Up:     key.NewBinding(key.WithKeys("up", "k"), key.WithHelp("↑/k", "up")),
+			Down:   key.NewBinding(key.WithKeys("down", "j"), key.WithHelp("↓/j", "down")),
+			Next:   key.NewBinding(key.WithKeys("right", "l"), key.WithHelp("→", "next")),
+			Prev:   key.NewBinding(key.WithKeys("left", "h"), key.WithHelp("←", "prev")),
+			Pick:   key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "start from this")),
+			Create: key.NewBinding(key.WithKeys("enter"), key.WithHelp("enter", "create it")),
 		},
 	}
 	n := min(int(paneCount), len(paneKeyNames))
