@@ -133,8 +133,12 @@ func (f *FormPane) renderRow(i int) (string, []string) {
 		sst := st.fast.Unit
 		if ff.errText != "" {
 			// A word, not an arrow: the message is at the foot of the
-			// form when the field is selected.
+			// form when the field is selected. An empty field is
+			// needed, not wrong.
 			shown, sst = "✗ invalid", st.fast.Danger
+			if strings.TrimSpace(ff.raw) == "" {
+				shown = "✗ needed"
+			}
 		}
 		if who := f.others[ff.spec.ID]; who != "" {
 			// Someone else on the shared job is typing in this field.

@@ -181,6 +181,10 @@ func TestJobListNewAndCopy(t *testing.T) {
 	if strings.Contains(frame(m), "Harrowfen") || strings.Contains(frame(m), "Bund B2") {
 		t.Fatalf("the demo shows in a blank job:\n%s", frame(m))
 	}
+	// its empty measurements read as needed, not as wrong
+	if f := frame(m); !strings.Contains(f, "Hose inside diameter            ✗ needed") || strings.Contains(f, "✗ invalid") {
+		t.Errorf("blank job's empty fields:\n%s", f)
+	}
 	// From the sump-pit template: confined, to the sewer, no names.
 	m = press(t, m, "esc", "o", "n", "right", "right", "enter")
 	m = typeText(t, m, "Pump house P2")
