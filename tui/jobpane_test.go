@@ -185,6 +185,10 @@ func TestJobListNewAndCopy(t *testing.T) {
 	if f := frame(m); !strings.Contains(f, "Hose inside diameter            ✗ needed") || strings.Contains(f, "✗ invalid") {
 		t.Errorf("blank job's empty fields:\n%s", f)
 	}
+	// the Result names the field with its pane, and its accepted range
+	if f := frame(m); !strings.Contains(f, "Fix Hose › Hose inside") || !strings.Contains(f, "600 mm") {
+		t.Errorf("blank job's Result:\n%s", f)
+	}
 	// From the sump-pit template: confined, to the sewer, no names.
 	m = press(t, m, "esc", "o", "n", "right", "right", "enter")
 	m = typeText(t, m, "Pump house P2")

@@ -79,7 +79,9 @@ func (r *ResultPane) content(tight int) []string {
 	}
 	if !s.Valid {
 		add(st.fast.Warning.Render("? NO RESULT YET"))
-		for _, l := range wrapText("Fix the field marked ✗ on the left: "+r.problem, iw, 3) {
+		// the field may be on another pane: name it with its pane, and
+		// leave room for the accepted range
+		for _, l := range wrapText("Fix "+r.problem+" (marked ✗ in its pane)", iw, 6) {
 			add(st.fast.Warning.Render(l))
 		}
 		return ls
