@@ -201,15 +201,19 @@ func (f FormPane) makeHelpLines() []string {
 	text := ff.spec.Help
 	if ff.spec.IsPicker() {
 		if ff.spec.Multi {
-			text = "Chosen: " + ff.shown + ". " + text
+			text = "Chosen: " + present.Clean(ff.shown) + ". " + text
 		} else {
 			for _, c := range ff.choices {
 				if strings.EqualFold(c.ID, strings.TrimSpace(ff.raw)) && c.Note != "" {
 					text = present.Clean(c.Note) + " " + text
 				}
 			}
-			// The row may cut the choice short: name it in full here.
-			text = ff.shown + ". " + text
+			// The row may cut the choice short: name it in full here
+			// (a user preset's name is data: cleaned). Nothing chosen
+			// yet: the help alone.
+			if strings.TrimSpace(ff.raw) != "" || ff.spec.Default != "" {
+				text = present.Clean(ff.shown) + ". " + text
+			}
 		}
 	} else if r := ff.spec.RangeText(f.sys); r != "" {
 		text += " Accepted " + r + "."
